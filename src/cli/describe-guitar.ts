@@ -1,0 +1,55 @@
+/** A short human summary of a validated guitar, used by `check` and reports. */
+import type { Coil, Guitar, Pot } from '../guitar/index.js';
+import { formatEngineering } from '../units/index.js';
+
+const MM_PER_M = 1000;
+
+export function formatPosition(coil: Coil): string {
+  const bass = coil.positionBassM * MM_PER_M;
+  const treble = coil.positionTrebleM * MM_PER_M;
+  return bass === treble
+    ? `${formatEngineering(bass)} mm`
+    : `${formatEngineering(bass)}→${formatEngineering(treble)} mm (bass→treble)`;
+}
+
+function formatPot(pot: Pot): string {
+  const taper = pot.taper === 'audio' ? `audio (${Math.round(pot.audioMidpoint * 100)} % at 5)` : 'linear';
+  return `${formatEngineering(pot.potOhms, 'Ω')} ${taper}, set to ${pot.setting}`;
+}
+
+/** Lines describing the guitar, without trailing newline. */
+export function describeGuitar(guitar: Guitar): string[] {
+  const lines: string[] = [];
+  lines.push(guitar.name);
+  lines.push(
+    `  scale ${formatEngineering(guitar.scaleM * MM_PER_M)} mm; ${guitar.strings.length} strings tuned ${guitar.strings.map((s) => s.name).join(' ')}`,
+  );
+  lines.push('  coils:');
+  for (const coil of guitar.coils) {
+    const housing = coil.pickup ? ` [pickup ${coil.pickup}]` : '';
+    lines.push(
+      `    ${coil.id}${housing}: ${formatPosition(coil)} from the bridge, ${formatEngineering(coil.resistanceOhms, 'Ω')}, ` +
+        `${formatEngineering(coil.inductanceH, 'H')}, ${formatEngineering(coil.capacitanceF, 'F')}, ` +
+        `winding ${coil.winding}, ${coil.magnet} pole up`,
+    );
+  }
+  const twoLead = guitar.pickups.filter((pickup) => pickup.leads === 2);
+  for (const pickup of twoLead) {
+    const names = pickup.coilIndices.map((index) => guitar.coils[index]?.id ?? '?');
+    lines.push(`  two-lead pickup ${pickup.name}: ${names.join(' and ')} joined in series inside, wired as one element`);
+  }
+  const { volume, tone, trebleBleed } = guitar.controls;
+  lines.push(`  volume: ${formatPot(volume)}`);
+  lines.push(tone ? `  tone: ${formatPot(tone)}, capacitor ${formatEngineering(tone.capacitorF, 'F')}` : '  tone: none');
+  if (trebleBleed) {
+    const resistor = trebleBleed.resistorOhms
+      ? ` with ${formatEngineering(trebleBleed.resistorOhms, 'Ω')} in ${trebleBleed.arrangement}`
+      : '';
+    lines.push(`  treble bleed: ${formatEngineering(trebleBleed.capacitorF, 'F')}${resistor}`);
+  }
+  const cable = guitar.cable.lengthM
+    ? `${formatEngineering(guitar.cable.lengthM)} m × ${formatEngineering(guitar.cable.capacitancePerMetreF ?? 0, 'F')}/m = ${formatEngineering(guitar.cable.capacitanceF, 'F')}`
+    : formatEngineering(guitar.cable.capacitanceF, 'F');
+  lines.push(`  cable: ${cable}; amplifier input ${formatEngineering(guitar.amp.resistanceOhms, 'Ω')} with ${formatEngineering(guitar.amp.capacitanceF, 'F')}`);
+  return lines;
+}

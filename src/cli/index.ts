@@ -1,0 +1,3 @@
+export { main, EXIT_OK, EXIT_FAILURE, EXIT_BAD_INPUT } from './main.js';
+export { captureIo, processIo } from './io.js';
+export type { Io, CapturedIo } from './io.js';

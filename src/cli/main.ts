@@ -1,0 +1,81 @@
+/**
+ * The command line: a thin layer that parses arguments, calls one core entry
+ * point per command, hands results to writers and maps errors to exit codes
+ * (0 success, 1 failure while working, 2 bad input). One line per problem; a
+ * stack trace only with --verbose.
+ */
+import { Command, CommanderError } from 'commander';
+import { InputError, WorkError, formatProblem } from '../errors/index.js';
+import { registerCheck } from './commands/check.js';
+import { registerDemo } from './commands/demo.js';
+import { registerWirings } from './commands/wirings.js';
+import type { Io } from './io.js';
+
+export const EXIT_OK = 0;
+export const EXIT_FAILURE = 1;
+export const EXIT_BAD_INPUT = 2;
+
+const VERSION = '0.1.0';
+
+function buildProgram(io: Io, run: (argv: string[]) => Promise<number>): Command {
+  const program = new Command('coilbench');
+  program
+    .description('Hear every way a guitar\'s pickup coils can be wired, before soldering anything.')
+    .version(VERSION)
+    .option('--verbose', 'show stack traces on errors')
+    .exitOverride()
+    .showHelpAfterError('(run coilbench --help for usage)')
+    .configureOutput({
+      writeOut: (text) => io.stdout(text),
+      writeErr: (text) => io.stderr(text),
+      outputError: (text, write) => write(`coilbench: ${text.replace(/^error: /u, '')}`),
+    });
+  registerDemo(program, io, run);
+  registerCheck(program, io);
+  registerWirings(program, io);
+  for (const command of program.commands) {
+    command.exitOverride().configureOutput({
+      writeOut: (text) => io.stdout(text),
+      writeErr: (text) => io.stderr(text),
+      outputError: (text, write) => write(`coilbench: ${text.replace(/^error: /u, '')}`),
+    });
+    command.showHelpAfterError(`(run coilbench ${command.name()} --help for usage)`);
+  }
+  return program;
+}
+
+/** Run coilbench with user arguments (no node or script path). Resolves to the exit status. */
+export async function main(argv: readonly string[], io: Io): Promise<number> {
+  const verbose = argv.includes('--verbose');
+  const run = (inner: string[]): Promise<number> => main(verbose ? [...inner, '--verbose'] : inner, io);
+  const program = buildProgram(io, run);
+  try {
+    await program.parseAsync([...argv], { from: 'user' });
+    return EXIT_OK;
+  } catch (error) {
+    return reportError(error, io, verbose);
+  }
+}
+
+function reportError(error: unknown, io: Io, verbose: boolean): number {
+  if (error instanceof CommanderError) {
+    if (error.code === 'commander.helpDisplayed' || error.code === 'commander.version' || error.code === 'commander.help') {
+      return EXIT_OK;
+    }
+    return EXIT_BAD_INPUT; // commander has already printed its message
+  }
+  if (error instanceof InputError) {
+    for (const problem of error.problems) io.stderr(`coilbench: ${formatProblem(problem)}\n`);
+    if (verbose) io.stderr(`${error.stack ?? ''}\n`);
+    return EXIT_BAD_INPUT;
+  }
+  if (error instanceof WorkError) {
+    io.stderr(`coilbench: ${error.message}\n`);
+    if (verbose) io.stderr(`${error.stack ?? ''}\n`);
+    return EXIT_FAILURE;
+  }
+  const message = error instanceof Error ? error.message : String(error);
+  io.stderr(`coilbench: internal error: ${message}${verbose ? '' : ' (run with --verbose for details)'}\n`);
+  if (verbose && error instanceof Error) io.stderr(`${error.stack ?? ''}\n`);
+  return EXIT_FAILURE;
+}

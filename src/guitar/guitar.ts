@@ -1,0 +1,137 @@
+/**
+ * The validated guitar: every value in SI units, every default filled in,
+ * every cross-reference resolved. Produced by `parseGuitar`; read by the rest
+ * of the core.
+ */
+
+/** Winding sense seen from the top. */
+export type Winding = 'cw' | 'ccw';
+/** Magnet pole facing the strings. */
+export type MagnetPole = 'north' | 'south';
+/** Pot taper. */
+export type Taper = 'audio' | 'linear';
+
+export interface Coil {
+  readonly id: string;
+  /** Declaration order, 0-based. */
+  readonly index: number;
+  /** Distance from the bridge saddle to the coil centre under the lowest string, metres. */
+  readonly positionBassM: number;
+  /** Same under the highest string (equal to the bass value for a straight coil), metres. */
+  readonly positionTrebleM: number;
+  readonly resistanceOhms: number;
+  readonly inductanceH: number;
+  /** Self-capacitance across the winding's leads, farads. */
+  readonly capacitanceF: number;
+  /** Width of the sensed strip of string, metres. */
+  readonly apertureM: number;
+  readonly winding: Winding;
+  readonly magnet: MagnetPole;
+  /** Relative string-signal sensitivity. */
+  readonly sensitivity: number;
+  /** Relative sensitivity to a uniform mains field. */
+  readonly humSensitivity: number;
+  /** Name of the pickup housing this coil, if any. */
+  readonly pickup: string | undefined;
+  readonly notes: string | undefined;
+}
+
+export interface Pickup {
+  readonly name: string;
+  /** 2: coils joined in series inside the cover, wired as one element; 4: every coil on its own leads. */
+  readonly leads: 2 | 4;
+  /** Coil indices in declaration order. */
+  readonly coilIndices: readonly number[];
+}
+
+/**
+ * A thing the wiring enumeration places in a network: a coil on its own
+ * leads, or a two-lead pickup whose coils are already joined in series with
+ * their string signals in phase.
+ */
+export interface WiringElement {
+  /** Name used in wiring expressions: the coil id, or the pickup name. */
+  readonly id: string;
+  /** Declaration order among elements, 0-based. */
+  readonly index: number;
+  readonly kind: 'coil' | 'two-lead pickup';
+  /** Coils inside, in declaration order. */
+  readonly coilIndices: readonly number[];
+}
+
+export interface OpenString {
+  /** Position in the tuning list, 0 = lowest string. */
+  readonly index: number;
+  /** Trade numbering: 1 = highest (thinnest) string. */
+  readonly number: number;
+  readonly openHz: number;
+  /** The note as written in the file, or its nearest equal-tempered name. */
+  readonly name: string;
+}
+
+export interface Pot {
+  readonly potOhms: number;
+  /** Knob setting, 0 to 10. */
+  readonly setting: number;
+  readonly taper: Taper;
+  /** Audio taper only: fraction of the track at setting 5. */
+  readonly audioMidpoint: number;
+}
+
+export interface ToneControl extends Pot {
+  readonly capacitorF: number;
+}
+
+export interface TrebleBleed {
+  readonly capacitorF: number;
+  readonly resistorOhms: number | undefined;
+  readonly arrangement: 'parallel' | 'series';
+}
+
+export interface Controls {
+  readonly volume: Pot;
+  readonly tone: ToneControl | null;
+  readonly trebleBleed: TrebleBleed | null;
+}
+
+export interface Cable {
+  /** Total capacitance, farads. */
+  readonly capacitanceF: number;
+  /** When given as length × capacitance per metre. */
+  readonly lengthM: number | undefined;
+  readonly capacitancePerMetreF: number | undefined;
+}
+
+export interface Amp {
+  readonly resistanceOhms: number;
+  readonly capacitanceF: number;
+}
+
+export interface Guitar {
+  readonly name: string;
+  readonly notes: string | undefined;
+  readonly scaleM: number;
+  /** Lowest string first. */
+  readonly strings: readonly OpenString[];
+  readonly coils: readonly Coil[];
+  readonly pickups: readonly Pickup[];
+  /** What the wiring enumeration combines, in declaration order of their first coil. */
+  readonly elements: readonly WiringElement[];
+  readonly controls: Controls;
+  readonly cable: Cable;
+  readonly amp: Amp;
+  /** Paths of fields that were missing and took their documented default ("coils[0].winding"). */
+  readonly assumed: readonly string[];
+}
+
+/**
+ * Distance from the bridge of a coil's centre under one string, metres.
+ * A slanted coil is a straight line from its bass to its treble value, the
+ * strings equally spaced across it (common practice: strings are evenly
+ * spaced at the bridge).
+ */
+export function coilPositionAt(coil: Coil, stringIndex: number, stringCount: number): number {
+  if (stringCount <= 1) return (coil.positionBassM + coil.positionTrebleM) / 2;
+  const fraction = stringIndex / (stringCount - 1);
+  return coil.positionBassM + (coil.positionTrebleM - coil.positionBassM) * fraction;
+}

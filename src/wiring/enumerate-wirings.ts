@@ -1,0 +1,188 @@
+/**
+ * Every distinct wiring of a guitar's elements: any non-empty subset, any
+ * two-terminal series–parallel network on it, each element in or out of
+ * phase, counted once up to reordering, regrouping and inverting everything.
+ *
+ * Counting: series–parallel networks on k labelled elements are OEIS A006351
+ * (1, 2, 8, 52, 472, 5504); with 2^(k−1) phase patterns each and every
+ * non-empty subset, n elements give 1, 6, 47, 572, 9997, 228386 wirings
+ * (Riordan & Shannon 1942 for the construction). From five elements on,
+ * bridge (non series–parallel) networks also exist; they are not enumerated.
+ *
+ * Construction: a canonical network on a set is a single element, or a group
+ * of one kind whose parts are the blocks of a set partition into two or more
+ * blocks, each block a single element or a canonical network rooted in the
+ * other kind (series and parallel alternate down the tree).
+ *
+ * Stable order: fewer elements first; then by the elements used (declaration
+ * order, compared as lists); then series before parallel before mixed; then
+ * fewer out-of-phase elements first; then the structure in construction order;
+ * then the out-of-phase set compared as a list.
+ */
+import type { WiringElement } from '../guitar/index.js';
+import { describeWiring } from './describe-wiring.js';
+import { type Network, type Topology, leaf, topologyOf } from './network.js';
+import { printNetwork } from './print-wiring.js';
+import type { Wiring } from './wiring.js';
+
+const TOPOLOGY_RANK: Readonly<Record<Topology, number>> = Object.freeze({
+  single: 0,
+  series: 0,
+  parallel: 1,
+  'series-parallel': 2,
+});
+
+type GroupKind = 'series' | 'parallel';
+
+/** Indices of the set bits of a mask, ascending. */
+function bitsOf(mask: number): number[] {
+  const out: number[] = [];
+  for (let bit = 0; mask >> bit !== 0; bit += 1) if ((mask >> bit) & 1) out.push(bit);
+  return out;
+}
+
+/** Every set partition of `mask` into blocks, each block as a mask, blocks ordered by their lowest bit. */
+function setPartitions(mask: number): number[][] {
+  if (mask === 0) return [[]];
+  const lowest = mask & -mask;
+  const rest = mask & ~lowest;
+  const partitions: number[][] = [];
+  // Choose which of the other elements join the lowest one's block (every submask of rest).
+  const submasks: number[] = [];
+  for (let sub = rest; ; sub = (sub - 1) & rest) {
+    submasks.push(sub);
+    if (sub === 0) break;
+  }
+  submasks.reverse(); // ascending, so smaller blocks come first: a stable construction order
+  for (const sub of submasks) {
+    const block = lowest | sub;
+    for (const tail of setPartitions(rest & ~sub)) partitions.push([block, ...tail]);
+  }
+  return partitions;
+}
+
+/** Enumerates unsigned canonical structures, memoised by (mask, root kind). */
+class StructureCatalogue {
+  private readonly memo = new Map<string, readonly Network[]>();
+
+  /** All canonical structures on `mask` (a leaf if one element). */
+  any(mask: number): readonly Network[] {
+    const bits = bitsOf(mask);
+    if (bits.length === 1) return [leaf(bits[0] as number)];
+    return [...this.rooted(mask, 'series'), ...this.rooted(mask, 'parallel')];
+  }
+
+  /** Canonical structures on `mask` whose root is a group of `kind`. */
+  rooted(mask: number, kind: GroupKind): readonly Network[] {
+    const key = `${mask}:${kind}`;
+    const cached = this.memo.get(key);
+    if (cached) return cached;
+    const other: GroupKind = kind === 'series' ? 'parallel' : 'series';
+    const found: Network[] = [];
+    for (const blocks of setPartitions(mask)) {
+      if (blocks.length < 2) continue;
+      const options = blocks.map((block) =>
+        (block & (block - 1)) === 0 ? [leaf(bitsOf(block)[0] as number)] : this.rooted(block, other),
+      );
+      for (const parts of cartesian(options)) found.push({ kind, parts });
+    }
+    this.memo.set(key, found);
+    return found;
+  }
+}
+
+function cartesian<T>(lists: readonly (readonly T[])[]): T[][] {
+  let result: T[][] = [[]];
+  for (const list of lists) {
+    const next: T[][] = [];
+    for (const prefix of result) for (const item of list) next.push([...prefix, item]);
+    result = next;
+  }
+  return result;
+}
+
+/** The network with the elements in `invertedSet` marked out of phase. */
+function withPhases(network: Network, invertedSet: ReadonlySet<number>): Network {
+  if (network.kind === 'element') return leaf(network.element, invertedSet.has(network.element));
+  return { kind: network.kind, parts: network.parts.map((part) => withPhases(part, invertedSet)) };
+}
+
+function compareLists(a: readonly number[], b: readonly number[]): number {
+  for (let i = 0; i < Math.min(a.length, b.length); i += 1) {
+    const difference = (a[i] as number) - (b[i] as number);
+    if (difference !== 0) return difference;
+  }
+  return a.length - b.length;
+}
+
+interface Candidate {
+  readonly network: Network;
+  readonly elements: number[];
+  readonly inverted: number[];
+  readonly topology: Topology;
+  readonly structureOrder: number;
+}
+
+/** Number of non-empty subsets times networks times phases for `n` elements, by construction (for progress and checks). */
+export function countWirings(elementCount: number): number {
+  const catalogue = new StructureCatalogue();
+  let total = 0;
+  for (let mask = 1; mask < 1 << elementCount; mask += 1) {
+    total += catalogue.any(mask).length * 2 ** (bitsOf(mask).length - 1);
+  }
+  return total;
+}
+
+/** Every distinct wiring of these elements, in the stable order, numbered w1, w2, … */
+export function enumerateWirings(elements: readonly Pick<WiringElement, 'id'>[]): Wiring[] {
+  const ids = elements.map((element) => element.id);
+  const catalogue = new StructureCatalogue();
+  const candidates: Candidate[] = [];
+  for (let mask = 1; mask < 1 << ids.length; mask += 1) {
+    const used = bitsOf(mask);
+    const flippable = used.slice(1); // the earliest-declared element stays in phase
+    catalogue.any(mask).forEach((structure, structureOrder) => {
+      for (let signs = 0; signs < 1 << flippable.length; signs += 1) {
+        const inverted = flippable.filter((_, bit) => (signs >> bit) & 1);
+        const network = withPhases(structure, new Set(inverted));
+        candidates.push({ network, elements: used, inverted, topology: topologyOf(network), structureOrder });
+      }
+    });
+  }
+  candidates.sort(
+    (a, b) =>
+      a.elements.length - b.elements.length ||
+      compareLists(a.elements, b.elements) ||
+      TOPOLOGY_RANK[a.topology] - TOPOLOGY_RANK[b.topology] ||
+      a.inverted.length - b.inverted.length ||
+      a.structureOrder - b.structureOrder ||
+      compareLists(a.inverted, b.inverted),
+  );
+  return candidates.map((candidate, index) => makeWiring(candidate.network, ids, index + 1));
+}
+
+/** Build the reported record for a canonical network. */
+export function makeWiring(network: Network, ids: readonly string[], number: number): Wiring {
+  const used: number[] = [];
+  const inverted: number[] = [];
+  const walk = (node: Network): void => {
+    if (node.kind === 'element') {
+      used.push(node.element);
+      if (node.inverted) inverted.push(node.element);
+    } else node.parts.forEach(walk);
+  };
+  walk(network);
+  used.sort((a, b) => a - b);
+  inverted.sort((a, b) => a - b);
+  return Object.freeze({
+    id: `w${number}`,
+    number,
+    network,
+    expression: printNetwork(network, ids),
+    elements: used,
+    elementIds: used.map((index) => ids[index] ?? '?'),
+    topology: topologyOf(network),
+    outOfPhase: inverted.map((index) => ids[index] ?? '?'),
+    description: describeWiring(network, ids),
+  });
+}

@@ -1,0 +1,10 @@
+export type { ElementLeaf, Group, Network, Topology } from './network.js';
+export { elementsOf, firstElement, invertAll, invertedElements, leaf, parallel, series, topologyOf } from './network.js';
+export { canonicalize, normaliseStructure } from './canonicalize.js';
+export { printNetwork, SERIES_SYMBOL, PARALLEL_SYMBOL, OUT_OF_PHASE_SYMBOL } from './print-wiring.js';
+export { parseWiring } from './parse-wiring.js';
+export type { WiringVocabulary } from './parse-wiring.js';
+export { describeWiring, listInWords } from './describe-wiring.js';
+export { enumerateWirings, countWirings, makeWiring } from './enumerate-wirings.js';
+export type { Wiring } from './wiring.js';
+export { vocabularyOf, findWiring } from './vocabulary.js';
