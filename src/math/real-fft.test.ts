@@ -1,0 +1,45 @@
+import { describe, expect, it } from 'vitest';
+import { createRandom } from './random.js';
+import { realFft } from './real-fft.js';
+
+/** Direct DFT, X[k] = Σ x[n]·e^(−j2πkn/N), as the independent reference. */
+function dft(x: readonly number[], k: number): [number, number] {
+  let re = 0;
+  let im = 0;
+  for (let n = 0; n < x.length; n += 1) {
+    const angle = (-2 * Math.PI * k * n) / x.length;
+    re += (x[n] ?? 0) * Math.cos(angle);
+    im += (x[n] ?? 0) * Math.sin(angle);
+  }
+  return [re, im];
+}
+
+describe('realFft', () => {
+  it('matches a direct DFT and inverts exactly', () => {
+    const random = createRandom(7);
+    for (const size of [4, 16, 256]) {
+      const x = Array.from({ length: size }, () => random() * 2 - 1);
+      const fft = realFft(size);
+      const spectrum = fft.forward(x);
+      for (let k = 0; k <= size / 2; k += 1) {
+        const [re, im] = dft(x, k);
+        expect(spectrum[2 * k]).toBeCloseTo(re, 9);
+        expect(spectrum[2 * k + 1]).toBeCloseTo(im, 9);
+      }
+      const back = fft.inverse(spectrum);
+      for (let n = 0; n < size; n += 1) expect(back[n]).toBeCloseTo(x[n] ?? 0, 12);
+    }
+  });
+
+  it('zero pads short input and refuses sizes that are not powers of two', () => {
+    const spectrum = realFft(8).forward([1]);
+    for (let k = 0; k <= 4; k += 1) expect(spectrum[2 * k]).toBeCloseTo(1, 12);
+    expect(() => realFft(12)).toThrow(RangeError);
+  });
+
+  it('gives the same stream for the same seed', () => {
+    const a = createRandom(42);
+    const b = createRandom(42);
+    for (let i = 0; i < 10; i += 1) expect(a()).toBe(b());
+  });
+});
