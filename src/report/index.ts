@@ -1,0 +1,7 @@
+export type {
+  ListeningReport,
+  ReportCoil,
+  ReportGuitar,
+  ReportRender,
+  ReportWiring,
+} from './listening-report.js';
