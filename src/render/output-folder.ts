@@ -1,0 +1,51 @@
+/**
+ * Where a render's files go: renders/<guitar-slug>/ with index.html, wav/,
+ * netlists/, report.json, wirings.csv and report.md (DESIGN.md, output folder).
+ */
+import { join } from 'node:path';
+import { slugify } from '../guitar/index.js';
+import type { Wiring } from '../wiring/index.js';
+
+/** Longest part of a WAV name taken from the wiring's description. */
+const MAX_DESCRIPTION_SLUG = 48;
+
+export interface OutputFolder {
+  readonly root: string;
+  readonly wavFolder: string;
+  readonly netlistFolder: string;
+  readonly reportJson: string;
+  readonly wiringsCsv: string;
+  readonly reportMarkdown: string;
+  readonly page: string;
+  /** Hidden file recording what each output was made from, so a re-run skips what is complete and unchanged. */
+  readonly manifest: string;
+}
+
+/** The default folder for a guitar: renders/<slug of its name> under `base`. */
+export function defaultOutputRoot(base: string, guitarName: string): string {
+  return join(base, 'renders', slugify(guitarName));
+}
+
+export function outputFolder(root: string): OutputFolder {
+  return {
+    root,
+    wavFolder: join(root, 'wav'),
+    netlistFolder: join(root, 'netlists'),
+    reportJson: join(root, 'report.json'),
+    wiringsCsv: join(root, 'wirings.csv'),
+    reportMarkdown: join(root, 'report.md'),
+    page: join(root, 'index.html'),
+    manifest: join(root, '.coilbench-manifest.json'),
+  };
+}
+
+/** File name of a wiring's render: its number and a readable slug ("w9-neck-and-bridge-in-series-bridge-out-of-phase.wav"). */
+export function wavFileName(wiring: Pick<Wiring, 'id' | 'description'>): string {
+  const words = slugify(wiring.description, 'wiring').slice(0, MAX_DESCRIPTION_SLUG).replace(/-+$/u, '');
+  return `${wiring.id}-${words}.wav`;
+}
+
+/** File name of a wiring's SPICE netlist. */
+export function netlistFileName(wiring: Pick<Wiring, 'id' | 'description'>): string {
+  return wavFileName(wiring).replace(/\.wav$/u, '.cir');
+}

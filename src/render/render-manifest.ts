@@ -1,0 +1,53 @@
+/**
+ * Remembers what each output file was made from (a hash of every input that
+ * shapes it) and the per-wiring measurements, so a re-run skips what is
+ * complete and unchanged, and an interrupted run is completed by the next.
+ * The manifest itself is written atomically after each finished file.
+ */
+import { createHash } from 'node:crypto';
+import { existsSync, readFileSync } from 'node:fs';
+
+/** Bump when the meaning of any output changes, so old files are re-rendered. */
+export const MANIFEST_VERSION = 1;
+
+/** Stable SHA-256 of a JSON-able value (object keys sorted). */
+export function hashOf(value: unknown): string {
+  return createHash('sha256').update(stableJson(value)).digest('hex');
+}
+
+function stableJson(value: unknown): string {
+  if (Array.isArray(value)) return `[${value.map(stableJson).join(',')}]`;
+  if (value !== null && typeof value === 'object') {
+    const entries = Object.entries(value as Record<string, unknown>)
+      .filter(([, inner]) => inner !== undefined)
+      .sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
+    return `{${entries.map(([key, inner]) => `${JSON.stringify(key)}:${stableJson(inner)}`).join(',')}}`;
+  }
+  if (typeof value === 'number' && !Number.isFinite(value)) return JSON.stringify(String(value));
+  return JSON.stringify(value) ?? 'null';
+}
+
+export interface ManifestEntry<Measurements> {
+  /** Hash of everything the measurements depend on. */
+  readonly analysisHash: string;
+  readonly measurements: Measurements;
+  /** Hash of everything the written file depends on (analysis plus gain and format), once written. */
+  readonly fileHash: string | null;
+}
+
+export interface Manifest<Measurements> {
+  readonly version: number;
+  readonly entries: Record<string, ManifestEntry<Measurements>>;
+}
+
+/** Read a manifest; a missing, unreadable or older one counts as empty. */
+export function readManifest<Measurements>(path: string): Manifest<Measurements> {
+  const empty: Manifest<Measurements> = { version: MANIFEST_VERSION, entries: {} };
+  if (!existsSync(path)) return empty;
+  try {
+    const parsed = JSON.parse(readFileSync(path, 'utf8')) as Manifest<Measurements>;
+    return parsed.version === MANIFEST_VERSION && typeof parsed.entries === 'object' ? parsed : empty;
+  } catch {
+    return empty;
+  }
+}
