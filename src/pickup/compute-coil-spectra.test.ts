@@ -205,6 +205,33 @@ describe('computeCoilSpectra: what the coil senses', () => {
     expect(pickupDelaySamples(demo, render)).toBe(77); // ceil((160 + 10) mm / (2 · 648 mm · 82.4069 Hz) · 48 kHz) = ceil(76.4)
   });
 
+  it('matches a direct evaluation of E(f) = s·e^{−jωD}·Σ 2j·sin(ωd/c)·sinc(πfw/c)·W(f) with Math.sin at scattered bins', () => {
+    const render = renderPhrase(demo, builtInPhrase('strum'), { tailS: 0.5 });
+    const size = nextPowerOfTwo(render.length);
+    const delay = pickupDelaySamples(demo, render);
+    const spectra = computeCoilSpectra(demo, render, size);
+    const fft = realFft(size);
+    const waves = render.waves.map((wave) => fft.forward(Float64Array.from({ length: size }, (_, n) => (n >= delay ? (wave[n - delay] ?? 0) : 0))));
+    demo.coils.forEach((guitarCoil, i) => {
+      for (let k = 1; k < size / 2; k += 997) {
+        const f = (k * FS) / size;
+        let re = 0;
+        let im = 0;
+        waves.forEach((wave, s) => {
+          const c = render.waveSpeedsMps[s] ?? 1;
+          const d = guitarCoil.positionBassM + ((guitarCoil.positionTrebleM - guitarCoil.positionBassM) * s) / 5;
+          const x = (Math.PI * f * guitarCoil.apertureM) / c;
+          const m = 2 * guitarCoil.sensitivity * Math.sin((2 * Math.PI * f * d) / c) * (Math.sin(x) / x);
+          re -= m * (wave[2 * k + 1] ?? 0);
+          im += m * (wave[2 * k] ?? 0);
+        });
+        const scale = Math.hypot(re, im) + 1e-9;
+        expect(Math.abs((spectra[i]?.[2 * k] ?? 0) - re) / scale).toBeLessThan(1e-9);
+        expect(Math.abs((spectra[i]?.[2 * k + 1] ?? 0) - im) / scale).toBeLessThan(1e-9);
+      }
+    });
+  });
+
   it('refuses an FFT shorter than the render', () => {
     const render = single({ timeS: 0, string: 1, fret: 0, velocity: 1 }, 0.1);
     expect(() => computeCoilSpectra(demo, render, 1024)).toThrow(RangeError);

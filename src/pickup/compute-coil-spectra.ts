@@ -36,7 +36,6 @@
 import { type Guitar, coilPositionAt } from '../guitar/index.js';
 import { realFft } from '../math/index.js';
 import type { StringRender } from '../string/index.js';
-import { fillSineSeries } from './sine-series.js';
 
 /**
  * The delay D, in whole samples, common to every coil's spectrum: the
@@ -82,26 +81,65 @@ export function computeCoilSpectra(guitar: Pick<Guitar, 'coils'>, strings: Strin
     return fft.forward(shifted);
   });
 
-  const positionSines = new Float64Array(bins);
-  const apertureSines = new Float64Array(bins);
   const count = strings.waves.length;
   return guitar.coils.map((coil) => {
     const spectrum = new Float64Array(2 * bins);
     waveSpectra.forEach((wave, index) => {
       const c = strings.waveSpeedsMps[index] as number;
       const distanceM = coilPositionAt(coil, index, count);
-      // sin(ω_k·d/c) with ω_k = 2π·k·binHz; sin(π·f_k·w/c) for the aperture.
-      fillSineSeries(positionSines, (2 * Math.PI * binHz * distanceM) / c);
+      // Position phase ω_k·d/c with ω_k = 2π·k·binHz; aperture phase π·f_k·w/c.
+      const positionStep = (2 * Math.PI * binHz * distanceM) / c;
       const apertureStep = (Math.PI * binHz * coil.apertureM) / c;
-      if (apertureStep > 0) fillSineSeries(apertureSines, apertureStep);
-      for (let k = 0; k < bins; k += 1) {
-        const aperture = apertureStep > 0 && k > 0 ? (apertureSines[k] as number) / (k * apertureStep) : 1;
-        // 2j·sin(·)·sinc(·)·(Wr + jWi) = m·(−Wi + jWr) with m = 2·sin(·)·sinc(·)·sensitivity.
-        const m = 2 * coil.sensitivity * (positionSines[k] as number) * aperture;
-        spectrum[2 * k] = (spectrum[2 * k] as number) - m * (wave[2 * k + 1] as number);
-        spectrum[2 * k + 1] = (spectrum[2 * k + 1] as number) + m * (wave[2 * k] as number);
-      }
+      accumulateSensedWave(spectrum, wave, bins, positionStep, apertureStep, 2 * coil.sensitivity);
     });
     return spectrum;
   });
+}
+
+/** Steps between exact resets of the rotating phasors (their rounding error grows about linearly with the run). */
+const RESYNC_EVERY = 256;
+
+/**
+ * spectrum[k] += gain · j·sin(k·positionStep) · sinc(k·apertureStep) · wave[k] over all bins.
+ * sin(k·θ) comes from a unit phasor rotated one step per bin and reset from
+ * Math.cos/Math.sin every RESYNC_EVERY bins (error near 1e-13, a few
+ * multiplications per bin instead of two sines).
+ */
+function accumulateSensedWave(
+  spectrum: Float64Array,
+  wave: Float64Array,
+  bins: number,
+  positionStep: number,
+  apertureStep: number,
+  gain: number,
+): void {
+  const positionCos = Math.cos(positionStep);
+  const positionSin = Math.sin(positionStep);
+  const apertureCos = Math.cos(apertureStep);
+  const apertureSin = Math.sin(apertureStep);
+  let pRe = 1;
+  let pIm = 0;
+  let aRe = 1;
+  let aIm = 0;
+  for (let k = 0; k < bins; k += 1) {
+    if (k % RESYNC_EVERY === 0) {
+      pRe = Math.cos(k * positionStep);
+      pIm = Math.sin(k * positionStep);
+      aRe = Math.cos(k * apertureStep);
+      aIm = Math.sin(k * apertureStep);
+    }
+    // sinc(x) = sin(x)/x, 1 at x = 0 (and for a point coil, apertureStep = 0).
+    const x = k * apertureStep;
+    const aperture = x === 0 ? 1 : aIm / x;
+    // j·sin(·)·(Wr + jWi) = sin(·)·(−Wi + jWr).
+    const m = gain * pIm * aperture;
+    spectrum[2 * k] = (spectrum[2 * k] as number) - m * (wave[2 * k + 1] as number);
+    spectrum[2 * k + 1] = (spectrum[2 * k + 1] as number) + m * (wave[2 * k] as number);
+    const nextP = pRe * positionCos - pIm * positionSin;
+    pIm = pRe * positionSin + pIm * positionCos;
+    pRe = nextP;
+    const nextA = aRe * apertureCos - aIm * apertureSin;
+    aIm = aRe * apertureSin + aIm * apertureCos;
+    aRe = nextA;
+  }
 }
