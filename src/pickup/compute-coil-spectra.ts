@@ -31,7 +31,10 @@
  * is the string's velocity (m/s) times the coil's relative sensitivity; the
  * common scale of a real EMF (turns, flux gradient) is left to the level
  * normalisation. Strings are assumed to be equally magnetic (plain and wound
- * strings alike) — a simplification.
+ * strings alike) — a simplification. A note fretted so high that its
+ * vibrating length L·2^(−m/12) ends before a coil is not modelled apart: the
+ * coil senses it as if the string ran on (on common guitars only a neck coil
+ * at the top frets).
  */
 import { type Guitar, coilPositionAt } from '../guitar/index.js';
 import { realFft } from '../math/index.js';

@@ -172,10 +172,11 @@ describe('renderPhrase: bad input', () => {
             { timeS: 0, string: 7, fret: 0, velocity: 1 },
             { timeS: 0, string: 1, fret: 0, velocity: 1, pluckM: 0.7 },
             { timeS: 0, string: 2, fret: 0, velocity: 0 },
+            { timeS: 0, string: 2, fret: 30, velocity: 1 },
           ),
         ),
       ),
-    ).toEqual(['notes[0].string', 'notes[1].pluck', 'notes[2].velocity']);
+    ).toEqual(['notes[0].string', 'notes[1].pluck', 'notes[2].velocity', 'notes[3].fret']);
   });
 
   it('refuses bad options, each with its path', () => {

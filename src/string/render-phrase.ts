@@ -15,7 +15,7 @@ import type { Guitar } from '../guitar/index.js';
 import { createRandom, seedFromText } from '../math/index.js';
 import { formatEngineering, SEMITONES_PER_OCTAVE } from '../units/index.js';
 import { designStringLoop } from './design-string-loop.js';
-import type { Phrase, PhraseNote } from './phrase.js';
+import { MAX_FRET, type Phrase, type PhraseNote } from './phrase.js';
 import { renderExcitation } from './render-excitation.js';
 import { runStringLoop } from './run-string-loop.js';
 import { type StringOptions, resolveStringOptions } from './string-options.js';
@@ -109,8 +109,8 @@ function checkPhraseFitsGuitar(phrase: Phrase, guitar: Pick<Guitar, 'scaleM' | '
     }
     if (!Number.isFinite(note.timeS) || note.timeS < 0) problems.push(problemAt(`${at}.time`, 'a time in seconds, 0 or more', note.timeS));
     if (!(note.velocity > 0 && note.velocity <= 1)) problems.push(problemAt(`${at}.velocity`, 'a velocity above 0 and at most 1', note.velocity));
-    if (!Number.isInteger(note.fret) || note.fret < 0) {
-      problems.push(problemAt(`${at}.fret`, 'a fret, 0 (open) or more', note.fret));
+    if (!Number.isInteger(note.fret) || note.fret < 0 || note.fret > MAX_FRET) {
+      problems.push(problemAt(`${at}.fret`, `a fret from 0 (open) to ${MAX_FRET}`, note.fret));
       return;
     }
     const vibratingM = guitar.scaleM * 2 ** (-note.fret / SEMITONES_PER_OCTAVE);
