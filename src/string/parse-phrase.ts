@@ -10,6 +10,8 @@ import { parseJsonText } from '../guitar/index.js';
 import { QUANTITY_EXAMPLES, QuantityError, parseQuantity } from '../units/index.js';
 import { MAX_FRET, MAX_PHRASE_TIME_S, type Phrase, type PhraseNote } from './phrase.js';
 
+/** Millimetres in a metre (SI), for messages in the units people write. */
+const MILLIMETRES_PER_METRE = 1000;
 /** Most notes a phrase file may hold (a guard against runaway files; a long song has a few thousand). */
 export const MAX_PHRASE_NOTES = 20000;
 /** Longest pluck distance accepted before the guitar is known, metres (longer than any scale, common practice). */
@@ -74,7 +76,7 @@ function parseNote(item: unknown, path: string, stringCount: number, problems: I
   const velocity = number('velocity', (v) => v > 0 && v <= 1, 'a velocity above 0 and at most 1');
   let pluckM: number | undefined;
   if (item.pluck !== undefined) {
-    const expected = `a distance from the bridge like ${QUANTITY_EXAMPLES.length}, above 0 and under ${MAX_PLUCK_M * 1000} mm`;
+    const expected = `a distance from the bridge like ${QUANTITY_EXAMPLES.length}, above 0 and under ${MAX_PLUCK_M * MILLIMETRES_PER_METRE} mm`;
     try {
       const value = parseQuantity(item.pluck, 'length');
       if (value > 0 && value < MAX_PLUCK_M) pluckM = value;

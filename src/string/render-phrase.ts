@@ -20,6 +20,9 @@ import { renderExcitation } from './render-excitation.js';
 import { runStringLoop } from './run-string-loop.js';
 import { type StringOptions, resolveStringOptions } from './string-options.js';
 
+/** Millimetres in a metre (SI), for messages in the units people write. */
+const MILLIMETRES_PER_METRE = 1000;
+
 /** Height a full-velocity pluck pulls the string to, metres (from memory: a firm pluck displaces a string by a couple of millimetres). */
 export const FULL_PLUCK_DISPLACEMENT_M = 0.002;
 
@@ -120,8 +123,8 @@ function checkPhraseFitsGuitar(phrase: Phrase, guitar: Pick<Guitar, 'scaleM' | '
       problems.push(
         problemAt(
           path,
-          `a pluck between the bridge and the fret (${formatEngineering(vibratingM * 1000)} mm of string vibrate at fret ${note.fret}; pluck at ${formatEngineering(pluckM * 1000)} mm)`,
-          note.pluckM === undefined ? note.fret : `${formatEngineering(pluckM * 1000)}mm`,
+          `a pluck between the bridge and the fret (${formatEngineering(vibratingM * MILLIMETRES_PER_METRE)} mm of string vibrate at fret ${note.fret}; pluck at ${formatEngineering(pluckM * MILLIMETRES_PER_METRE)} mm)`,
+          note.pluckM === undefined ? note.fret : `${formatEngineering(pluckM * MILLIMETRES_PER_METRE)}mm`,
         ),
       );
     }
