@@ -1,0 +1,1 @@
+export { computeCoilSpectra, pickupDelaySamples } from './compute-coil-spectra.js';
