@@ -3,7 +3,9 @@
  * Nothing here is asserted; quote the figures in issue notes.
  */
 import { cpus } from 'node:os';
+import { benchChain } from './bench/chain.js';
 import { benchEnumerate } from './bench/enumerate.js';
 
 console.log(`coilbench bench — node ${process.version}, ${cpus().length} cores (${cpus()[0]?.model ?? 'unknown cpu'})`);
 benchEnumerate();
+await benchChain();
