@@ -11,6 +11,12 @@
  *   → tone stack → speaker cabinet → output trim.
  * - compressed: input gain → compressor → tone stack → speaker cabinet.
  *
+ * Timing: the renderer removes the fixed delays (`latencyFrames`), so no
+ * chain adds a fixed latency. What remains is the filters' phase response,
+ * the same for every wiring: a group delay of 4.6 ms at 82 Hz, 3.1 ms at
+ * 110 Hz and under 0.5 ms from 220 Hz up (computed from the cookbook
+ * coefficients).
+ *
  * Headroom: everything runs in 32-bit float, so no stage clips. The only
  * level-dependent stages are the soft clipper and the compressor; both see
  * one common input level for every wiring, so a louder wiring drives them
