@@ -3,9 +3,11 @@
  * Nothing here is asserted; quote the figures in issue notes.
  */
 import { cpus } from 'node:os';
+import { benchChain } from './bench/chain.js';
 import { benchEnumerate } from './bench/enumerate.js';
 import { benchStrings } from './bench/strings.js';
 
 console.log(`coilbench bench — node ${process.version}, ${cpus().length} cores (${cpus()[0]?.model ?? 'unknown cpu'})`);
 benchEnumerate();
 benchStrings();
+await benchChain();

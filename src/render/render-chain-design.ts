@@ -1,0 +1,79 @@
+/**
+ * Run a chain design through node-web-audio-api's OfflineAudioContext (never a
+ * realtime AudioContext: there is no sound card, and an open one keeps the
+ * process alive). One mono context per render; the result is read with
+ * copyFromChannel.
+ *
+ * Latency: the context renders `latencyFrames` more frames than the input,
+ * and the first `latencyFrames` are dropped, so the output lines up with the
+ * input sample for sample and has the input's length. The source plays that
+ * many zeros after the input: node-web-audio-api 1.0.9's WaveShaperNode
+ * stops at once when its input goes silent (no source playing) and drops the
+ * frames still inside its oversampler, which would lose the input's last
+ * 128 frames. Zeros played by a source are not silence to it.
+ */
+import { OfflineAudioContext } from 'node-web-audio-api';
+import { webAudioQ } from './biquad-design.js';
+import type { ChainDesign, ChainStage } from './chain-design.js';
+
+type Context = InstanceType<typeof OfflineAudioContext>;
+
+/** One Web Audio node for one stage. */
+function createStageNode(context: Context, stage: ChainStage): AudioNode {
+  switch (stage.kind) {
+    case 'gain': {
+      const node = context.createGain();
+      node.gain.value = stage.gain;
+      return node;
+    }
+    case 'biquad': {
+      const node = context.createBiquadFilter();
+      node.type = stage.filter.kind;
+      node.frequency.value = stage.filter.frequencyHz;
+      node.Q.value = webAudioQ(stage.filter);
+      node.gain.value = stage.filter.gainDb;
+      return node;
+    }
+    case 'shaper': {
+      const node = context.createWaveShaper();
+      node.curve = stage.curve;
+      node.oversample = stage.oversample;
+      return node;
+    }
+    case 'compressor': {
+      const node = context.createDynamicsCompressor();
+      node.threshold.value = stage.settings.thresholdDb;
+      node.knee.value = stage.settings.kneeDb;
+      node.ratio.value = stage.settings.ratio;
+      node.attack.value = stage.settings.attackS;
+      node.release.value = stage.settings.releaseS;
+      return node;
+    }
+  }
+}
+
+/** Render mono `samples` through `design` at its sample rate. The output has the input's length and timing. */
+export async function renderChainDesign(samples: Float32Array, design: ChainDesign): Promise<Float32Array> {
+  const frames = samples.length;
+  const output = new Float32Array(frames);
+  if (frames === 0) return output;
+  const latency = design.latencyFrames;
+  const context = new OfflineAudioContext({ numberOfChannels: 1, length: frames + latency, sampleRate: design.sampleRateHz });
+  const padded = new Float32Array(frames + latency); // input, then zeros through the latency (see above)
+  padded.set(samples);
+  const buffer = context.createBuffer(1, frames + latency, design.sampleRateHz);
+  buffer.copyToChannel(padded, 0);
+  const source = context.createBufferSource();
+  source.buffer = buffer;
+  let last: AudioNode = source;
+  for (const stage of design.stages) {
+    const node = createStageNode(context, stage);
+    last.connect(node);
+    last = node;
+  }
+  last.connect(context.destination);
+  source.start(0);
+  const rendered = await context.startRendering();
+  rendered.copyFromChannel(output, 0, latency);
+  return output;
+}
