@@ -4,6 +4,8 @@
  */
 import { cpus } from 'node:os';
 import { benchEnumerate } from './bench/enumerate.js';
+import { benchMeasures } from './bench/measures.js';
 
 console.log(`coilbench bench — node ${process.version}, ${cpus().length} cores (${cpus()[0]?.model ?? 'unknown cpu'})`);
 benchEnumerate();
+await benchMeasures();

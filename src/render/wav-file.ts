@@ -68,6 +68,7 @@ const PCM_FMT_BYTES = 16;
 const FLOAT_FMT_BYTES = 18; // PCM fields + cbSize
 const FACT_BYTES = 4;
 const MAX_U32 = 0xffff_ffff;
+const BYTE_MASK = 0xff;
 /** Byte offsets of the `fmt ` chunk's fields (IBM/Microsoft 1991, WAVEFORMAT / PCMWAVEFORMAT / WAVEFORMATEX). */
 const FMT_FIELD = Object.freeze({ tag: 0, channels: 2, sampleRate: 4, byteRate: 8, blockAlign: 12, bitsPerSample: 14, cbSize: 16 });
 
@@ -229,22 +230,21 @@ function writeSamples(
   view: DataView,
   start: number,
 ): void {
-  const coding = CODINGS[format];
-  const stride = channels.length * coding.bytesPerSample;
-  const fullScale = pcmFullScale(coding.bytesPerSample);
+  const { bytesPerSample } = CODINGS[format];
+  const stride = channels.length * bytesPerSample;
+  const fullScale = pcmFullScale(bytesPerSample);
   channels.forEach((channel, channelIndex) => {
-    let offset = start + channelIndex * coding.bytesPerSample;
+    let offset = start + channelIndex * bytesPerSample;
     for (let n = 0; n < channel.length; n += 1, offset += stride) {
       const sample = channel[n] as number;
       if (!Number.isFinite(sample)) throw InputError.at(`channels[${channelIndex}][${n}]`, 'a finite sample', sample);
       if (format === 'f32') {
         view.setFloat32(offset, Math.max(-1, Math.min(1, sample)), true);
-        continue;
+      } else {
+        // Little-endian two's complement, low byte first (bytesPerSample of them).
+        const value = quantizeSample(sample, fullScale);
+        for (let byte = 0; byte < bytesPerSample; byte += 1) bytes[offset + byte] = (value >> (BITS_PER_BYTE * byte)) & BYTE_MASK;
       }
-      const value = quantizeSample(sample, fullScale);
-      bytes[offset] = value & 0xff;
-      bytes[offset + 1] = (value >> 8) & 0xff;
-      if (format === 'pcm24') bytes[offset + 2] = (value >> 16) & 0xff;
     }
   });
 }
