@@ -45,7 +45,11 @@ export const SILENCE_CENTROID_HZ = 0;
 const WINDOW_KINDS: readonly HannWindowKind[] = ['symmetric', 'periodic'];
 
 function resolveOptions(options: Partial<CentroidOptions>): CentroidOptions {
-  const merged = { ...DEFAULT_CENTROID_OPTIONS, ...options };
+  const merged: CentroidOptions = {
+    lowHz: options.lowHz ?? DEFAULT_CENTROID_OPTIONS.lowHz,
+    highHz: options.highHz ?? DEFAULT_CENTROID_OPTIONS.highHz,
+    window: options.window ?? DEFAULT_CENTROID_OPTIONS.window,
+  };
   if (!Number.isFinite(merged.lowHz) || merged.lowHz < 0) throw InputError.at('lowHz', 'a frequency ≥ 0 Hz', merged.lowHz);
   if (!Number.isFinite(merged.highHz) || merged.highHz <= merged.lowHz) {
     throw InputError.at('highHz', `a frequency above lowHz (${merged.lowHz} Hz)`, merged.highHz);

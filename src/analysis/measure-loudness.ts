@@ -91,7 +91,6 @@ export function measureLoudness(
   const boundary = (hop: number): number => Math.round(hop * hopSamples);
   let hopCount = Math.floor(length / hopSamples);
   while (boundary(hopCount + 1) <= length) hopCount += 1;
-  while (hopCount > 0 && boundary(hopCount) > length) hopCount -= 1;
   const blockCount = hopCount - HOPS_PER_BLOCK + 1;
   if (blockCount < 1) return LOUDNESS_FLOOR_LUFS;
 

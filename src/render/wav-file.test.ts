@@ -139,6 +139,16 @@ describe('encodeWav layout', () => {
     }
   });
 
+  it('takes options left out or undefined as the defaults: 48 kHz, 24-bit PCM, no INFO', () => {
+    const samples = Float32Array.from([0.1, -0.2, 0.3]);
+    const bytes = encodeWav(samples, { sampleRateHz: undefined, format: undefined, info: undefined });
+    expect(Buffer.from(bytes).equals(Buffer.from(encodeWav(samples)))).toBe(true);
+    const { parsed } = readBack(bytes);
+    expect(parsed.fmt.sampleRate).toBe(48_000);
+    expect(parsed.fmt.bitsPerSample).toBe(24);
+    expect(bytes.length).toBe(44 + 10); // no LIST chunk; 9 data bytes and a pad byte
+  });
+
   it('rejects bad options and samples with the path of the problem', () => {
     const samples = new Float32Array(4);
     expect(() => encodeWav(samples, { sampleRateHz: 44_100.5 })).toThrow(/sampleRateHz: expected a whole sample rate/u);

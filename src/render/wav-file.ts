@@ -112,7 +112,11 @@ function channelsOf(audio: AudioChannels): readonly (Float32Array | Float64Array
 }
 
 function resolveOptions(options: Partial<WavOptions>): WavOptions {
-  const merged: WavOptions = { ...DEFAULT_WAV_OPTIONS, ...options };
+  const merged: WavOptions = {
+    sampleRateHz: options.sampleRateHz ?? DEFAULT_WAV_OPTIONS.sampleRateHz,
+    format: options.format ?? DEFAULT_WAV_OPTIONS.format,
+    info: options.info ?? DEFAULT_WAV_OPTIONS.info,
+  };
   if (!Number.isInteger(merged.sampleRateHz) || merged.sampleRateHz < 1 || merged.sampleRateHz > MAX_U32) {
     throw InputError.at('sampleRateHz', 'a whole sample rate in Hz from 1 to 4294967295', merged.sampleRateHz);
   }
