@@ -16,7 +16,7 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { amplitudeOfDb, concatenate, pluckedTone, sine } from '../../test/support/signals.js';
+import { amplitudeOfDb, concatenate, pluckedTone, sine, strummedChord } from '../../test/support/signals.js';
 import { measureLoudness } from './measure-loudness.js';
 
 const REFERENCE_SCRIPT = join(import.meta.dirname, '..', '..', 'test', 'reference', 'ebur128-integrated.mjs');
@@ -30,18 +30,9 @@ interface Case {
   readonly channels: readonly Float32Array[];
 }
 
+/** Open E major chord strummed and left to ring: a plucked-string-like decaying harmonic tone, 4 s. */
 function strum(sampleRateHz: number, seed: number): Float32Array {
-  // Open E major chord strummed low to high, then let ring: a plucked-string-like decaying harmonic tone.
-  return pluckedTone({
-    sampleRateHz,
-    durationS: 4,
-    fundamentalsHz: [82.41, 123.47, 164.81, 207.65, 246.94, 329.63],
-    noteTimesS: [0, 0.03, 0.06, 0.09, 0.12, 0.15],
-    harmonics: 40,
-    decayS: 2.5,
-    amplitude: 0.2,
-    seed,
-  });
+  return strummedChord(sampleRateHz, 4, 2.5, seed);
 }
 
 const cases: readonly Case[] = [

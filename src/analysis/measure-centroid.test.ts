@@ -1,6 +1,6 @@
 import meydaModule from 'meyda';
 import { describe, expect, it } from 'vitest';
-import { pluckedTone, sine } from '../../test/support/signals.js';
+import { sine, strummedChord } from '../../test/support/signals.js';
 import { InputError } from '../errors/index.js';
 import { SILENCE_CENTROID_HZ, measureCentroid } from './measure-centroid.js';
 
@@ -34,16 +34,7 @@ function relativeDifference(a: number, b: number): number {
 }
 
 describe('measureCentroid', () => {
-  const strum = pluckedTone({
-    sampleRateHz: RATE_HZ,
-    durationS: 2,
-    fundamentalsHz: [82.41, 123.47, 164.81, 207.65, 246.94, 329.63],
-    noteTimesS: [0, 0.03, 0.06, 0.09, 0.12, 0.15],
-    harmonics: 40,
-    decayS: 1.5,
-    amplitude: 0.2,
-    seed: 21,
-  });
+  const strum = strummedChord(RATE_HZ, 2, 1.5, 21);
 
   it('agrees with meyda spectralCentroid on the same frames within 0.5 %', () => {
     // Same bins as meyda (DC up to the bin below Nyquist) and the same symmetric Hann window.

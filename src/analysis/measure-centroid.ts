@@ -65,7 +65,7 @@ function hannWindow(length: number, kind: HannWindowKind): Float64Array {
   if (cachedWindow && cachedWindow.length === length && cachedWindow.kind === kind) return cachedWindow.values;
   const values = new Float64Array(length);
   const period = kind === 'symmetric' ? length - 1 : length;
-  for (let n = 0; n < length; n += 1) values[n] = period > 0 ? 0.5 - 0.5 * Math.cos((2 * Math.PI * n) / period) : 1;
+  for (let n = 0; n < length; n += 1) values[n] = period > 0 ? (1 - Math.cos((2 * Math.PI * n) / period)) / 2 : 1;
   cachedWindow = { length, kind, values };
   return values;
 }

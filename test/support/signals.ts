@@ -71,3 +71,20 @@ export function pluckedTone(options: PluckedToneOptions): Float32Array {
   });
   return out;
 }
+
+/** Fundamentals of an open E major chord, low to high (E2 B2 E3 G#3 B3 E4; ISO 16 equal temperament), Hz. */
+export const OPEN_E_MAJOR_HZ: readonly number[] = [82.41, 123.47, 164.81, 207.65, 246.94, 329.63];
+
+/** An open E major chord strummed low to high (30 ms apart), 40 harmonics per string, then left to ring. */
+export function strummedChord(sampleRateHz: number, durationS: number, decayS: number, seed: number): Float32Array {
+  return pluckedTone({
+    sampleRateHz,
+    durationS,
+    fundamentalsHz: OPEN_E_MAJOR_HZ,
+    noteTimesS: OPEN_E_MAJOR_HZ.map((_, index) => 0.03 * index),
+    harmonics: 40,
+    decayS,
+    amplitude: 0.2,
+    seed,
+  });
+}
