@@ -5,9 +5,11 @@
 import { cpus } from 'node:os';
 import { benchChain } from './bench/chain.js';
 import { benchEnumerate } from './bench/enumerate.js';
+import { benchMeasures } from './bench/measures.js';
 import { benchStrings } from './bench/strings.js';
 
 console.log(`coilbench bench — node ${process.version}, ${cpus().length} cores (${cpus()[0]?.model ?? 'unknown cpu'})`);
 benchEnumerate();
 benchStrings();
+await benchMeasures();
 await benchChain();

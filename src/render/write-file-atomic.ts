@@ -1,0 +1,152 @@
+/**
+ * Atomic file writes: the bytes go to a temporary file in the destination's
+ * own folder (so the rename never crosses file systems), are flushed to disk
+ * with fsync, and the temporary file is then renamed over the destination.
+ * rename(2) replaces a name atomically (POSIX.1-2017, rename()), so a reader,
+ * a Ctrl-C or a kill at any moment sees either the old file or the whole new
+ * one, never a truncated one. The temporary file is removed when the write
+ * fails.
+ *
+ * A process killed mid-write (SIGKILL, power loss) can leave its temporary
+ * file behind: it is hidden (`.coilbench-<pid>-<random>.tmp`), ignored by
+ * git, and removeStaleTempFiles() deletes it on the next run. A command that
+ * handles SIGINT itself can call removePendingTempFilesSync() before exiting.
+ *
+ * Folders are not created here: the caller makes them first.
+ */
+import { randomBytes } from 'node:crypto';
+import { closeSync, fsyncSync, openSync, renameSync, rmSync, writeSync } from 'node:fs';
+import { type FileHandle, open, readdir, rename, rm, stat } from 'node:fs/promises';
+import { dirname, join } from 'node:path';
+import { WorkError } from '../errors/index.js';
+
+/** Every temporary file starts with this (hidden, and listed in .gitignore). */
+export const TEMP_FILE_PREFIX = '.coilbench-';
+const TEMP_FILE_SUFFIX = '.tmp';
+const RANDOM_BYTES = 6;
+const TEMP_FILE_PATTERN = /^\.coilbench-(\d+)-[0-9a-f]{12}\.tmp$/u;
+
+/** A temporary file older than this is stale even if its process id is in use again, ms (judgement: no write takes an hour). */
+export const STALE_TEMP_FILE_AGE_MS = 60 * 60 * 1000;
+
+/** Temporary files this process is writing now. */
+const pending = new Set<string>();
+
+function temporaryPathFor(path: string): string {
+  return join(dirname(path), `${TEMP_FILE_PREFIX}${process.pid}-${randomBytes(RANDOM_BYTES).toString('hex')}${TEMP_FILE_SUFFIX}`);
+}
+
+function reason(error: unknown): string {
+  if (error instanceof Error) return 'code' in error && typeof error.code === 'string' ? `${error.code} (${error.message})` : error.message;
+  return String(error);
+}
+
+function failure(path: string, error: unknown): WorkError {
+  return new WorkError(`could not write ${path}: ${reason(error)}`, { cause: error });
+}
+
+/** Write `data` (bytes, or text as UTF-8) to `path` atomically. Throws WorkError on failure, leaving no temporary file. */
+export async function writeFileAtomic(path: string, data: Uint8Array | string): Promise<void> {
+  const temporary = temporaryPathFor(path);
+  pending.add(temporary);
+  let handle: FileHandle | null = null;
+  try {
+    handle = await open(temporary, 'wx');
+    await handle.writeFile(data);
+    await handle.sync();
+    await handle.close();
+    handle = null;
+    await rename(temporary, path);
+  } catch (error) {
+    await handle?.close().catch(() => undefined);
+    await rm(temporary, { force: true }).catch(() => undefined);
+    throw failure(path, error);
+  } finally {
+    pending.delete(temporary);
+  }
+}
+
+/** The same, synchronously, for writers that cannot await. */
+export function writeFileAtomicSync(path: string, data: Uint8Array | string): void {
+  const temporary = temporaryPathFor(path);
+  pending.add(temporary);
+  let descriptor: number | null = null;
+  try {
+    descriptor = openSync(temporary, 'wx');
+    const bytes = typeof data === 'string' ? Buffer.from(data, 'utf8') : data;
+    for (let written = 0; written < bytes.length; ) written += writeSync(descriptor, bytes, written, bytes.length - written);
+    fsyncSync(descriptor);
+    closeSync(descriptor);
+    descriptor = null;
+    renameSync(temporary, path);
+  } catch (error) {
+    if (descriptor !== null) {
+      try {
+        closeSync(descriptor);
+      } catch {
+        // already failing; the original error is the one to report
+      }
+    }
+    rmSync(temporary, { force: true });
+    throw failure(path, error);
+  } finally {
+    pending.delete(temporary);
+  }
+}
+
+/** Remove the temporary files of writes still in progress in this process (for a SIGINT handler). Returns how many. */
+export function removePendingTempFilesSync(): number {
+  let removed = 0;
+  for (const temporary of pending) {
+    try {
+      rmSync(temporary, { force: true });
+      removed += 1;
+    } catch {
+      // best effort while exiting
+    }
+  }
+  pending.clear();
+  return removed;
+}
+
+function processIsAlive(pid: number): boolean {
+  try {
+    process.kill(pid, 0); // signal 0: existence check only
+    return true;
+  } catch (error) {
+    return error instanceof Error && 'code' in error && error.code === 'EPERM'; // exists, owned by someone else
+  }
+}
+
+/**
+ * Delete temporary files left in `folder` by killed writers: those whose
+ * process is gone, or older than STALE_TEMP_FILE_AGE_MS. Files of writes in
+ * progress (here or in another live process) are kept. A missing folder has
+ * nothing to clean. Returns the paths removed.
+ */
+export async function removeStaleTempFiles(folder: string, nowMs: number = Date.now()): Promise<string[]> {
+  let names: string[];
+  try {
+    names = await readdir(folder);
+  } catch (error) {
+    if (error instanceof Error && 'code' in error && error.code === 'ENOENT') return [];
+    throw new WorkError(`could not read ${folder}: ${reason(error)}`, { cause: error });
+  }
+  const removed: string[] = [];
+  for (const name of names) {
+    const match = TEMP_FILE_PATTERN.exec(name);
+    if (!match) continue;
+    const path = join(folder, name);
+    if (pending.has(path)) continue;
+    const pid = Number(match[1]);
+    let stale = pid === process.pid || !processIsAlive(pid);
+    if (!stale) {
+      const info = await stat(path).catch(() => null);
+      stale = info !== null && nowMs - info.mtimeMs > STALE_TEMP_FILE_AGE_MS;
+    }
+    if (!stale) continue;
+    await rm(path, { force: true });
+    removed.push(path);
+  }
+  return removed;
+}
