@@ -34,3 +34,4 @@ export type { CoilPlacement, Lead, WiringLayout } from './layout-wiring.js';
 export { layoutWiring, networkResistanceOhms, HOT_NODE, GROUND_NODE } from './layout-wiring.js';
 export type { NetlistOptions, SourcePhasor } from './render-netlist.js';
 export { renderNetlist, DEFAULT_NETLIST_OPTIONS } from './render-netlist.js';
+export { renderBuildSheet } from './render-build-sheet.js';
