@@ -57,7 +57,7 @@ export function parseCircuitOptions(options: CircuitOptionText, guitar: Guitar, 
       }
     } catch (error) {
       if (!(error instanceof QuantityError)) throw error;
-      problems.push(problemAt('--cable', `${error.expected} (the cable's total capacitance)`, options.cable));
+      problems.push(problemAt('--cable', `the cable's total capacitance: ${error.expected}`, options.cable));
     }
   }
   if (options.mains !== undefined) {
