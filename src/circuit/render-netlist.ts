@@ -188,7 +188,8 @@ export function renderNetlist(
     '',
     '.options nopage',
     `.ac dec ${settings.pointsPerDecade} ${spiceNumber(settings.startHz)} ${spiceNumber(settings.stopHz)}`,
-    `.print ac vdb(${OUTPUT_NODE}) vp(${OUTPUT_NODE})*180/pi`,
+    // With the volume at 0 the output is exactly 0 and dB would be −∞: print the magnitude instead.
+    load.silent ? `.print ac vm(${OUTPUT_NODE}) vp(${OUTPUT_NODE})*180/pi` : `.print ac vdb(${OUTPUT_NODE}) vp(${OUTPUT_NODE})*180/pi`,
     '.end',
     '',
   );

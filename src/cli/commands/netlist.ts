@@ -1,5 +1,5 @@
 import type { Command } from 'commander';
-import { renderBuildSheet, renderNetlist } from '../../circuit/index.js';
+import { renderBuildSheet, renderNetlist, resolveCircuitLoad } from '../../circuit/index.js';
 import { InputError, type InputProblem } from '../../errors/index.js';
 import { enumerateWirings, findWiring, vocabularyOf } from '../../wiring/index.js';
 import { type CircuitOptionText, addCircuitOptions, parseCircuitOptions } from '../circuit-options.js';
@@ -29,6 +29,9 @@ export function registerNetlist(program: Command, io: Io): void {
       problems.push(...error.problems);
     }
     if (problems.length > 0 || wiring === undefined) throw new InputError(problems);
+    if (!options.buildSheet && resolveCircuitLoad(guitar, overrides).silent) {
+      io.stderr('coilbench: note: with the volume at 0 the output is shorted to ground; the netlist prints the magnitude (0), not dB\n');
+    }
     io.stdout(options.buildSheet ? renderBuildSheet(guitar, wiring) : renderNetlist(guitar, wiring, overrides));
   });
 }
