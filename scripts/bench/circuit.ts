@@ -54,7 +54,7 @@ export async function benchCircuit(): Promise<void> {
       for (const wiring of wirings) solveTransfers(prepared, wiring.network, out);
     });
     line(`${label}: ${wirings.length} wirings, analyze`, `${ms.toFixed(1)} ms`);
-    line(`${label}: ${wirings.length} wirings, transfers only`, `${solveMs.toFixed(1)} ms`);
+    line(`${label}: ${wirings.length} wirings, every transfer solved (as render needs)`, `${solveMs.toFixed(1)} ms`);
   }
 
   heading('Circuit: the 47 three-coil responses from ngspice (eecircuit-engine) in the same run');
