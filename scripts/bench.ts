@@ -4,6 +4,7 @@
  */
 import { cpus } from 'node:os';
 import { benchChain } from './bench/chain.js';
+import { benchCircuit } from './bench/circuit.js';
 import { benchEnumerate } from './bench/enumerate.js';
 import { benchMeasures } from './bench/measures.js';
 import { benchStrings } from './bench/strings.js';
@@ -13,3 +14,4 @@ benchEnumerate();
 benchStrings();
 await benchMeasures();
 await benchChain();
+await benchCircuit();

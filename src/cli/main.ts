@@ -9,6 +9,8 @@ import { InputError, WorkError, formatProblem } from '../errors/index.js';
 import { registerCheck } from './commands/check.js';
 import { registerDemo } from './commands/demo.js';
 import { registerWirings } from './commands/wirings.js';
+import { registerAnalyze } from './commands/analyze.js';
+import { registerNetlist } from './commands/netlist.js';
 import type { Io } from './io.js';
 
 export const EXIT_OK = 0;
@@ -33,6 +35,8 @@ function buildProgram(io: Io, run: (argv: string[]) => Promise<number>): Command
   registerDemo(program, io, run);
   registerCheck(program, io);
   registerWirings(program, io);
+  registerAnalyze(program, io);
+  registerNetlist(program, io);
   for (const command of program.commands) {
     command.exitOverride().configureOutput({
       writeOut: (text) => io.stdout(text),

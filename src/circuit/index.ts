@@ -1,0 +1,37 @@
+export type { Sign } from './coil-signs.js';
+export { connectionSign, humSign, magnetSign, phaseSign, windingSign } from './coil-signs.js';
+export { audioTaperBase, wiperFraction, KNOB_FULL_SCALE } from './pot-taper.js';
+export type { CircuitLoad, CircuitOverrides, MainsHz, ToneLoad, VolumeLoad } from './circuit-load.js';
+export { resolveCircuitLoad, DEFAULT_MAINS_HZ, CABLE_CAPACITANCE_MIN_F, CABLE_CAPACITANCE_MAX_F } from './circuit-load.js';
+export type { PreparedCircuit } from './prepare-circuit.js';
+export { prepareCircuit } from './prepare-circuit.js';
+export { solveTransfers } from './solve-transfers.js';
+export { powerSumAt, solvePowerSum, solvePowerSumAt } from './power-sum.js';
+export {
+  analysisFrequencies,
+  logSpacedFrequencies,
+  ANALYSIS_POINTS,
+  AUDIO_BAND_HIGH_HZ,
+  AUDIO_BAND_LOW_HZ,
+  REFERENCE_FREQUENCY_HZ,
+} from './frequency-grid.js';
+export type { ResonanceMetrics } from './measure-resonance.js';
+export { measureResonance } from './measure-resonance.js';
+export {
+  humDecibels,
+  humMagnitudeAt,
+  isHumCancelling,
+  measureHum,
+  measureHumReference,
+  HUM_CANCELLING_DB,
+  HUM_FLOOR_DB,
+} from './measure-hum.js';
+export { measureResponseDb } from './measure-response.js';
+export type { CircuitAnalysis, CircuitMetricsOptions, WiringCircuitMetrics } from './measure-circuit-metrics.js';
+export { measureCircuitMetrics, DEFAULT_CIRCUIT_METRICS_OPTIONS } from './measure-circuit-metrics.js';
+export { amplitudeDb } from './decibels.js';
+export type { CoilPlacement, Lead, WiringLayout } from './layout-wiring.js';
+export { layoutWiring, networkResistanceOhms, HOT_NODE, GROUND_NODE } from './layout-wiring.js';
+export type { NetlistOptions, SourcePhasor } from './render-netlist.js';
+export { renderNetlist, DEFAULT_NETLIST_OPTIONS } from './render-netlist.js';
+export { renderBuildSheet } from './render-build-sheet.js';

@@ -1,0 +1,197 @@
+/**
+ * A SPICE netlist of one wiring with the guitar's load, in plain ngspice
+ * syntax, so anyone can check coilbench's figures in their own simulator:
+ * one AC source per coil (its string signal) with the coil's L, R and
+ * self-capacitance, the controls, cable and amplifier, an `.ac` sweep and a
+ * `.print ac` of the output in dB and degrees (`ngspice -b file.cir`).
+ *
+ * Values are written as plain numbers in SI units (12 significant digits),
+ * never with SPICE suffixes, because SPICE reads "M" as
+ * milli (ngspice manual, §2.3 "Values": "M" = 1e-3, "MEG" = 1e6).
+ *
+ * Each coil: start ─ V (EMF) ─ L ─ R ─ finish, C from start to finish. The
+ * source's value is the string EMF from start to finish, so its sign is w·m
+ * (coil-signs.ts): "AC 1 0" or "AC 1 180". The wiring's connection then puts
+ * the finish or the start lead towards hot, which turns it into p.
+ */
+import type { Coil, Guitar } from '../guitar/index.js';
+import type { Network, Wiring } from '../wiring/index.js';
+import { magnetSign, windingSign } from './coil-signs.js';
+import { type CircuitOverrides, resolveCircuitLoad } from './circuit-load.js';
+import { AUDIO_BAND_HIGH_HZ, AUDIO_BAND_LOW_HZ } from './frequency-grid.js';
+import { GROUND_NODE, HOT_NODE, layoutWiring } from './layout-wiring.js';
+
+/** A source's AC value: magnitude and phase in degrees. */
+export interface SourcePhasor {
+  readonly magnitude: number;
+  readonly phaseDeg: number;
+}
+
+export interface NetlistOptions {
+  /** Sweep points per decade (`.ac dec N …`). Default 20, which gives 61 points over 20 Hz–20 kHz. */
+  readonly pointsPerDecade: number;
+  /** Sweep start and stop, Hz. Default 20 Hz and 20 kHz. */
+  readonly startHz: number;
+  readonly stopHz: number;
+  /**
+   * Each coil's string EMF (guitar.coils order), acoustic polarity +1. Default
+   * 1∠0° for every coil: equal string signals, so the output is Σ_i T_i.
+   */
+  readonly sourcePhasors: readonly SourcePhasor[] | null;
+}
+
+export const DEFAULT_NETLIST_OPTIONS: Readonly<NetlistOptions> = Object.freeze({
+  pointsPerDecade: 20,
+  startHz: AUDIO_BAND_LOW_HZ,
+  stopHz: AUDIO_BAND_HIGH_HZ,
+  sourcePhasors: null,
+});
+
+/** SPICE's ground node. */
+const SPICE_GROUND = '0';
+const OUTPUT_NODE = 'out';
+const HALF_TURN_DEG = 180;
+
+/** Significant digits written: 12 keeps every value within 1e-12 of the float64 the solver uses, far inside the checks' tolerances. */
+const SIGNIFICANT_DIGITS = 12;
+
+/** A number as ngspice reads it: plain decimal or exponent form, no suffix. */
+function spiceNumber(value: number): string {
+  if (!Number.isFinite(value)) throw new RangeError(`renderNetlist: cannot write ${value}`);
+  return String(Number(value.toPrecision(SIGNIFICANT_DIGITS)));
+}
+
+/** ASCII-only comment text (some simulators choke on other characters). */
+function asciiText(text: string): string {
+  return text
+    .replace(/Ω/gu, 'ohm')
+    .replace(/µ/gu, 'u')
+    .replace(/[–—]/gu, '-')
+    .replace(/→/gu, '->')
+    .replace(/[^\x20-\x7e]/gu, '?');
+}
+
+/** Instance and node names from coil ids: letters, digits and "_" only, unique regardless of case (SPICE ignores case). */
+function spiceNames(coils: readonly Coil[]): string[] {
+  const seen = new Set<string>();
+  return coils.map((coil) => {
+    let name = coil.id.replace(/[^A-Za-z0-9_]/gu, '_');
+    if (seen.has(name.toLowerCase())) name = `${name}_${coil.index + 1}`;
+    seen.add(name.toLowerCase());
+    return name;
+  });
+}
+
+/**
+ * The netlist text of a wiring of `guitar`, with the load after `overrides`.
+ * Throws InputError for a bad override.
+ */
+export function renderNetlist(
+  guitar: Guitar,
+  wiring: Pick<Wiring, 'network' | 'expression' | 'description'> & { readonly id?: string },
+  overrides?: CircuitOverrides,
+  options: Partial<NetlistOptions> = {},
+): string {
+  const settings = { ...DEFAULT_NETLIST_OPTIONS, ...options };
+  if (!Number.isInteger(settings.pointsPerDecade) || settings.pointsPerDecade < 1) {
+    throw new RangeError(`renderNetlist: pointsPerDecade must be a positive integer, got ${settings.pointsPerDecade}`);
+  }
+  if (!(settings.startHz > 0) || !(settings.stopHz > settings.startHz)) {
+    throw new RangeError(`renderNetlist: need 0 < startHz < stopHz, got ${settings.startHz}, ${settings.stopHz}`);
+  }
+  const load = resolveCircuitLoad(guitar, overrides);
+  const network: Network = wiring.network;
+  const layout = layoutWiring(guitar, network);
+  const names = spiceNames(guitar.coils);
+  const node = (name: string): string => {
+    if (name === HOT_NODE) return HOT_NODE;
+    if (name === GROUND_NODE) return SPICE_GROUND;
+    return name.replace(/[^A-Za-z0-9_]/gu, '_');
+  };
+  const lines: string[] = [];
+  const label = wiring.id ? `${wiring.id}: ${wiring.expression}` : wiring.expression;
+  // The first line of a SPICE netlist is its title.
+  lines.push(asciiText(`coilbench: ${guitar.name} - ${label}`));
+  lines.push(
+    asciiText(`* ${wiring.description}`),
+    '* Written by coilbench. A model, not a measurement: real pickups also lose treble to eddy currents.',
+    '* Each coil: its string EMF (the AC source; 1 = equal string signals for every coil) in series with',
+    '* its inductance and resistance, its self-capacitance across its leads. The AC value is the EMF seen',
+    '* from the start lead to the finish lead: its sign is winding x magnet (cw = +1, north up = +1).',
+    '* Nodes: hot = volume pot input, out = amplifier input, 0 = ground, j* = joints between coils.',
+    '',
+  );
+  for (const placement of layout.placements) {
+    const { coil } = placement;
+    const name = names[coil.index] as string;
+    const startNode = node(placement.plusLead === 'start' ? placement.plusNode : placement.minusNode);
+    const finishNode = node(placement.plusLead === 'finish' ? placement.plusNode : placement.minusNode);
+    const phasor = settings.sourcePhasors?.[coil.index] ?? { magnitude: 1, phaseDeg: 0 };
+    const stringSign = windingSign(coil.winding) * magnetSign(coil.magnet);
+    const phaseDeg = phasor.phaseDeg + (stringSign < 0 ? HALF_TURN_DEG : 0);
+    const inside = placement.element.kind === 'two-lead pickup' ? ` (inside two-lead pickup ${placement.element.id})` : '';
+    lines.push(
+      asciiText(
+        `* coil ${coil.id}${inside}: ${spiceNumber(coil.resistanceOhms)} ohm, ${spiceNumber(coil.inductanceH)} H, ` +
+          `${spiceNumber(coil.capacitanceF)} F; winding ${coil.winding}, ${coil.magnet} up; ` +
+          `${placement.phase === 1 ? 'in phase' : 'out of phase'}: ${placement.plusLead} lead at ${node(placement.plusNode)}, ` +
+          `${placement.minusLead} lead at ${node(placement.minusNode)}`,
+      ),
+      `V${name} ${name}_emf ${startNode} DC 0 AC ${spiceNumber(phasor.magnitude)} ${spiceNumber(phaseDeg)}`,
+      `L${name} ${name}_emf ${name}_l ${spiceNumber(coil.inductanceH)}`,
+      `R${name} ${name}_l ${finishNode} ${spiceNumber(coil.resistanceOhms)}`,
+      `C${name} ${startNode} ${finishNode} ${spiceNumber(coil.capacitanceF)}`,
+    );
+  }
+  if (layout.unused.length > 0) {
+    lines.push(asciiText(`* not used, disconnected: ${layout.unused.map((coil) => coil.id).join(', ')}`));
+  }
+  const { volume, tone, trebleBleed } = load;
+  lines.push(
+    '',
+    `* Volume pot ${spiceNumber(volume.potOhms)} ohm, ${volume.taper} taper, setting ${volume.setting} ` +
+      `(wiper at ${spiceNumber(volume.wiperFraction)} of the track from ground): track from hot to ground, wiper to the output.`,
+  );
+  if (volume.topOhms > 0) lines.push(`Rvolume_top ${HOT_NODE} ${OUTPUT_NODE} ${spiceNumber(volume.topOhms)}`);
+  else lines.push(`Vvolume_top ${HOT_NODE} ${OUTPUT_NODE} DC 0 ; fully up: the wiper sits at the hot end (a 0 V source is a short)`);
+  if (volume.bottomOhms > 0) lines.push(`Rvolume_bottom ${OUTPUT_NODE} ${SPICE_GROUND} ${spiceNumber(volume.bottomOhms)}`);
+  else lines.push(`Vvolume_bottom ${OUTPUT_NODE} ${SPICE_GROUND} DC 0 ; fully down: the output is shorted to ground, nothing reaches the amplifier`);
+  if (tone) {
+    lines.push(
+      `* Tone: pot ${spiceNumber(tone.potOhms)} ohm ${tone.taper} taper at ${tone.setting} (${spiceNumber(tone.resistanceOhms)} ohm) in series with ${spiceNumber(tone.capacitorF)} F, hot to ground.`,
+    );
+    if (tone.resistanceOhms > 0) {
+      lines.push(`Rtone ${HOT_NODE} tone ${spiceNumber(tone.resistanceOhms)}`, `Ctone tone ${SPICE_GROUND} ${spiceNumber(tone.capacitorF)}`);
+    } else {
+      lines.push(`Ctone ${HOT_NODE} ${SPICE_GROUND} ${spiceNumber(tone.capacitorF)} ; tone at 0: the capacitor alone`);
+    }
+  } else {
+    lines.push('* No tone control.');
+  }
+  if (trebleBleed) {
+    const resistor = trebleBleed.resistorOhms;
+    lines.push(`* Treble bleed across the volume pot (hot to out): ${spiceNumber(trebleBleed.capacitorF)} F${resistor ? ` with ${spiceNumber(resistor)} ohm in ${trebleBleed.arrangement}` : ''}.`);
+    if (trebleBleed.arrangement === 'series' && resistor !== undefined) {
+      lines.push(`Rbleed ${HOT_NODE} bleed ${spiceNumber(resistor)}`, `Cbleed bleed ${OUTPUT_NODE} ${spiceNumber(trebleBleed.capacitorF)}`);
+    } else {
+      lines.push(`Cbleed ${HOT_NODE} ${OUTPUT_NODE} ${spiceNumber(trebleBleed.capacitorF)}`);
+      if (resistor !== undefined) lines.push(`Rbleed ${HOT_NODE} ${OUTPUT_NODE} ${spiceNumber(resistor)}`);
+    }
+  }
+  lines.push(
+    '* Cable and amplifier input, from the output to ground.',
+    `Ccable ${OUTPUT_NODE} ${SPICE_GROUND} ${spiceNumber(load.cableCapacitanceF)}`,
+    `Ramp ${OUTPUT_NODE} ${SPICE_GROUND} ${spiceNumber(load.ampResistanceOhms)}`,
+  );
+  if (load.ampCapacitanceF > 0) lines.push(`Camp ${OUTPUT_NODE} ${SPICE_GROUND} ${spiceNumber(load.ampCapacitanceF)}`);
+  lines.push(
+    '',
+    '.options nopage',
+    `.ac dec ${settings.pointsPerDecade} ${spiceNumber(settings.startHz)} ${spiceNumber(settings.stopHz)}`,
+    // With the volume at 0 the output is exactly 0 and dB would be −∞: print the magnitude instead.
+    load.silent ? `.print ac vm(${OUTPUT_NODE}) vp(${OUTPUT_NODE})*180/pi` : `.print ac vdb(${OUTPUT_NODE}) vp(${OUTPUT_NODE})*180/pi`,
+    '.end',
+    '',
+  );
+  return lines.join('\n');
+}

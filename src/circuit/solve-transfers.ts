@@ -1,0 +1,206 @@
+/**
+ * Each coil's transfer T_i(f) from its string EMF to the amplifier input,
+ * for one wiring: "sum the coils' sources, divide by the load".
+ *
+ * 1. Every coil is a Thevenin source k_i·E_i behind Z_i (prepare-circuit.ts),
+ *    oriented so its string signal enters the network with the sign p_i the
+ *    wiring gives it (coil-signs.ts). T_i carries p_i.
+ * 2. Series: sources and impedances add, V = Σ V_k, Z = Σ Z_k (Kirchhoff's
+ *    voltage law).
+ *    Parallel: Millman's theorem, V = Σ(V_k/Z_k) / Σ(1/Z_k), Z = 1/Σ(1/Z_k):
+ *    each part's sources are scaled by Y_k/ΣY.
+ *    Applied recursively over the wiring's tree; unused coils are
+ *    disconnected (T = 0).
+ * 3. Load (circuit-load.ts): nodal analysis of the two nodes hot (h) and out
+ *    (o) with the wiring's Thevenin source (V, Z), Y_s = 1/Z:
+ *      [Y_s + Y_h + Y_ho, −Y_ho; −Y_ho, Y_o + Y_ho]·[v_h; v_o] = [V·Y_s; 0]
+ *    so v_o/V = Y_ho·Y_s / ((Y_s + Y_h)·Y_o + Y_ho·(Y_s + Y_h + Y_o))
+ *    (Cramer's rule), and with the volume fully up (v_o = v_h)
+ *      v_o/V = Y_s / (Y_s + Y_h + Y_o).
+ */
+import type { Network } from '../wiring/index.js';
+import type { PreparedCircuit, Workspace } from './prepare-circuit.js';
+
+function acquire(workspace: Workspace, length: number): Float64Array {
+  const buffer = workspace.buffers[workspace.top] ?? new Float64Array(length);
+  workspace.buffers[workspace.top] = buffer;
+  workspace.top += 1;
+  return buffer;
+}
+
+interface SolveState {
+  readonly prepared: PreparedCircuit;
+  readonly out: Float64Array[];
+  readonly length: number;
+  coilCount: number;
+  boundaryCount: number;
+}
+
+/** Writes the network's impedance into `impedance` and each of its coils' source factors into `out`. */
+function evaluate(state: SolveState, node: Network, impedance: Float64Array): void {
+  const { prepared, out, length } = state;
+  const workspace = prepared.workspace;
+  if (node.kind === 'element') {
+    const element = prepared.guitar.elements[node.element];
+    if (element === undefined) throw new RangeError(`solveTransfers: no element ${node.element} in this guitar`);
+    const sign = node.inverted ? -1 : 1;
+    impedance.fill(0);
+    // A two-lead pickup: its coils in series, string signals in phase; the element's phase applies to each.
+    for (const c of element.coilIndices) {
+      if (workspace.used[c] === 1) throw new RangeError(`solveTransfers: coil ${c} used twice`);
+      workspace.used[c] = 1;
+      workspace.coilStack[state.coilCount] = c;
+      state.coilCount += 1;
+      const source = prepared.coilSource[c] as Float64Array;
+      const z = prepared.coilImpedance[c] as Float64Array;
+      const target = out[c] as Float64Array;
+      for (let i = 0; i < length; i += 1) {
+        target[i] = sign * (source[i] as number);
+        impedance[i] = (impedance[i] as number) + (z[i] as number);
+      }
+    }
+    return;
+  }
+  const mark = workspace.top;
+  if (node.kind === 'series') {
+    const part = acquire(workspace, length);
+    impedance.fill(0);
+    for (const child of node.parts) {
+      evaluate(state, child, part);
+      for (let i = 0; i < length; i += 1) impedance[i] = (impedance[i] as number) + (part[i] as number);
+    }
+    workspace.top = mark;
+    return;
+  }
+  // Parallel (Millman): keep each part's admittance until the sum is known.
+  const total = acquire(workspace, length);
+  total.fill(0);
+  const firstBoundary = state.boundaryCount;
+  // Part k's admittance lives in buffers[partBase + k]: each child releases what it acquires.
+  const partBase = workspace.top;
+  const partCount = node.parts.length;
+  for (let k = 0; k < partCount; k += 1) {
+    workspace.boundaryStack[state.boundaryCount] = state.coilCount;
+    state.boundaryCount += 1;
+    const y = acquire(workspace, length);
+    evaluate(state, node.parts[k] as Network, y);
+    for (let i = 0; i < length; i += 2) {
+      const zr = y[i] as number;
+      const zi = y[i + 1] as number;
+      const norm = zr * zr + zi * zi;
+      const yr = zr / norm;
+      const yi = -zi / norm;
+      y[i] = yr;
+      y[i + 1] = yi;
+      total[i] = (total[i] as number) + yr;
+      total[i + 1] = (total[i + 1] as number) + yi;
+    }
+  }
+  const end = state.coilCount;
+  for (let k = 0; k < partCount; k += 1) {
+    const y = workspace.buffers[partBase + k] as Float64Array;
+    const from = workspace.boundaryStack[firstBoundary + k] as number;
+    const to = k + 1 < partCount ? (workspace.boundaryStack[firstBoundary + k + 1] as number) : end;
+    // factor Y_k / ΣY, written over y
+    for (let i = 0; i < length; i += 2) {
+      const ar = y[i] as number;
+      const ai = y[i + 1] as number;
+      const br = total[i] as number;
+      const bi = total[i + 1] as number;
+      const norm = br * br + bi * bi;
+      y[i] = (ar * br + ai * bi) / norm;
+      y[i + 1] = (ai * br - ar * bi) / norm;
+    }
+    for (let s = from; s < to; s += 1) multiplyInPlace(out[workspace.coilStack[s] as number] as Float64Array, y, length);
+  }
+  // Z = 1/ΣY
+  for (let i = 0; i < length; i += 2) {
+    const br = total[i] as number;
+    const bi = total[i + 1] as number;
+    const norm = br * br + bi * bi;
+    impedance[i] = br / norm;
+    impedance[i + 1] = -bi / norm;
+  }
+  state.boundaryCount = firstBoundary;
+  workspace.top = mark;
+}
+
+function multiplyInPlace(target: Float64Array, factor: Float64Array, length: number): void {
+  for (let i = 0; i < length; i += 2) {
+    const ar = target[i] as number;
+    const ai = target[i + 1] as number;
+    const br = factor[i] as number;
+    const bi = factor[i + 1] as number;
+    target[i] = ar * br - ai * bi;
+    target[i + 1] = ar * bi + ai * br;
+  }
+}
+
+/**
+ * One interleaved complex array (re, im, …; length 2·F) per guitar coil, in
+ * `guitar.coils` order: T_i(f) from coil i's string EMF (acoustic polarity
+ * +1) to the amplifier input, including the coil's phase p_i. All zeros for
+ * coils the wiring does not use, and for every coil when the volume is at 0.
+ * Writes into `out` when given (no allocation per call once warmed up).
+ */
+export function solveTransfers(prepared: PreparedCircuit, network: Network, out?: Float64Array[]): Float64Array[] {
+  const length = 2 * prepared.frequenciesHz.length;
+  const coils = prepared.guitar.coils.length;
+  const result = out ?? Array.from({ length: coils }, () => new Float64Array(length));
+  let fits = result.length === coils;
+  for (let c = 0; fits && c < coils; c += 1) fits = (result[c] as Float64Array).length === length;
+  if (!fits) throw new RangeError(`solveTransfers: out must hold ${coils} arrays of length ${length}`);
+  const workspace = prepared.workspace;
+  workspace.used.fill(0);
+  workspace.top = 0;
+  const state: SolveState = { prepared, out: result, length, coilCount: 0, boundaryCount: 0 };
+  const impedance = acquire(workspace, length);
+  evaluate(state, network, impedance);
+  if (prepared.load.silent) {
+    for (const array of result) array.fill(0);
+    return result;
+  }
+  // The load: G = v_o/V, written over the impedance buffer.
+  const hot = prepared.hotAdmittance;
+  const outY = prepared.outAdmittance;
+  const bridge = prepared.bridgeAdmittance;
+  for (let i = 0; i < length; i += 2) {
+    const zr = impedance[i] as number;
+    const zi = impedance[i + 1] as number;
+    const zn = zr * zr + zi * zi;
+    const sr = zr / zn; // Y_s
+    const si = -zi / zn;
+    const hr = sr + (hot[i] as number); // Y_s + Y_h
+    const hi = si + (hot[i + 1] as number);
+    const or = outY[i] as number;
+    const oi = outY[i + 1] as number;
+    let nr: number;
+    let ni: number;
+    let dr: number;
+    let di: number;
+    if (bridge === null) {
+      nr = sr;
+      ni = si;
+      dr = hr + or;
+      di = hi + oi;
+    } else {
+      const br = bridge[i] as number;
+      const bi = bridge[i + 1] as number;
+      nr = br * sr - bi * si;
+      ni = br * si + bi * sr;
+      const tr = hr + or; // Y_s + Y_h + Y_o
+      const ti = hi + oi;
+      dr = hr * or - hi * oi + (br * tr - bi * ti);
+      di = hr * oi + hi * or + (br * ti + bi * tr);
+    }
+    const dn = dr * dr + di * di;
+    impedance[i] = (nr * dr + ni * di) / dn;
+    impedance[i + 1] = (ni * dr - nr * di) / dn;
+  }
+  for (let s = 0; s < state.coilCount; s += 1) {
+    multiplyInPlace(result[workspace.coilStack[s] as number] as Float64Array, impedance, length);
+  }
+  for (let c = 0; c < coils; c += 1) if (workspace.used[c] === 0) (result[c] as Float64Array).fill(0);
+  workspace.top = 0;
+  return result;
+}

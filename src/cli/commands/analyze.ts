@@ -1,0 +1,151 @@
+import { resolve } from 'node:path';
+import type { Command } from 'commander';
+import {
+  type CircuitLoad,
+  AUDIO_BAND_HIGH_HZ,
+  AUDIO_BAND_LOW_HZ,
+  HUM_CANCELLING_DB,
+  HUM_FLOOR_DB,
+  measureCircuitMetrics,
+} from '../../circuit/index.js';
+import { InputError, type InputProblem, problemAt } from '../../errors/index.js';
+import { formatEngineering } from '../../units/index.js';
+import { enumerateWirings } from '../../wiring/index.js';
+import { type CircuitOptionText, addCircuitOptions, parseCircuitOptions } from '../circuit-options.js';
+import { formatTable } from '../format-table.js';
+import type { Io } from '../io.js';
+import {
+  type AnalyzedWiring,
+  METRIC_COLUMNS,
+  renderCsv,
+  renderMarkdownTable,
+  sortNames,
+  sortRows,
+} from '../metric-columns.js';
+import { readGuitarFile } from '../read-guitar.js';
+import { writeFileAtomic } from '../write-file-atomic.js';
+import { wiringRecord } from './wirings.js';
+
+interface AnalyzeOptions extends CircuitOptionText {
+  readonly json?: boolean;
+  readonly csv?: string;
+  readonly markdown?: boolean;
+  readonly sort?: string;
+}
+
+const SILENT_NOTE = 'the volume at 0 shorts the output to ground: nothing reaches the amplifier, so every wiring is silent and has no figures';
+
+/** The load actually used, for `--json` (`settings`). */
+export function settingsRecord(load: CircuitLoad, points: number): Record<string, unknown> {
+  const { volume, tone, trebleBleed } = load;
+  return {
+    volume: {
+      potOhms: volume.potOhms,
+      setting: volume.setting,
+      taper: volume.taper,
+      audioMidpoint: volume.audioMidpoint,
+      wiperFraction: volume.wiperFraction,
+    },
+    tone: tone
+      ? {
+          potOhms: tone.potOhms,
+          setting: tone.setting,
+          taper: tone.taper,
+          audioMidpoint: tone.audioMidpoint,
+          resistanceOhms: tone.resistanceOhms,
+          capacitorF: tone.capacitorF,
+        }
+      : null,
+    trebleBleed: trebleBleed
+      ? { capacitorF: trebleBleed.capacitorF, resistorOhms: trebleBleed.resistorOhms ?? null, arrangement: trebleBleed.arrangement }
+      : null,
+    cableCapacitanceF: load.cableCapacitanceF,
+    ampResistanceOhms: load.ampResistanceOhms,
+    ampCapacitanceF: load.ampCapacitanceF,
+    mainsHz: load.mainsHz,
+    bandHz: [AUDIO_BAND_LOW_HZ, AUDIO_BAND_HIGH_HZ],
+    gridPoints: points,
+  };
+}
+
+/** One line describing the load in words. */
+export function describeLoad(load: CircuitLoad): string {
+  const { volume, tone, trebleBleed } = load;
+  const parts = [`volume ${formatEngineering(volume.potOhms, 'Ω')} ${volume.taper} at ${volume.setting}`];
+  parts.push(tone ? `tone ${formatEngineering(tone.potOhms, 'Ω')} + ${formatEngineering(tone.capacitorF, 'F')} at ${tone.setting}` : 'no tone control');
+  if (trebleBleed) parts.push(`treble bleed ${formatEngineering(trebleBleed.capacitorF, 'F')}${trebleBleed.resistorOhms ? ` ${trebleBleed.arrangement} ${formatEngineering(trebleBleed.resistorOhms, 'Ω')}` : ''}`);
+  parts.push(`cable ${formatEngineering(load.cableCapacitanceF, 'F')}`);
+  parts.push(`amp ${formatEngineering(load.ampResistanceOhms, 'Ω')} with ${formatEngineering(load.ampCapacitanceF, 'F')}`);
+  parts.push(`hum at ${load.mainsHz} Hz`);
+  return parts.join(', ');
+}
+
+const FOOTNOTES = [
+  'resonance: frequency of the loaded peak, 20 Hz-20 kHz ("-" when the response only falls or only rises); peak: its height above 100 Hz;',
+  'Q: resonance over its -3 dB bandwidth ("-" when a -3 dB point is outside the band);',
+  `hum: mains hum relative to the mean single coil (floored at ${HUM_FLOOR_DB} dB); hum cancelling: ${HUM_CANCELLING_DB} dB or less.`,
+  'A model of the circuit, not a measurement: choose by ear on the real instrument.',
+];
+
+export function registerAnalyze(program: Command, io: Io): void {
+  const command = program
+    .command('analyze')
+    .description('every wiring with its loaded resonance, peak, Q and hum')
+    .argument('<guitar>', 'guitar file (JSON)')
+    .option('--json', 'print one JSON document on stdout')
+    .option('--csv <file>', 'also write the table as CSV to FILE')
+    .option('--markdown', 'print a Markdown table')
+    .option('--sort <column>', `order rows by ${sortNames().join('|')} (default id)`);
+  addCircuitOptions(command).action((file: string, options: AnalyzeOptions) => {
+    const guitar = readGuitarFile(file, io.cwd);
+    const problems: InputProblem[] = [];
+    const overrides = parseCircuitOptions(options, guitar, problems);
+    if (options.sort !== undefined && !sortNames().includes(options.sort)) {
+      problems.push(problemAt('--sort', `one of ${sortNames().join(', ')}`, options.sort));
+    }
+    if (options.json && options.markdown) problems.push(problemAt('--markdown', 'either --json or --markdown, not both', '--json --markdown'));
+    if (options.csv !== undefined && options.csv.trim() === '') problems.push(problemAt('--csv', 'a file name', options.csv));
+    if (problems.length > 0) throw new InputError(problems);
+
+    const wirings = enumerateWirings(guitar.elements);
+    const analysis = measureCircuitMetrics(guitar, wirings, overrides);
+    const unsorted: AnalyzedWiring[] = wirings.map((wiring, index) => ({ wiring, circuit: analysis.wirings[index] as AnalyzedWiring['circuit'] }));
+    const rows = sortRows(unsorted, options.sort ?? 'id');
+
+    if (options.csv !== undefined) {
+      const path = resolve(io.cwd, options.csv);
+      writeFileAtomic(path, renderCsv(rows));
+      io.stderr(`coilbench: wrote ${options.csv} (${rows.length} wirings)\n`);
+    }
+    if (analysis.silent) io.stderr(`coilbench: note: ${SILENT_NOTE}\n`);
+    if (options.json) {
+      const document: Record<string, unknown> = {
+        guitar: guitar.name,
+        settings: settingsRecord(analysis.load, analysis.points),
+        count: rows.length,
+        silent: analysis.silent,
+        wirings: rows.map((row) => ({ ...wiringRecord(row.wiring), ...row.circuit })),
+      };
+      if (analysis.silent) document.note = SILENT_NOTE;
+      io.stdout(`${JSON.stringify(document, null, 2)}\n`);
+      return;
+    }
+    const heading = `${guitar.name}: ${rows.length} wirings`;
+    const settings = describeLoad(analysis.load);
+    if (options.markdown) {
+      const silentLine = analysis.silent ? `\n**Silent:** ${SILENT_NOTE}.\n` : '';
+      io.stdout(`## ${heading}\n\n${settings}.\n${silentLine}\n${renderMarkdownTable(rows)}\n${FOOTNOTES.join(' ')}\n`);
+      return;
+    }
+    io.stdout(`${heading}\n${settings}\n`);
+    if (analysis.silent) io.stdout(`Silent: ${SILENT_NOTE}.\n`);
+    io.stdout('\n');
+    io.stdout(
+      formatTable(
+        rows,
+        METRIC_COLUMNS.filter((column) => column.table).map((column) => ({ title: column.title, value: column.text, align: column.align })),
+      ),
+    );
+    io.stdout(`\n${FOOTNOTES.join('\n')}\n`);
+  });
+}

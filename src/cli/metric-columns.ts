@@ -1,0 +1,198 @@
+/**
+ * The columns of `analyze`'s table, CSV and Markdown, defined once. To add a
+ * figure (level, loudness, centroid, group), add its field to
+ * `AnalyzedWiring` and one entry to `METRIC_COLUMNS`.
+ */
+import { HUM_FLOOR_DB, type WiringCircuitMetrics } from '../circuit/index.js';
+import type { Wiring } from '../wiring/index.js';
+
+export interface AnalyzedWiring {
+  readonly wiring: Wiring;
+  readonly circuit: WiringCircuitMetrics;
+}
+
+export type CellValue = string | number | boolean | null;
+
+export interface MetricColumn {
+  /** Name in CSV headers and JSON (DESIGN.md names). */
+  readonly key: string;
+  /** Header in the table and Markdown. */
+  readonly title: string;
+  readonly align: 'left' | 'right';
+  /** Cell text in the table and Markdown. */
+  readonly text: (row: AnalyzedWiring) => string;
+  /** Raw value in CSV (numbers unrounded, null as an empty cell). */
+  readonly value: (row: AnalyzedWiring) => CellValue;
+  readonly table: boolean;
+  readonly markdown: boolean;
+  /** `--sort` name, direction and key (null sorts last). */
+  readonly sort?: { readonly name: string; readonly descending: boolean; readonly key: (row: AnalyzedWiring) => number | null };
+}
+
+const NONE = '-';
+const SILENT = 'silent';
+
+function fixed(value: number | null, digits: number, signed = false): string {
+  if (value === null) return NONE;
+  const text = value.toFixed(digits);
+  return signed && value >= 0 ? `+${text}` : text;
+}
+
+const silent = (row: AnalyzedWiring): boolean => row.circuit.peakDb === null;
+
+export const METRIC_COLUMNS: readonly MetricColumn[] = Object.freeze([
+  {
+    key: 'id',
+    title: '#',
+    align: 'right',
+    text: (row) => row.wiring.id,
+    value: (row) => row.wiring.id,
+    table: true,
+    markdown: true,
+    sort: { name: 'id', descending: false, key: (row) => row.wiring.number },
+  },
+  {
+    key: 'expression',
+    title: 'wiring',
+    align: 'left',
+    text: (row) => row.wiring.expression,
+    value: (row) => row.wiring.expression,
+    table: true,
+    markdown: true,
+  },
+  {
+    key: 'coils',
+    title: 'coils',
+    align: 'right',
+    text: (row) => String(row.wiring.elementIds.length),
+    value: (row) => row.wiring.elementIds.join(' '),
+    table: false,
+    markdown: false,
+    sort: { name: 'coils', descending: false, key: (row) => row.wiring.elementIds.length },
+  },
+  {
+    key: 'topology',
+    title: 'topology',
+    align: 'left',
+    text: (row) => row.wiring.topology,
+    value: (row) => row.wiring.topology,
+    table: false,
+    markdown: false,
+  },
+  {
+    key: 'outOfPhase',
+    title: 'out of phase',
+    align: 'left',
+    text: (row) => row.wiring.outOfPhase.join(', ') || NONE,
+    value: (row) => row.wiring.outOfPhase.join(' '),
+    table: false,
+    markdown: false,
+  },
+  {
+    key: 'resonanceHz',
+    title: 'resonance Hz',
+    align: 'right',
+    text: (row) => (silent(row) ? SILENT : fixed(row.circuit.resonanceHz, 0)),
+    value: (row) => row.circuit.resonanceHz,
+    table: true,
+    markdown: true,
+    sort: { name: 'resonance', descending: true, key: (row) => row.circuit.resonanceHz },
+  },
+  {
+    key: 'peakDb',
+    title: 'peak dB',
+    align: 'right',
+    text: (row) => (silent(row) ? SILENT : fixed(row.circuit.peakDb, 1, true)),
+    value: (row) => row.circuit.peakDb,
+    table: true,
+    markdown: true,
+    sort: { name: 'peak', descending: true, key: (row) => row.circuit.peakDb },
+  },
+  {
+    key: 'resonanceQ',
+    title: 'Q',
+    align: 'right',
+    text: (row) => (silent(row) ? SILENT : fixed(row.circuit.resonanceQ, 2)),
+    value: (row) => row.circuit.resonanceQ,
+    table: true,
+    markdown: true,
+    sort: { name: 'q', descending: true, key: (row) => row.circuit.resonanceQ },
+  },
+  {
+    key: 'humDb',
+    title: 'hum dB',
+    align: 'right',
+    text: (row) => {
+      if (silent(row)) return SILENT;
+      const hum = row.circuit.humDb;
+      return hum !== null && hum <= HUM_FLOOR_DB ? `<=${HUM_FLOOR_DB}` : fixed(hum, 1, true);
+    },
+    value: (row) => row.circuit.humDb,
+    table: true,
+    markdown: true,
+    sort: { name: 'hum', descending: false, key: (row) => row.circuit.humDb },
+  },
+  {
+    key: 'humCancelling',
+    title: 'hum cancelling',
+    align: 'left',
+    text: (row) => (row.circuit.humCancelling ? 'yes' : ''),
+    value: (row) => row.circuit.humCancelling,
+    table: true,
+    markdown: true,
+  },
+  {
+    key: 'description',
+    title: 'in words',
+    align: 'left',
+    text: (row) => row.wiring.description,
+    value: (row) => row.wiring.description,
+    table: true,
+    markdown: true,
+  },
+]);
+
+/** The names `--sort` accepts, in column order. */
+export function sortNames(columns: readonly MetricColumn[] = METRIC_COLUMNS): string[] {
+  return columns.flatMap((column) => (column.sort ? [column.sort.name] : []));
+}
+
+/** Rows sorted by the column whose sort name is `name` (stable; nulls last; ties by wiring number). */
+export function sortRows(rows: readonly AnalyzedWiring[], name: string, columns: readonly MetricColumn[] = METRIC_COLUMNS): AnalyzedWiring[] {
+  const column = columns.find((candidate) => candidate.sort?.name === name);
+  if (!column?.sort) throw new RangeError(`sortRows: no column sorts by ${name}`);
+  const { key, descending } = column.sort;
+  return [...rows].sort((a, b) => {
+    const x = key(a);
+    const y = key(b);
+    if (x === null || y === null) return x === y ? a.wiring.number - b.wiring.number : x === null ? 1 : -1;
+    return (descending ? y - x : x - y) || a.wiring.number - b.wiring.number;
+  });
+}
+
+/** One CSV field (RFC 4180: quote fields holding a comma, quote or line break; double the quotes). */
+function csvField(value: CellValue): string {
+  if (value === null) return '';
+  const text = String(value);
+  return /[",\r\n]/u.test(text) ? `"${text.replace(/"/gu, '""')}"` : text;
+}
+
+/** CSV text with every column, header first, CRLF line ends (RFC 4180). */
+export function renderCsv(rows: readonly AnalyzedWiring[], columns: readonly MetricColumn[] = METRIC_COLUMNS): string {
+  const lines = [columns.map((column) => csvField(column.key)).join(',')];
+  for (const row of rows) lines.push(columns.map((column) => csvField(column.value(row))).join(','));
+  return `${lines.join('\r\n')}\r\n`;
+}
+
+function markdownCell(text: string): string {
+  return text.replace(/\|/gu, '\\|');
+}
+
+/** A Markdown (GitHub-flavoured) table of the Markdown columns. */
+export function renderMarkdownTable(rows: readonly AnalyzedWiring[], columns: readonly MetricColumn[] = METRIC_COLUMNS): string {
+  const shown = columns.filter((column) => column.markdown);
+  const header = `| ${shown.map((column) => markdownCell(column.title)).join(' | ')} |`;
+  const rule = `|${shown.map((column) => (column.align === 'right' ? ' ---: ' : ' --- ')).join('|')}|`;
+  const body = rows.map((row) => `| ${shown.map((column) => markdownCell(column.text(row))).join(' | ')} |`);
+  return [header, rule, ...body].join('\n') + '\n';
+}

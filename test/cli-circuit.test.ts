@@ -1,0 +1,211 @@
+import { spawnSync } from 'node:child_process';
+import { existsSync, mkdtempSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { captureIo, main } from '../src/cli/index.js';
+import { prepareCircuit, solveTransfers } from '../src/circuit/index.js';
+import { parseGuitarText } from '../src/guitar/index.js';
+import { enumerateWirings } from '../src/wiring/index.js';
+
+const samples = join(import.meta.dirname, '..', 'samples');
+const SAMPLE_FILES = ['three-single-coil.json', 'humbucker-two-single-coil.json', 'two-humbucker.json', 'two-lead-humbucker.json'];
+
+async function run(cwd: string, ...argv: string[]) {
+  const io = captureIo(cwd);
+  const status = await main(argv, io);
+  return { status, out: io.out(), err: io.err() };
+}
+
+interface AnalyzeDocument {
+  guitar: string;
+  settings: Record<string, unknown>;
+  count: number;
+  silent: boolean;
+  wirings: Array<Record<string, unknown>>;
+}
+
+describe('coilbench analyze', () => {
+  it.each(SAMPLE_FILES)('%s: --json gives finite figures for every wiring', async (file) => {
+    const { status, out, err } = await run(samples, 'analyze', file, '--json');
+    expect(status).toBe(0);
+    expect(err).toBe('');
+    const document = JSON.parse(out) as AnalyzeDocument;
+    expect(document.count).toBe(document.wirings.length);
+    expect(Object.keys(document)).toEqual(['guitar', 'settings', 'count', 'silent', 'wirings']);
+    for (const wiring of document.wirings) {
+      expect(Object.keys(wiring)).toEqual([
+        'id', 'expression', 'coils', 'topology', 'outOfPhase', 'description',
+        'resonanceHz', 'peakDb', 'resonanceQ', 'humDb', 'humCancelling',
+      ]);
+      for (const key of ['resonanceHz', 'peakDb', 'humDb']) expect(Number.isFinite(wiring[key]), `${wiring.expression} ${key}`).toBe(true);
+      expect(wiring.resonanceQ === null || Number.isFinite(wiring.resonanceQ)).toBe(true);
+      expect(typeof wiring.humCancelling).toBe('boolean');
+    }
+  });
+
+  it('reports the load actually used, with overrides', async () => {
+    const { status, out } = await run(samples, 'analyze', 'three-single-coil.json', '--json', '--volume', '7', '--tone', '5', '--cable', '900p', '--mains', '50');
+    expect(status).toBe(0);
+    const settings = (JSON.parse(out) as AnalyzeDocument).settings as {
+      volume: { setting: number; wiperFraction: number };
+      tone: { setting: number; resistanceOhms: number };
+      cableCapacitanceF: number;
+      mainsHz: number;
+    };
+    expect(settings.volume.setting).toBe(7);
+    // audio taper, 10 % at 5: r(x) = (81^(x/10) − 1)/80
+    expect(settings.volume.wiperFraction).toBeCloseTo((81 ** 0.7 - 1) / 80, 12);
+    expect(settings.tone.setting).toBe(5);
+    expect(settings.tone.resistanceOhms).toBeCloseTo(25e3, 6);
+    expect(settings.cableCapacitanceF).toBeCloseTo(900e-12, 20);
+    expect(settings.mainsHz).toBe(50);
+  });
+
+  it('sorts: --sort hum puts the quietest first, --sort resonance the highest peak first', async () => {
+    const hum = JSON.parse((await run(samples, 'analyze', 'three-single-coil.json', '--json', '--sort', 'hum')).out) as AnalyzeDocument;
+    const values = hum.wirings.map((wiring) => wiring.humDb as number);
+    expect(values).toEqual([...values].sort((a, b) => a - b));
+    const resonance = JSON.parse((await run(samples, 'analyze', 'three-single-coil.json', '--json', '--sort', 'resonance')).out) as AnalyzeDocument;
+    const peaks = resonance.wirings.map((wiring) => wiring.resonanceHz as number);
+    expect(peaks).toEqual([...peaks].sort((a, b) => b - a));
+  });
+
+  it('prints a table and a Markdown table from the same columns', async () => {
+    const table = await run(samples, 'analyze', 'three-single-coil.json');
+    expect(table.status).toBe(0);
+    expect(table.out).toMatch(/resonance Hz\s+peak dB\s+Q\s+hum dB\s+hum cancelling\s+in words/u);
+    expect(table.out).toMatch(/w6\s+neck \/\/ mid\s+\d+\s+\+\d+\.\d\s+\d\.\d\d\s+-\d+\.\d\s+yes/u);
+    const markdown = await run(samples, 'analyze', 'three-single-coil.json', '--markdown');
+    expect(markdown.out).toContain('| # | wiring | resonance Hz | peak dB | Q | hum dB | hum cancelling | in words |');
+    expect(markdown.out.split('\n').filter((line) => line.startsWith('| w'))).toHaveLength(47);
+  });
+
+  it('--csv writes the file whole (through a temporary name) with every column', async () => {
+    const folder = mkdtempSync(join(tmpdir(), 'coilbench-csv-'));
+    const { status, err } = await run(folder, 'analyze', join(samples, 'three-single-coil.json'), '--csv', 'wirings.csv');
+    expect(status).toBe(0);
+    expect(err).toContain('wrote wirings.csv (47 wirings)');
+    const lines = readFileSync(join(folder, 'wirings.csv'), 'utf8').split('\r\n');
+    expect(lines[0]).toBe('id,expression,coils,topology,outOfPhase,resonanceHz,peakDb,resonanceQ,humDb,humCancelling,description');
+    expect(lines).toHaveLength(49); // header, 47 rows, final empty line
+    expect(readdirSync(folder)).toEqual(['wirings.csv']);
+  });
+
+  it('bad overrides: one line each, exit 2, nothing written', async () => {
+    const folder = mkdtempSync(join(tmpdir(), 'coilbench-bad-'));
+    const { status, out, err } = await run(
+      folder, 'analyze', join(samples, 'three-single-coil.json'),
+      '--csv', 'out.csv', '--volume', '11', '--tone', 'bright', '--cable', '9', '--mains', '55', '--sort', 'loudness',
+    );
+    expect(status).toBe(2);
+    expect(out).toBe('');
+    expect(err.trimEnd().split('\n')).toEqual([
+      'coilbench: --volume: expected a knob setting from 0 to 10 like 7 or 4.5, got "11"',
+      'coilbench: --tone: expected a knob setting from 0 to 10 like 7 or 4.5, got "bright"',
+      'coilbench: --cable: expected the cable\'s total capacitance: a capacitance with a unit or prefix like "120p", "22n", "0.022u" or the code "223" (a bare number is ambiguous here), got "9"',
+      'coilbench: --mains: expected 50 or 60 (hertz), got "55"',
+      'coilbench: --sort: expected one of id, coils, resonance, peak, q, hum, got "loudness"',
+    ]);
+    expect(existsSync(join(folder, 'out.csv'))).toBe(false);
+  });
+
+  it('--tone on a guitar without a tone control is refused', async () => {
+    const folder = mkdtempSync(join(tmpdir(), 'coilbench-notone-'));
+    const guitar = JSON.parse(readFileSync(join(samples, 'two-lead-humbucker.json'), 'utf8')) as { controls: Record<string, unknown> };
+    guitar.controls.tone = null;
+    writeFileSync(join(folder, 'g.json'), JSON.stringify(guitar));
+    const { status, err } = await run(folder, 'analyze', 'g.json', '--tone', '5');
+    expect(status).toBe(2);
+    expect(err).toContain('--tone: expected no --tone for a guitar without a tone control, got "5"');
+  });
+
+  it('volume 0 says plainly that nothing reaches the amplifier, with no -Infinity or NaN', async () => {
+    const { status, out, err } = await run(samples, 'analyze', 'three-single-coil.json', '--json', '--volume', '0');
+    expect(status).toBe(0);
+    expect(err).toContain('nothing reaches the amplifier');
+    expect(out).not.toMatch(/Infinity|NaN/u);
+    const document = JSON.parse(out) as AnalyzeDocument & { note: string };
+    expect(document.silent).toBe(true);
+    expect(document.note).toContain('nothing reaches the amplifier');
+    expect(document.wirings.every((wiring) => wiring.resonanceHz === null && wiring.humDb === null)).toBe(true);
+    const table = await run(samples, 'analyze', 'three-single-coil.json', '--volume', '0');
+    expect(table.out).toContain('Silent: the volume at 0');
+    expect(table.out).not.toMatch(/Infinity|NaN/u);
+  });
+});
+
+describe('coilbench netlist', () => {
+  it('prints a plain ngspice netlist with one source per used coil, the load, a sweep and a print', async () => {
+    const { status, out } = await run(samples, 'netlist', 'three-single-coil.json', 'neck + ~bridge');
+    expect(status).toBe(0);
+    expect(out.split('\n')[0]).toBe('coilbench: Demo three single-coil guitar (invented values) - w9: neck + ~bridge');
+    expect(out.match(/^V(neck|mid|bridge) /gmu)).toEqual(['Vneck ', 'Vbridge ']);
+    expect(out).toContain('.ac dec 20 20 20000');
+    expect(out).toContain('.print ac vdb(out) vp(out)*180/pi');
+    expect(out.trimEnd().endsWith('.end')).toBe(true);
+    expect(out).toMatch(/^Ramp out 0 1000000$/mu);
+  });
+
+  it('accepts a wiring number and any spelling of the same wiring', async () => {
+    const a = await run(samples, 'netlist', 'three-single-coil.json', 'w9');
+    const b = await run(samples, 'netlist', 'three-single-coil.json', '~bridge+neck');
+    expect(a.out).toBe(b.out);
+  });
+
+  it('refuses a bad expression with exit 2 and one line', async () => {
+    const { status, out, err } = await run(samples, 'netlist', 'three-single-coil.json', 'neck + treble');
+    expect(status).toBe(2);
+    expect(out).toBe('');
+    expect(err).toBe('coilbench: <wiring>: expected a known coil (neck, mid, bridge), got "\\"treble\\" at column 8 of \\"neck + treble\\""\n');
+  });
+
+  it('the build sheet of a series out-of-phase wiring reads as a solderer expects', async () => {
+    const { status, out } = await run(samples, 'netlist', 'three-single-coil.json', 'neck + ~bridge', '--build-sheet');
+    expect(status).toBe(0);
+    // Two coils wound and magnetised alike, in series out of phase: like ends joined (common practice).
+    expect(out).toMatch(/neck \(winding cw, north pole up; in phase\):\n\s+finish -> hot\n\s+start\s+-> j1/u);
+    expect(out).toMatch(/bridge \(winding cw, north pole up; out of phase\):\n\s+start\s+-> j1\n\s+finish -> ground/u);
+    expect(out).toMatch(/hot\s+: neck finish/u);
+    expect(out).toMatch(/j1\s+: neck start \+ bridge start/u);
+    expect(out).toMatch(/ground: bridge finish/u);
+    expect(out).toContain('mid: leave both leads unconnected');
+    expect(out).toContain('about 12.3 kΩ'); // 5.9 kΩ + 6.4 kΩ in series
+    for (const caution of ['stand', 'burns', 'fume', 'wash your', 'meter', 'cover', 'Never open an amplifier']) expect(out).toContain(caution);
+  });
+});
+
+describe('netlists in plain ngspice (Debian ngspice, `ngspice -b`)', () => {
+  const found = spawnSync('ngspice', ['--version'], { encoding: 'utf8' });
+  const available = found.status === 0;
+  if (!available && process.env.CI) throw new Error('ngspice is not installed: .ci/run installs the Debian package');
+  it.skipIf(!available)('prints a sweep that matches the solver to the printed precision', async () => {
+    const guitar = parseGuitarText(readFileSync(join(samples, 'humbucker-two-single-coil.json'), 'utf8'));
+    const wiring = enumerateWirings(guitar.elements).find((candidate) => candidate.expression === 'neck + (~mid // bridge-screw)');
+    expect(wiring).toBeDefined();
+    const folder = mkdtempSync(join(tmpdir(), 'coilbench-ngspice-'));
+    const { out } = await run(samples, 'netlist', 'humbucker-two-single-coil.json', wiring?.expression ?? '');
+    writeFileSync(join(folder, 'w.cir'), out);
+    const result = spawnSync('ngspice', ['-b', join(folder, 'w.cir')], { encoding: 'utf8' });
+    expect(result.status).toBe(0);
+    const rows = result.stdout
+      .split('\n')
+      .map((line) => line.trim().split(/\s+/u).map(Number))
+      .filter((cells) => cells.length === 4 && cells.every(Number.isFinite));
+    expect(rows.length).toBeGreaterThanOrEqual(61);
+    const frequencies = Float64Array.from(rows.map((cells) => cells[1] as number));
+    const transfers = solveTransfers(prepareCircuit(guitar, frequencies), wiring?.network ?? { kind: 'element', element: 0, inverted: false });
+    rows.forEach((cells, k) => {
+      let re = 0;
+      let im = 0;
+      for (const transfer of transfers) {
+        re += transfer[2 * k] as number;
+        im += transfer[2 * k + 1] as number;
+      }
+      expect(Math.abs(20 * Math.log10(Math.hypot(re, im)) - (cells[2] as number))).toBeLessThan(0.001);
+      const phase = (Math.atan2(im, re) * 180) / Math.PI;
+      const difference = ((phase - (cells[3] as number) + 540) % 360) - 180;
+      expect(Math.abs(difference)).toBeLessThan(0.001);
+    });
+  });
+});
