@@ -1,0 +1,54 @@
+/**
+ * The one-off part of comparing wirings: play the reference phrase on the
+ * guitar's strings, turn it into each coil's EMF spectrum, and sum the
+ * coils' cross-spectra into perceptual band segments. Every wiring of the
+ * guitar is then a small quadratic form over these sums
+ * (solve-wiring-spectra.ts), with no FFT per wiring.
+ */
+import type { Guitar } from '../guitar/index.js';
+import { nextPowerOfTwo } from '../math/index.js';
+import { computeCoilSpectra, pickupDelaySamples } from '../pickup/index.js';
+import { type Phrase, type StringOptions, builtInPhrase, renderPhrase } from '../string/index.js';
+import { type BandLayout, type BandOptions, designBands } from './design-bands.js';
+import { type CrossSpectra, measureCrossSpectra } from './measure-cross-spectra.js';
+
+export interface SpectralBasisOptions {
+  /** The phrase every wiring plays. Default: the built-in `strum`, the reference phrase for metrics (DESIGN.md). */
+  readonly phrase: Phrase | undefined;
+  /** Name shown for the phrase. Default "strum". */
+  readonly phraseName: string;
+  /** String render options (sample rate, seed, …); defaults as `renderPhrase` (48 kHz). */
+  readonly strings: Partial<StringOptions>;
+  /** Perceptual bands; defaults as `designBands` (one-ERB bands over 20 Hz–20 kHz, 4 segments each). */
+  readonly bands: Partial<BandOptions>;
+}
+
+export const DEFAULT_SPECTRAL_BASIS_OPTIONS: Readonly<SpectralBasisOptions> = Object.freeze({
+  phrase: undefined,
+  phraseName: 'strum',
+  strings: Object.freeze({}),
+  bands: Object.freeze({}),
+});
+
+export interface SpectralBasis {
+  readonly phraseName: string;
+  readonly sampleRateHz: number;
+  /** Samples of the string render. */
+  readonly phraseSamples: number;
+  /** FFT size of the coil spectra: nextPowerOfTwo(phrase samples + pickup delay), so no render wraps around. */
+  readonly fftSize: number;
+  readonly layout: BandLayout;
+  readonly cross: CrossSpectra;
+}
+
+/** Strings, coil spectra and band cross-spectra of `guitar` playing the phrase. Throws InputError for notes or options the guitar cannot take. */
+export function measureSpectralBasis(guitar: Guitar, options: Partial<SpectralBasisOptions> = {}): SpectralBasis {
+  const phrase = options.phrase ?? builtInPhrase('strum', guitar.strings.length);
+  const phraseName = options.phraseName ?? DEFAULT_SPECTRAL_BASIS_OPTIONS.phraseName;
+  const strings = renderPhrase(guitar, phrase, options.strings ?? {});
+  const fftSize = nextPowerOfTwo(strings.length + pickupDelaySamples(guitar, strings));
+  const coilSpectra = computeCoilSpectra(guitar, strings, fftSize);
+  const layout = designBands(strings.sampleRateHz, options.bands ?? {});
+  const cross = measureCrossSpectra(coilSpectra, fftSize, layout);
+  return { phraseName, sampleRateHz: strings.sampleRateHz, phraseSamples: strings.length, fftSize, layout, cross };
+}
