@@ -47,3 +47,7 @@ export type { Shortlist, ShortlistRequest, ShortlistWiring } from './solve-short
 export { matchElements, matchWirings } from './match-wirings.js';
 export { measureComparison, RESONANCE_CHANGE_PERCENT } from './measure-comparison.js';
 export type { ComparisonOptions, ComparisonSet, FigurePair, WiringComparison } from './measure-comparison.js';
+export { measureDistinctness } from './measure-distinctness.js';
+export type { Distinctness, DistinctnessOptions } from './measure-distinctness.js';
+export { measureGuitarComparison } from './measure-guitar-comparison.js';
+export type { ComparedGuitar, GuitarComparison, GuitarComparisonOptions } from './measure-guitar-comparison.js';

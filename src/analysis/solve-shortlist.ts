@@ -66,8 +66,18 @@ export interface Shortlist {
 /** Window starts on a grid of this fraction of the window when the exact solver cannot be used (our choice). */
 const HEURISTIC_WINDOW_STEPS = 8;
 
-const describeElements = (request: ShortlistRequest): string =>
-  request.elements === null ? '' : ` and use only ${request.elements.map((index) => request.elementIds[index] ?? '?').join(', ')}`;
+/** "at most 12: only 12 wirings are hum cancelling and use only neck, bridge; relax …, or ask for fewer". */
+function tooFewMessage(request: ShortlistRequest, available: number): string {
+  const filters: Array<{ which: string; relax: string }> = [];
+  if (request.humCancelling) filters.push({ which: 'are hum cancelling', relax: 'the hum-cancelling constraint' });
+  if (request.elements !== null) {
+    filters.push({ which: `use only ${request.elements.map((index) => request.elementIds[index] ?? '?').join(', ')}`, relax: 'the coils allowed' });
+  }
+  if (filters.length === 0) return `at most ${available}, the number of wirings`;
+  const which = filters.map((filter) => filter.which).join(' and ');
+  const relax = filters.map((filter) => filter.relax).join(' or ');
+  return `at most ${available}: only ${available} wirings ${which}; relax ${relax}, or ask for fewer`;
+}
 
 /**
  * Choose the shortlist among `wirings` (index = position in the array)
@@ -111,17 +121,7 @@ export function solveShortlist(
   const included = new Set(include);
   const candidates = wirings.flatMap((wiring, index) => (!included.has(index) && meets(wiring) === null ? [index] : [])).sort(byRank);
   const candidateCount = candidates.length + include.length;
-  if (candidateCount < request.count) {
-    const filters = request.humCancelling || request.elements !== null;
-    const which = `${request.humCancelling ? ' are hum cancelling' : ''}${request.humCancelling && request.elements !== null ? ' and' : ''}${describeElements(request)}`;
-    throw InputError.at(
-      'count',
-      filters
-        ? `at most ${candidateCount}: only ${candidateCount} wirings${which}; relax ${request.humCancelling ? 'the hum-cancelling constraint' : ''}${request.humCancelling && request.elements !== null ? ' or ' : ''}${request.elements !== null ? 'the coils allowed' : ''}, or ask for fewer`
-        : `at most ${candidateCount}, the number of wirings`,
-      request.count,
-    );
-  }
+  if (candidateCount < request.count) throw InputError.at('count', tooFewMessage(request, candidateCount), request.count);
   const orderedInclude = [...include].sort(byRank);
   const finish = (result: MaxMinSubsetResult, range: readonly [number, number] | null): Shortlist => ({
     members: [...result.members].sort(byRank),
@@ -130,9 +130,8 @@ export function solveShortlist(
     candidateCount,
     levelRangeDb: range,
   });
-  const subsetOptions = settings;
   if (request.levelWindowDb === null) {
-    const result = solveMaxMinSubset({ candidates, include: orderedInclude, size: request.count, distance }, subsetOptions);
+    const result = solveMaxMinSubset({ candidates, include: orderedInclude, size: request.count, distance }, settings);
     if (result === null) throw new RangeError('solveShortlist: no set found although enough candidates exist');
     return finish(result, null);
   }
@@ -170,7 +169,7 @@ export function solveShortlist(
     const inWindow = byLevel.slice(begin, end).sort(byRank);
     const result = solveMaxMinSubset(
       { candidates: inWindow, include: orderedInclude, size: request.count, distance, mustExceed: best ? best.result.minDistance : Number.NEGATIVE_INFINITY },
-      subsetOptions,
+      settings,
     );
     if (result && (best === null || result.minDistance > best.result.minDistance)) best = { result, range: [start, start + window] };
   }

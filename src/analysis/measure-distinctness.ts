@@ -1,0 +1,43 @@
+/**
+ * Which wirings of a guitar really differ: the core entry point behind
+ * `analyze`'s groups, `shortlist` and `compare`. Renders the reference
+ * phrase once into band cross-spectra, solves every wiring's band spectrum,
+ * level and brightness from them, and groups the alike ones.
+ */
+import type { CircuitOverrides } from '../circuit/index.js';
+import type { Guitar } from '../guitar/index.js';
+import type { Network } from '../wiring/index.js';
+import { type AlikeThresholds, resolveAlikeThresholds } from './alike-thresholds.js';
+import { type WiringGroups, groupAlikeWirings } from './group-alike-wirings.js';
+import { type SpectralBasis, type SpectralBasisOptions, measureSpectralBasis } from './measure-spectral-basis.js';
+import { type SpectralProfiles, measureSpectralProfiles } from './measure-spectral-profiles.js';
+import { type WiringSpectra, solveWiringSpectra } from './solve-wiring-spectra.js';
+
+export interface DistinctnessOptions {
+  readonly thresholds: Partial<AlikeThresholds>;
+  readonly overrides: CircuitOverrides | undefined;
+  readonly basis: Partial<SpectralBasisOptions>;
+  /** A basis already measured for this guitar (skips the string render). */
+  readonly reuseBasis: SpectralBasis | undefined;
+}
+
+export interface Distinctness {
+  readonly thresholds: AlikeThresholds;
+  readonly spectra: WiringSpectra;
+  readonly profiles: SpectralProfiles;
+  readonly groups: WiringGroups;
+}
+
+/** Spectra, profiles and groups of `wirings` (ranked by `number` when they have one). Throws InputError for bad thresholds or overrides. */
+export function measureDistinctness(
+  guitar: Guitar,
+  wirings: readonly { readonly network: Network; readonly number?: number }[],
+  options: Partial<DistinctnessOptions> = {},
+): Distinctness {
+  const thresholds = resolveAlikeThresholds(options.thresholds);
+  const basis = options.reuseBasis ?? measureSpectralBasis(guitar, options.basis);
+  const spectra = solveWiringSpectra(guitar, basis, wirings, options.overrides);
+  const profiles = measureSpectralProfiles(spectra);
+  const groups = groupAlikeWirings(profiles, thresholds, wirings.map((wiring, index) => wiring.number ?? index));
+  return { thresholds, spectra, profiles, groups };
+}
