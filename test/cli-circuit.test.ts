@@ -32,12 +32,13 @@ describe('coilbench analyze', () => {
     expect(err).toBe('');
     const document = JSON.parse(out) as AnalyzeDocument;
     expect(document.count).toBe(document.wirings.length);
-    expect(Object.keys(document)).toEqual(['guitar', 'settings', 'count', 'silent', 'wirings']);
+    expect(Object.keys(document)).toEqual(['guitar', 'settings', 'count', 'silent', 'wirings', 'groups']);
     for (const wiring of document.wirings) {
       expect(Object.keys(wiring)).toEqual([
         'id', 'expression', 'coils', 'topology', 'outOfPhase', 'description',
-        'resonanceHz', 'peakDb', 'resonanceQ', 'humDb', 'humCancelling',
+        'resonanceHz', 'peakDb', 'resonanceQ', 'humDb', 'humCancelling', 'group',
       ]);
+      expect(Number.isInteger(wiring.group)).toBe(true);
       for (const key of ['resonanceHz', 'peakDb', 'humDb']) expect(Number.isFinite(wiring[key]), `${wiring.expression} ${key}`).toBe(true);
       expect(wiring.resonanceQ === null || Number.isFinite(wiring.resonanceQ)).toBe(true);
       expect(typeof wiring.humCancelling).toBe('boolean');
@@ -74,10 +75,10 @@ describe('coilbench analyze', () => {
   it('prints a table and a Markdown table from the same columns', async () => {
     const table = await run(samples, 'analyze', 'three-single-coil.json');
     expect(table.status).toBe(0);
-    expect(table.out).toMatch(/resonance Hz\s+peak dB\s+Q\s+hum dB\s+hum cancelling\s+in words/u);
-    expect(table.out).toMatch(/w6\s+neck \/\/ mid\s+\d+\s+\+\d+\.\d\s+\d\.\d\d\s+-\d+\.\d\s+yes/u);
+    expect(table.out).toMatch(/resonance Hz\s+peak dB\s+Q\s+hum dB\s+hum cancelling\s+group\s+in words/u);
+    expect(table.out).toMatch(/w6\s+neck \/\/ mid\s+\d+\s+\+\d+\.\d\s+\d\.\d\d\s+-\d+\.\d\s+yes\s+\d+/u);
     const markdown = await run(samples, 'analyze', 'three-single-coil.json', '--markdown');
-    expect(markdown.out).toContain('| # | wiring | resonance Hz | peak dB | Q | hum dB | hum cancelling | in words |');
+    expect(markdown.out).toContain('| # | wiring | resonance Hz | peak dB | Q | hum dB | hum cancelling | group | in words |');
     expect(markdown.out.split('\n').filter((line) => line.startsWith('| w'))).toHaveLength(47);
   });
 
@@ -87,7 +88,7 @@ describe('coilbench analyze', () => {
     expect(status).toBe(0);
     expect(err).toContain('wrote wirings.csv (47 wirings)');
     const lines = readFileSync(join(folder, 'wirings.csv'), 'utf8').split('\r\n');
-    expect(lines[0]).toBe('id,expression,coils,topology,outOfPhase,resonanceHz,peakDb,resonanceQ,humDb,humCancelling,description');
+    expect(lines[0]).toBe('id,expression,coils,topology,outOfPhase,resonanceHz,peakDb,resonanceQ,humDb,humCancelling,group,description');
     expect(lines).toHaveLength(49); // header, 47 rows, final empty line
     expect(readdirSync(folder)).toEqual(['wirings.csv']);
   });
@@ -105,7 +106,7 @@ describe('coilbench analyze', () => {
       'coilbench: --tone: expected a knob setting from 0 to 10 like 7 or 4.5, got "bright"',
       'coilbench: --cable: expected the cable\'s total capacitance: a capacitance with a unit or prefix like "120p", "22n", "0.022u" or the code "223" (a bare number is ambiguous here), got "9"',
       'coilbench: --mains: expected 50 or 60 (hertz), got "55"',
-      'coilbench: --sort: expected one of id, coils, resonance, peak, q, hum, got "loudness"',
+      'coilbench: --sort: expected one of id, coils, resonance, peak, q, hum, group, got "loudness"',
     ]);
     expect(existsSync(join(folder, 'out.csv'))).toBe(false);
   });

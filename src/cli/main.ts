@@ -11,6 +11,8 @@ import { registerDemo } from './commands/demo.js';
 import { registerWirings } from './commands/wirings.js';
 import { registerAnalyze } from './commands/analyze.js';
 import { registerNetlist } from './commands/netlist.js';
+import { registerShortlist } from './commands/shortlist.js';
+import { registerCompare } from './commands/compare.js';
 import type { Io } from './io.js';
 
 export const EXIT_OK = 0;
@@ -37,6 +39,8 @@ function buildProgram(io: Io, run: (argv: string[]) => Promise<number>): Command
   registerWirings(program, io);
   registerAnalyze(program, io);
   registerNetlist(program, io);
+  registerShortlist(program, io);
+  registerCompare(program, io);
   for (const command of program.commands) {
     command.exitOverride().configureOutput({
       writeOut: (text) => io.stdout(text),

@@ -9,6 +9,8 @@ import type { Wiring } from '../wiring/index.js';
 export interface AnalyzedWiring {
   readonly wiring: Wiring;
   readonly circuit: WiringCircuitMetrics;
+  /** Group of wirings that sound alike (group-summary.ts), when computed. */
+  readonly group?: number | null;
 }
 
 export type CellValue = string | number | boolean | null;
@@ -140,6 +142,16 @@ export const METRIC_COLUMNS: readonly MetricColumn[] = Object.freeze([
     value: (row) => row.circuit.humCancelling,
     table: true,
     markdown: true,
+  },
+  {
+    key: 'group',
+    title: 'group',
+    align: 'right',
+    text: (row) => (row.group === undefined || row.group === null ? NONE : String(row.group)),
+    value: (row) => row.group ?? null,
+    table: true,
+    markdown: true,
+    sort: { name: 'group', descending: false, key: (row) => row.group ?? null },
   },
   {
     key: 'description',

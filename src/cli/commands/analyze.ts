@@ -8,11 +8,14 @@ import {
   HUM_FLOOR_DB,
   measureCircuitMetrics,
 } from '../../circuit/index.js';
+import { measureDistinctness } from '../../analysis/index.js';
 import { InputError, type InputProblem, problemAt } from '../../errors/index.js';
 import { formatEngineering } from '../../units/index.js';
 import { enumerateWirings } from '../../wiring/index.js';
+import { type AlikeOptionText, addAlikeOptions, parseAlikeOptions } from '../alike-options.js';
 import { type CircuitOptionText, addCircuitOptions, parseCircuitOptions } from '../circuit-options.js';
 import { formatTable } from '../format-table.js';
+import { groupsRecord, renderGroupSummary } from '../group-summary.js';
 import type { Io } from '../io.js';
 import {
   type AnalyzedWiring,
@@ -26,7 +29,7 @@ import { readGuitarFile } from '../read-guitar.js';
 import { writeFileAtomic } from '../write-file-atomic.js';
 import { wiringRecord } from './wirings.js';
 
-interface AnalyzeOptions extends CircuitOptionText {
+interface AnalyzeOptions extends CircuitOptionText, AlikeOptionText {
   readonly json?: boolean;
   readonly csv?: string;
   readonly markdown?: boolean;
@@ -90,16 +93,17 @@ const FOOTNOTES = [
 export function registerAnalyze(program: Command, io: Io): void {
   const command = program
     .command('analyze')
-    .description('every wiring with its loaded resonance, peak, Q and hum')
+    .description('every wiring with its loaded resonance, peak, Q, hum and group of alike wirings')
     .argument('<guitar>', 'guitar file (JSON)')
     .option('--json', 'print one JSON document on stdout')
     .option('--csv <file>', 'also write the table as CSV to FILE')
     .option('--markdown', 'print a Markdown table')
     .option('--sort <column>', `order rows by ${sortNames().join('|')} (default id)`);
-  addCircuitOptions(command).action((file: string, options: AnalyzeOptions) => {
+  addAlikeOptions(addCircuitOptions(command)).action((file: string, options: AnalyzeOptions) => {
     const guitar = readGuitarFile(file, io.cwd);
     const problems: InputProblem[] = [];
     const overrides = parseCircuitOptions(options, guitar, problems);
+    const thresholds = parseAlikeOptions(options, problems);
     if (options.sort !== undefined && !sortNames().includes(options.sort)) {
       problems.push(problemAt('--sort', `one of ${sortNames().join(', ')}`, options.sort));
     }
@@ -109,7 +113,12 @@ export function registerAnalyze(program: Command, io: Io): void {
 
     const wirings = enumerateWirings(guitar.elements);
     const analysis = measureCircuitMetrics(guitar, wirings, overrides);
-    const unsorted: AnalyzedWiring[] = wirings.map((wiring, index) => ({ wiring, circuit: analysis.wirings[index] as AnalyzedWiring['circuit'] }));
+    const distinct = measureDistinctness(guitar, wirings, { overrides, thresholds });
+    const unsorted: AnalyzedWiring[] = wirings.map((wiring, index) => ({
+      wiring,
+      circuit: analysis.wirings[index] as AnalyzedWiring['circuit'],
+      group: distinct.groups.groupOf[index] ?? null,
+    }));
     const rows = sortRows(unsorted, options.sort ?? 'id');
 
     if (options.csv !== undefined) {
@@ -124,7 +133,8 @@ export function registerAnalyze(program: Command, io: Io): void {
         settings: settingsRecord(analysis.load, analysis.points),
         count: rows.length,
         silent: analysis.silent,
-        wirings: rows.map((row) => ({ ...wiringRecord(row.wiring), ...row.circuit })),
+        wirings: rows.map((row) => ({ ...wiringRecord(row.wiring), ...row.circuit, group: row.group })),
+        groups: groupsRecord(wirings, distinct),
       };
       if (analysis.silent) document.note = SILENT_NOTE;
       io.stdout(`${JSON.stringify(document, null, 2)}\n`);
@@ -134,7 +144,7 @@ export function registerAnalyze(program: Command, io: Io): void {
     const settings = describeLoad(analysis.load);
     if (options.markdown) {
       const silentLine = analysis.silent ? `\n**Silent:** ${SILENT_NOTE}.\n` : '';
-      io.stdout(`## ${heading}\n\n${settings}.\n${silentLine}\n${renderMarkdownTable(rows)}\n${FOOTNOTES.join(' ')}\n`);
+      io.stdout(`## ${heading}\n\n${settings}.\n${silentLine}\n${renderMarkdownTable(rows)}\n${FOOTNOTES.join(' ')}\n\n${renderGroupSummary(wirings, distinct, true)}`);
       return;
     }
     io.stdout(`${heading}\n${settings}\n`);
@@ -146,6 +156,6 @@ export function registerAnalyze(program: Command, io: Io): void {
         METRIC_COLUMNS.filter((column) => column.table).map((column) => ({ title: column.title, value: column.text, align: column.align })),
       ),
     );
-    io.stdout(`\n${FOOTNOTES.join('\n')}\n`);
+    io.stdout(`\n${FOOTNOTES.join('\n')}\n\n${renderGroupSummary(wirings, distinct, false)}`);
   });
 }

@@ -1,0 +1,182 @@
+import type { Command } from 'commander';
+import {
+  type FigurePair,
+  type GuitarComparison,
+  RESONANCE_CHANGE_PERCENT,
+  measureGuitarComparison,
+} from '../../analysis/index.js';
+import { InputError, type InputProblem, problemAt } from '../../errors/index.js';
+import type { Guitar } from '../../guitar/index.js';
+import { type AlikeOptionText, addAlikeOptions, describeThresholds, parseAlikeOptions } from '../alike-options.js';
+import { type CircuitOptionText, addCircuitOptions, parseCircuitOptions } from '../circuit-options.js';
+import { formatTable } from '../format-table.js';
+import type { Io } from '../io.js';
+import { readGuitarFile } from '../read-guitar.js';
+
+interface CompareOptions extends CircuitOptionText, AlikeOptionText {
+  readonly map: string[];
+  readonly json?: boolean;
+}
+
+const collect = (value: string, previous: string[]): string[] => [...previous, value];
+
+/** Mark of a difference at or above its threshold in the table. */
+const ABOVE = '*';
+
+/** "neck=front, mid=centre" → Map; problems appended. */
+function parseMap(text: string, problems: InputProblem[]): Map<string, string> {
+  const map = new Map<string, string>();
+  for (const entry of text.split(',').map((part) => part.trim()).filter((part) => part !== '')) {
+    const match = /^([A-Za-z][A-Za-z0-9_.-]*)\s*=\s*([A-Za-z][A-Za-z0-9_.-]*)$/u.exec(entry);
+    if (!match) problems.push(problemAt('--map', 'renamings like neck=front,mid=centre (first guitar\'s id = other guitar\'s id)', entry));
+    else if (map.has(match[1] as string)) problems.push(problemAt('--map', 'each id renamed once', entry));
+    else map.set(match[1] as string, match[2] as string);
+  }
+  return map;
+}
+
+const signed = (value: number | null, digits: number, unit = ''): string => (value === null ? '-' : `${value >= 0 ? '+' : ''}${value.toFixed(digits)}${unit}`);
+const mark = (above: boolean): string => (above ? ABOVE : '');
+const fixed = (value: number | null, digits: number): string => (value === null ? '-' : value.toFixed(digits));
+
+function figureRecord(figure: FigurePair, changeName: string): Record<string, unknown> {
+  return { a: figure.a, b: figure.b, [changeName]: figure.change, aboveThreshold: figure.aboveThreshold };
+}
+
+/** The `--json` record of one candidate against the baseline. */
+function comparisonRecord(comparison: GuitarComparison): Record<string, unknown> {
+  const { base, candidate } = comparison;
+  return {
+    candidate: candidate.guitar.name,
+    matched: comparison.wirings.length,
+    audible: comparison.wirings.filter((wiring) => wiring.audible).length,
+    unmatched: comparison.unmatched.map((index) => base.wirings[index]?.id),
+    wirings: comparison.wirings.map((wiring) => ({
+      id: base.wirings[wiring.indexA]?.id,
+      expression: base.wirings[wiring.indexA]?.expression,
+      candidateId: candidate.wirings[wiring.indexB]?.id,
+      candidateExpression: candidate.wirings[wiring.indexB]?.expression,
+      resonanceHz: figureRecord(wiring.resonanceHz, 'changePercent'),
+      levelDb: figureRecord(wiring.levelDb, 'changeDb'),
+      brightnessHz: figureRecord(wiring.brightnessHz, 'changePercent'),
+      humDb: { ...figureRecord(wiring.humDb, 'changeDb'), humCancelling: wiring.humDb.humCancelling },
+      spectrumDb: { value: wiring.spectrumDb, aboveThreshold: wiring.spectrumAboveThreshold },
+      distance: wiring.distance,
+      audible: wiring.audible,
+    })),
+  };
+}
+
+/** Median of a list (null when empty). */
+function median(values: readonly number[]): number | null {
+  if (values.length === 0) return null;
+  const sorted = [...values].sort((a, b) => a - b);
+  const middle = sorted.length >> 1;
+  return sorted.length % 2 === 1 ? (sorted[middle] as number) : ((sorted[middle - 1] as number) + (sorted[middle] as number)) / 2;
+}
+
+function renderComparison(comparison: GuitarComparison, label: string): string {
+  const { base, candidate, wirings } = comparison;
+  const lines: string[] = [];
+  const audible = wirings.filter((wiring) => wiring.audible).length;
+  lines.push(`${label}: ${candidate.guitar.name}`);
+  lines.push(`  ${wirings.length} wirings matched; ${audible} sound different from A (distance 1× or more)${comparison.unmatched.length > 0 ? `; ${comparison.unmatched.length} of A's have no match` : ''}.`);
+  const count = (pick: (wiring: (typeof wirings)[number]) => boolean): number => wirings.filter(pick).length;
+  const medianOf = (pick: (wiring: (typeof wirings)[number]) => number | null): string => {
+    const value = median(wirings.map(pick).filter((entry): entry is number => entry !== null));
+    return value === null ? '-' : signed(value, 1);
+  };
+  lines.push(
+    `  Above threshold: resonance ${count((w) => w.resonanceHz.aboveThreshold)}, level ${count((w) => w.levelDb.aboveThreshold)}, ` +
+      `spectrum ${count((w) => w.spectrumAboveThreshold)}, brightness ${count((w) => w.brightnessHz.aboveThreshold)}, hum ${count((w) => w.humDb.aboveThreshold)}. ` +
+      `Median change: resonance ${medianOf((w) => w.resonanceHz.change)} %, level ${medianOf((w) => w.levelDb.change)} dB, brightness ${medianOf((w) => w.brightnessHz.change)} %.`,
+  );
+  lines.push('  Biggest changes first:');
+  lines.push('');
+  const ordered = [...wirings].sort((x, y) => y.distance - x.distance || x.indexA - y.indexA);
+  const table = formatTable(ordered, [
+    { title: '#', value: (w) => base.wirings[w.indexA]?.id ?? '?', align: 'right' },
+    { title: 'wiring', value: (w) => base.wirings[w.indexA]?.expression ?? '?' },
+    { title: 'resonance Hz A→B', value: (w) => `${fixed(w.resonanceHz.a, 0)}→${fixed(w.resonanceHz.b, 0)}`, align: 'right' },
+    { title: '%', value: (w) => `${signed(w.resonanceHz.change, 1)}${mark(w.resonanceHz.aboveThreshold)}`, align: 'right' },
+    { title: 'level dB', value: (w) => `${signed(w.levelDb.change, 1)}${mark(w.levelDb.aboveThreshold)}`, align: 'right' },
+    { title: 'brightness %', value: (w) => `${signed(w.brightnessHz.change, 1)}${mark(w.brightnessHz.aboveThreshold)}`, align: 'right' },
+    { title: 'spectrum dB', value: (w) => `${w.spectrumDb.toFixed(1)}${mark(w.spectrumAboveThreshold)}`, align: 'right' },
+    {
+      title: 'hum dB',
+      value: (w) => `${signed(w.humDb.change, 1)}${w.humDb.humCancelling[0] !== w.humDb.humCancelling[1] ? (w.humDb.humCancelling[1] ? ' now cancels' : ' no longer cancels') : ''}${mark(w.humDb.aboveThreshold)}`,
+      align: 'right',
+    },
+    { title: 'distance', value: (w) => `${w.distance.toFixed(2)}×`, align: 'right' },
+    { title: 'heard', value: (w) => (w.audible ? 'yes' : '') },
+  ]);
+  lines.push(...table.trimEnd().split('\n').map((line) => `  ${line}`));
+  return `${lines.join('\n')}\n`;
+}
+
+export function registerCompare(program: Command, io: Io): void {
+  const command = program
+    .command('compare')
+    .description('how candidate pickup sets change every wiring, against the first guitar file')
+    .argument('<guitarA>', 'baseline guitar file (JSON)')
+    .argument('<guitarB>', 'candidate guitar file (JSON)')
+    .argument('[more...]', 'more candidates, each compared with the baseline')
+    .option('--map <renamings>', 'coil ids that differ, first=other,… (once for every candidate, or once per candidate in order)', collect, [])
+    .option('--json', 'print one JSON document on stdout');
+  addAlikeOptions(addCircuitOptions(command)).action((fileA: string, fileB: string, more: string[], options: CompareOptions) => {
+    const files = [fileB, ...more];
+    const problems: InputProblem[] = [];
+    const guitars: Guitar[] = [];
+    for (const file of [fileA, ...files]) {
+      try {
+        guitars.push(readGuitarFile(file, io.cwd));
+      } catch (error) {
+        if (!(error instanceof InputError)) throw error;
+        problems.push(...error.problems);
+      }
+    }
+    if (problems.length > 0) throw new InputError(problems);
+    const [base, ...candidates] = guitars as [Guitar, ...Guitar[]];
+    const overrides = parseCircuitOptions(options, base, problems);
+    const thresholds = parseAlikeOptions(options, problems);
+    const maps = options.map.map((text) => parseMap(text, problems));
+    if (maps.length > 1 && maps.length !== candidates.length) {
+      problems.push(problemAt('--map', `one --map for every candidate, or ${candidates.length} (one per candidate, in order)`, `${maps.length} --map options`));
+    }
+    if (problems.length > 0) throw new InputError(problems);
+
+    const comparisons = candidates.map((candidate, index) =>
+      measureGuitarComparison(base, candidate, {
+        thresholds,
+        overrides,
+        rename: maps.length === 0 ? new Map() : ((maps.length === 1 ? maps[0] : maps[index]) as Map<string, string>),
+        renamePath: `${files[index] ?? ''} (--map)`,
+      }),
+    );
+    const first = comparisons[0] as GuitarComparison;
+    if (options.json) {
+      const document = {
+        baseline: base.name,
+        thresholds: first.thresholds,
+        resonancePercent: RESONANCE_CHANGE_PERCENT,
+        phrase: first.base.spectra.basis.phraseName,
+        comparisons: comparisons.map(comparisonRecord),
+      };
+      io.stdout(`${JSON.stringify(document, null, 2)}\n`);
+      return;
+    }
+    io.stdout(`A (baseline): ${base.name}\n`);
+    io.stdout(
+      `Thresholds: ${describeThresholds(first.thresholds)}; resonance ${RESONANCE_CHANGE_PERCENT} % (a rule of thumb). ${ABOVE} = at or above its threshold.\n` +
+        'Every figure of B is on A\'s scale: level against A\'s mean single coil, hum against A\'s mean single-coil hum.\n\n',
+    );
+    comparisons.forEach((comparison, index) => {
+      io.stdout(renderComparison(comparison, String.fromCharCode('B'.charCodeAt(0) + index)));
+      io.stdout('\n');
+    });
+    io.stdout(
+      'distance: the largest of the level, spectrum and brightness differences over its threshold (1× = just noticeable). ' +
+        'Figures come from models of the pickups, not measurements: a candidate set is worth trying by ear before you buy and fit it.\n',
+    );
+  });
+}

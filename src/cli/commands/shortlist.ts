@@ -1,0 +1,267 @@
+import type { Command } from 'commander';
+import {
+  type Distinctness,
+  type Shortlist,
+  measureDistinctness,
+  measureWiringDistance,
+  solveShortlist,
+} from '../../analysis/index.js';
+import { type WiringCircuitMetrics, measureCircuitMetrics } from '../../circuit/index.js';
+import { InputError, type InputProblem, problemAt } from '../../errors/index.js';
+import type { Guitar } from '../../guitar/index.js';
+import { type Wiring, enumerateWirings, findWiring, vocabularyOf } from '../../wiring/index.js';
+import { type AlikeOptionText, addAlikeOptions, describeThresholds, parseAlikeOptions } from '../alike-options.js';
+import { type CircuitOptionText, addCircuitOptions, parseCircuitOptions } from '../circuit-options.js';
+import { formatTable } from '../format-table.js';
+import type { Io } from '../io.js';
+import { readGuitarFile } from '../read-guitar.js';
+import { wiringRecord } from './wirings.js';
+
+interface ShortlistOptions extends CircuitOptionText, AlikeOptionText {
+  readonly count?: string;
+  readonly humCancelling?: boolean;
+  readonly levelWindow?: string;
+  readonly include: string[];
+  readonly coils?: string;
+  readonly json?: boolean;
+}
+
+const collect = (value: string, previous: string[]): string[] => [...previous, value];
+
+/** Largest shortlist asked for: a rotary switch has at most a dozen positions (common practice). */
+const MAX_COUNT = 12;
+const MAX_WINDOW_DB = 60;
+
+const CAUTION =
+  'These are models: listen to each on the real instrument before you build. To wire one, `coilbench netlist <guitar> <wiring> --build-sheet` ' +
+  'gives the connections and the cautions (iron stand, ventilation, wash your hands, check with a meter before closing up, never open an amplifier).';
+
+export interface ShortlistPlan {
+  readonly count: number;
+  readonly humCancelling: boolean;
+  readonly levelWindowDb: number | null;
+  readonly include: readonly Wiring[];
+  /** Element indices allowed, or null. */
+  readonly elements: readonly number[] | null;
+}
+
+/** Read the shortlist's own options; problems are appended, one per bad option. */
+function parsePlan(options: ShortlistOptions, guitar: Guitar, wirings: readonly Wiring[], problems: InputProblem[]): ShortlistPlan {
+  let count = 0;
+  if (options.count === undefined) problems.push(problemAt('--count', `how many wirings to choose, 1 to ${MAX_COUNT}`, undefined));
+  else {
+    const value = Number(options.count.trim());
+    if (!/^\s*\d+\s*$/u.test(options.count) || value < 1 || value > MAX_COUNT) problems.push(problemAt('--count', `a whole number from 1 to ${MAX_COUNT}`, options.count));
+    else count = value;
+  }
+  let levelWindowDb: number | null = null;
+  if (options.levelWindow !== undefined) {
+    const text = options.levelWindow.trim().replace(/\s*db$/iu, '');
+    const value = Number(text);
+    if (!/^\d*\.?\d+$/u.test(text) || value > MAX_WINDOW_DB) problems.push(problemAt('--level-window', `a level spread in dB from 0 to ${MAX_WINDOW_DB}, like 3 or 4.5dB`, options.levelWindow));
+    else levelWindowDb = value;
+  }
+  const ids = guitar.elements.map((element) => element.id);
+  let elements: number[] | null = null;
+  if (options.coils !== undefined) {
+    const names = options.coils.split(/[\s,]+/u).filter((name) => name !== '');
+    elements = [];
+    if (names.length === 0) problems.push(problemAt('--coils', `coil names separated by commas, like ${ids.slice(0, 2).join(',')}`, options.coils));
+    for (const name of names) {
+      const index = ids.indexOf(name);
+      if (index < 0) problems.push(problemAt('--coils', `names of this guitar's wiring elements (${ids.join(', ')})`, name));
+      else if (!elements.includes(index)) elements.push(index);
+    }
+    elements.sort((a, b) => a - b);
+  }
+  const include: Wiring[] = [];
+  const vocabulary = vocabularyOf(guitar);
+  for (const text of options.include) {
+    try {
+      include.push(findWiring(text, wirings, vocabulary, '--include'));
+    } catch (error) {
+      if (!(error instanceof InputError)) throw error;
+      problems.push(...error.problems);
+    }
+  }
+  return { count, humCancelling: options.humCancelling === true, levelWindowDb, include, elements };
+}
+
+/** Solve the shortlist, with the core's constraint names turned into the options a user typed. */
+export function solvePlannedShortlist(
+  guitar: Guitar,
+  wirings: readonly Wiring[],
+  circuit: readonly WiringCircuitMetrics[],
+  distinct: Distinctness,
+  plan: ShortlistPlan,
+): Shortlist {
+  const { profiles, thresholds } = distinct;
+  const list = wirings.map((wiring, index) => ({
+    rank: wiring.number,
+    levelDb: profiles.levelsDb[index] as number,
+    humCancelling: (circuit[index] as WiringCircuitMetrics).humCancelling,
+    elements: wiring.elements,
+    expression: wiring.expression,
+  }));
+  const includeIndices = plan.include.map((wiring) => wiring.number - 1);
+  try {
+    return solveShortlist(list, (a, b) => measureWiringDistance(profiles, a, profiles, b, thresholds), {
+      count: plan.count,
+      humCancelling: plan.humCancelling,
+      elements: plan.elements,
+      elementIds: guitar.elements.map((element) => element.id),
+      include: includeIndices,
+      levelWindowDb: plan.levelWindowDb,
+    });
+  } catch (error) {
+    if (!(error instanceof InputError)) throw error;
+    throw new InputError(
+      error.problems.map((problem) => {
+        const included = /^include\[(\d+)\]$/u.exec(problem.path);
+        const path = included
+          ? `--include ${plan.include[Number(included[1])]?.expression ?? ''}`
+          : ({ count: '--count', humCancelling: '--hum-cancelling', elements: '--coils', levelWindowDb: '--level-window' } as Record<string, string>)[problem.path] ?? problem.path;
+        return { ...problem, path };
+      }),
+    );
+  }
+}
+
+const signed = (value: number, digits: number): string => `${value >= 0 ? '+' : ''}${value.toFixed(digits)}`;
+const times = (value: number): string => (Number.isFinite(value) ? `${value.toFixed(2)}×` : '-');
+
+/** "hum cancelling; within 3 dB; including w4; coils neck, bridge" or "none". */
+function describeConstraints(plan: ShortlistPlan, guitar: Guitar): string {
+  const parts: string[] = [];
+  if (plan.humCancelling) parts.push('hum cancelling only');
+  if (plan.levelWindowDb !== null) parts.push(`all within ${plan.levelWindowDb} dB of each other`);
+  if (plan.include.length > 0) parts.push(`including ${plan.include.map((wiring) => `${wiring.id} ${wiring.expression}`).join(', ')}`);
+  if (plan.elements !== null) parts.push(`only ${plan.elements.map((index) => guitar.elements[index]?.id ?? '?').join(', ')}`);
+  return parts.length > 0 ? parts.join('; ') : 'none';
+}
+
+/** The closest pair of the chosen set (wiring indices). */
+function closestPair(shortlist: Shortlist, distinct: Distinctness): [number, number] | null {
+  let best: [number, number] | null = null;
+  let smallest = Number.POSITIVE_INFINITY;
+  const { members } = shortlist;
+  for (let i = 0; i < members.length; i += 1) {
+    for (let j = i + 1; j < members.length; j += 1) {
+      const distance = measureWiringDistance(distinct.profiles, members[i] as number, distinct.profiles, members[j] as number, distinct.thresholds);
+      if (distance < smallest) {
+        smallest = distance;
+        best = [members[i] as number, members[j] as number];
+      }
+    }
+  }
+  return best;
+}
+
+export function registerShortlist(program: Command, io: Io): void {
+  const command = program
+    .command('shortlist')
+    .description('the few wirings most different from each other, for a real switch, under your constraints')
+    .argument('<guitar>', 'guitar file (JSON)')
+    .option('--count <K>', `how many wirings (1 to ${MAX_COUNT}), e.g. the positions of your switch`)
+    .option('--hum-cancelling', 'only wirings that cancel hum')
+    .option('--level-window <dB>', 'every chosen wiring within this many dB of every other')
+    .option('--include <wiring>', 'a wiring that must be in the list, like "neck + mid" or w4 (repeat for more)', collect, [])
+    .option('--coils <ids>', 'only wirings of these coils, separated by commas')
+    .option('--json', 'print one JSON document on stdout');
+  addAlikeOptions(addCircuitOptions(command)).action((file: string, options: ShortlistOptions) => {
+    const guitar = readGuitarFile(file, io.cwd);
+    const wirings = enumerateWirings(guitar.elements);
+    const problems: InputProblem[] = [];
+    const overrides = parseCircuitOptions(options, guitar, problems);
+    const thresholds = parseAlikeOptions(options, problems);
+    const plan = parsePlan(options, guitar, wirings, problems);
+    if (problems.length > 0) throw new InputError(problems);
+
+    const circuit = measureCircuitMetrics(guitar, wirings, overrides);
+    const distinct = measureDistinctness(guitar, wirings, { overrides, thresholds });
+    const shortlist = solvePlannedShortlist(guitar, wirings, circuit.wirings, distinct, plan);
+    const pair = closestPair(shortlist, distinct);
+    const { profiles } = distinct;
+    const rowOf = (index: number) => {
+      const wiring = wirings[index] as Wiring;
+      const figures = circuit.wirings[index] as WiringCircuitMetrics;
+      return {
+        wiring,
+        levelDb: profiles.levelsDb[index] as number,
+        brightnessHz: profiles.brightnessHz[index] as number,
+        figures,
+        group: distinct.groups.groupOf[index] ?? 0,
+      };
+    };
+    const rows = shortlist.members.map(rowOf);
+    const distances = shortlist.members.map((a) => shortlist.members.map((b) => (a === b ? 0 : measureWiringDistance(profiles, a, profiles, b, distinct.thresholds))));
+
+    if (options.json) {
+      const document = {
+        guitar: guitar.name,
+        count: plan.count,
+        constraints: {
+          humCancelling: plan.humCancelling,
+          levelWindowDb: plan.levelWindowDb,
+          include: plan.include.map((wiring) => wiring.id),
+          coils: plan.elements === null ? null : plan.elements.map((index) => guitar.elements[index]?.id),
+        },
+        thresholds: distinct.thresholds,
+        method: shortlist.method,
+        candidates: shortlist.candidateCount,
+        minDistance: Number.isFinite(shortlist.minDistance) ? shortlist.minDistance : null,
+        closestPair: pair ? pair.map((index) => wirings[index]?.id) : null,
+        levelRangeDb: shortlist.levelRangeDb,
+        wirings: rows.map((row) => ({
+          ...wiringRecord(row.wiring),
+          levelDb: row.levelDb,
+          brightnessHz: row.brightnessHz,
+          ...row.figures,
+          group: row.group,
+        })),
+        distances,
+      };
+      io.stdout(`${JSON.stringify(document, null, 2)}\n`);
+      return;
+    }
+
+    const lines: string[] = [];
+    lines.push(`${guitar.name}: ${plan.count} of ${wirings.length} wirings, as different from each other as possible`);
+    lines.push(`constraints: ${describeConstraints(plan, guitar)} (${shortlist.candidateCount} wirings qualify)`);
+    const method = shortlist.method === 'exact' ? 'exact search (branch and bound)' : 'greedy farthest-point with swaps (a heuristic: the best set may be a little better)';
+    const closest = pair ? ` (${wirings[pair[0]]?.id} and ${wirings[pair[1]]?.id})` : '';
+    lines.push(`smallest difference in the set: ${times(shortlist.minDistance)} the just-noticeable difference${closest}; ${method}`);
+    lines.push(`thresholds: ${describeThresholds(distinct.thresholds)}`);
+    lines.push('');
+    io.stdout(`${lines.join('\n')}\n`);
+    io.stdout(
+      formatTable(rows, [
+        { title: '#', value: (row) => row.wiring.id, align: 'right' },
+        { title: 'wiring', value: (row) => row.wiring.expression },
+        { title: 'level dB', value: (row) => signed(row.levelDb, 1), align: 'right' },
+        { title: 'brightness Hz', value: (row) => row.brightnessHz.toFixed(0), align: 'right' },
+        { title: 'resonance Hz', value: (row) => (row.figures.resonanceHz === null ? '-' : row.figures.resonanceHz.toFixed(0)), align: 'right' },
+        { title: 'hum dB', value: (row) => (row.figures.humDb === null ? '-' : signed(row.figures.humDb, 1)), align: 'right' },
+        { title: 'hum cancelling', value: (row) => (row.figures.humCancelling ? 'yes' : '') },
+        { title: 'group', value: (row) => String(row.group), align: 'right' },
+        { title: 'in words', value: (row) => row.wiring.description },
+      ]),
+    );
+    if (rows.length > 1) {
+      io.stdout('\nDifferences between them (× just noticeable):\n');
+      io.stdout(
+        formatTable(
+          rows.map((row, i) => ({ row, i })),
+          [
+            { title: '', value: ({ row }) => row.wiring.id, align: 'right' },
+            ...rows.map((column, j) => ({ title: column.wiring.id, value: ({ i }: { i: number }) => (i === j ? '-' : (distances[i]?.[j] ?? 0).toFixed(1)), align: 'right' as const })),
+          ],
+        ),
+      );
+    }
+    if (shortlist.minDistance < 1) {
+      io.stdout(`\nNote: some of these sound alike at these thresholds; fewer than ${plan.count} audibly different wirings meet the constraints.\n`);
+    }
+    io.stdout(`\nlevel: relative to the mean single coil; brightness: power-weighted spectral centroid of the strum; group: as in \`coilbench analyze\`.\n${CAUTION}\n`);
+  });
+}
