@@ -106,6 +106,21 @@ describe('solveShortlist on the demo guitar', () => {
     expect(withInclude.minDistance).toBeCloseTo(bruteForce(3, () => true, [index('neck')], 2), 12);
   });
 
+  it('beyond the exact method, the heuristic still keeps every constraint, and never beats the exact optimum', () => {
+    for (const window of [4, 8]) {
+      const include = [index('neck + mid')];
+      const fields = { count: 4, humCancelling: true, include, levelWindowDb: window };
+      const heuristic = solveShortlist(list, distance, request(fields), { exactLimit: 0 });
+      const exact = solveShortlist(list, distance, request(fields));
+      expect(heuristic.method).toBe('heuristic');
+      expect(heuristic.members).toContain(include[0]);
+      for (const member of heuristic.members) expect(list[member]!.humCancelling).toBe(true);
+      const levels = heuristic.members.map((member) => list[member]!.levelDb);
+      expect(Math.max(...levels) - Math.min(...levels)).toBeLessThanOrEqual(window);
+      expect(heuristic.minDistance).toBeLessThanOrEqual(exact.minDistance + 1e-12);
+    }
+  });
+
   it('all constraints at once', () => {
     const include = [index('neck + mid')];
     const shortlist = solveShortlist(list, distance, request({ count: 3, humCancelling: true, elements: [0, 1, 2], include, levelWindowDb: 4 }));

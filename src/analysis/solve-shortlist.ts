@@ -12,7 +12,8 @@
  *   Solved by sliding the window over the candidates sorted by level: each
  *   window that is not inside the previous one is solved, and the best set
  *   over all windows kept (the first window wins a tie). Beyond the exact
- *   solver's reach the windows start on a grid of an eighth of the window.
+ *   solver's reach, one heuristic search keeps every set inside the window
+ *   as it grows, started from wirings spread over the level range.
  *
  * Impossible constraints throw InputError whose path names the constraint
  * (`count`, `humCancelling`, `elements`, `include[i]`, `levelWindowDb`) and
@@ -63,8 +64,10 @@ export interface Shortlist {
   readonly levelRangeDb: readonly [number, number] | null;
 }
 
-/** Window starts on a grid of this fraction of the window when the exact solver cannot be used (our choice). */
+/** Window starts on a grid of this fraction of the window when the exact solver cannot be used and the seeded search fails (our choice). */
 const HEURISTIC_WINDOW_STEPS = 8;
+/** Starting points of the windowed heuristic, spread over the level range (our choice). */
+const HEURISTIC_SEEDS = 16;
 
 /** "at most 12: only 12 wirings are hum cancelling and use only neck, bridge; relax …, or ask for fewer". */
 function tooFewMessage(request: ShortlistRequest, available: number): string {
@@ -152,6 +155,28 @@ export function solveShortlist(
   const byLevel = [...candidates].sort((a, b) => level(a) - level(b) || byRank(a, b));
   const levels = byLevel.map(level);
   const exact = candidates.length <= settings.exactLimit;
+  if (!exact) {
+    // Too many for the exact method: one heuristic search that keeps every set inside the window, seeded across the level range.
+    const allLevels = [...levels, ...includeLevels];
+    const spread = (chosen: readonly number[], candidate: number): boolean => {
+      let low = level(candidate);
+      let high = low;
+      for (const item of chosen) {
+        low = Math.min(low, level(item));
+        high = Math.max(high, level(item));
+      }
+      return high - low <= window;
+    };
+    const compatible = byLevel.filter((item) => allLevels.length === 0 || spread(orderedInclude, item));
+    const seeds = Array.from({ length: Math.min(HEURISTIC_SEEDS, compatible.length) }, (_, k) =>
+      compatible[Math.round((k * (compatible.length - 1)) / Math.max(1, HEURISTIC_SEEDS - 1))] as number,
+    );
+    const result = solveMaxMinSubset({ candidates, include: orderedInclude, size: request.count, distance, admissible: spread, seeds: [...new Set(seeds)] }, settings);
+    if (result !== null) {
+      const chosenLevels = result.members.map(level);
+      return finish(result, [Math.min(...chosenLevels), Math.min(...chosenLevels) + window]);
+    }
+  }
   const startsFrom = includeLevels.length > 0 ? includeHigh - window : Number.NEGATIVE_INFINITY;
   const startsTo = includeLevels.length > 0 ? includeLow : Number.POSITIVE_INFINITY;
   const starts = windowStarts(levels, includeLevels, startsFrom, startsTo, exact ? null : window / HEURISTIC_WINDOW_STEPS);
