@@ -31,7 +31,7 @@ import { renderBrightnessLegend, renderWiringTable } from './wiring-table.js';
 export const START_VOLUME = 0.3;
 
 const TOPOLOGY_OPTIONS: ReadonlyArray<readonly [string, string]> = [
-  ['single', 'one coil alone'],
+  ['single', 'alone'],
   ['series', 'series'],
   ['parallel', 'parallel'],
   ['series-parallel', 'series and parallel'],
