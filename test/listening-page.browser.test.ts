@@ -212,6 +212,8 @@ describe.skipIf(!HAVE_CHROMIUM && !IN_CI)('listening page in chromium (file://)'
     expect(Math.abs(now.offsetS)).toBeLessThan(0.06);
     await expect.poll(() => page.locator('tr[data-wiring="w3"]').getAttribute('aria-current')).toBe('true');
     await page.locator('tr[data-wiring="w10"] [data-action="compare"]').check();
+    await page.mouse.move(0, 0);
+    await page.evaluate(() => window.scrollTo(0, 0));
     await page.screenshot({ path: join(OUTPUT_DIR, 'listening-page.png') });
     await page.screenshot({ path: join(OUTPUT_DIR, 'listening-page-full.png'), fullPage: true });
   });

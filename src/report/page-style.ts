@@ -13,7 +13,7 @@ export const PAGE_STYLE = `
 }
 * { box-sizing: border-box; }
 body { margin: 0; padding: 0 0 8.5rem; }
-main, .masthead, .footer { max-width: 78rem; margin: 0 auto; padding: 0 1.25rem; }
+main, .masthead, .footer { max-width: 86rem; margin: 0 auto; padding: 0 1.25rem; }
 h1, h2, h3 { line-height: 1.2; }
 h2 { font-size: 1.3rem; margin: 2.2rem 0 0.6rem; }
 a { color: var(--accent); }
@@ -69,14 +69,14 @@ table.wirings { border-collapse: collapse; width: 100%; font-size: 0.93rem; }
 .wirings tbody tr:hover { background: var(--accent-soft); }
 .wirings tbody tr[aria-current="true"] { background: var(--accent-soft); box-shadow: inset 4px 0 0 var(--accent); }
 .wirings td.number { color: var(--muted); font-variant-numeric: tabular-nums; }
-.wirings td.wiring { min-width: 15rem; }
+.wirings td.wiring { min-width: 14rem; }
 .wirings .description { display: block; font-weight: 600; }
 .wirings .expression { display: block; color: var(--muted); font-size: 0.85rem; margin-top: 0.1rem; }
 .wirings .expression code { color: var(--ink); background: #efe8dc; padding: 0 0.25rem; border-radius: 0.2rem; }
 .wirings .id { margin-left: 0.3rem; }
 .wav-link { margin-left: 0.3rem; font-size: 0.8rem; }
 .wirings td.level, .wirings .figure { font-variant-numeric: tabular-nums; white-space: nowrap; }
-.wirings td.bright, .wirings td.peak, .wirings td.hum, .wirings td.topology { white-space: nowrap; }
+.wirings td.bright, .wirings td.peak, .wirings td.hum, .wirings td.topology, .wirings td.phase { white-space: nowrap; }
 .wirings .word { display: block; }
 .wirings .figure { display: block; color: var(--muted); font-size: 0.85rem; }
 .bar { display: block; margin: 0.2rem 0; }

@@ -17,11 +17,6 @@ export function topologyInWords(topology: Topology): string {
   return TOPOLOGY_WORDS[topology];
 }
 
-/** "in phase", or "out of phase: mid". */
-export function phaseInWords(outOfPhase: readonly string[]): string {
-  return outOfPhase.length === 0 ? 'in phase' : `out of phase: ${outOfPhase.join(', ')}`;
-}
-
 /** A wiring counts as hum cancelling at or below this hum, dB (DESIGN.md, `humCancelling`). */
 export const HUM_CANCELLING_DB = -20;
 /** Below this (and above the cancelling mark) a wiring is "partly cancelling": half the hum amplitude or less, dB (our own threshold). */
@@ -35,10 +30,11 @@ export function humVerdict(humDb: number | null, humCancelling: boolean): HumVer
   return humDb <= HUM_PARTLY_CANCELLING_DB ? 'partly' : 'noisy';
 }
 
-export const HUM_VERDICT_WORDS: Readonly<Record<HumVerdict, string>> = Object.freeze({
-  quiet: 'quiet (hum cancelling)',
-  partly: 'less hum (partly cancelling)',
-  noisy: 'noisy',
+/** The mark shown for each verdict, and the words under it. */
+export const HUM_VERDICT_WORDS: Readonly<Record<HumVerdict, readonly [string, string]>> = Object.freeze({
+  quiet: ['quiet', '(hum cancelling)'],
+  partly: ['less hum', '(partly cancelling)'],
+  noisy: ['noisy', ''],
 });
 
 /**

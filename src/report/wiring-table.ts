@@ -14,7 +14,6 @@ import {
   formatHz,
   humVerdict,
   peakCharacter,
-  phaseInWords,
   topologyInWords,
 } from './page-words.js';
 
@@ -61,10 +60,17 @@ function peakCell(wiring: ReportWiring): string {
 
 function humCell(wiring: ReportWiring): string {
   const verdict = humVerdict(wiring.humDb, wiring.humCancelling);
+  const [mark, words] = HUM_VERDICT_WORDS[verdict];
+  const figure = words === '' ? formatDb(wiring.humDb) : `${words} ${formatDb(wiring.humDb)}`;
   return (
-    `<td class="hum"><span class="hum-mark hum-${verdict}"><span class="dot" aria-hidden="true"></span>${escapeHtml(HUM_VERDICT_WORDS[verdict])}</span>` +
-    `<span class="figure">${escapeHtml(formatDb(wiring.humDb))}</span></td>`
+    `<td class="hum"><span class="hum-mark hum-${verdict}"><span class="dot" aria-hidden="true"></span>${escapeHtml(mark)}</span>` +
+    `<span class="figure">${escapeHtml(figure)}</span></td>`
   );
+}
+
+function phaseCell(wiring: ReportWiring): string {
+  if (wiring.outOfPhase.length === 0) return '<td class="phase"><span class="word">in phase</span></td>';
+  return `<td class="phase"><span class="word">out of phase</span><span class="figure">${escapeHtml(wiring.outOfPhase.join(', '))}</span></td>`;
 }
 
 function wiringRow(wiring: ReportWiring, scale: BrightnessScale): string {
@@ -84,7 +90,7 @@ function wiringRow(wiring: ReportWiring, scale: BrightnessScale): string {
     `<span class="expression"><code>${escapeHtml(wiring.expression)}</code> <span class="id">${id}</span>${download}</span></td>` +
     `<td class="coils">${escapeHtml(String(wiring.coils.length))}</td>` +
     `<td class="topology">${escapeHtml(topologyInWords(wiring.topology))}</td>` +
-    `<td class="phase">${escapeHtml(phaseInWords(wiring.outOfPhase))}</td>` +
+    phaseCell(wiring) +
     `<td class="level">${escapeHtml(formatDb(wiring.levelDb))}</td>` +
     brightnessCell(wiring, scale) +
     peakCell(wiring) +
