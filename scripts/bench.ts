@@ -4,6 +4,8 @@
  */
 import { cpus } from 'node:os';
 import { benchEnumerate } from './bench/enumerate.js';
+import { benchListeningPage } from './bench/listening-page.js';
 
 console.log(`coilbench bench — node ${process.version}, ${cpus().length} cores (${cpus()[0]?.model ?? 'unknown cpu'})`);
 benchEnumerate();
+benchListeningPage();

@@ -1,54 +1,12 @@
 import { createHash } from 'node:crypto';
 import { runInNewContext } from 'node:vm';
 import { describe, expect, it } from 'vitest';
-import { enumerateWirings } from '../wiring/index.js';
+import { makeExampleReport as makeReport } from '../../test/support/example-report.js';
 import type { ListeningReport, ReportWiring } from './listening-report.js';
 import { pageAudioPath, renderPageAudioScript } from './page-audio-file.js';
 import { renderListeningPage } from './render-listening-page.js';
 
 const HOSTILE_NAME = '<script>window.__pwned = 1</script>"><img src=x onerror="window.__pwned = 2">';
-
-function makeReport(ids: readonly string[], name = 'Page test guitar (invented values)'): ListeningReport {
-  const frequencies = [20, 100, 1000, 5000, 20000];
-  const wirings: ReportWiring[] = enumerateWirings(ids.map((id) => ({ id }))).map((wiring) => ({
-    id: wiring.id,
-    number: wiring.number,
-    expression: wiring.expression,
-    description: wiring.description,
-    coils: wiring.elementIds,
-    topology: wiring.topology,
-    outOfPhase: wiring.outOfPhase,
-    wav: `wav/${wiring.id}.wav`,
-    levelDb: -wiring.number / 10,
-    loudnessLufs: -20 - wiring.number / 10,
-    centroidHz: 500 + wiring.number * 37,
-    resonanceHz: 2000 + wiring.number * 50,
-    peakDb: 3,
-    resonanceQ: 1.5,
-    humDb: wiring.outOfPhase.length > 0 ? -30 : 0,
-    humCancelling: wiring.outOfPhase.length > 0,
-    responseDb: [0, 0, 1, 3, -20],
-    group: null,
-  }));
-  return {
-    generator: 'coilbench test',
-    guitar: {
-      name,
-      slug: 'page-test',
-      notes: `notes ${name}`,
-      scaleM: 0.648,
-      tuning: ['E2', 'A2', 'D3', 'G3', 'B3', 'E4'],
-      coils: ids.map((id) => ({ id, pickup: null, position: '100 mm', resistanceOhms: 6000, inductanceH: 2.5, capacitanceF: 1e-10, winding: 'cw', magnet: 'north' })),
-      controls: [`volume ${name}`],
-      cableCapacitanceF: 5e-10,
-      ampResistanceOhms: 1e6,
-      ampCapacitanceF: 5e-11,
-    },
-    render: { phrase: 'strum', chain: 'direct', sampleRateHz: 48000, durationS: 6, level: 'true', commonGainDb: 0, mainsHz: 60, humMixHz: null, format: 'pcm24' },
-    responseFrequenciesHz: frequencies,
-    wirings,
-  };
-}
 
 function scriptsOf(html: string): string[] {
   return [...html.matchAll(/<script\b[^>]*>([\s\S]*?)<\/script>/gu)].map((match) => match[1] ?? '');
@@ -66,9 +24,18 @@ describe('renderListeningPage', () => {
     }
   });
 
-  it('carries the report as JSON that parses back to the same data', () => {
+  it('carries the report as JSON that parses back to the same data, response curves to 0.01 dB', () => {
     const json = /<script type="application\/json" id="report-data">([\s\S]*?)<\/script>/u.exec(html)?.[1] ?? '';
-    expect(JSON.parse(json)).toEqual(report);
+    const carried = JSON.parse(json) as ListeningReport;
+    expect({ ...carried, wirings: carried.wirings.map((wiring) => ({ ...wiring, responseDb: [] })) }).toEqual({
+      ...report,
+      wirings: report.wirings.map((wiring) => ({ ...wiring, responseDb: [] })),
+    });
+    carried.wirings.forEach((wiring, index) => {
+      const original = report.wirings[index]?.responseDb ?? [];
+      expect(wiring.responseDb.length).toBe(original.length);
+      wiring.responseDb.forEach((db, point) => expect(Math.abs(db - (original[point] ?? NaN))).toBeLessThanOrEqual(0.005 + 1e-12));
+    });
   });
 
   it('pins its inline script and style by hash in the Content-Security-Policy', () => {

@@ -37,6 +37,18 @@ const TOPOLOGY_OPTIONS: ReadonlyArray<readonly [string, string]> = [
   ['series-parallel', 'series and parallel'],
 ];
 
+/** Response curves ride along rounded to 0.01 dB: far finer than a plot shows, and a third of the size (our own choice). */
+const RESPONSE_DB_STEP = 0.01;
+
+/** The report as the page script reads it: the same data with response curves rounded. */
+export function compactReportForPage(report: ListeningReport): ListeningReport {
+  const round = (db: number): number => (Number.isFinite(db) ? Math.round(db / RESPONSE_DB_STEP) * RESPONSE_DB_STEP : db);
+  return {
+    ...report,
+    wirings: report.wirings.map((wiring) => ({ ...wiring, responseDb: wiring.responseDb.map((db) => Number(round(db).toFixed(2))) })),
+  };
+}
+
 function sha256Base64(text: string): string {
   return createHash('sha256').update(text, 'utf8').digest('base64');
 }
@@ -212,7 +224,7 @@ ${renderCautionsSection()}
 </main>
 <footer class="footer"><p>Made with coilbench. Renders are models: make the final choice by ear on the real instrument.</p></footer>
 ${renderTransport(report)}
-<script type="application/json" id="report-data">${serializeJsonForScript(report)}</script>
+<script type="application/json" id="report-data">${serializeJsonForScript(compactReportForPage(report))}</script>
 <script>${script}</script>
 </body>
 </html>
