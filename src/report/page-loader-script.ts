@@ -7,6 +7,7 @@
  * bytes are decoded with an OfflineAudioContext, which needs no user gesture
  * and resamples to the render's rate. Decoded buffers are kept in a
  * least-recently-used cache of bounded size so 572 wirings do not fill memory.
+ * A file that failed to load is not asked for again until the page reloads.
  * Requires the math script (isInsideFolder, pageAudioPath).
  */
 import { PAGE_AUDIO_CALLBACK } from './page-audio-file.js';
@@ -22,6 +23,7 @@ function createAudioLoader(sampleRateHz, isProtected) {
   var PARALLEL_LOADS = ${AUDIO_PARALLEL_LOADS};
   var cache = new Map();
   var inflight = new Map();
+  var failed = new Map();
   var waiting = {};
   var queue = [];
   var active = 0;
@@ -74,6 +76,7 @@ function createAudioLoader(sampleRateHz, isProtected) {
         remember(this.id, entry);
         this.resolve(entry);
       }.bind(job), function (error) {
+        failed.set(this.id, error);
         this.reject(error);
       }.bind(job)).then(function () {
         inflight.delete(this.id);
@@ -99,6 +102,7 @@ function createAudioLoader(sampleRateHz, isProtected) {
     if (cached) { cache.delete(wiring.id); cache.set(wiring.id, cached); return Promise.resolve(cached); }
     var pending = inflight.get(wiring.id);
     if (pending) return pending;
+    if (failed.has(wiring.id)) return Promise.reject(failed.get(wiring.id));
     if (!wiring.wav) return Promise.reject(new Error(wiring.id + ' was not rendered'));
     var src = pageAudioPath(wiring.wav);
     if (!isInsideFolder(src)) return Promise.reject(new Error(wiring.id + ': audio path outside the page folder refused'));

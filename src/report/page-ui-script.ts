@@ -45,7 +45,11 @@ export const PAGE_UI_SCRIPT = String.raw`
   function describe(wiring) { return wiring.id + ' \u00b7 ' + wiring.description; }
 
   function showError(error) {
-    text($('now-detail'), 'Could not play: ' + (error && error.message ? error.message : String(error)));
+    var message = error && error.message ? error.message : String(error);
+    if (/^could not read /.test(message)) {
+      message = message.replace(/^could not read /, 'the audio file ') + ' is missing beside this page (keep the page and its wav folder together, or render again)';
+    }
+    text($('now-detail'), 'Could not play: ' + message + '.');
   }
 
   function levelNote() {
@@ -59,6 +63,11 @@ export const PAGE_UI_SCRIPT = String.raw`
       note += '; ' + Math.abs(difference).toFixed(1) + ' dB ' + (difference >= 0 ? 'louder' : 'quieter') + ' than ' + before.id;
     }
     if (gains.unknown.indexOf(wiring.id) >= 0) note += ' (loudness unknown: not matched)';
+    var entry = loader.peek(wiring.id);
+    var wanted = (ui.matched ? gains.matched : gains.trueLevel)[wiring.id] || 0;
+    if (entry && limitGainDb(wanted, entry.peak) < wanted - 0.05) {
+      note += ' (raised only ' + formatDb(limitGainDb(wanted, entry.peak)) + ' of ' + formatDb(wanted) + ' to stay below full scale: a little quieter than the others)';
+    }
     return note + '.';
   }
 
@@ -309,7 +318,7 @@ export const PAGE_UI_SCRIPT = String.raw`
     if (event.key === ' ' && !inPlot && !isFormControl(target)) { event.preventDefault(); togglePlayback(); return; }
     if (event.key === ' ' && inPlot) { event.preventDefault(); togglePlayback(); return; }
     if (inPlot || ui.blind !== null) return;
-    if (target.closest('input, select, textarea')) return;
+    if (target.closest('select, textarea, input:not([type="checkbox"])')) return;
     if (event.key === 'ArrowDown') { event.preventDefault(); step(1); }
     else if (event.key === 'ArrowUp') { event.preventDefault(); step(-1); }
   });
