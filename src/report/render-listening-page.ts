@@ -24,7 +24,7 @@ import {
 } from './page-sections.js';
 import { PAGE_STYLE } from './page-style.js';
 import { PAGE_UI_SCRIPT } from './page-ui-script.js';
-import { HUM_CANCELLING_DB } from './page-words.js';
+import { HUM_CANCELLING_DB, HUM_PARTLY_CANCELLING_DB, formatDb } from './page-words.js';
 import { renderBrightnessLegend, renderWiringTable } from './wiring-table.js';
 
 /** Playback volume the page starts at, linear (−10.5 dB; start low, USER-NEEDS.md §(d)). */
@@ -157,7 +157,7 @@ function renderColumnHelp(report: ListeningReport): string {
     '<dt>Level</dt><dd>How loud the wiring is at true level, compared with the average single coil (0 dB). Playback is level matched unless you untick <em>Level matched</em>, so you compare the sound, not the loudness.</dd>' +
     `<dt>Brightness</dt><dd>${renderBrightnessLegend(report)}</dd>` +
     '<dt>Resonant peak</dt><dd>Where the circuit boosts most, and how much above 100 Hz. Words after H. Lemme: about 2 kHz warm, 3 kHz present, 4 kHz piercing, 5 kHz and above brittle.</dd>' +
-    `<dt>Hum</dt><dd>Mains hum compared with the average single coil. <em>Quiet (hum cancelling)</em>: ${HUM_CANCELLING_DB} dB or less; <em>less hum</em>: −6 dB or less; <em>noisy</em>: more.</dd>` +
+    `<dt>Hum</dt><dd>Mains hum compared with the average single coil. <em>Quiet (hum cancelling)</em>: ${formatDb(HUM_CANCELLING_DB, 0)} or less; <em>less hum</em>: ${formatDb(HUM_PARTLY_CANCELLING_DB, 0)} or less; <em>noisy</em>: more.</dd>` +
     '</dl></details>'
   );
 }
