@@ -363,6 +363,27 @@ describe.skipIf(!HAVE_CHROMIUM && !IN_CI)('listening page in chromium (file://)'
     expect(heardPosition).toBeLessThan(1.25);
   });
 
+  it('seeks with the position slider, follows the volume control and stops at the end', async () => {
+    const page = await open();
+    await page.locator('tr[data-wiring="w4"] [data-action="play"]').click();
+    await waitForSound(page, 'w4');
+    await page.locator('#scrub').fill('1.5');
+    await page.waitForTimeout(200);
+    const sought = await heard(page);
+    expect(sought.position).toBeGreaterThan(1.5);
+    expect(sought.position).toBeLessThan(1.9);
+    expect(Math.abs(sought.offsetS)).toBeLessThan(0.03);
+    // Volume 0.3 → 0.15 halves the signal: −6.02 dB (20·log10 ½).
+    await page.locator('#volume').fill('0.15');
+    await page.waitForTimeout(150);
+    const quieter = await heard(page);
+    expect(quieter.rmsDb - sought.rmsDb).toBeCloseTo(20 * Math.log10(0.5), 0);
+    await page.locator('#scrub').fill('2.8');
+    await expect.poll(() => page.evaluate(() => (window as unknown as { coilbenchPage: { isPlaying(): boolean } }).coilbenchPage.isPlaying())).toBe(false);
+    expect(await page.evaluate(() => (window as unknown as { coilbenchPage: { position(): number } }).coilbenchPage.position())).toBe(0);
+    expect(await page.locator('#transport-play').getAttribute('aria-label')).toBe('Play');
+  });
+
   it('overlays frequency responses with peaks and shows values on hover', async () => {
     const page = await open();
     await page.locator('tr[data-wiring="w12"] [data-action="compare"]').check();
