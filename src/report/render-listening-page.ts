@@ -13,9 +13,11 @@ import { createHash } from 'node:crypto';
 import { RECOMMENDED_ABX_TRIALS } from './abx-settings.js';
 import { escapeHtml, serializeJsonForScript } from './escape-html.js';
 import type { ListeningReport } from './listening-report.js';
+import { PAGE_BLIND_SCRIPT } from './page-blind-script.js';
 import { PAGE_LOADER_SCRIPT } from './page-loader-script.js';
 import { PAGE_MATH_SCRIPT } from './page-math-script.js';
 import { PAGE_PLAYER_SCRIPT } from './page-player-script.js';
+import { PAGE_PLOT_SCRIPT } from './page-plot-script.js';
 import {
   renderCautionsSection,
   renderGlossarySection,
@@ -164,7 +166,7 @@ function renderColumnHelp(report: ListeningReport): string {
 
 /** The listening page for a report, as one HTML document. */
 export function renderListeningPage(report: ListeningReport): string {
-  const script = `'use strict';\n${PAGE_MATH_SCRIPT}\n${PAGE_LOADER_SCRIPT}\n${PAGE_PLAYER_SCRIPT}\n${PAGE_UI_SCRIPT}`;
+  const script = ["'use strict';", PAGE_MATH_SCRIPT, PAGE_LOADER_SCRIPT, PAGE_PLAYER_SCRIPT, PAGE_PLOT_SCRIPT, PAGE_BLIND_SCRIPT, PAGE_UI_SCRIPT].join('\n');
   const policy = [
     "default-src 'none'",
     `script-src 'sha256-${sha256Base64(script)}' 'self'`,
