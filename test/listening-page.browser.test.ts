@@ -270,6 +270,31 @@ describe.skipIf(!HAVE_CHROMIUM && !IN_CI)('listening page in chromium (file://)'
     await expect.poll(() => page.locator('#level-note').textContent()).toContain(`${(last.levelDb - quiet.levelDb).toFixed(1)} dB quieter than ${last.id}`);
   });
 
+  it('lets a newcomer find the quiet wirings, hear two back to back at matched level and see which is brighter', async () => {
+    const page = await open();
+    await page.getByRole('button', { name: 'Show only quiet wirings' }).click();
+    const quiet = await rowIds(page);
+    expect(quiet.length).toBeGreaterThan(1);
+    const [first, second] = quiet.map((id) => fixture.report.wirings.find((w) => w.id === id));
+    if (!first || !second) throw new Error('no quiet wirings');
+    expect(first.humCancelling && second.humCancelling).toBe(true);
+    await expect.poll(() => page.locator(`tr[data-wiring="${first.id}"] td.hum`).textContent()).toContain('quiet');
+    await page.locator(`tr[data-wiring="${first.id}"] [data-action="play"]`).click();
+    await waitForSound(page, first.id);
+    await page.waitForTimeout(150);
+    const one = await heard(page);
+    await page.locator(`tr[data-wiring="${second.id}"] [data-action="play"]`).click();
+    await waitForSound(page, second.id);
+    await page.waitForTimeout(150);
+    const two = await heard(page);
+    expect(Math.abs(two.rmsDb - one.rmsDb)).toBeLessThan(0.5);
+    expect(Math.abs(two.clockOffsetS - one.clockOffsetS)).toBeLessThan(0.05);
+    // The brighter one (higher centroid in report.json) has the longer brightness bar.
+    const bar = (id: string) => page.locator(`tr[data-wiring="${id}"] .bar-fill`).getAttribute('width').then(Number);
+    const [barOne, barTwo] = [await bar(first.id), await bar(second.id)];
+    if (first.centroidHz !== second.centroidHz) expect(Math.sign(barTwo - barOne)).toBe(Math.sign(second.centroidHz - first.centroidHz));
+  });
+
   it('sorts by brightness in the order of report.json, both ways', async () => {
     const page = await open();
     const byCentroid = [...fixture.report.wirings].sort((a, b) => a.centroidHz - b.centroidHz || a.number - b.number).map((w) => w.id);

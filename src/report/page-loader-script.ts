@@ -96,18 +96,24 @@ function createAudioLoader(sampleRateHz, isProtected) {
     }
   }
 
-  /* Promise of { buffer, peak } for a wiring ({ id, wav }). */
-  function load(wiring) {
+  /* Promise of { buffer, peak } for a wiring ({ id, wav }). An urgent load
+     (the wiring about to play) goes ahead of queued preloads. */
+  function load(wiring, urgent) {
     var cached = cache.get(wiring.id);
     if (cached) { cache.delete(wiring.id); cache.set(wiring.id, cached); return Promise.resolve(cached); }
     var pending = inflight.get(wiring.id);
-    if (pending) return pending;
+    if (pending) {
+      var queued = queue.findIndex(function (job) { return job.id === wiring.id; });
+      if (urgent && queued > 0) queue.unshift(queue.splice(queued, 1)[0]);
+      return pending;
+    }
     if (failed.has(wiring.id)) return Promise.reject(failed.get(wiring.id));
     if (!wiring.wav) return Promise.reject(new Error(wiring.id + ' was not rendered'));
     var src = pageAudioPath(wiring.wav);
     if (!isInsideFolder(src)) return Promise.reject(new Error(wiring.id + ': audio path outside the page folder refused'));
     var promise = new Promise(function (resolve, reject) {
-      queue.push({ id: wiring.id, src: src, resolve: resolve, reject: reject });
+      var job = { id: wiring.id, src: src, resolve: resolve, reject: reject };
+      if (urgent) queue.unshift(job); else queue.push(job);
     });
     inflight.set(wiring.id, promise);
     pump();

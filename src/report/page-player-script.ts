@@ -109,7 +109,7 @@ function createPlayer(loader, settings) {
     state.wanted = wiring.id;
     var request = ++state.request;
     if (!state.playing && !state.starting) { state.id = wiring.id; notify('select'); return Promise.resolve(); }
-    return loader.load(wiring).then(function (entry) {
+    return loader.load(wiring, true).then(function (entry) {
       if (request !== state.request || (!state.playing && !state.starting)) return;
       state.starting = false;
       sound(wiring.id, entry);
