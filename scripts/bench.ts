@@ -6,6 +6,7 @@ import { cpus } from 'node:os';
 import { benchChain } from './bench/chain.js';
 import { benchCircuit } from './bench/circuit.js';
 import { benchEnumerate } from './bench/enumerate.js';
+import { benchListeningPage } from './bench/listening-page.js';
 import { benchMeasures } from './bench/measures.js';
 import { benchStrings } from './bench/strings.js';
 
@@ -15,3 +16,4 @@ benchStrings();
 await benchMeasures();
 await benchChain();
 await benchCircuit();
+benchListeningPage();
