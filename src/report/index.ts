@@ -8,3 +8,4 @@ export type {
 export { renderListeningPage } from './render-listening-page.js';
 export { pageAudioPath, renderPageAudioScript, PAGE_AUDIO_CALLBACK } from './page-audio-file.js';
 export { escapeHtml, serializeJsonForScript } from './escape-html.js';
+export { reportGuitar, describeControls, formatPosition } from './report-guitar.js';
