@@ -11,32 +11,17 @@
  * Without /usr/bin/chromium the suite skips locally with a message; in CI
  * (CI=true) it fails instead.
  */
-import { existsSync, mkdirSync, rmSync } from 'node:fs';
+import { mkdirSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { CHROMIUM, INSTALL_HINT, RUN_BROWSER_TESTS, launchChromium } from './support/browser.js';
 import { GLIDE_RATE_HZ_PER_S, GLIDE_START_HZ, type ListeningFixture, buildListeningFixture } from './support/listening-fixture.js';
 
-const CHROMIUM = '/usr/bin/chromium';
-// Flags from TOOLING.md (Debian chromium in a bare container, no network, autoplay allowed).
-const CHROMIUM_ARGS = [
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-  '--autoplay-policy=no-user-gesture-required',
-];
-const IN_CI = process.env['CI'] === 'true';
-const HAVE_CHROMIUM = existsSync(CHROMIUM);
 const OUTPUT_DIR = join(import.meta.dirname, '..', 'test-output');
 const HOSTILE_NAME = '<script>window.__pwned = 1</script>"><img src=x onerror="window.__pwned = 2">';
 
-if (!HAVE_CHROMIUM && !IN_CI) {
-  console.warn(`listening page browser tests skipped: ${CHROMIUM} not found (install it with: apt-get update && apt-get install -y chromium)`);
-}
+if (!RUN_BROWSER_TESTS) console.warn(`listening page browser tests skipped: ${CHROMIUM} not found (${INSTALL_HINT})`);
 
 /** Inserted before any page script: routes everything the page sends to the speakers through one AnalyserNode. */
 const TAP_SCRIPT = `(() => {
@@ -131,7 +116,7 @@ const rowIds = (page: Page): Promise<string[]> =>
     rows.filter((row) => !(row as HTMLElement).hidden).map((row) => row.getAttribute('data-wiring') ?? ''),
   );
 
-describe.skipIf(!HAVE_CHROMIUM && !IN_CI)('listening page in chromium (file://)', () => {
+describe.skipIf(!RUN_BROWSER_TESTS)('listening page in chromium (file://)', () => {
   let browser: Browser;
   let context: BrowserContext | null = null;
   let fixture: ListeningFixture;
@@ -139,9 +124,7 @@ describe.skipIf(!HAVE_CHROMIUM && !IN_CI)('listening page in chromium (file://)'
   let outside: string[] = [];
 
   beforeAll(async () => {
-    if (!HAVE_CHROMIUM) throw new Error(`${CHROMIUM} is missing: .ci/run must install chromium (apt-get install -y chromium)`);
-    const { chromium } = await import('playwright-core');
-    browser = await chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_ARGS });
+    browser = await launchChromium();
     fixture = buildListeningFixture();
     mkdirSync(OUTPUT_DIR, { recursive: true });
   });
