@@ -7,6 +7,7 @@ import { benchChain } from './bench/chain.js';
 import { benchCircuit } from './bench/circuit.js';
 import { benchDistinct } from './bench/distinct.js';
 import { benchEnumerate } from './bench/enumerate.js';
+import { benchListeningPage } from './bench/listening-page.js';
 import { benchMeasures } from './bench/measures.js';
 import { benchStrings } from './bench/strings.js';
 
@@ -16,4 +17,5 @@ benchStrings();
 await benchMeasures();
 await benchChain();
 await benchCircuit();
+benchListeningPage();
 benchDistinct();

@@ -23,7 +23,7 @@ let skipped = 0;
 try {
   const summary = JSON.parse(readFileSync(report, 'utf8'));
   passed = summary.numPassedTests ?? 0;
-  failed = (summary.numFailedTests ?? 0) + (summary.numFailedTestSuites ?? 0) - countSuitesWithFailedTests(summary);
+  failed = (summary.numFailedTests ?? 0) + countFilesFailedWithoutTests(summary);
   skipped = (summary.numPendingTests ?? 0) + (summary.numTodoTests ?? 0);
 } catch {
   failed = Math.max(failed, 1); // no report: vitest could not run
@@ -33,9 +33,9 @@ if (status !== 0 && failed === 0) failed = 1; // a failure vitest did not count 
 console.log(`${passed} passed, ${failed} failed, ${skipped} skipped`);
 process.exit(status === 0 && failed === 0 ? 0 : 1);
 
-/** Suites that failed only because a test in them failed, so they are not counted twice. */
-function countSuitesWithFailedTests(summary) {
+/** Test files that failed with no failing test in them (an error while loading or in a hook): one failure each. */
+function countFilesFailedWithoutTests(summary) {
   return (summary.testResults ?? []).filter(
-    (suite) => suite.status === 'failed' && (suite.assertionResults ?? []).some((test) => test.status === 'failed'),
+    (file) => file.status === 'failed' && !(file.assertionResults ?? []).some((test) => test.status === 'failed'),
   ).length;
 }

@@ -11,15 +11,11 @@
  * 44.1 kHz, +0.022 dB at 96 kHz) where our prewarped redesign keeps the 48 kHz
  * table's +0.043 dB (see k-weighting.ts).
  */
-import { spawnSync } from 'node:child_process';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { referenceLoudness } from '../../test/support/ebur128-reference.js';
 import { amplitudeOfDb, concatenate, pluckedTone, sine, strummedChord } from '../../test/support/signals.js';
 import { measureLoudness } from './measure-loudness.js';
 
-const REFERENCE_SCRIPT = join(import.meta.dirname, '..', '..', 'test', 'reference', 'ebur128-integrated.mjs');
 const AGREEMENT_LU = 0.1;
 const SAME_COEFFICIENTS_AGREEMENT_LU = 0.001;
 const TABLE_RATE_HZ = 48_000;
@@ -56,28 +52,10 @@ const cases: readonly Case[] = [
 ];
 
 describe('measureLoudness against ebur128-wasm (reference BS.1770 implementation)', () => {
-  let folder = '';
   let reference: number[] = [];
 
   beforeAll(() => {
-    folder = mkdtempSync(join(tmpdir(), 'coilbench-loudness-'));
-    const job = cases.map((testCase, caseIndex) => ({
-      sampleRateHz: testCase.sampleRateHz,
-      files: testCase.channels.map((channel, channelIndex) => {
-        const path = join(folder, `case${caseIndex}-ch${channelIndex}.f32`);
-        writeFileSync(path, new Uint8Array(channel.buffer, channel.byteOffset, channel.byteLength));
-        return path;
-      }),
-    }));
-    const jobPath = join(folder, 'job.json');
-    writeFileSync(jobPath, JSON.stringify(job));
-    const run = spawnSync(process.execPath, ['--experimental-wasm-modules', '--no-warnings', REFERENCE_SCRIPT, jobPath], { encoding: 'utf8' });
-    if (run.status !== 0) throw new Error(`ebur128-wasm reference failed: ${run.stderr}`);
-    reference = JSON.parse(run.stdout) as number[];
-  });
-
-  afterAll(() => {
-    if (folder) rmSync(folder, { recursive: true, force: true });
+    reference = referenceLoudness(cases);
   });
 
   it('reads the 1 kHz sine check value (−9.02 LUFS, TOOLING.md)', () => {

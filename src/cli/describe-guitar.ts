@@ -1,16 +1,10 @@
 /** A short human summary of a validated guitar, used by `check` and reports. */
-import type { Coil, Guitar, Pot } from '../guitar/index.js';
+import type { Guitar, Pot } from '../guitar/index.js';
+import { formatPosition } from '../report/index.js';
 import { formatEngineering } from '../units/index.js';
 
 const MM_PER_M = 1000;
 
-export function formatPosition(coil: Coil): string {
-  const bass = coil.positionBassM * MM_PER_M;
-  const treble = coil.positionTrebleM * MM_PER_M;
-  return bass === treble
-    ? `${formatEngineering(bass)} mm`
-    : `${formatEngineering(bass)}→${formatEngineering(treble)} mm (bass→treble)`;
-}
 
 function formatPot(pot: Pot): string {
   const taper = pot.taper === 'audio' ? `audio (${Math.round(pot.audioMidpoint * 100)} % at 5)` : 'linear';

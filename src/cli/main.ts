@@ -11,17 +11,19 @@ import { registerDemo } from './commands/demo.js';
 import { registerWirings } from './commands/wirings.js';
 import { registerAnalyze } from './commands/analyze.js';
 import { registerNetlist } from './commands/netlist.js';
+import { registerRender } from './commands/render.js';
 import { registerShortlist } from './commands/shortlist.js';
 import { registerCompare } from './commands/compare.js';
 import type { Io } from './io.js';
+import { COILBENCH_VERSION } from './version.js';
 
 export const EXIT_OK = 0;
 export const EXIT_FAILURE = 1;
 export const EXIT_BAD_INPUT = 2;
 
-const VERSION = '0.1.0';
+const VERSION = COILBENCH_VERSION;
 
-function buildProgram(io: Io, run: (argv: string[]) => Promise<number>): Command {
+function buildProgram(io: Io): Command {
   const program = new Command('coilbench');
   program
     .description('Hear every way a guitar\'s pickup coils can be wired, before soldering anything.')
@@ -34,11 +36,12 @@ function buildProgram(io: Io, run: (argv: string[]) => Promise<number>): Command
       writeErr: (text) => io.stderr(text),
       outputError: (text, write) => write(`coilbench: ${text.replace(/^error: /u, '')}`),
     });
-  registerDemo(program, io, run);
+  registerDemo(program, io);
   registerCheck(program, io);
   registerWirings(program, io);
   registerAnalyze(program, io);
   registerNetlist(program, io);
+  registerRender(program, io);
   registerShortlist(program, io);
   registerCompare(program, io);
   for (const command of program.commands) {
@@ -55,8 +58,7 @@ function buildProgram(io: Io, run: (argv: string[]) => Promise<number>): Command
 /** Run coilbench with user arguments (no node or script path). Resolves to the exit status. */
 export async function main(argv: readonly string[], io: Io): Promise<number> {
   const verbose = argv.includes('--verbose');
-  const run = (inner: string[]): Promise<number> => main(verbose ? [...inner, '--verbose'] : inner, io);
-  const program = buildProgram(io, run);
+  const program = buildProgram(io);
   try {
     await program.parseAsync([...argv], { from: 'user' });
     return EXIT_OK;

@@ -6,9 +6,18 @@
 import { HUM_FLOOR_DB, type WiringCircuitMetrics } from '../circuit/index.js';
 import type { Wiring } from '../wiring/index.js';
 
+/** Figures from the wiring's render of the reference phrase (DESIGN.md metrics). */
+export interface WiringAudioMetrics {
+  readonly levelDb: number;
+  readonly loudnessLufs: number;
+  readonly centroidHz: number;
+}
+
 export interface AnalyzedWiring {
   readonly wiring: Wiring;
   readonly circuit: WiringCircuitMetrics;
+  /** Absent when the audio figures were not computed (silent output). */
+  readonly audio?: WiringAudioMetrics | null;
   /** Group of wirings that sound alike (group-summary.ts), when computed. */
   readonly group?: number | null;
 }
@@ -36,7 +45,8 @@ const SILENT = 'silent';
 
 function fixed(value: number | null, digits: number, signed = false): string {
   if (value === null) return NONE;
-  const text = value.toFixed(digits);
+  const rounded = Number(value.toFixed(digits));
+  const text = (rounded === 0 ? 0 : rounded).toFixed(digits); // never "-0.0"
   return signed && value >= 0 ? `+${text}` : text;
 }
 
@@ -142,6 +152,36 @@ export const METRIC_COLUMNS: readonly MetricColumn[] = Object.freeze([
     value: (row) => row.circuit.humCancelling,
     table: true,
     markdown: true,
+  },
+  {
+    key: 'levelDb',
+    title: 'level dB',
+    align: 'right',
+    text: (row) => (row.audio ? fixed(row.audio.levelDb, 1, true) : NONE),
+    value: (row) => row.audio?.levelDb ?? null,
+    table: true,
+    markdown: true,
+    sort: { name: 'level', descending: true, key: (row) => row.audio?.levelDb ?? null },
+  },
+  {
+    key: 'loudnessLufs',
+    title: 'LUFS',
+    align: 'right',
+    text: (row) => (row.audio ? fixed(row.audio.loudnessLufs, 1) : NONE),
+    value: (row) => row.audio?.loudnessLufs ?? null,
+    table: false,
+    markdown: true,
+    sort: { name: 'loudness', descending: true, key: (row) => row.audio?.loudnessLufs ?? null },
+  },
+  {
+    key: 'centroidHz',
+    title: 'centroid Hz',
+    align: 'right',
+    text: (row) => (row.audio ? fixed(row.audio.centroidHz, 0) : NONE),
+    value: (row) => row.audio?.centroidHz ?? null,
+    table: true,
+    markdown: true,
+    sort: { name: 'brightness', descending: true, key: (row) => row.audio?.centroidHz ?? null },
   },
   {
     key: 'group',

@@ -31,10 +31,20 @@ export function realFft(size: number): RealFft {
   if (cached) return cached;
   if (!Number.isInteger(Math.log2(size)) || size < 4) throw new RangeError(`FFT size must be a power of two ≥ 4, got ${size}`);
   const engine = new FFT(size);
-  const bins = size / 2 + 1;
+  const half = size / 2;
+  const halfEngine = new FFT(half);
+  const bins = half + 1;
   const padded = new Float64Array(size);
   const full = new Float64Array(2 * size);
-  const time = new Float64Array(2 * size);
+  const packed = new Float64Array(2 * half);
+  const packedTime = new Float64Array(2 * half);
+  // Twiddles W^k = e^{−j2πk/N}, k < N/2, for the inverse's unpacking.
+  const twiddleRe = new Float64Array(half);
+  const twiddleIm = new Float64Array(half);
+  for (let k = 0; k < half; k += 1) {
+    twiddleRe[k] = Math.cos((2 * Math.PI * k) / size);
+    twiddleIm[k] = -Math.sin((2 * Math.PI * k) / size);
+  }
   const made: RealFft = {
     size,
     bins,
@@ -47,14 +57,34 @@ export function realFft(size: number): RealFft {
       return out;
     },
     inverse(halfSpectrum, out = new Float64Array(size)) {
-      full.set(halfSpectrum.subarray(0, 2 * bins));
-      // Hermitian symmetry: X[N−k] = conj(X[k]).
-      for (let k = 1; k < size / 2; k += 1) {
-        full[2 * (size - k)] = halfSpectrum[2 * k] as number;
-        full[2 * (size - k) + 1] = -(halfSpectrum[2 * k + 1] as number);
+      // A real signal of length N from one complex inverse FFT of length N/2
+      // (the standard packing; e.g. Numerical Recipes, 3rd ed., §12.3):
+      // with M = N/2, E[k] = (X[k] + conj(X[M−k]))/2 is the spectrum of the
+      // even samples and O[k] = (X[k] − conj(X[M−k]))/(2·W^k) that of the odd
+      // ones (W = e^{−j2π/N}); z = IDFT_M(E + jO) gives x[2m] = Re z[m],
+      // x[2m+1] = Im z[m].
+      for (let k = 0; k < half; k += 1) {
+        const ar = halfSpectrum[2 * k] as number;
+        const ai = halfSpectrum[2 * k + 1] as number;
+        const br = halfSpectrum[2 * (half - k)] as number; // X[M−k], conjugated below
+        const bi = -(halfSpectrum[2 * (half - k) + 1] as number);
+        const er = (ar + br) / 2;
+        const ei = (ai + bi) / 2;
+        const dr = (ar - br) / 2;
+        const di = (ai - bi) / 2;
+        // O = D / W^k = D · conj(W^k)
+        const wr = twiddleRe[k] as number;
+        const wi = -(twiddleIm[k] as number);
+        const or = dr * wr - di * wi;
+        const oi = dr * wi + di * wr;
+        packed[2 * k] = er - oi; // E + jO
+        packed[2 * k + 1] = ei + or;
       }
-      engine.inverseTransform(time, full);
-      for (let i = 0; i < size; i += 1) out[i] = time[2 * i] as number;
+      halfEngine.inverseTransform(packedTime, packed);
+      for (let m = 0; m < half; m += 1) {
+        out[2 * m] = packedTime[2 * m] as number;
+        out[2 * m + 1] = packedTime[2 * m + 1] as number;
+      }
       return out;
     },
   };

@@ -24,3 +24,13 @@ export {
   TEMP_FILE_PREFIX,
   STALE_TEMP_FILE_AGE_MS,
 } from './write-file-atomic.js';
+export { defaultOutputRoot, outputFolder, wavFileName, netlistFileName } from './output-folder.js';
+export type { OutputFolder } from './output-folder.js';
+export { renderGuitar, RENDER_MODEL_VERSION, RESPONSE_POINTS } from './render-guitar.js';
+export type { HumMix, RenderEvents, RenderOutcome, RenderRequest, RenderedWiring } from './render-guitar.js';
+export { measureWiringAudio, measureRawAudio, referLevels, prepareReferenceSynthesis, REFERENCE_PHRASE, REFERENCE_SAMPLE_RATE_HZ, RENDER_TAIL_S } from './measure-wiring-audio.js';
+export type { AudioMetrics, RawAudioMetrics } from './measure-wiring-audio.js';
+export { prepareWiringSynthesis, assertAudible, COIL_VOLTS_PER_METRE_PER_SECOND, HUM_HARMONICS } from './synthesize-wirings.js';
+export type { SynthesisOptions, WiringSynthesis } from './synthesize-wirings.js';
+export { planTrueLevelGain, planMatchedGains, PEAK_CEILING_DB } from './plan-gains.js';
+export { hashOf, readManifest, MANIFEST_VERSION } from './render-manifest.js';

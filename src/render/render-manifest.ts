@@ -27,25 +27,18 @@ function stableJson(value: unknown): string {
   return JSON.stringify(value) ?? 'null';
 }
 
-export interface ManifestEntry<Measurements> {
-  /** Hash of everything the measurements depend on. */
-  readonly analysisHash: string;
-  readonly measurements: Measurements;
-  /** Hash of everything the written file depends on (analysis plus gain and format), once written. */
-  readonly fileHash: string | null;
-}
-
-export interface Manifest<Measurements> {
+/** The manifest file: one entry per output, in a shape the writer chooses. */
+export interface Manifest<Entry> {
   readonly version: number;
-  readonly entries: Record<string, ManifestEntry<Measurements>>;
+  readonly entries: Record<string, Entry>;
 }
 
 /** Read a manifest; a missing, unreadable or older one counts as empty. */
-export function readManifest<Measurements>(path: string): Manifest<Measurements> {
-  const empty: Manifest<Measurements> = { version: MANIFEST_VERSION, entries: {} };
+export function readManifest<Entry>(path: string): Manifest<Entry> {
+  const empty: Manifest<Entry> = { version: MANIFEST_VERSION, entries: {} };
   if (!existsSync(path)) return empty;
   try {
-    const parsed = JSON.parse(readFileSync(path, 'utf8')) as Manifest<Measurements>;
+    const parsed = JSON.parse(readFileSync(path, 'utf8')) as Manifest<Entry>;
     return parsed.version === MANIFEST_VERSION && typeof parsed.entries === 'object' ? parsed : empty;
   } catch {
     return empty;

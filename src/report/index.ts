@@ -5,3 +5,7 @@ export type {
   ReportRender,
   ReportWiring,
 } from './listening-report.js';
+export { renderListeningPage } from './render-listening-page.js';
+export { pageAudioPath, renderPageAudioScript, PAGE_AUDIO_CALLBACK } from './page-audio-file.js';
+export { escapeHtml, serializeJsonForScript } from './escape-html.js';
+export { reportGuitar, describeControls, formatPosition } from './report-guitar.js';

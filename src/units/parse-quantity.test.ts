@@ -38,6 +38,8 @@ const cases: ReadonlyArray<readonly [unknown, QuantityKind, number]> = [
   [0.648, 'length', 0.648],
   ['60Hz', 'frequency', 60],
   ['1kHz', 'frequency', 1000],
+  ['10mV', 'voltage', 0.01],
+  ['0.2V', 'voltage', 0.2],
 ];
 
 describe('parseQuantity', () => {

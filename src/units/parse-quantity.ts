@@ -11,7 +11,7 @@
  */
 
 /** The kinds of quantity the guitar file and the command line accept. */
-export type QuantityKind = 'resistance' | 'capacitance' | 'inductance' | 'length' | 'frequency';
+export type QuantityKind = 'resistance' | 'capacitance' | 'inductance' | 'length' | 'frequency' | 'voltage';
 
 /** Thrown when text is not a valid quantity of the kind asked for; `expected` completes "expected …". */
 export class QuantityError extends Error {
@@ -30,6 +30,7 @@ export const QUANTITY_EXAMPLES: Readonly<Record<QuantityKind, string>> = Object.
   inductance: '"2.4H" or "2400mH"',
   length: '"648mm" or "25.5in"',
   frequency: '"60Hz" or 60',
+  voltage: '"10mV" or "0.01V"',
 });
 
 /** SI prefixes by symbol (BIPM, The International System of Units, 9th ed., 2019, Table 7). */
@@ -84,6 +85,12 @@ const RULES: Readonly<Record<Exclude<QuantityKind, 'length'>, KindRules>> = Obje
     units: [],
     unitsAnyCase: ['hz'],
     prefixes: ['k'],
+    bareNumberAllowed: true,
+  },
+  voltage: {
+    units: ['V', 'v'],
+    unitsAnyCase: [],
+    prefixes: ['m', 'u', 'µ', 'μ'],
     bareNumberAllowed: true,
   },
 });

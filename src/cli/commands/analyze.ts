@@ -25,11 +25,15 @@ import {
   sortNames,
   sortRows,
 } from '../metric-columns.js';
+import { createProgress } from '../progress.js';
 import { readGuitarFile } from '../read-guitar.js';
+import { type AudioMetrics, REFERENCE_PHRASE, measureWiringAudio } from '../../render/index.js';
 import { writeFileAtomic } from '../write-file-atomic.js';
 import { wiringRecord } from './wirings.js';
 
 interface AnalyzeOptions extends CircuitOptionText, AlikeOptionText {
+  /** false with --no-audio: skip the figures that need each wiring's render. */
+  readonly audio?: boolean;
   readonly json?: boolean;
   readonly csv?: string;
   readonly markdown?: boolean;
@@ -87,18 +91,20 @@ const FOOTNOTES = [
   'resonance: frequency of the loaded peak, 20 Hz-20 kHz ("-" when the response only falls or only rises); peak: its height above 100 Hz;',
   'Q: resonance over its -3 dB bandwidth ("-" when a -3 dB point is outside the band);',
   `hum: mains hum relative to the mean single coil (floored at ${HUM_FLOOR_DB} dB); hum cancelling: ${HUM_CANCELLING_DB} dB or less.`,
+  `level: energy of the "${REFERENCE_PHRASE}" phrase through the wiring relative to the mean single coil; LUFS: its ITU-R BS.1770 loudness; centroid: its spectral centroid (higher is brighter).`,
   'A model of the circuit, not a measurement: choose by ear on the real instrument.',
 ];
 
 export function registerAnalyze(program: Command, io: Io): void {
   const command = program
     .command('analyze')
-    .description('every wiring with its loaded resonance, peak, Q, hum and group of alike wirings')
+    .description('every wiring with its loaded resonance, peak, Q, hum, level, brightness and group of alike wirings')
     .argument('<guitar>', 'guitar file (JSON)')
     .option('--json', 'print one JSON document on stdout')
     .option('--csv <file>', 'also write the table as CSV to FILE')
     .option('--markdown', 'print a Markdown table')
-    .option('--sort <column>', `order rows by ${sortNames().join('|')} (default id)`);
+    .option('--sort <column>', `order rows by ${sortNames().join('|')} (default id)`)
+    .option('--no-audio', 'skip level, loudness and brightness (they need each wiring rendered in memory)');
   addAlikeOptions(addCircuitOptions(command)).action((file: string, options: AnalyzeOptions) => {
     const guitar = readGuitarFile(file, io.cwd);
     const problems: InputProblem[] = [];
@@ -113,10 +119,18 @@ export function registerAnalyze(program: Command, io: Io): void {
 
     const wirings = enumerateWirings(guitar.elements);
     const analysis = measureCircuitMetrics(guitar, wirings, overrides);
+    let audio: ReadonlyMap<string, AudioMetrics> | undefined;
+    if (options.audio !== false && !analysis.silent) {
+      const progress = createProgress(io);
+      progress.stage('rendering', wirings.length);
+      audio = measureWiringAudio(guitar, wirings, wirings, overrides, (done, total) => progress.step(done, total));
+      progress.finish();
+    }
     const distinct = measureDistinctness(guitar, wirings, { overrides, thresholds });
     const unsorted: AnalyzedWiring[] = wirings.map((wiring, index) => ({
       wiring,
       circuit: analysis.wirings[index] as AnalyzedWiring['circuit'],
+      audio: audio?.get(wiring.id) ?? null,
       group: distinct.groups.groupOf[index] ?? null,
     }));
     const rows = sortRows(unsorted, options.sort ?? 'id');
@@ -133,7 +147,14 @@ export function registerAnalyze(program: Command, io: Io): void {
         settings: settingsRecord(analysis.load, analysis.points),
         count: rows.length,
         silent: analysis.silent,
-        wirings: rows.map((row) => ({ ...wiringRecord(row.wiring), ...row.circuit, group: row.group })),
+        wirings: rows.map((row) => ({
+          ...wiringRecord(row.wiring),
+          ...row.circuit,
+          levelDb: row.audio?.levelDb ?? null,
+          loudnessLufs: row.audio?.loudnessLufs ?? null,
+          centroidHz: row.audio?.centroidHz ?? null,
+          group: row.group,
+        })),
         groups: groupsRecord(wirings, distinct),
       };
       if (analysis.silent) document.note = SILENT_NOTE;

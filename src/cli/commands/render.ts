@@ -1,0 +1,223 @@
+import { existsSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
+import { relative, resolve } from 'node:path';
+import type { Command } from 'commander';
+import { InputError, type InputProblem, problemAt } from '../../errors/index.js';
+import type { Guitar } from '../../guitar/index.js';
+import {
+  CHAIN_NAMES,
+  type ChainName,
+  type HumMix,
+  type RenderOutcome,
+  WAV_FORMATS,
+  type WavFormat,
+  defaultOutputRoot,
+  describeChain,
+  outputFolder,
+  renderGuitar,
+  writeFileAtomic,
+} from '../../render/index.js';
+import { BUILT_IN_PHRASES, type BuiltInPhraseName, type Phrase, builtInPhrase, parsePhrase } from '../../string/index.js';
+import { QuantityError, parseQuantity } from '../../units/index.js';
+import { type Wiring, enumerateWirings, findWiring, vocabularyOf } from '../../wiring/index.js';
+import { type CircuitOptionText, addCircuitOptions, parseCircuitOptions } from '../circuit-options.js';
+import type { Io } from '../io.js';
+import { renderCsv, renderMarkdownTable } from '../metric-columns.js';
+import { createProgress } from '../progress.js';
+import { readGuitarFile } from '../read-guitar.js';
+import { COILBENCH_VERSION } from '../version.js';
+
+/** Sample rates a file may be written at, Hz (common practice for audio files). */
+export const SAMPLE_RATES_HZ: readonly number[] = Object.freeze([44_100, 48_000, 88_200, 96_000]);
+/** Default peak EMF a mains field induces in a nominal coil when hum is mixed in, volts (from memory: a single coil near stage lighting picks up hum some 30–40 dB below a strummed chord). */
+export const DEFAULT_HUM_EMF_V = 0.005;
+/** Largest hum EMF accepted, volts (a plausibility bound). */
+const MAX_HUM_EMF_V = 1;
+/** Default effects chain: an amplifier-like clean sound, since raw pickup signals mislead on small speakers (common practice). */
+export const DEFAULT_CHAIN: ChainName = 'clean';
+
+export interface RenderOptionText extends CircuitOptionText {
+  readonly output?: string;
+  readonly phrase?: string;
+  readonly chain?: string;
+  readonly only?: string[];
+  readonly rate?: string;
+  readonly format?: string;
+  readonly level?: string;
+  readonly hum?: string;
+  readonly humLevel?: string;
+  readonly seed?: string;
+}
+
+export function addRenderOptions(command: Command): Command {
+  return addCircuitOptions(
+    command
+      .option('-o, --output <dir>', 'output folder (default renders/<guitar name>)')
+      .option('--phrase <phrase>', `what the strings play: ${BUILT_IN_PHRASES.join(', ')} or a phrase file (default strum)`)
+      .option('--chain <chain>', `effects chain: ${CHAIN_NAMES.join(', ')} (default ${DEFAULT_CHAIN})`)
+      .option('--only <wiring>', 'render only this wiring (an expression like "neck + ~bridge" or a number like w9); repeatable', (value: string, list: string[] = []) => [...list, value])
+      .option('--rate <hz>', `sample rate of the files: ${SAMPLE_RATES_HZ.join(', ')} (default 48000)`)
+      .option('--format <format>', `sample format: ${WAV_FORMATS.join(', ')} (default pcm24)`)
+      .option('--level <mode>', 'true: one common gain, levels as the circuit makes them (default); matched: every file at one loudness')
+      .option('--hum <hz>', 'mix mains hum at 50 or 60 Hz into every file, through each wiring\'s own hum pickup')
+      .option('--hum-level <volts>', `peak hum EMF in a nominal coil with --hum, like "5mV" (default ${DEFAULT_HUM_EMF_V * 1000} mV)`)
+      .option('--seed <n>', 'seed of the pluck noise (default 1)'),
+  );
+}
+
+export interface ParsedRenderOptions {
+  readonly phrase: Phrase;
+  readonly chain: ChainName;
+  readonly sampleRateHz: number;
+  readonly format: WavFormat;
+  readonly level: 'true' | 'matched';
+  readonly hum: HumMix | null;
+  readonly seed: number;
+  readonly selected: readonly Wiring[];
+  readonly overrides: ReturnType<typeof parseCircuitOptions>;
+}
+
+function readPhrase(text: string | undefined, guitar: Guitar, io: Io, problems: InputProblem[]): Phrase | undefined {
+  const name = text ?? 'strum';
+  if ((BUILT_IN_PHRASES as readonly string[]).includes(name)) return builtInPhrase(name as BuiltInPhraseName, guitar.strings.length);
+  const path = resolve(io.cwd, name);
+  if (!existsSync(path)) {
+    problems.push(problemAt('--phrase', `one of ${BUILT_IN_PHRASES.join(', ')} or an existing phrase file`, name));
+    return undefined;
+  }
+  try {
+    return parsePhrase(readFileSync(path, 'utf8'), name, guitar.strings.length);
+  } catch (error) {
+    if (error instanceof InputError) {
+      problems.push(...error.problems);
+      return undefined;
+    }
+    throw error;
+  }
+}
+
+/** Validate every render option at once; throws InputError listing each problem. */
+export function parseRenderOptions(options: RenderOptionText, guitar: Guitar, all: readonly Wiring[], io: Io): ParsedRenderOptions {
+  const problems: InputProblem[] = [];
+  const overrides = parseCircuitOptions(options, guitar, problems);
+  const phrase = readPhrase(options.phrase, guitar, io, problems);
+  const chain = (options.chain ?? DEFAULT_CHAIN) as ChainName;
+  if (!CHAIN_NAMES.includes(chain)) problems.push(problemAt('--chain', `one of ${CHAIN_NAMES.join(', ')}`, options.chain));
+  const sampleRateHz = options.rate === undefined ? 48_000 : Number(options.rate.replace(/\s*hz$/iu, ''));
+  if (!SAMPLE_RATES_HZ.includes(sampleRateHz)) problems.push(problemAt('--rate', `one of ${SAMPLE_RATES_HZ.join(', ')} (Hz)`, options.rate));
+  const format = (options.format ?? 'pcm24') as WavFormat;
+  if (!WAV_FORMATS.includes(format)) problems.push(problemAt('--format', `one of ${WAV_FORMATS.join(', ')}`, options.format));
+  const level = options.level ?? 'true';
+  if (level !== 'true' && level !== 'matched') problems.push(problemAt('--level', '"true" or "matched"', options.level));
+  let hum: HumMix | null = null;
+  if (options.hum !== undefined) {
+    const mains = options.hum.trim().replace(/\s*hz$/iu, '');
+    let emfVolts = DEFAULT_HUM_EMF_V;
+    if (options.humLevel !== undefined) {
+      try {
+        emfVolts = parseQuantity(options.humLevel, 'voltage');
+        if (!(emfVolts > 0 && emfVolts <= MAX_HUM_EMF_V)) throw new QuantityError(`a peak hum EMF above 0 and at most ${MAX_HUM_EMF_V} V, like "5mV"`);
+      } catch (error) {
+        if (!(error instanceof QuantityError)) throw error;
+        problems.push(problemAt('--hum-level', error.expected, options.humLevel));
+      }
+    }
+    if (mains === '50' || mains === '60') hum = { mainsHz: Number(mains) as 50 | 60, emfVolts };
+    else problems.push(problemAt('--hum', '50 or 60 (hertz)', options.hum));
+  } else if (options.humLevel !== undefined) {
+    problems.push(problemAt('--hum-level', '--hum 50 or --hum 60 with it', options.humLevel));
+  }
+  const seed = options.seed === undefined ? 1 : Number(options.seed);
+  if (!(Number.isInteger(seed) && seed >= 0 && seed < 2 ** 32)) problems.push(problemAt('--seed', 'a whole number from 0 to 4294967295', options.seed));
+  const vocabulary = vocabularyOf(guitar);
+  const selected: Wiring[] = [];
+  for (const text of options.only ?? []) {
+    try {
+      const wiring = findWiring(text, all, vocabulary, '--only');
+      if (!selected.includes(wiring)) selected.push(wiring);
+    } catch (error) {
+      if (!(error instanceof InputError)) throw error;
+      problems.push(...error.problems);
+    }
+  }
+  if (problems.length > 0) throw new InputError(problems);
+  selected.sort((a, b) => a.number - b.number);
+  return {
+    phrase: phrase as Phrase,
+    chain,
+    sampleRateHz,
+    format,
+    level: level as 'true' | 'matched',
+    hum,
+    seed,
+    selected: selected.length > 0 ? selected : all,
+    overrides,
+  };
+}
+
+/** Render a guitar file's wirings into a folder and write the reports; returns the outcome for the summary. */
+export async function runRender(file: string, guitar: Guitar, options: RenderOptionText, io: Io, defaultRoot?: string): Promise<{ outcome: RenderOutcome; root: string; seconds: number }> {
+  const all = enumerateWirings(guitar.elements);
+  const parsed = parseRenderOptions(options, guitar, all, io);
+  const root = resolve(io.cwd, options.output ?? defaultRoot ?? defaultOutputRoot('.', guitar.name));
+  const folder = outputFolder(root);
+  const progress = createProgress(io);
+  const started = performance.now();
+  const outcome = await renderGuitar(
+    {
+      guitar,
+      all,
+      selected: parsed.selected,
+      phrase: parsed.phrase,
+      chain: parsed.chain,
+      sampleRateHz: parsed.sampleRateHz,
+      format: parsed.format,
+      level: parsed.level,
+      hum: parsed.hum,
+      overrides: parsed.overrides,
+      seed: parsed.seed,
+      folder,
+      generator: `coilbench ${COILBENCH_VERSION}`,
+    },
+    { onStage: (stage, total) => progress.stage(stage, total), onStep: (done, total) => progress.step(done, total) },
+  );
+  const tableRows = outcome.rows.map((row) => ({ wiring: row.wiring, circuit: row.circuit, audio: { levelDb: row.levelDb, loudnessLufs: row.loudnessLufs, centroidHz: row.centroidHz } }));
+  await writeFileAtomic(folder.wiringsCsv, renderCsv(tableRows));
+  const heading = `# ${guitar.name}\n\n${outcome.rows.length} wirings rendered from \`${file}\`: phrase ${parsed.phrase.name}, ${describeChain(parsed.chain)}.\n\n`;
+  const caution =
+    '\nRenders are models of the circuit and strings: make the final choice by ear on the real instrument. Start playback at a low volume. ' +
+    'When you solder, use an iron stand, ventilate and wash your hands afterwards, check continuity with a meter before closing up, and never open an amplifier (its capacitors can hold a lethal charge).\n';
+  await writeFileAtomic(folder.reportMarkdown, `${heading}${renderMarkdownTable(tableRows)}${caution}`);
+  progress.finish();
+  const seconds = (performance.now() - started) / 1000;
+  return { outcome, root, seconds };
+}
+
+/** The summary line and where to look. */
+export function reportRender(io: Io, root: string, outcome: RenderOutcome, seconds: number): void {
+  const where = relative(io.cwd, root) || '.';
+  const count = outcome.rows.length;
+  const level =
+    outcome.commonGainDb !== null
+      ? `true relative level, common gain ${outcome.commonGainDb >= 0 ? '+' : ''}${outcome.commonGainDb.toFixed(1)} dB`
+      : `loudness matched at ${outcome.matchedLoudnessLufs?.toFixed(1) ?? '?'} LUFS`;
+  const speed = outcome.written > 0 && seconds > 0 ? `, ${(outcome.audioSeconds / seconds).toFixed(0)}× real time` : '';
+  io.stderr(
+    `coilbench: ${count} wirings in ${where}/wav: ${outcome.written} written, ${outcome.skipped} unchanged (${level}; ${seconds.toFixed(1)} s${speed})\n`,
+  );
+  io.stdout(`${where}/index.html\n`);
+  io.stderr(`coilbench: open ${where}/index.html in a browser to listen; start at a low volume. Reports: report.md, wirings.csv, report.json; netlists in ${where}/netlists\n`);
+}
+
+export function registerRender(program: Command, io: Io): void {
+  addRenderOptions(
+    program
+      .command('render')
+      .description('render every wiring (or --only some) into WAV files, reports, netlists and a listening page')
+      .argument('<guitar>', 'guitar file (JSON)'),
+  ).action(async (file: string, options: RenderOptionText) => {
+    const guitar = readGuitarFile(file, io.cwd);
+    const { outcome, root, seconds } = await runRender(file, guitar, options, io);
+    reportRender(io, root, outcome, seconds);
+  });
+}

@@ -1,0 +1,379 @@
+/**
+ * Renders a guitar's wirings into a folder: one WAV per wiring (the same
+ * performance through each), its SPICE netlist, and report.json for the
+ * listening page. Two passes keep memory bounded whatever the number of
+ * wirings: the first renders each wiring once, measures it, and parks the
+ * processed audio in a scratch file; the second applies the gains (which
+ * need every wiring's peak or loudness) and writes the final files.
+ *
+ * Every output is written atomically, and a manifest records what each was
+ * made from, so a re-run skips what is complete and unchanged and an
+ * interrupted run is completed by the next one.
+ */
+import { mkdirSync, readFileSync, rmSync, writeFileSync, existsSync } from 'node:fs';
+import { basename, join, relative } from 'node:path';
+import {
+  type CircuitOverrides,
+  type WiringCircuitMetrics,
+  logSpacedFrequencies,
+  measureCircuitMetrics,
+  measureResponseDb,
+  prepareCircuit,
+  renderNetlist,
+  solveTransfers,
+  AUDIO_BAND_HIGH_HZ,
+  AUDIO_BAND_LOW_HZ,
+} from '../circuit/index.js';
+import { measureLoudness } from '../analysis/index.js';
+import type { Guitar } from '../guitar/index.js';
+import {
+  type ListeningReport,
+  type ReportWiring,
+  pageAudioPath,
+  renderListeningPage,
+  renderPageAudioScript,
+  reportGuitar,
+} from '../report/index.js';
+import type { Phrase } from '../string/index.js';
+import type { Wiring } from '../wiring/index.js';
+import type { ChainName } from './chain-name.js';
+import { renderEffectsChain } from './effects-chain.js';
+import {
+  type RawAudioMetrics,
+  REFERENCE_PHRASE,
+  REFERENCE_SAMPLE_RATE_HZ,
+  REFERENCE_SEED,
+  RENDER_TAIL_S,
+  measureRawAudio,
+  prepareReferenceSynthesis,
+  referLevels,
+} from './measure-wiring-audio.js';
+import { type OutputFolder, netlistFileName, wavFileName } from './output-folder.js';
+import { gainToDb, planMatchedGains, planTrueLevelGain } from './plan-gains.js';
+import { MANIFEST_VERSION, type Manifest, hashOf, readManifest } from './render-manifest.js';
+import { type WiringSynthesis, assertAudible, prepareWiringSynthesis } from './synthesize-wirings.js';
+import { type WavFormat, encodeWav } from './wav-file.js';
+import { removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
+
+/** Bump when the sound of a render changes for the same inputs (string model, pickup, chain), so old files are redone. */
+export const RENDER_MODEL_VERSION = 1;
+/** Points of the response curves drawn on the listening page (log-spaced, 20 Hz–20 kHz). */
+export const RESPONSE_POINTS = 96;
+
+export interface HumMix {
+  readonly mainsHz: 50 | 60;
+  /** Peak EMF the mains field induces in a coil of hum sensitivity 1, volts. */
+  readonly emfVolts: number;
+}
+
+export interface RenderRequest {
+  readonly guitar: Guitar;
+  /** Every wiring of the guitar (levels refer to its single-element wirings). */
+  readonly all: readonly Wiring[];
+  /** The wirings to render. */
+  readonly selected: readonly Wiring[];
+  readonly phrase: Phrase;
+  readonly chain: ChainName;
+  readonly sampleRateHz: number;
+  readonly format: WavFormat;
+  readonly level: 'true' | 'matched';
+  readonly hum: HumMix | null;
+  readonly overrides: CircuitOverrides;
+  /** Seed of the pluck noise for the files. */
+  readonly seed: number;
+  readonly folder: OutputFolder;
+  /** Name of the generator for report.json ("coilbench 0.1.0"). */
+  readonly generator: string;
+}
+
+export interface RenderEvents {
+  /** A stage begins ("measuring", "writing"). */
+  readonly onStage?: (stage: string, total: number) => void;
+  /** One more wiring done in the current stage. */
+  readonly onStep?: (done: number, total: number) => void;
+}
+
+export interface RenderedWiring {
+  readonly wiring: Wiring;
+  readonly circuit: WiringCircuitMetrics;
+  readonly levelDb: number;
+  readonly loudnessLufs: number;
+  readonly centroidHz: number;
+  /** Path of the WAV relative to the folder. */
+  readonly wav: string;
+}
+
+export interface RenderOutcome {
+  readonly report: ListeningReport;
+  readonly rows: readonly RenderedWiring[];
+  readonly written: number;
+  readonly skipped: number;
+  /** Common gain of true-level files, dB; null for loudness-matched files. */
+  readonly commonGainDb: number | null;
+  /** Loudness every matched file reaches, LUFS; null for true-level files. */
+  readonly matchedLoudnessLufs: number | null;
+  readonly audioSeconds: number;
+}
+
+/** What the manifest keeps per wiring, keyed by canonical expression. */
+interface Entry {
+  metricsHash?: string;
+  metrics?: RawAudioMetrics;
+  audioHash?: string;
+  /** Peak and loudness of the processed audio before gain. */
+  audio?: { peak: number; loudnessLufs: number };
+  fileHash?: string;
+  file?: string;
+}
+
+/** The parts of a guitar that shape its sound (names and notes do not). */
+function soundOf(guitar: Guitar): unknown {
+  return { ...guitar, name: undefined, notes: undefined, assumed: undefined, coils: guitar.coils.map((coil) => ({ ...coil, notes: undefined })) };
+}
+
+function peakOf(samples: Float32Array): number {
+  let peak = 0;
+  for (let n = 0; n < samples.length; n += 1) {
+    const magnitude = Math.abs(samples[n] as number);
+    if (magnitude > peak) peak = magnitude;
+  }
+  return peak;
+}
+
+export async function renderGuitar(request: RenderRequest, events: RenderEvents = {}): Promise<RenderOutcome> {
+  const { guitar, folder } = request;
+  for (const path of [folder.root, folder.wavFolder, folder.netlistFolder]) {
+    mkdirSync(path, { recursive: true });
+    removeStaleTempFiles(path);
+  }
+  const scratch = join(folder.root, '.scratch');
+  rmSync(scratch, { recursive: true, force: true });
+  mkdirSync(scratch, { recursive: true });
+
+  const manifest = readManifest<Entry>(folder.manifest);
+  const entries: Record<string, Entry> = { ...manifest.entries };
+  const saveManifest = async (): Promise<void> => {
+    const document: Manifest<Entry> = { version: MANIFEST_VERSION, entries };
+    await writeFileAtomic(folder.manifest, JSON.stringify(document));
+  };
+
+  const sound = soundOf(guitar);
+  const base = { model: RENDER_MODEL_VERSION, sound, overrides: request.overrides };
+  const metricsHashOf = (wiring: Wiring): string =>
+    hashOf({ ...base, expression: wiring.expression, phrase: REFERENCE_PHRASE, rate: REFERENCE_SAMPLE_RATE_HZ, seed: REFERENCE_SEED, tail: RENDER_TAIL_S });
+  const audioHashOf = (wiring: Wiring): string =>
+    hashOf({
+      ...base,
+      expression: wiring.expression,
+      phrase: request.phrase.notes,
+      chain: request.chain,
+      rate: request.sampleRateHz,
+      seed: request.seed,
+      hum: request.hum,
+      tail: RENDER_TAIL_S,
+    });
+
+  // Syntheses are made on first need: a re-run with everything cached renders nothing.
+  let reference: WiringSynthesis | undefined;
+  const referenceSynthesis = (): WiringSynthesis => {
+    reference ??= prepareReferenceSynthesis(guitar, request.overrides);
+    assertAudible(reference, 'controls.volume.setting');
+    return reference;
+  };
+  const sameAsReference =
+    request.phrase.name === REFERENCE_PHRASE && request.sampleRateHz === REFERENCE_SAMPLE_RATE_HZ && request.seed === REFERENCE_SEED;
+  let files: WiringSynthesis | undefined;
+  const fileSynthesis = (): WiringSynthesis => {
+    if (sameAsReference) return referenceSynthesis();
+    files ??= prepareWiringSynthesis(guitar, request.phrase, {
+      sampleRateHz: request.sampleRateHz,
+      seed: request.seed,
+      overrides: request.overrides,
+      strings: { tailS: RENDER_TAIL_S },
+    });
+    assertAudible(files, 'controls.volume.setting');
+    return files;
+  };
+
+  // The processed audio of one wiring (file phrase, chain, hum), before gain.
+  const processedAudio = async (wiring: Wiring, direct?: Float32Array): Promise<Float32Array> => {
+    const synthesis = fileSynthesis();
+    const audio = direct && sameAsReference ? Float32Array.from(direct) : synthesis.synthesize(wiring.network);
+    if (request.hum) {
+      const hum = synthesis.synthesizeHum(wiring.network, request.hum.mainsHz, request.hum.emfVolts);
+      for (let n = 0; n < audio.length; n += 1) audio[n] = (audio[n] as number) + (hum[n] as number);
+    }
+    return renderEffectsChain(audio, synthesis.sampleRateHz, request.chain);
+  };
+
+  // Pass 1: metrics (reference render) and processed audio (file render) for every wiring needed.
+  const selectedIds = new Set(request.selected.map((wiring) => wiring.id));
+  const needed = [...request.all.filter((wiring) => wiring.elements.length === 1 || selectedIds.has(wiring.id))];
+  const raw = new Map<string, RawAudioMetrics>();
+  const scratchFiles = new Map<string, string>();
+  events.onStage?.('rendering', needed.length);
+  let step = 0;
+  for (const wiring of needed) {
+    const entry: Entry = (entries[wiring.expression] ??= {});
+    const metricsHash = metricsHashOf(wiring);
+    let direct: Float32Array | undefined;
+    if (entry.metricsHash === metricsHash && entry.metrics) {
+      raw.set(wiring.id, entry.metrics);
+    } else {
+      const synthesis = referenceSynthesis();
+      direct = synthesis.synthesize(wiring.network);
+      const metrics = measureRawAudio(direct, synthesis.sampleRateHz);
+      raw.set(wiring.id, metrics);
+      Object.assign(entry, { metricsHash, metrics });
+    }
+    if (selectedIds.has(wiring.id)) {
+      const audioHash = audioHashOf(wiring);
+      if (entry.audioHash !== audioHash || !entry.audio) {
+        const processed = await processedAudio(wiring, direct);
+        const path = join(scratch, `${wiring.id}.f32`);
+        writeFileSync(path, new Uint8Array(processed.buffer, processed.byteOffset, processed.byteLength));
+        scratchFiles.set(wiring.id, path);
+        Object.assign(entry, {
+          audioHash,
+          audio: { peak: peakOf(processed), loudnessLufs: measureLoudness([processed], request.sampleRateHz) },
+          fileHash: undefined,
+        });
+      }
+    }
+    step += 1;
+    events.onStep?.(step, needed.length);
+  }
+  await saveManifest();
+  const audioMetrics = referLevels(request.all, raw);
+
+  // Gains: one for all files, or one per file to a common loudness.
+  const selected = request.selected;
+  const peaks = selected.map((wiring) => entries[wiring.expression]?.audio?.peak ?? 0);
+  let gains: number[];
+  let commonGainDb: number | null = null;
+  let matchedLoudnessLufs: number | null = null;
+  if (request.level === 'true') {
+    const gain = planTrueLevelGain(peaks);
+    gains = selected.map(() => gain);
+    commonGainDb = gainToDb(gain);
+  } else {
+    const planned = planMatchedGains(selected.map((wiring) => entries[wiring.expression]?.audio?.loudnessLufs ?? Number.NaN), peaks);
+    gains = [...planned.gains];
+    matchedLoudnessLufs = Number.isFinite(planned.targetLufs) ? planned.targetLufs : null;
+  }
+
+  // Pass 2: final files.
+  events.onStage?.('writing', selected.length);
+  let written = 0;
+  let skipped = 0;
+  for (const [index, wiring] of selected.entries()) {
+    const entry = entries[wiring.expression] as Entry;
+    const gain = gains[index] ?? 1;
+    const name = wavFileName(wiring);
+    const path = join(folder.wavFolder, name);
+    const pageAudio = join(folder.root, pageAudioPath(relative(folder.root, path)));
+    const fileHash = hashOf({ audio: entry.audioHash, gain: gain.toPrecision(12), format: request.format, name });
+    if (entry.fileHash === fileHash && entry.file === name && existsSync(path) && existsSync(pageAudio)) {
+      skipped += 1;
+    } else {
+      const parked = scratchFiles.get(wiring.id);
+      const audio = parked ? readScratch(parked) : await processedAudio(wiring);
+      for (let n = 0; n < audio.length; n += 1) audio[n] = (audio[n] as number) * gain;
+      const bytes = encodeWav(audio, {
+        sampleRateHz: request.sampleRateHz,
+        format: request.format,
+        info: {
+          name: wiring.expression,
+          comment: `${wiring.description}; phrase ${request.phrase.name}; ${request.chain} chain; ${request.level === 'true' ? 'true relative level' : 'loudness matched'}`,
+          software: request.generator,
+        },
+      });
+      await writeFileAtomic(path, bytes);
+      await writeFileAtomic(pageAudio, renderPageAudioScript(wiring.id, bytes));
+      Object.assign(entry, { fileHash, file: name });
+      await saveManifest();
+      written += 1;
+    }
+    events.onStep?.(index + 1, selected.length);
+  }
+  rmSync(scratch, { recursive: true, force: true });
+
+  // Netlists, one per rendered wiring (written only when their text changed).
+  for (const wiring of selected) {
+    const path = join(folder.netlistFolder, netlistFileName(wiring));
+    const text = renderNetlist(guitar, wiring, request.overrides);
+    if (!existsSync(path) || readFileSync(path, 'utf8') !== text) await writeFileAtomic(path, text);
+  }
+
+  // Circuit metrics and response curves.
+  const circuit = measureCircuitMetrics(guitar, request.all, request.overrides);
+  const circuitById = new Map(request.all.map((wiring, index) => [wiring.id, circuit.wirings[index] as WiringCircuitMetrics]));
+  const responseGrid = logSpacedFrequencies(AUDIO_BAND_LOW_HZ, AUDIO_BAND_HIGH_HZ, RESPONSE_POINTS);
+  const responseCircuit = prepareCircuit(guitar, responseGrid, request.overrides);
+  const transfers = guitar.coils.map(() => new Float64Array(2 * RESPONSE_POINTS));
+
+  const rows: RenderedWiring[] = selected.map((wiring) => {
+    const audio = audioMetrics.get(wiring.id);
+    return {
+      wiring,
+      circuit: circuitById.get(wiring.id) as WiringCircuitMetrics,
+      levelDb: audio?.levelDb ?? Number.NaN,
+      loudnessLufs: audio?.loudnessLufs ?? Number.NaN,
+      centroidHz: audio?.centroidHz ?? Number.NaN,
+      wav: relative(folder.root, join(folder.wavFolder, wavFileName(wiring))).split('\\').join('/'),
+    };
+  });
+  const reportWirings: ReportWiring[] = rows.map((row) => {
+    solveTransfers(responseCircuit, row.wiring.network, transfers);
+    const response = measureResponseDb(responseCircuit, row.wiring.network, transfers);
+    return {
+      id: row.wiring.id,
+      number: row.wiring.number,
+      expression: row.wiring.expression,
+      description: row.wiring.description,
+      coils: row.wiring.elementIds,
+      topology: row.wiring.topology,
+      outOfPhase: row.wiring.outOfPhase,
+      wav: row.wav,
+      levelDb: row.levelDb,
+      loudnessLufs: row.loudnessLufs,
+      centroidHz: row.centroidHz,
+      resonanceHz: row.circuit.resonanceHz,
+      peakDb: row.circuit.peakDb ?? 0,
+      resonanceQ: row.circuit.resonanceQ,
+      humDb: row.circuit.humDb ?? 0,
+      humCancelling: row.circuit.humCancelling,
+      responseDb: response ? Array.from(response) : [],
+      group: null,
+    };
+  });
+
+  const audioSeconds = (selected.length * (reference?.length ?? files?.length ?? 0)) / request.sampleRateHz;
+  const report: ListeningReport = {
+    generator: request.generator,
+    guitar: reportGuitar(guitar, basename(folder.root), circuit.load),
+    render: {
+      phrase: request.phrase.name,
+      chain: request.chain,
+      sampleRateHz: request.sampleRateHz,
+      durationS: (files ?? reference)?.length ? ((files ?? reference) as WiringSynthesis).length / request.sampleRateHz : 0,
+      level: request.level,
+      commonGainDb: commonGainDb ?? 0,
+      mainsHz: circuit.load.mainsHz,
+      humMixHz: request.hum?.mainsHz ?? null,
+      format: request.format,
+    },
+    responseFrequenciesHz: Array.from(responseGrid),
+    wirings: reportWirings,
+  };
+  await writeFileAtomic(folder.reportJson, `${JSON.stringify(report, null, 2)}\n`);
+  await writeFileAtomic(folder.page, renderListeningPage(report));
+  return { report, rows, written, skipped, commonGainDb, matchedLoudnessLufs, audioSeconds };
+}
+
+function readScratch(path: string): Float32Array {
+  const bytes = readFileSync(path);
+  const copy = new Uint8Array(bytes.byteLength);
+  copy.set(bytes);
+  return new Float32Array(copy.buffer);
+}

@@ -1,0 +1,140 @@
+/**
+ * The same performance through every wiring. Everything after the strings is
+ * linear, so the strings are rendered once and each coil's EMF spectrum E_i(f)
+ * is computed once; a wiring then costs its transfers T_i(f) at every FFT bin,
+ * the sum Y(f) = Σ_i T_i(f)·E_i(f) and one inverse FFT (DESIGN.md, data flow).
+ *
+ * Output samples are volts at the amplifier input: the coils' string EMF is
+ * string velocity (m/s, from src/pickup) times COIL_VOLTS_PER_METRE_PER_SECOND.
+ */
+import { type CircuitOverrides, type PreparedCircuit, magnetSign, prepareCircuit, solveTransfers } from '../circuit/index.js';
+import { InputError } from '../errors/index.js';
+import type { Guitar } from '../guitar/index.js';
+import { nextPowerOfTwo, realFft } from '../math/index.js';
+import { computeCoilSpectra, pickupDelaySamples } from '../pickup/index.js';
+import { type Phrase, type StringOptions, renderPhrase } from '../string/index.js';
+import type { Network } from '../wiring/index.js';
+
+/**
+ * EMF a coil of relative sensitivity 1 gives per m/s of string velocity
+ * sensed, volts (from memory: chosen so a firm strum gives open-circuit peaks
+ * of a few hundred millivolts, the 100–300 mV typical of single coils quoted
+ * in REFERENCES.md §1.3).
+ */
+export const COIL_VOLTS_PER_METRE_PER_SECOND = 0.02;
+
+/** Hum harmonics mixed into renders: mains fundamental and its third harmonic, relative amplitudes (common practice: lamp dimmers and transformers make hum rich in odd harmonics). */
+export const HUM_HARMONICS: readonly (readonly [number, number])[] = Object.freeze([
+  [1, 1],
+  [3, 0.5],
+]);
+
+export interface SynthesisOptions {
+  readonly sampleRateHz: number;
+  readonly seed: number;
+  readonly overrides: CircuitOverrides;
+  /** Extra string options (t60, brightness …). */
+  readonly strings: Partial<StringOptions>;
+}
+
+export interface WiringSynthesis {
+  readonly guitar: Guitar;
+  readonly sampleRateHz: number;
+  /** Samples in every rendered wiring. */
+  readonly length: number;
+  readonly fftSize: number;
+  readonly circuit: PreparedCircuit;
+  /** Is the output shorted (volume at 0)? */
+  readonly silent: boolean;
+  /** Direct-chain output of a wiring, volts at the amplifier input. */
+  synthesize(network: Network, out?: Float32Array): Float32Array;
+  /** Hum the wiring adds for a mains field inducing `emfVolts` (peak) in a nominal coil, as samples to add to its output. */
+  synthesizeHum(network: Network, mainsHz: number, emfVolts: number, out?: Float32Array): Float32Array;
+}
+
+/** Render the strings and coil spectra once; return a function that renders any wiring. */
+export function prepareWiringSynthesis(guitar: Guitar, phrase: Phrase, options: SynthesisOptions): WiringSynthesis {
+  const strings = renderPhrase(guitar, phrase, { ...options.strings, sampleRateHz: options.sampleRateHz, seed: options.seed });
+  const delay = pickupDelaySamples(guitar, strings);
+  const fftSize = nextPowerOfTwo(strings.length + delay);
+  const fft = realFft(fftSize);
+  const spectra = computeCoilSpectra(guitar, strings, fftSize);
+  for (const spectrum of spectra) for (let k = 0; k < spectrum.length; k += 1) spectrum[k] = (spectrum[k] as number) * COIL_VOLTS_PER_METRE_PER_SECOND;
+
+  const binsHz = new Float64Array(fft.bins);
+  for (let k = 0; k < fft.bins; k += 1) binsHz[k] = (k * options.sampleRateHz) / fftSize;
+  const circuit = prepareCircuit(guitar, binsHz, options.overrides);
+  const transfers = guitar.coils.map(() => new Float64Array(2 * fft.bins));
+  const output = new Float64Array(2 * fft.bins);
+  const time = new Float64Array(fftSize);
+  const length = strings.length;
+
+  const synthesize = (network: Network, out = new Float32Array(length)): Float32Array => {
+    solveTransfers(circuit, network, transfers);
+    output.fill(0);
+    transfers.forEach((transfer, coil) => {
+      const emf = spectra[coil] as Float64Array;
+      // Y(f) += T_i(f)·E_i(f), complex product per bin.
+      for (let k = 0; k < output.length; k += 2) {
+        const tr = transfer[k] as number;
+        const ti = transfer[k + 1] as number;
+        if (tr === 0 && ti === 0) continue;
+        const er = emf[k] as number;
+        const ei = emf[k + 1] as number;
+        output[k] = (output[k] as number) + tr * er - ti * ei;
+        output[k + 1] = (output[k + 1] as number) + tr * ei + ti * er;
+      }
+    });
+    fft.inverse(output, time);
+    // The pickup spectra are delayed by `delay` samples so that every coil stays causal; undo it.
+    for (let n = 0; n < length; n += 1) out[n] = time[n + delay] as number;
+    return out;
+  };
+
+  const humCircuit = new Map<number, { prepared: PreparedCircuit; transfers: Float64Array[] }>();
+  const synthesizeHum = (network: Network, mainsHz: number, emfVolts: number, out = new Float32Array(length)): Float32Array => {
+    let probe = humCircuit.get(mainsHz);
+    if (!probe) {
+      const frequencies = Float64Array.from(HUM_HARMONICS.map(([harmonic]) => harmonic * mainsHz));
+      const prepared = prepareCircuit(guitar, frequencies, options.overrides);
+      probe = { prepared, transfers: guitar.coils.map(() => new Float64Array(2 * frequencies.length)) };
+      humCircuit.set(mainsHz, probe);
+    }
+    solveTransfers(probe.prepared, network, probe.transfers);
+    out.fill(0);
+    HUM_HARMONICS.forEach(([harmonic, amplitude], index) => {
+      // H(f) = Σ_i m_i·h_i·T_i(f): the hum sign of a coil is p_i·m_i and T_i carries p_i (src/circuit/measure-hum.ts).
+      let re = 0;
+      let im = 0;
+      guitar.coils.forEach((coil, c) => {
+        const weight = magnetSign(coil.magnet) * coil.humSensitivity;
+        const transfer = probe.transfers[c] as Float64Array;
+        re += weight * (transfer[2 * index] as number);
+        im += weight * (transfer[2 * index + 1] as number);
+      });
+      const omega = (2 * Math.PI * harmonic * mainsHz) / options.sampleRateHz;
+      const phase = Math.atan2(im, re);
+      const peak = emfVolts * amplitude * Math.hypot(re, im);
+      for (let n = 0; n < length; n += 1) out[n] = (out[n] as number) + peak * Math.sin(omega * n + phase);
+    });
+    return out;
+  };
+
+  return {
+    guitar,
+    sampleRateHz: options.sampleRateHz,
+    length,
+    fftSize,
+    circuit,
+    silent: circuit.load.silent,
+    synthesize,
+    synthesizeHum,
+  };
+}
+
+/** Refuse to render a guitar whose output is shorted (volume at 0): every file would be silence. */
+export function assertAudible(synthesis: WiringSynthesis, volumePath: string): void {
+  if (synthesis.silent) {
+    throw InputError.at(volumePath, 'a volume setting above 0 (at 0 the wiper shorts the output and every wiring is silent)', 0);
+  }
+}

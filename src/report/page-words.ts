@@ -1,0 +1,133 @@
+/**
+ * Plain words for the listening page, each tied to the number it stands
+ * for, so a player who does not know the trade terms can still read the
+ * table: "quiet (hum cancelling)", "brighter", "present".
+ */
+import type { Topology } from '../wiring/index.js';
+
+const TOPOLOGY_WORDS: Readonly<Record<Topology, string>> = Object.freeze({
+  single: 'alone',
+  series: 'series',
+  parallel: 'parallel',
+  'series-parallel': 'series and parallel',
+});
+
+/** How the coils are joined, in words. */
+export function topologyInWords(topology: Topology): string {
+  return TOPOLOGY_WORDS[topology];
+}
+
+/** A wiring counts as hum cancelling at or below this hum, dB (DESIGN.md, `humCancelling`). */
+export const HUM_CANCELLING_DB = -20;
+/** Below this (and above the cancelling mark) a wiring is "partly cancelling": half the hum amplitude or less, dB (our own threshold). */
+export const HUM_PARTLY_CANCELLING_DB = -6;
+
+export type HumVerdict = 'quiet' | 'partly' | 'noisy';
+
+/** Hum in words: quiet (hum cancelling), less hum (partly cancelling), noisy. Non-finite hum means none at all. */
+export function humVerdict(humDb: number | null, humCancelling: boolean): HumVerdict {
+  if (humCancelling || humDb === null || !Number.isFinite(humDb) || humDb <= HUM_CANCELLING_DB) return 'quiet';
+  return humDb <= HUM_PARTLY_CANCELLING_DB ? 'partly' : 'noisy';
+}
+
+/** The mark shown for each verdict, and the words under it. */
+export const HUM_VERDICT_WORDS: Readonly<Record<HumVerdict, readonly [string, string]>> = Object.freeze({
+  quiet: ['quiet', '(hum cancelling)'],
+  partly: ['less hum', '(partly cancelling)'],
+  noisy: ['noisy', ''],
+});
+
+/**
+ * The character of a loaded resonant peak by its frequency. H. Lemme's scale
+ * for a pickup with a normal cable: about 2 kHz warm, 3 kHz present, 4 kHz
+ * piercing, 5 kHz and above brittle (seen quoted from
+ * buildyourguitar.com/resources/lemme; USER-NEEDS.md §(b)). Each word covers
+ * the band halfway to its neighbours; "dark" below the warm band is ours.
+ */
+const PEAK_CHARACTER_BANDS: ReadonlyArray<readonly [number, string]> = Object.freeze([
+  [1500, 'dark'], // Hz, below the warm band (our own word)
+  [2500, 'warm'], // Hz, around 2 kHz (Lemme)
+  [3500, 'present'], // Hz, around 3 kHz (Lemme)
+  [4500, 'piercing'], // Hz, around 4 kHz (Lemme)
+]);
+const PEAK_CHARACTER_TOP = 'brittle'; // 5 kHz and above (Lemme)
+
+export function peakCharacter(resonanceHz: number | null): string {
+  if (resonanceHz === null || !Number.isFinite(resonanceHz)) return 'no clear peak';
+  for (const [upperHz, word] of PEAK_CHARACTER_BANDS) if (resonanceHz < upperHz) return word;
+  return PEAK_CHARACTER_TOP;
+}
+
+/**
+ * Brightness words compare a wiring's spectral centroid with the median
+ * centroid of all wirings of the same guitar (our own scale: a tenth of an
+ * octave or less either side counts as "middle", more than a third of an
+ * octave as "much").
+ */
+const BRIGHTNESS_STEPS: ReadonlyArray<readonly [number, string]> = Object.freeze([
+  [-1 / 3, 'much darker'], // octaves below the median and lower
+  [-1 / 10, 'darker'],
+  [1 / 10, 'middle'],
+  [1 / 3, 'brighter'],
+]);
+const BRIGHTNESS_TOP = 'much brighter';
+
+export interface BrightnessScale {
+  readonly medianHz: number;
+  readonly minHz: number;
+  readonly maxHz: number;
+  /** Word for a centroid. */
+  readonly word: (centroidHz: number) => string;
+  /** Position of a centroid between the darkest (0) and brightest (1) wiring on a log scale. */
+  readonly fraction: (centroidHz: number) => number;
+  /** The centroid band each word covers, for the legend: [word, lowHz or null, highHz or null]. */
+  readonly bands: ReadonlyArray<readonly [string, number | null, number | null]>;
+}
+
+function median(values: readonly number[]): number {
+  const sorted = [...values].sort((a, b) => a - b);
+  const middle = Math.floor(sorted.length / 2);
+  return sorted.length % 2 === 1 ? (sorted[middle] ?? 0) : ((sorted[middle - 1] ?? 0) + (sorted[middle] ?? 0)) / 2;
+}
+
+/** The brightness scale of one guitar's wirings (finite, positive centroids only). */
+export function brightnessScale(centroidsHz: readonly number[]): BrightnessScale {
+  const usable = centroidsHz.filter((hz) => Number.isFinite(hz) && hz > 0);
+  const medianHz = usable.length > 0 ? median(usable) : 1;
+  const minHz = usable.length > 0 ? Math.min(...usable) : 1;
+  const maxHz = usable.length > 0 ? Math.max(...usable) : 1;
+  const word = (centroidHz: number): string => {
+    if (!Number.isFinite(centroidHz) || centroidHz <= 0) return 'silent';
+    const octaves = Math.log2(centroidHz / medianHz);
+    for (const [upper, name] of BRIGHTNESS_STEPS) if (octaves < upper) return name;
+    return BRIGHTNESS_TOP;
+  };
+  const fraction = (centroidHz: number): number => {
+    if (!(centroidHz > 0) || maxHz <= minHz) return 1;
+    return Math.min(1, Math.max(0, Math.log(centroidHz / minHz) / Math.log(maxHz / minHz)));
+  };
+  const edges = BRIGHTNESS_STEPS.map(([octaves]) => medianHz * 2 ** octaves);
+  const names = [...BRIGHTNESS_STEPS.map(([, name]) => name), BRIGHTNESS_TOP];
+  const bands = names.map((name, index) => [name, edges[index - 1] ?? null, edges[index] ?? null] as const);
+  return { medianHz, minHz, maxHz, word, fraction, bands };
+}
+
+const MINUS = '\u2212';
+
+/** "+1.5 dB", "−3.0 dB", "0.0 dB"; "—" when not finite. */
+export function formatDb(db: number | null, digits = 1): string {
+  if (db === null || !Number.isFinite(db)) return '—';
+  const fixed = Math.abs(db).toFixed(digits);
+  if (Number(fixed) === 0) return `${(0).toFixed(digits)} dB`;
+  return `${db < 0 ? MINUS : '+'}${fixed} dB`;
+}
+
+const HZ_PER_KHZ = 1000;
+
+/** "850 Hz", "2.45 kHz", "12.3 kHz"; "—" when missing. */
+export function formatHz(hz: number | null): string {
+  if (hz === null || !Number.isFinite(hz)) return '—';
+  if (hz < HZ_PER_KHZ) return `${Math.round(hz)} Hz`;
+  const khz = hz / HZ_PER_KHZ;
+  return `${khz.toFixed(khz < 10 ? 2 : 1)} kHz`;
+}
