@@ -9,6 +9,7 @@ import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
 import {
   designBands,
+  REFERENCE_TAIL_S,
   groupAlikeWirings,
   measureCrossSpectra,
   measureDistinctness,
@@ -49,11 +50,15 @@ function once<T>(work: () => T): { value: T; ms: number } {
 }
 
 export function benchDistinct(): void {
-  heading('Distinctness: the one-off band cross-spectra (strum, 48 kHz, 41 ERB bands × 4 segments)');
   const demo = sample('three-single-coil.json');
-  const strings = renderPhrase(demo, builtInPhrase('strum', demo.strings.length));
+  const stringOptions = { tailS: REFERENCE_TAIL_S };
+  const strings = renderPhrase(demo, builtInPhrase('strum', demo.strings.length), stringOptions);
   const size = nextPowerOfTwo(strings.length + pickupDelaySamples(demo, strings));
-  line('strings: render the strum (6 strings)', `${medianMs(() => renderPhrase(demo, builtInPhrase('strum', 6)), 3).toFixed(0)} ms`);
+  const bands = designBands(strings.sampleRateHz);
+  heading(
+    `Distinctness: the one-off band cross-spectra (strum, 48 kHz, ${bands.bands.length} ERB bands × ${bands.options.segmentsPerBand} segments)`,
+  );
+  line('strings: render the strum (6 strings)', `${medianMs(() => renderPhrase(demo, builtInPhrase('strum', 6), stringOptions), 3).toFixed(0)} ms`);
   for (const [label, guitar] of [
     ['3 coils', demo],
     ['5 coils', fiveCoilGuitar()],

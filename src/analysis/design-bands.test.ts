@@ -19,11 +19,11 @@ describe('designBands', () => {
     }
   });
 
-  it('covers 0 Hz to Nyquist with contiguous segments, four per band, outer ones level-only', () => {
+  it('covers 0 Hz to Nyquist with contiguous segments, eight per band, outer ones level-only', () => {
     const segments = layout.segments;
     expect(segments[0]).toMatchObject({ lowHz: 0, highHz: 20, band: -1 });
     expect(segments[segments.length - 1]).toMatchObject({ lowHz: 20_000, highHz: 24_000, band: -1 });
-    expect(segments).toHaveLength(41 * 4 + 2);
+    expect(segments).toHaveLength(41 * 8 + 2);
     for (let s = 1; s < segments.length; s += 1) expect(segments[s]?.lowHz).toBeCloseTo(segments[s - 1]?.highHz ?? Number.NaN, 9);
     for (const segment of segments) {
       expect(segment.frequencyHz).toBeGreaterThanOrEqual(segment.lowHz);

@@ -10,7 +10,7 @@
  *       ≈ Σ_i Σ_j T_i(f_s)·conj(T_j(f_s))·C_ij,s,   C_ij,s = Σ_{k∈s} w_k·E_i(f_k)·conj(E_j(f_k))
  *
  * exact when the transfers do not change across the segment; the circuit is
- * smooth on that scale (a quarter of an ERB by default), the strings'
+ * smooth on that scale (an eighth of an ERB by default), the strings'
  * spectra are not, which is why they are summed bin by bin here.
  *
  * w_k are Parseval's weights for a half spectrum of an N-point transform:

@@ -17,16 +17,24 @@ export interface SpectralBasisOptions {
   readonly phrase: Phrase | undefined;
   /** Name shown for the phrase. Default "strum". */
   readonly phraseName: string;
-  /** String render options (sample rate, seed, …); defaults as `renderPhrase` (48 kHz). */
+  /** String render options (sample rate, seed, …); default a REFERENCE_TAIL_S ring-out, the rest as `renderPhrase` (48 kHz, seed 1). */
   readonly strings: Partial<StringOptions>;
   /** Perceptual bands; defaults as `designBands` (one-ERB bands over 20 Hz–20 kHz, 4 segments each). */
   readonly bands: Partial<BandOptions>;
 }
 
+/**
+ * Ring-out after the last note of the reference phrase, seconds: the render
+ * pipeline's RENDER_TAIL_S (src/render/measure-wiring-audio.ts), so levels
+ * and brightness here describe the same reference render as analyze's
+ * levelDb and centroidHz (test/distinct-versus-render.test.ts checks both).
+ */
+export const REFERENCE_TAIL_S = 2.5;
+
 export const DEFAULT_SPECTRAL_BASIS_OPTIONS: Readonly<SpectralBasisOptions> = Object.freeze({
   phrase: undefined,
   phraseName: 'strum',
-  strings: Object.freeze({}),
+  strings: Object.freeze({ tailS: REFERENCE_TAIL_S }),
   bands: Object.freeze({}),
 });
 
@@ -45,7 +53,7 @@ export interface SpectralBasis {
 export function measureSpectralBasis(guitar: Guitar, options: Partial<SpectralBasisOptions> = {}): SpectralBasis {
   const phrase = options.phrase ?? builtInPhrase('strum', guitar.strings.length);
   const phraseName = options.phraseName ?? DEFAULT_SPECTRAL_BASIS_OPTIONS.phraseName;
-  const strings = renderPhrase(guitar, phrase, options.strings ?? {});
+  const strings = renderPhrase(guitar, phrase, { ...DEFAULT_SPECTRAL_BASIS_OPTIONS.strings, ...options.strings });
   const fftSize = nextPowerOfTwo(strings.length + pickupDelaySamples(guitar, strings));
   const coilSpectra = computeCoilSpectra(guitar, strings, fftSize);
   const layout = designBands(strings.sampleRateHz, options.bands ?? {});

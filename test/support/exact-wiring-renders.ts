@@ -4,6 +4,7 @@
  * Y_k = Σ_i T_i(f_k)·E_i(f_k), its energy by Parseval and its time signal by
  * an inverse FFT (the direct chain's render before any gain).
  */
+import { REFERENCE_TAIL_S } from '../../src/analysis/index.js';
 import { type CircuitOverrides, prepareCircuit, solveTransfers } from '../../src/circuit/index.js';
 import type { Guitar } from '../../src/guitar/index.js';
 import { nextPowerOfTwo, realFft } from '../../src/math/index.js';
@@ -20,7 +21,7 @@ export interface ExactRenders {
 }
 
 export function renderWiringsExactly(guitar: Guitar, networks: readonly Network[], overrides?: CircuitOverrides, keepRenders = true): ExactRenders {
-  const strings = renderPhrase(guitar, builtInPhrase('strum', guitar.strings.length));
+  const strings = renderPhrase(guitar, builtInPhrase('strum', guitar.strings.length), { tailS: REFERENCE_TAIL_S });
   const delay = pickupDelaySamples(guitar, strings);
   const size = nextPowerOfTwo(strings.length + delay);
   const spectra = computeCoilSpectra(guitar, strings, size);
