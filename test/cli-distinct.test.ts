@@ -4,7 +4,7 @@
  * are checked in src/analysis (against exact per-bin sums, brute force and
  * hand-worked values); here the commands must carry them faithfully.
  */
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -70,6 +70,30 @@ describe('coilbench analyze: groups of alike wirings', () => {
       'coilbench: --spectrum-threshold: expected a spectral distance above 0 and at most 20 dB, like 1 or 2dB, got "loud"',
       'coilbench: --brightness-threshold: expected a percentage above 0 and at most 100, like 3 or 5%, got "300%"',
     ]);
+  });
+});
+
+describe('render and demo: the groups in the folder', () => {
+  it('report.json carries every rendered wiring\'s group and the groups; report.md and the page name them', async () => {
+    const folder = mkdtempSync(join(tmpdir(), 'coilbench-groups-'));
+    try {
+      const { status, err } = await run('render', 'three-single-coil.json', '-o', folder, '--chain', 'direct', '--only', 'w11', '--only', 'w45', '--only', 'w5');
+      expect(status, err).toBe(0);
+      expect(err).toMatch(/47 wirings, \d+ audibly distinct groups at these thresholds/u);
+      const report = JSON.parse(readFileSync(join(folder, 'report.json'), 'utf8')) as {
+        wirings: Array<{ id: string; group: number }>;
+        groups: { summary: string; groups: Array<{ group: number; members: string[] }> };
+      };
+      const groupOf = new Map(report.wirings.map((wiring) => [wiring.id, wiring.group]));
+      const analyzed = JSON.parse((await run('analyze', 'three-single-coil.json', '--json', '--no-audio')).out) as { wirings: Array<{ id: string; group: number }>; groups: { summary: string } };
+      for (const wiring of analyzed.wirings) if (groupOf.has(wiring.id)) expect(groupOf.get(wiring.id)).toBe(wiring.group);
+      expect(report.groups.summary).toBe(analyzed.groups.summary);
+      expect(report.groups.groups.flatMap((group) => group.members)).toHaveLength(47);
+      expect(readFileSync(join(folder, 'report.md'), 'utf8')).toMatch(/^### 47 wirings, \d+ audibly distinct groups?/mu);
+      expect(readFileSync(join(folder, 'index.html'), 'utf8')).toContain('Which wirings sound alike');
+    } finally {
+      rmSync(folder, { recursive: true, force: true });
+    }
   });
 });
 

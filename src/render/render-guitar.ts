@@ -24,10 +24,11 @@ import {
   AUDIO_BAND_HIGH_HZ,
   AUDIO_BAND_LOW_HZ,
 } from '../circuit/index.js';
-import { measureLoudness } from '../analysis/index.js';
+import { type AlikeThresholds, type Distinctness, measureDistinctness, measureLoudness } from '../analysis/index.js';
 import type { Guitar } from '../guitar/index.js';
 import {
   type ListeningReport,
+  type ReportGroups,
   type ReportWiring,
   pageAudioPath,
   renderListeningPage,
@@ -84,6 +85,8 @@ export interface RenderRequest {
   readonly folder: OutputFolder;
   /** Name of the generator for report.json ("coilbench 0.1.0"). */
   readonly generator: string;
+  /** "Sounds alike" thresholds for the groups in the report (src/analysis defaults when absent). */
+  readonly thresholds?: Partial<AlikeThresholds>;
 }
 
 export interface RenderEvents {
@@ -113,6 +116,8 @@ export interface RenderOutcome {
   /** Loudness every matched file reaches, LUFS; null for true-level files. */
   readonly matchedLoudnessLufs: number | null;
   readonly audioSeconds: number;
+  /** Which of all the guitar's wirings sound alike (request.all order). */
+  readonly distinct: Distinctness;
 }
 
 /** What the manifest keeps per wiring, keyed by canonical expression. */
@@ -308,6 +313,8 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   // Circuit metrics and response curves.
   const circuit = measureCircuitMetrics(guitar, request.all, request.overrides);
   const circuitById = new Map(request.all.map((wiring, index) => [wiring.id, circuit.wirings[index] as WiringCircuitMetrics]));
+  const distinct = measureDistinctness(guitar, request.all, { overrides: request.overrides, thresholds: request.thresholds });
+  const groupById = new Map(request.all.map((wiring, index) => [wiring.id, distinct.groups.groupOf[index] ?? null]));
   const responseGrid = logSpacedFrequencies(AUDIO_BAND_LOW_HZ, AUDIO_BAND_HIGH_HZ, RESPONSE_POINTS);
   const responseCircuit = prepareCircuit(guitar, responseGrid, request.overrides);
   const transfers = guitar.coils.map(() => new Float64Array(2 * RESPONSE_POINTS));
@@ -344,7 +351,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
       humDb: row.circuit.humDb ?? 0,
       humCancelling: row.circuit.humCancelling,
       responseDb: response ? Array.from(response) : [],
-      group: null,
+      group: groupById.get(row.wiring.id) ?? null,
     };
   });
 
@@ -365,10 +372,26 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     },
     responseFrequenciesHz: Array.from(responseGrid),
     wirings: reportWirings,
+    groups: reportGroups(request.all, distinct),
   };
   await writeFileAtomic(folder.reportJson, `${JSON.stringify(report, null, 2)}\n`);
   await writeFileAtomic(folder.page, renderListeningPage(report));
-  return { report, rows, written, skipped, commonGainDb, matchedLoudnessLufs, audioSeconds };
+  return { report, rows, written, skipped, commonGainDb, matchedLoudnessLufs, audioSeconds, distinct };
+}
+
+/** The report's record of the groups of alike wirings. */
+function reportGroups(all: readonly Wiring[], distinct: Distinctness): ReportGroups {
+  const count = distinct.groups.groups.length;
+  const { levelDb, spectrumDb, brightnessPercent } = distinct.thresholds;
+  return {
+    summary: `${all.length} wirings, ${count} audibly distinct group${count === 1 ? '' : 's'} at these thresholds`,
+    thresholds: { levelDb, spectrumDb, brightnessPercent },
+    groups: distinct.groups.groups.map((group) => ({
+      group: group.number,
+      members: group.members.map((member) => all[member]?.id ?? '?'),
+      expressions: group.members.map((member) => all[member]?.expression ?? '?'),
+    })),
+  };
 }
 
 function readScratch(path: string): Float32Array {

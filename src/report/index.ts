@@ -1,6 +1,7 @@
 export type {
   ListeningReport,
   ReportCoil,
+  ReportGroups,
   ReportGuitar,
   ReportRender,
   ReportWiring,
@@ -9,3 +10,4 @@ export { renderListeningPage } from './render-listening-page.js';
 export { pageAudioPath, renderPageAudioScript, PAGE_AUDIO_CALLBACK } from './page-audio-file.js';
 export { escapeHtml, serializeJsonForScript } from './escape-html.js';
 export { reportGuitar, describeControls, formatPosition } from './report-guitar.js';
+export { renderGroupsSection } from './page-groups.js';

@@ -94,6 +94,15 @@ export interface ReportWiring {
   readonly group: number | null;
 }
 
+/** Which of the guitar's wirings sound alike (the distinctness analysis, src/analysis). */
+export interface ReportGroups {
+  /** "47 wirings, 46 audibly distinct groups at these thresholds". */
+  readonly summary: string;
+  readonly thresholds: { readonly levelDb: number; readonly spectrumDb: number; readonly brightnessPercent: number };
+  /** Every group, numbered as `ReportWiring.group`, members as wiring ids in the stable order (all of the guitar's wirings, rendered or not). */
+  readonly groups: ReadonlyArray<{ readonly group: number; readonly members: readonly string[]; readonly expressions: readonly string[] }>;
+}
+
 export interface ListeningReport {
   readonly generator: string;
   readonly guitar: ReportGuitar;
@@ -101,4 +110,6 @@ export interface ListeningReport {
   /** Log-spaced frequencies for `responseDb`, Hz. */
   readonly responseFrequenciesHz: readonly number[];
   readonly wirings: readonly ReportWiring[];
+  /** Groups of alike wirings, when computed. */
+  readonly groups?: ReportGroups;
 }

@@ -14,6 +14,7 @@ import { RECOMMENDED_ABX_TRIALS } from './abx-settings.js';
 import { escapeHtml, serializeJsonForScript } from './escape-html.js';
 import type { ListeningReport } from './listening-report.js';
 import { PAGE_BLIND_SCRIPT } from './page-blind-script.js';
+import { renderGroupsSection } from './page-groups.js';
 import { PAGE_LOADER_SCRIPT } from './page-loader-script.js';
 import { PAGE_MATH_SCRIPT } from './page-math-script.js';
 import { PAGE_PLAYER_SCRIPT } from './page-player-script.js';
@@ -217,6 +218,7 @@ ${renderColumnHelp(report)}
 ${renderWiringTable(report)}
 </div>
 </section>
+${renderGroupsSection(report)}
 ${renderPlotSection()}
 ${renderBlindSection(report)}
 ${renderGuitarSection(report)}

@@ -20,7 +20,9 @@ import {
 import { BUILT_IN_PHRASES, type BuiltInPhraseName, type Phrase, builtInPhrase, parsePhrase } from '../../string/index.js';
 import { QuantityError, parseQuantity } from '../../units/index.js';
 import { type Wiring, enumerateWirings, findWiring, vocabularyOf } from '../../wiring/index.js';
+import { type AlikeOptionText, addAlikeOptions, parseAlikeOptions } from '../alike-options.js';
 import { type CircuitOptionText, addCircuitOptions, parseCircuitOptions } from '../circuit-options.js';
+import { groupHeadline, renderGroupSummary } from '../group-summary.js';
 import type { Io } from '../io.js';
 import { renderCsv, renderMarkdownTable } from '../metric-columns.js';
 import { createProgress } from '../progress.js';
@@ -36,7 +38,7 @@ const MAX_HUM_EMF_V = 1;
 /** Default effects chain: an amplifier-like clean sound, since raw pickup signals mislead on small speakers (common practice). */
 export const DEFAULT_CHAIN: ChainName = 'clean';
 
-export interface RenderOptionText extends CircuitOptionText {
+export interface RenderOptionText extends CircuitOptionText, AlikeOptionText {
   readonly output?: string;
   readonly phrase?: string;
   readonly chain?: string;
@@ -50,7 +52,7 @@ export interface RenderOptionText extends CircuitOptionText {
 }
 
 export function addRenderOptions(command: Command): Command {
-  return addCircuitOptions(
+  return addAlikeOptions(addCircuitOptions(
     command
       .option('-o, --output <dir>', 'output folder (default renders/<guitar name>)')
       .option('--phrase <phrase>', `what the strings play: ${BUILT_IN_PHRASES.join(', ')} or a phrase file (default strum)`)
@@ -62,7 +64,7 @@ export function addRenderOptions(command: Command): Command {
       .option('--hum <hz>', 'mix mains hum at 50 or 60 Hz into every file, through each wiring\'s own hum pickup')
       .option('--hum-level <volts>', `peak hum EMF in a nominal coil with --hum, like "5mV" (default ${DEFAULT_HUM_EMF_V * 1000} mV)`)
       .option('--seed <n>', 'seed of the pluck noise (default 1)'),
-  );
+  ));
 }
 
 export interface ParsedRenderOptions {
@@ -75,6 +77,7 @@ export interface ParsedRenderOptions {
   readonly seed: number;
   readonly selected: readonly Wiring[];
   readonly overrides: ReturnType<typeof parseCircuitOptions>;
+  readonly thresholds: ReturnType<typeof parseAlikeOptions>;
 }
 
 function readPhrase(text: string | undefined, guitar: Guitar, io: Io, problems: InputProblem[]): Phrase | undefined {
@@ -100,6 +103,7 @@ function readPhrase(text: string | undefined, guitar: Guitar, io: Io, problems: 
 export function parseRenderOptions(options: RenderOptionText, guitar: Guitar, all: readonly Wiring[], io: Io): ParsedRenderOptions {
   const problems: InputProblem[] = [];
   const overrides = parseCircuitOptions(options, guitar, problems);
+  const thresholds = parseAlikeOptions(options, problems);
   const phrase = readPhrase(options.phrase, guitar, io, problems);
   const chain = (options.chain ?? DEFAULT_CHAIN) as ChainName;
   if (!CHAIN_NAMES.includes(chain)) problems.push(problemAt('--chain', `one of ${CHAIN_NAMES.join(', ')}`, options.chain));
@@ -152,6 +156,7 @@ export function parseRenderOptions(options: RenderOptionText, guitar: Guitar, al
     seed,
     selected: selected.length > 0 ? selected : all,
     overrides,
+    thresholds,
   };
 }
 
@@ -178,16 +183,24 @@ export async function runRender(file: string, guitar: Guitar, options: RenderOpt
       seed: parsed.seed,
       folder,
       generator: `coilbench ${COILBENCH_VERSION}`,
+      thresholds: parsed.thresholds,
     },
     { onStage: (stage, total) => progress.stage(stage, total), onStep: (done, total) => progress.step(done, total) },
   );
-  const tableRows = outcome.rows.map((row) => ({ wiring: row.wiring, circuit: row.circuit, audio: { levelDb: row.levelDb, loudnessLufs: row.loudnessLufs, centroidHz: row.centroidHz } }));
+  const groupOf = new Map(all.map((wiring, index) => [wiring.id, outcome.distinct.groups.groupOf[index] ?? null]));
+  const tableRows = outcome.rows.map((row) => ({
+    wiring: row.wiring,
+    circuit: row.circuit,
+    audio: { levelDb: row.levelDb, loudnessLufs: row.loudnessLufs, centroidHz: row.centroidHz },
+    group: groupOf.get(row.wiring.id) ?? null,
+  }));
   await writeFileAtomic(folder.wiringsCsv, renderCsv(tableRows));
   const heading = `# ${guitar.name}\n\n${outcome.rows.length} wirings rendered from \`${file}\`: phrase ${parsed.phrase.name}, ${describeChain(parsed.chain)}.\n\n`;
   const caution =
     '\nRenders are models of the circuit and strings: make the final choice by ear on the real instrument. Start playback at a low volume. ' +
     'When you solder, use an iron stand, ventilate and wash your hands afterwards, check continuity with a meter before closing up, and never open an amplifier (its capacitors can hold a lethal charge).\n';
-  await writeFileAtomic(folder.reportMarkdown, `${heading}${renderMarkdownTable(tableRows)}${caution}`);
+  const groups = `\n${renderGroupSummary(all, outcome.distinct, true)}`;
+  await writeFileAtomic(folder.reportMarkdown, `${heading}${renderMarkdownTable(tableRows)}${groups}${caution}`);
   progress.finish();
   const seconds = (performance.now() - started) / 1000;
   return { outcome, root, seconds };
@@ -205,6 +218,7 @@ export function reportRender(io: Io, root: string, outcome: RenderOutcome, secon
   io.stderr(
     `coilbench: ${count} wirings in ${where}/wav: ${outcome.written} written, ${outcome.skipped} unchanged (${level}; ${seconds.toFixed(1)} s${speed})\n`,
   );
+  io.stderr(`coilbench: ${groupHeadline(outcome.distinct.spectra.count, outcome.distinct)}; see "Which wirings sound alike" on the page and in report.md\n`);
   io.stdout(`${where}/index.html\n`);
   io.stderr(`coilbench: open ${where}/index.html in a browser to listen; start at a low volume. Reports: report.md, wirings.csv, report.json; netlists in ${where}/netlists\n`);
 }
