@@ -142,6 +142,25 @@ describe('coilbench shortlist', () => {
     expect(out).toContain('--build-sheet');
   });
 
+  it('--render renders just the chosen wirings into their own folder, with --json naming it', async () => {
+    const folder = mkdtempSync(join(tmpdir(), 'coilbench-shortlist-'));
+    try {
+      const { status, out, err } = await run('shortlist', 'three-single-coil.json', '--count', '3', '--hum-cancelling', '--render', '-o', folder, '--chain', 'direct', '--json');
+      expect(status, err).toBe(0);
+      const document = JSON.parse(out) as ShortlistDocument & { render: { folder: string; page: string } };
+      expect(document.render.folder).toBe(folder);
+      const report = JSON.parse(readFileSync(join(folder, 'report.json'), 'utf8')) as { wirings: Array<{ id: string; wav: string }>; render: { chain: string } };
+      expect(report.wirings.map((wiring) => wiring.id)).toEqual(document.wirings.map((wiring) => wiring.id));
+      expect(report.render.chain).toBe('direct');
+      for (const wiring of report.wirings) expect(readFileSync(join(folder, wiring.wav)).subarray(0, 4).toString()).toBe('RIFF');
+      const refused = await run('shortlist', 'three-single-coil.json', '--count', '3', '--output', folder);
+      expect(refused.status).toBe(2);
+      expect(refused.err).toContain('--output: expected --output only with --render');
+    } finally {
+      rmSync(folder, { recursive: true, force: true });
+    }
+  });
+
   it('says which constraint to relax, naming the option, exit 2', async () => {
     const cases: Array<[string[], RegExp]> = [
       [['--count', '12', '--hum-cancelling', '--coils', 'neck,mid'], /^coilbench: --count: expected at most \d+: only \d+ wirings are hum cancelling and use only neck, mid; relax the hum-cancelling constraint or the coils allowed, or ask for fewer, got 12$/mu],

@@ -15,6 +15,8 @@ import { type CircuitOptionText, addCircuitOptions, parseCircuitOptions } from '
 import { formatTable } from '../format-table.js';
 import type { Io } from '../io.js';
 import { readGuitarFile } from '../read-guitar.js';
+import { defaultOutputRoot } from '../../render/index.js';
+import { reportRender, runRender } from './render.js';
 import { wiringRecord } from './wirings.js';
 
 interface ShortlistOptions extends CircuitOptionText, AlikeOptionText {
@@ -24,6 +26,10 @@ interface ShortlistOptions extends CircuitOptionText, AlikeOptionText {
   readonly include: string[];
   readonly coils?: string;
   readonly json?: boolean;
+  readonly render?: boolean;
+  readonly output?: string;
+  readonly chain?: string;
+  readonly phrase?: string;
 }
 
 const collect = (value: string, previous: string[]): string[] => [...previous, value];
@@ -167,14 +173,23 @@ export function registerShortlist(program: Command, io: Io): void {
     .option('--level-window <dB>', 'every chosen wiring within this many dB of every other')
     .option('--include <wiring>', 'a wiring that must be in the list, like "neck + mid" or w4 (repeat for more)', collect, [])
     .option('--coils <ids>', 'only wirings of these coils, separated by commas')
-    .option('--json', 'print one JSON document on stdout');
-  addAlikeOptions(addCircuitOptions(command)).action((file: string, options: ShortlistOptions) => {
+    .option('--json', 'print one JSON document on stdout')
+    .option('--render', 'render just these wirings, with their listening page (default folder renders/<guitar>-shortlist)')
+    .option('-o, --output <dir>', 'folder for --render')
+    .option('--chain <chain>', 'effects chain for --render: direct, clean, drive or compressed (default clean)')
+    .option('--phrase <phrase>', 'what the strings play for --render: open-strings, strum, riff or a phrase file (default strum)');
+  addAlikeOptions(addCircuitOptions(command)).action(async (file: string, options: ShortlistOptions) => {
     const guitar = readGuitarFile(file, io.cwd);
     const wirings = enumerateWirings(guitar.elements);
     const problems: InputProblem[] = [];
     const overrides = parseCircuitOptions(options, guitar, problems);
     const thresholds = parseAlikeOptions(options, problems);
     const plan = parsePlan(options, guitar, wirings, problems);
+    if (!options.render) {
+      for (const [flag, value] of [['--output', options.output], ['--chain', options.chain], ['--phrase', options.phrase]] as const) {
+        if (value !== undefined) problems.push(problemAt(flag, `${flag} only with --render`, value));
+      }
+    }
     if (problems.length > 0) throw new InputError(problems);
 
     const circuit = measureCircuitMetrics(guitar, wirings, overrides);
@@ -221,7 +236,8 @@ export function registerShortlist(program: Command, io: Io): void {
         })),
         distances,
       };
-      io.stdout(`${JSON.stringify(document, null, 2)}\n`);
+      const rendered = options.render ? await renderShortlist(file, guitar, options, rows.map((row) => row.wiring.id), io) : null;
+      io.stdout(`${JSON.stringify(rendered ? { ...document, render: { folder: rendered.root, page: `${rendered.root}/index.html` } } : document, null, 2)}\n`);
       return;
     }
 
@@ -263,5 +279,21 @@ export function registerShortlist(program: Command, io: Io): void {
       io.stdout(`\nNote: some of these sound alike at these thresholds; fewer than ${plan.count} audibly different wirings meet the constraints.\n`);
     }
     io.stdout(`\nlevel: relative to the mean single coil; brightness: power-weighted spectral centroid of the strum; group: as in \`coilbench analyze\`.\n${CAUTION}\n`);
+    if (options.render) {
+      const rendered = await renderShortlist(file, guitar, options, rows.map((row) => row.wiring.id), io);
+      reportRender(io, rendered.root, rendered.outcome, rendered.seconds);
+    }
   });
+}
+
+/** Render the chosen wirings into their own folder (a listening page of just these). */
+async function renderShortlist(file: string, guitar: Guitar, options: ShortlistOptions, ids: readonly string[], io: Io) {
+  const { output, chain, phrase, volume, tone, cable, mains, levelThreshold, spectrumThreshold, brightnessThreshold } = options;
+  return runRender(
+    file,
+    guitar,
+    { output, chain, phrase, volume, tone, cable, mains, levelThreshold, spectrumThreshold, brightnessThreshold, only: [...ids] },
+    io,
+    defaultOutputRoot('.', `${guitar.name} shortlist`),
+  );
 }
