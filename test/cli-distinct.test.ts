@@ -233,6 +233,37 @@ describe('coilbench compare', () => {
     expect(distances).toEqual([...distances].sort((a, b) => b - a));
   });
 
+  it('--render writes each set in its own folder and the comparison page beside them; --json names the page', async () => {
+    const folder = mkdtempSync(join(tmpdir(), 'coilbench-compare-render-'));
+    try {
+      const { status, out, err } = await run('compare', 'two-lead-humbucker.json', 'two-lead-humbucker.json', '--render', '-o', folder, '--chain', 'direct', '--json');
+      expect(status, err).toBe(0);
+      const document = JSON.parse(out) as CompareDocument & { render: { folder: string; page: string } };
+      expect(document.render).toEqual({ folder, page: join(folder, 'index.html') });
+      const report = JSON.parse(readFileSync(join(folder, 'comparison.json'), 'utf8')) as {
+        sets: Array<{ label: string; folder: string }>;
+        entries: Array<{ id: string; wav: string; levelDb: number }>;
+        rows: Array<{ entries: string[]; differences: Array<{ distance: number }> }>;
+      };
+      expect(report.sets.map((set) => [set.label, set.folder])).toEqual([['A', 'a'], ['B', 'b']]);
+      expect(report.rows).toHaveLength(6);
+      for (const entry of report.entries) expect(readFileSync(join(folder, `${entry.wav}.js`), 'utf8')).toMatch(/^coilbenchAudio\("w\d+", "/u);
+      // the same guitar twice: the same levels and no difference anywhere
+      const level = new Map(report.entries.map((entry) => [entry.id, entry.levelDb]));
+      for (const row of report.rows) {
+        expect(level.get(row.entries[1] ?? '')).toBe(level.get(row.entries[0] ?? ''));
+        expect(row.differences[0]?.distance).toBe(0);
+      }
+      for (const set of ['a', 'b']) expect(readFileSync(join(folder, set, 'index.html'), 'utf8')).toContain('coilbench listening page');
+      expect(readFileSync(join(folder, 'index.html'), 'utf8')).toContain('coilbench comparison page');
+      const refused = await run('compare', 'two-lead-humbucker.json', 'two-lead-humbucker.json', '--chain', 'direct');
+      expect(refused.status).toBe(2);
+      expect(refused.err).toContain('--chain: expected --chain only with --render');
+    } finally {
+      rmSync(folder, { recursive: true, force: true });
+    }
+  });
+
   it('--map renames coil ids; without it the message says to use it', async () => {
     const folder = mkdtempSync(join(tmpdir(), 'coilbench-map-'));
     const demo = JSON.parse(readFileSync(join(samples, 'three-single-coil.json'), 'utf8')) as { coils: Array<Record<string, unknown>> };

@@ -11,3 +11,7 @@ export { pageAudioPath, renderPageAudioScript, PAGE_AUDIO_CALLBACK } from './pag
 export { escapeHtml, serializeJsonForScript } from './escape-html.js';
 export { reportGuitar, describeControls, formatPosition } from './report-guitar.js';
 export { renderGroupsSection } from './page-groups.js';
+export type { ComparisonDifference, ComparisonEntry, ComparisonReport, ComparisonRow, ComparisonSetReport } from './comparison-report.js';
+export { renderComparisonPage } from './render-comparison-page.js';
+export { planComparisonGains } from './plan-comparison-gains.js';
+export type { ComparisonGains } from './plan-comparison-gains.js';

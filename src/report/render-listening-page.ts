@@ -124,12 +124,22 @@ function renderPlotSection(): string {
 }
 
 function renderBlindSection(report: ListeningReport): string {
-  const options = report.wirings
-    .map((wiring) => `<option value="${escapeHtml(wiring.id)}">${escapeHtml(wiring.id)} · ${escapeHtml(wiring.description)}</option>`)
-    .join('');
+  return renderBlindTestSection(
+    report.wirings.map((wiring) => ({ id: wiring.id, label: `${wiring.id} · ${wiring.description}` })),
+    'Choose two wirings. Each trial plays X, secretly one of A or B, at matched level; listen to A, B and X as often as you like, switching at the same point in the phrase, then say which one X is. ',
+  );
+}
+
+/**
+ * The blind-test section, the markup the blind-test script drives (its ids
+ * and data-action hooks), offering `choices` for A and B. `introText` is
+ * plain text (escaped here). Shared by the listening and comparison pages.
+ */
+export function renderBlindTestSection(choices: ReadonlyArray<{ readonly id: string; readonly label: string }>, introText: string): string {
+  const options = choices.map((choice) => `<option value="${escapeHtml(choice.id)}">${escapeHtml(choice.label)}</option>`).join('');
   return (
     '<section id="blind" aria-labelledby="blind-title"><h2 id="blind-title">Blind test: can you really hear the difference?</h2>' +
-    '<p>Choose two wirings. Each trial plays X, secretly one of A or B, at matched level; listen to A, B and X as often as you like, switching at the same point in the phrase, then say which one X is. ' +
+    `<p>${escapeHtml(introText)}` +
     `Do <strong>at least ${RECOMMENDED_ABX_TRIALS} trials</strong>: guessing gets about half right, and the page shows how likely your score would be by guessing alone.</p>` +
     '<div class="abx-pick">' +
     `<label>A <select id="abx-a">${options}</select></label>` +

@@ -1,3 +1,4 @@
+import { join, relative, resolve } from 'node:path';
 import type { Command } from 'commander';
 import {
   type FigurePair,
@@ -5,6 +6,18 @@ import {
   RESONANCE_CHANGE_PERCENT,
   measureGuitarComparison,
 } from '../../analysis/index.js';
+import { type RenderOutcome, defaultOutputRoot, outputFolder, renderGuitar, writeFileAtomic } from '../../render/index.js';
+import {
+  type ComparisonEntry,
+  type ComparisonReport,
+  type ComparisonRow,
+  type ComparisonSetReport,
+  renderComparisonPage,
+} from '../../report/index.js';
+import type { Wiring } from '../../wiring/index.js';
+import { createProgress } from '../progress.js';
+import { COILBENCH_VERSION } from '../version.js';
+import { parseRenderOptions } from './render.js';
 import { InputError, type InputProblem, problemAt } from '../../errors/index.js';
 import type { Guitar } from '../../guitar/index.js';
 import { type AlikeOptionText, addAlikeOptions, describeThresholds, parseAlikeOptions } from '../alike-options.js';
@@ -16,6 +29,10 @@ import { readGuitarFile } from '../read-guitar.js';
 interface CompareOptions extends CircuitOptionText, AlikeOptionText {
   readonly map: string[];
   readonly json?: boolean;
+  readonly render?: boolean;
+  readonly output?: string;
+  readonly chain?: string;
+  readonly phrase?: string;
 }
 
 const collect = (value: string, previous: string[]): string[] => [...previous, value];
@@ -75,7 +92,7 @@ function median(values: readonly number[]): number | null {
   return sorted.length % 2 === 1 ? (sorted[middle] as number) : ((sorted[middle - 1] as number) + (sorted[middle] as number)) / 2;
 }
 
-function renderComparison(comparison: GuitarComparison, label: string): string {
+function renderComparisonText(comparison: GuitarComparison, label: string): string {
   const { base, candidate, wirings } = comparison;
   const lines: string[] = [];
   const audible = wirings.filter((wiring) => wiring.audible).length;
@@ -122,8 +139,12 @@ export function registerCompare(program: Command, io: Io): void {
     .argument('<guitarB>', 'candidate guitar file (JSON)')
     .argument('[more...]', 'more candidates, each compared with the baseline')
     .option('--map <renamings>', 'coil ids that differ, first=other,… (once for every candidate, or once per candidate in order)', collect, [])
-    .option('--json', 'print one JSON document on stdout');
-  addAlikeOptions(addCircuitOptions(command)).action((fileA: string, fileB: string, more: string[], options: CompareOptions) => {
+    .option('--json', 'print one JSON document on stdout')
+    .option('--render', 'render every matched wiring on every set, and a comparison page to switch between sets while playing (default folder renders/<guitar>-compared)')
+    .option('-o, --output <dir>', 'folder for --render')
+    .option('--chain <chain>', 'effects chain for --render: direct, clean, drive or compressed (default clean)')
+    .option('--phrase <phrase>', 'what the strings play for --render: open-strings, strum, riff or a phrase file (default strum)');
+  addAlikeOptions(addCircuitOptions(command)).action(async (fileA: string, fileB: string, more: string[], options: CompareOptions) => {
     const files = [fileB, ...more];
     const problems: InputProblem[] = [];
     const guitars: Guitar[] = [];
@@ -140,6 +161,11 @@ export function registerCompare(program: Command, io: Io): void {
     const overrides = parseCircuitOptions(options, base, problems);
     const thresholds = parseAlikeOptions(options, problems);
     const maps = options.map.map((text) => parseMap(text, problems));
+    if (!options.render) {
+      for (const [flag, value] of [['--output', options.output], ['--chain', options.chain], ['--phrase', options.phrase]] as const) {
+        if (value !== undefined) problems.push(problemAt(flag, `${flag} only with --render`, value));
+      }
+    }
     if (maps.length > 1 && maps.length !== candidates.length) {
       problems.push(problemAt('--map', `one --map for every candidate, or ${candidates.length} (one per candidate, in order)`, `${maps.length} --map options`));
     }
@@ -155,13 +181,17 @@ export function registerCompare(program: Command, io: Io): void {
     );
     const first = comparisons[0] as GuitarComparison;
     if (options.json) {
-      const document = {
+      const document: Record<string, unknown> = {
         baseline: base.name,
         thresholds: first.thresholds,
         resonancePercent: RESONANCE_CHANGE_PERCENT,
         phrase: first.base.spectra.basis.phraseName,
         comparisons: comparisons.map(comparisonRecord),
       };
+      if (options.render) {
+        const page = await renderComparison(base, comparisons, [fileA, ...files], options, io);
+        document.render = { folder: page.root, page: page.page };
+      }
       io.stdout(`${JSON.stringify(document, null, 2)}\n`);
       return;
     }
@@ -171,12 +201,154 @@ export function registerCompare(program: Command, io: Io): void {
         'Every figure of B is on A\'s scale: level against A\'s mean single coil, hum against A\'s mean single-coil hum.\n\n',
     );
     comparisons.forEach((comparison, index) => {
-      io.stdout(renderComparison(comparison, String.fromCharCode('B'.charCodeAt(0) + index)));
+      io.stdout(renderComparisonText(comparison, String.fromCharCode('B'.charCodeAt(0) + index)));
       io.stdout('\n');
     });
     io.stdout(
       'distance: the largest of the level, spectrum and brightness differences over its threshold (1× = just noticeable). ' +
         'Figures come from models of the pickups, not measurements: a candidate set is worth trying by ear before you buy and fit it.\n',
     );
+    if (options.render) {
+      const page = await renderComparison(base, comparisons, [fileA, ...files], options, io);
+      const where = relative(io.cwd, page.root) || '.';
+      io.stderr(`coilbench: open ${where}/index.html in a browser to switch between the sets while playing; start at a low volume. Each set's own listening page is in its folder.\n`);
+      io.stdout(`${where}/index.html\n`);
+    }
   });
+}
+
+/** Folder of set `index` inside the comparison folder: a, b, c, … */
+const setFolder = (index: number): string => String.fromCharCode('a'.charCodeAt(0) + index);
+const setLabel = (index: number): string => String.fromCharCode('A'.charCodeAt(0) + index);
+
+/**
+ * Render every matched wiring on every set (each set in its own folder,
+ * with its own listening page) and write the comparison page beside them.
+ */
+async function renderComparison(base: Guitar, comparisons: readonly GuitarComparison[], files: readonly string[], options: CompareOptions, io: Io) {
+  const first = comparisons[0] as GuitarComparison;
+  const root = resolve(io.cwd, options.output ?? defaultOutputRoot('.', `${base.name} compared`));
+  const rowsA = first.base.wirings.filter((_, indexA) => comparisons.every((comparison) => comparison.wirings.some((wiring) => wiring.indexA === indexA)));
+  const sets: Array<{ guitar: Guitar; all: readonly Wiring[]; selected: Wiring[] }> = [
+    { guitar: base, all: first.base.wirings, selected: [...rowsA] },
+    ...comparisons.map((comparison) => {
+      const byA = new Map(comparison.wirings.map((wiring) => [wiring.indexA, wiring.indexB]));
+      const selected = rowsA.map((wiring) => comparison.candidate.wirings[byA.get(wiring.number - 1) ?? -1] as Wiring);
+      return { guitar: comparison.candidate.guitar, all: comparison.candidate.wirings, selected: [...selected].sort((a, b) => a.number - b.number) };
+    }),
+  ];
+  const progress = createProgress(io);
+  const outcomes: RenderOutcome[] = [];
+  for (const [index, set] of sets.entries()) {
+    const parsed = parseRenderOptions(
+      { chain: options.chain, phrase: options.phrase, volume: options.volume, tone: options.tone, cable: options.cable, mains: options.mains },
+      set.guitar,
+      set.all,
+      io,
+    );
+    io.stderr(`coilbench: rendering ${setLabel(index)} (${files[index] ?? set.guitar.name}): ${set.selected.length} wirings\n`);
+    outcomes.push(
+      await renderGuitar(
+        {
+          guitar: set.guitar,
+          all: set.all,
+          selected: set.selected,
+          phrase: parsed.phrase,
+          chain: parsed.chain,
+          sampleRateHz: parsed.sampleRateHz,
+          format: parsed.format,
+          level: 'true',
+          hum: null,
+          overrides: parsed.overrides,
+          seed: parsed.seed,
+          folder: outputFolder(join(root, setFolder(index))),
+          generator: `coilbench ${COILBENCH_VERSION}`,
+          thresholds: first.thresholds,
+        },
+        { onStage: (stage, total) => progress.stage(stage, total), onStep: (done, total) => progress.step(done, total) },
+      ),
+    );
+  }
+  progress.finish();
+  const report = comparisonReport(comparisons, sets, outcomes);
+  const folder = outputFolder(root);
+  await writeFileAtomic(join(root, 'comparison.json'), `${JSON.stringify(report, null, 2)}\n`);
+  await writeFileAtomic(folder.page, renderComparisonPage(report));
+  return { root, page: folder.page };
+}
+
+/** The data of the comparison page: entries per set (figures on the baseline's scale) and rows, biggest change first. */
+function comparisonReport(
+  comparisons: readonly GuitarComparison[],
+  sets: ReadonlyArray<{ guitar: Guitar; selected: readonly Wiring[] }>,
+  outcomes: readonly RenderOutcome[],
+): ComparisonReport {
+  const first = comparisons[0] as GuitarComparison;
+  const setReports: ComparisonSetReport[] = sets.map((set, index) => ({
+    label: setLabel(index),
+    name: set.guitar.name,
+    folder: setFolder(index),
+    render: (outcomes[index] as RenderOutcome).report.render,
+  }));
+  const entries: ComparisonEntry[] = [];
+  const entryIds = new Map<string, string>();
+  sets.forEach((set, index) => {
+    const outcome = outcomes[index] as RenderOutcome;
+    const compared = index === 0 ? first.base : (comparisons[index - 1] as GuitarComparison).candidate;
+    const humOf = new Map<number, number | null>();
+    if (index === 0) first.wirings.forEach((wiring) => humOf.set(wiring.indexA, wiring.humDb.a));
+    else (comparisons[index - 1] as GuitarComparison).wirings.forEach((wiring) => humOf.set(wiring.indexB, wiring.humDb.b));
+    for (const row of outcome.rows) {
+      const position = row.wiring.number - 1;
+      const id = `${setLabel(index)}:${row.wiring.id}`;
+      entryIds.set(`${index}:${position}`, id);
+      entries.push({
+        id,
+        set: index,
+        wiringId: row.wiring.id,
+        expression: row.wiring.expression,
+        wav: `${setFolder(index)}/${row.wav}`,
+        levelDb: compared.profiles.levelsDb[position] as number,
+        loudnessLufs: row.loudnessLufs,
+        brightnessHz: compared.profiles.brightnessHz[position] as number,
+        resonanceHz: row.circuit.resonanceHz,
+        humDb: humOf.get(position) ?? null,
+        humCancelling: row.circuit.humCancelling,
+      });
+    }
+  });
+  const rows: ComparisonRow[] = [];
+  for (const wiringA of sets[0]?.selected ?? []) {
+    const indexA = wiringA.number - 1;
+    const matches = comparisons.map((comparison) => comparison.wirings.find((wiring) => wiring.indexA === indexA));
+    const ids = [entryIds.get(`0:${indexA}`), ...matches.map((match, c) => (match ? entryIds.get(`${c + 1}:${match.indexB}`) : undefined))];
+    if (ids.some((id) => id === undefined)) continue;
+    rows.push({
+      key: wiringA.id,
+      number: wiringA.number,
+      expression: wiringA.expression,
+      description: wiringA.description,
+      entries: ids as string[],
+      differences: matches.map((match, c) => ({
+        set: c + 1,
+        distance: match?.distance ?? 0,
+        audible: match?.audible ?? false,
+        levelDb: match?.levelDb.change ?? null,
+        spectrumDb: match?.spectrumDb ?? 0,
+        brightnessPercent: match?.brightnessHz.change ?? null,
+        resonancePercent: match?.resonanceHz.change ?? null,
+        humDb: match?.humDb.change ?? null,
+      })),
+    });
+  }
+  const largest = (row: ComparisonRow): number => Math.max(...row.differences.map((difference) => difference.distance));
+  rows.sort((a, b) => largest(b) - largest(a) || a.number - b.number);
+  return {
+    generator: `coilbench ${COILBENCH_VERSION}`,
+    baseline: first.base.guitar.name,
+    thresholds: first.thresholds,
+    sets: setReports,
+    entries,
+    rows,
+  };
 }

@@ -1,0 +1,210 @@
+/**
+ * The comparison page: candidate pickup sets against a baseline, wiring by
+ * wiring, in one self-contained HTML document drawn from a comparison
+ * report. Pure: no I/O. Built like the listening page (render-listening-
+ * page.ts) from the same pieces — its style, its math, loader, player and
+ * blind-test scripts, its blind-test markup, glossary and cautions — with
+ * its own table and interface script (page-comparison-script.ts). Each
+ * set's audio stays in that set's render folder beside the page; the page
+ * loads only from there (its Content-Security-Policy allows scripts from
+ * the page and its folder and no connections).
+ */
+import { createHash } from 'node:crypto';
+import type { ComparisonDifference, ComparisonEntry, ComparisonReport, ComparisonRow } from './comparison-report.js';
+import { escapeHtml, serializeJsonForScript } from './escape-html.js';
+import { PAGE_BLIND_SCRIPT } from './page-blind-script.js';
+import { PAGE_COMPARISON_SCRIPT } from './page-comparison-script.js';
+import { PAGE_LOADER_SCRIPT } from './page-loader-script.js';
+import { PAGE_MATH_SCRIPT } from './page-math-script.js';
+import { PAGE_PLAYER_SCRIPT } from './page-player-script.js';
+import { renderCautionsSection, renderGlossarySection } from './page-sections.js';
+import { PAGE_STYLE } from './page-style.js';
+import { planComparisonGains } from './plan-comparison-gains.js';
+import { START_VOLUME, renderBlindTestSection } from './render-listening-page.js';
+
+/** Extra rules for the comparison table's set buttons (appended to the listening page's style). */
+const COMPARISON_STYLE = `
+.sets { display: flex; gap: 0.3rem; }
+.sets button { min-width: 2.4rem; font-weight: 700; }
+.sets button.is-current { background: var(--accent-soft); border-color: var(--accent); }
+.sets button.is-playing { background: var(--accent); color: #fff; }
+.changes { font-variant-numeric: tabular-nums; white-space: nowrap; }
+.changes .above { font-weight: 700; }
+.heard { font-weight: 700; }
+`;
+
+const MINUS = '\u2212';
+
+function sha256Base64(text: string): string {
+  return createHash('sha256').update(text, 'utf8').digest('base64');
+}
+
+function signed(value: number | null, digits: number, unit: string): string {
+  if (value === null || !Number.isFinite(value)) return '—';
+  const fixed = Math.abs(value).toFixed(digits);
+  if (Number(fixed) === 0) return `${(0).toFixed(digits)}${unit}`;
+  return `${value < 0 ? MINUS : '+'}${fixed}${unit}`;
+}
+
+function hertz(value: number | null): string {
+  return value === null || !Number.isFinite(value) ? '—' : `${Math.round(value)} Hz`;
+}
+
+/** One cell listing a figure for every candidate set ("B +1.2 dB"), bold where it reaches its threshold. */
+function changesCell(report: ComparisonReport, row: ComparisonRow, pick: (difference: ComparisonDifference) => { text: string; above: boolean }): string {
+  const parts = row.differences.map((difference) => {
+    const { text, above } = pick(difference);
+    const label = report.sets[difference.set]?.label ?? '?';
+    const words = report.sets.length > 2 ? `${escapeHtml(label)} ${escapeHtml(text)}` : escapeHtml(text);
+    return above ? `<span class="above">${words}</span>` : `<span>${words}</span>`;
+  });
+  return `<td class="changes">${parts.join('<br>')}</td>`;
+}
+
+function renderRow(report: ComparisonReport, row: ComparisonRow, entries: ReadonlyMap<string, ComparisonEntry>): string {
+  const { thresholds } = report;
+  const buttons = report.sets
+    .map((set, index) => {
+      const entry = entries.get(row.entries[index] ?? '');
+      const title = entry ? `${set.label}: ${set.name} · ${entry.wiringId} ${entry.expression}` : `${set.label}: not rendered`;
+      return `<button type="button" data-action="play-set" data-set="${index}" aria-pressed="false" title="${escapeHtml(title)}"${entry?.wav ? '' : ' disabled'}>${escapeHtml(set.label)}</button>`;
+    })
+    .join('');
+  const heard = row.differences.some((difference) => difference.audible);
+  const resonances = report.sets
+    .map((set, index) => `${escapeHtml(set.label)} ${escapeHtml(hertz(entries.get(row.entries[index] ?? '')?.resonanceHz ?? null))}`)
+    .join(' → ');
+  return (
+    `<tr data-row="${escapeHtml(row.key)}">` +
+    `<td class="number">${escapeHtml(row.key)}</td>` +
+    `<td class="wiring"><span class="description">${escapeHtml(row.description)}</span><span class="expression"><code>${escapeHtml(row.expression)}</code></span></td>` +
+    `<td><div class="sets" role="group" aria-label="Play on each set">${buttons}</div></td>` +
+    changesCell(report, row, (d) => ({ text: `${d.distance.toFixed(2)}×`, above: d.audible })) +
+    `<td class="heard">${heard ? 'yes' : 'no'}</td>` +
+    changesCell(report, row, (d) => ({ text: signed(d.levelDb, 1, ' dB'), above: d.levelDb !== null && Math.abs(d.levelDb) >= thresholds.levelDb })) +
+    changesCell(report, row, (d) => ({
+      text: signed(d.brightnessPercent, 1, ' %'),
+      above: d.brightnessPercent === null || Math.abs(Math.log1p(d.brightnessPercent / 100)) >= Math.log1p(thresholds.brightnessPercent / 100),
+    })) +
+    changesCell(report, row, (d) => ({ text: `${d.spectrumDb.toFixed(1)} dB`, above: d.spectrumDb >= thresholds.spectrumDb })) +
+    `<td class="changes">${resonances}</td>` +
+    changesCell(report, row, (d) => ({ text: signed(d.humDb, 1, ' dB'), above: false })) +
+    '<td><button type="button" data-action="blind-row">Blind test</button></td>' +
+    '</tr>'
+  );
+}
+
+function renderTable(report: ComparisonReport): string {
+  const entries = new Map(report.entries.map((entry) => [entry.id, entry]));
+  const candidates = report.sets.slice(1).map((set) => set.label).join(', ');
+  return (
+    '<table id="comparison-table" class="wirings">' +
+    `<caption class="visually-hidden">Every wiring on ${escapeHtml(report.sets.map((set) => set.label).join(' and '))}, biggest change first</caption>` +
+    '<thead><tr>' +
+    '<th scope="col">#</th><th scope="col">Wiring</th><th scope="col">Listen</th>' +
+    `<th scope="col">Change (${escapeHtml(candidates)} vs ${escapeHtml(report.sets[0]?.label ?? 'A')})</th><th scope="col">Heard?</th>` +
+    '<th scope="col">Level</th><th scope="col">Brightness</th><th scope="col">Spectrum</th><th scope="col">Resonant peak</th><th scope="col">Hum</th><th scope="col"><span class="visually-hidden">Blind test</span></th>' +
+    '</tr></thead>' +
+    `<tbody>${report.rows.map((row) => renderRow(report, row, entries)).join('')}</tbody></table>`
+  );
+}
+
+function renderTransport(report: ComparisonReport): string {
+  const duration = (report.sets[0]?.render.durationS ?? 0).toFixed(2);
+  return (
+    '<div id="transport" class="transport" role="region" aria-label="Player">' +
+    '<button type="button" id="transport-play" class="big-play" data-action="toggle" aria-label="Play" disabled><span aria-hidden="true" class="play-icon"></span></button>' +
+    '<div class="now"><span id="now-label">Press a set\'s letter on any row to listen</span><span id="now-detail"></span></div>' +
+    `<label class="scrub"><span class="visually-hidden">Position in the phrase</span><input type="range" id="scrub" min="0" max="${duration}" step="0.01" value="0"></label>` +
+    `<output id="time" aria-live="off">0.00 s / ${duration} s</output>` +
+    '<label class="check level-switch"><input type="checkbox" id="match-level" data-action="level-mode" checked> Level matched</label>' +
+    `<label class="volume">Volume <input type="range" id="volume" min="0" max="1" step="0.01" value="${START_VOLUME}"></label>` +
+    '<output id="level-note" class="level-note"></output>' +
+    '</div>'
+  );
+}
+
+function renderSetsList(report: ComparisonReport): string {
+  const items = report.sets
+    .map(
+      (set, index) =>
+        `<li><strong>${escapeHtml(set.label)}</strong>${index === 0 ? ' (baseline)' : ''}: ${escapeHtml(set.name)} · ` +
+        `<a href="${escapeHtml(`${set.folder}/index.html`)}">its own listening page</a></li>`,
+    )
+    .join('');
+  return `<ul class="set-list">${items}</ul>`;
+}
+
+/** The comparison page for a report, as one HTML document. */
+export function renderComparisonPage(report: ComparisonReport): string {
+  const script = ["'use strict';", PAGE_MATH_SCRIPT, PAGE_LOADER_SCRIPT, PAGE_PLAYER_SCRIPT, PAGE_BLIND_SCRIPT, PAGE_COMPARISON_SCRIPT].join('\n');
+  const style = `${PAGE_STYLE}${COMPARISON_STYLE}`;
+  const policy = [
+    "default-src 'none'",
+    `script-src 'sha256-${sha256Base64(script)}' 'self'`,
+    `style-src 'sha256-${sha256Base64(style)}'`,
+    "img-src data:",
+    "media-src 'self'",
+    "connect-src 'none'",
+    "base-uri 'none'",
+    "form-action 'none'",
+  ].join('; ');
+  const { thresholds } = report;
+  const first = report.sets[0];
+  const render = first?.render;
+  const heard = report.rows.filter((row) => row.differences.some((difference) => difference.audible)).length;
+  const title = `${report.baseline}: pickup sets compared`;
+  const choices = report.entries.map((entry) => ({
+    id: entry.id,
+    label: `${report.sets[entry.set]?.label ?? '?'} · ${entry.wiringId} ${entry.expression}`,
+  }));
+  const data = { report, gains: planComparisonGains(report) };
+  return `<!doctype html>
+<html lang="en">
+<head>
+<meta charset="utf-8">
+<meta name="viewport" content="width=device-width, initial-scale=1">
+<meta http-equiv="Content-Security-Policy" content="${escapeHtml(policy)}">
+<meta name="generator" content="${escapeHtml(report.generator)}">
+<link rel="icon" href="data:,">
+<title>${escapeHtml(title)}</title>
+<style>${style}</style>
+</head>
+<body>
+<a class="skip" href="#compared">Skip to the wirings</a>
+<header class="masthead">
+<p class="kicker">coilbench comparison page</p>
+<h1>${escapeHtml(title)}</h1>
+<p class="lede">The same ${report.rows.length} wirings on ${report.sets.length} pickup sets, each rendered from the same playing (${escapeHtml(render?.phrase ?? '')}, ${escapeHtml(render?.chain ?? '')} chain). ${heard} of them change audibly on ${escapeHtml(report.sets.slice(1).map((set) => set.label).join(' or '))}.</p>
+${renderSetsList(report)}
+<p class="warn-volume">Turn your speakers or headphones down before you press play.</p>
+</header>
+<noscript><p class="noscript">Playing and the blind test need JavaScript; the table and notes below work without it.</p></noscript>
+<main>
+<section id="start" class="start" aria-labelledby="start-title">
+<h2 id="start-title">Start here</h2>
+<ol>
+<li><strong>Switch sets while it plays.</strong> Press ${escapeHtml(report.sets.map((set) => set.label).join(' or '))} on a row: the sound moves to that set at the same point in the phrase, at the same loudness. Keys: Space plays and pauses, ${escapeHtml(report.sets.map((set) => set.label).join(', '))} switch sets, ↑ ↓ change wiring.</li>
+<li><strong>Biggest changes first.</strong> <em>Change</em> is the largest difference over its just-noticeable threshold: 1× is just noticeable (level ${escapeHtml(String(thresholds.levelDb))} dB, spectrum ${escapeHtml(String(thresholds.spectrumDb))} dB, brightness ${escapeHtml(String(thresholds.brightnessPercent))} %). Bold figures reach their threshold.</li>
+<li><strong>Trust your ears, not the numbers.</strong> Press <em>Blind test</em> on a row to hear the two sets without knowing which is which.</li>
+</ol>
+</section>
+<section id="compared" aria-labelledby="compared-title">
+<h2 id="compared-title">Every wiring, set against set</h2>
+<div class="scroll table-wrap">
+${renderTable(report)}
+</div>
+<p class="notes">Level: the candidate's wiring against the baseline's, both on the baseline's scale (its average single coil is 0 dB). Brightness: power-weighted spectral centroid of the strum. Spectrum: level-matched difference over ERB bands. Hum: against the baseline's average single coil. Resonant peak: where the circuit boosts most.</p>
+</section>
+${renderBlindTestSection(choices, 'Choose a wiring on each set (a row\'s Blind test button picks its two sets). Each trial plays X, secretly one of A or B, at matched level; listen to A, B and X as often as you like, switching at the same point in the phrase, then say which one X is. ')}
+${renderGlossarySection()}
+${renderCautionsSection()}
+</main>
+<footer class="footer"><p>Made with coilbench. Renders are models of pickups that may differ from real ones: try a candidate set by ear before you buy and fit it.</p></footer>
+${renderTransport(report)}
+<script type="application/json" id="comparison-data">${serializeJsonForScript(data)}</script>
+<script>${script}</script>
+</body>
+</html>
+`;
+}
