@@ -115,10 +115,11 @@ function solveExact(problem: MaxMinSubsetProblem, need: number, cap: number, mus
       table[j * n + i] = d;
     }
   }
+  const positionOf = new Map(candidates.map((item, index) => [item, index]));
   const tabled = (a: number, b: number): number => {
-    const i = position(candidates, a);
-    const j = position(candidates, b);
-    if (i >= 0 && j >= 0) return i === j ? 0 : (table[i * n + j] as number);
+    const i = positionOf.get(a);
+    const j = positionOf.get(b);
+    if (i !== undefined && j !== undefined) return i === j ? 0 : (table[i * n + j] as number);
     return problem.distance(a, b);
   };
   // A feasible set from the heuristic bounds the search from below (and is the answer if the budget runs out).
@@ -229,15 +230,6 @@ function solveExact(problem: MaxMinSubsetProblem, need: number, cap: number, mus
   const members = [...include, ...best.clique.map((index) => candidates[index] as number)];
   return { members, minDistance: smallestPairDistance(members, problem.distance), method: 'exact' };
 }
-
-let positionCache: { list: readonly number[]; map: Map<number, number> } | null = null;
-/** Index of `item` in `list` (cached for the last list). */
-function position(list: readonly number[], item: number): number {
-  if (positionCache === null || positionCache.list !== list) positionCache = { list, map: new Map(list.map((value, index) => [value, index])) };
-  return positionCache.map.get(item) ?? -1;
-}
-
-
 
 /**
  * Greedy sequential colouring of `pool` (each vertex takes the first colour
