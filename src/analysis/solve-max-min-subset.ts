@@ -135,9 +135,9 @@ function solveExact(problem: MaxMinSubsetProblem, need: number, cap: number, mus
     for (let i = 0; i < n; i += 1) for (let j = i + 1; j < n; j += 1) consider(Math.min(table[i * n + j] as number, toInclude[i] as number, toInclude[j] as number, cap));
   }
   const levels = [...values].filter((value) => value > mustExceed && value <= cap).sort((a, b) => a - b);
-  const words = (n + 31) >>> 5;
-  const adjacency = new Uint32Array(n * words);
-  const linked = (v: number, u: number): boolean => (((adjacency[v * words + (u >>> 5)] as number) >>> (u & 31)) & 1) === 1;
+  // adjacency[v·n + u] = 1 when candidates v and u are at least the current level apart.
+  const adjacency = new Uint8Array(n * n);
+  const linked = (v: number, u: number): boolean => adjacency[v * n + u] === 1;
   let nodes = 0;
   let eligible: number[] = [];
 
@@ -147,8 +147,8 @@ function solveExact(problem: MaxMinSubsetProblem, need: number, cap: number, mus
     for (let i = 0; i < n; i += 1) {
       for (let j = i + 1; j < n; j += 1) {
         if ((table[i * n + j] as number) >= t) {
-          adjacency[i * words + (j >>> 5)] = (adjacency[i * words + (j >>> 5)] as number) | (1 << (j & 31));
-          adjacency[j * words + (i >>> 5)] = (adjacency[j * words + (i >>> 5)] as number) | (1 << (i & 31));
+          adjacency[i * n + j] = 1;
+          adjacency[j * n + i] = 1;
         }
       }
     }
