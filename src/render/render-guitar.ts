@@ -152,6 +152,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   const scratch = join(folder.root, '.scratch');
   rmSync(scratch, { recursive: true, force: true });
   mkdirSync(scratch, { recursive: true });
+  activeScratchFolders.add(scratch);
 
   const manifest = readManifest<Entry>(folder.manifest);
   const entries: Record<string, Entry> = { ...manifest.entries };
@@ -254,6 +255,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     }
     step += 1;
     events.onStep?.(step, needed.length);
+    await saveManifest(false);
   }
   await saveManifest();
   const audioMetrics = referLevels(request.all, raw);
@@ -313,6 +315,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   }
   await saveManifest();
   rmSync(scratch, { recursive: true, force: true });
+  activeScratchFolders.delete(scratch);
 
   // Netlists, one per rendered wiring (written only when their text changed).
   for (const wiring of selected) {
@@ -385,6 +388,15 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   await writeFileAtomic(folder.reportJson, `${JSON.stringify(report, null, 2)}\n`);
   await writeFileAtomic(folder.page, renderListeningPage(report));
   return { report, rows, written, skipped, commonGainDb, matchedLoudnessLufs, audioSeconds };
+}
+
+/** Scratch folders of renders in progress, so an interrupt handler can remove their parked audio. */
+const activeScratchFolders = new Set<string>();
+
+/** Remove the parked audio of every render in progress (for a SIGINT handler; the next run starts afresh). */
+export function removeScratchFoldersSync(): void {
+  for (const folder of activeScratchFolders) rmSync(folder, { recursive: true, force: true });
+  activeScratchFolders.clear();
 }
 
 /** Wirings reordered so those sharing a network shape are adjacent (stable within a shape). */
