@@ -58,6 +58,8 @@ import { removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
 
 /** Bump when the sound of a render changes for the same inputs (string model, pickup, chain), so old files are redone. */
 export const RENDER_MODEL_VERSION = 1;
+/** File writes allowed to run in the background at once (each holds one encoded file in memory). */
+const MAX_PENDING_WRITES = 4;
 /** Least time between manifest saves while writing files, ms: an interrupted run loses at most this much record (the files themselves are always whole). */
 const MANIFEST_SAVE_INTERVAL_MS = 250;
 /** Points of the response curves drawn on the listening page (log-spaced, 20 Hz–20 kHz). */
@@ -280,6 +282,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   }
 
   // Pass 2: final files.
+  const writes = createWriteQueue(MAX_PENDING_WRITES);
   events.onStage?.('writing', selected.length);
   let written = 0;
   let skipped = 0;
@@ -305,14 +308,18 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
           software: request.generator,
         },
       });
-      await writeFileAtomic(path, bytes);
-      await writeFileAtomic(pageAudio, renderPageAudioScript(wiring.id, bytes));
-      Object.assign(entry, { fileHash, file: name });
+      // Written in the background while the next wiring is prepared; the manifest records a file only once it is whole.
+      await writes.add(async () => {
+        await writeFileAtomic(path, bytes);
+        await writeFileAtomic(pageAudio, renderPageAudioScript(wiring.id, bytes));
+        Object.assign(entry, { fileHash, file: name });
+      });
       await saveManifest(false);
       written += 1;
     }
     events.onStep?.(index + 1, selected.length);
   }
+  await writes.drain();
   await saveManifest();
   rmSync(scratch, { recursive: true, force: true });
   activeScratchFolders.delete(scratch);
@@ -321,8 +328,9 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   for (const wiring of selected) {
     const path = join(folder.netlistFolder, netlistFileName(wiring));
     const text = renderNetlist(guitar, wiring, request.overrides);
-    if (!existsSync(path) || readFileSync(path, 'utf8') !== text) await writeFileAtomic(path, text);
+    if (!existsSync(path) || readFileSync(path, 'utf8') !== text) await writes.add(() => writeFileAtomic(path, text));
   }
+  await writes.drain();
 
   // Circuit metrics and response curves.
   const circuit = measureCircuitMetrics(guitar, request.all, request.overrides);
@@ -388,6 +396,35 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   await writeFileAtomic(folder.reportJson, `${JSON.stringify(report, null, 2)}\n`);
   await writeFileAtomic(folder.page, renderListeningPage(report));
   return { report, rows, written, skipped, commonGainDb, matchedLoudnessLufs, audioSeconds };
+}
+
+/**
+ * Runs file writes in the background, at most `limit` at a time: `add` waits
+ * only when the queue is full, `drain` waits for everything. The first
+ * failure is thrown by the next `add` or by `drain`.
+ */
+function createWriteQueue(limit: number): { add(write: () => Promise<void>): Promise<void>; drain(): Promise<void> } {
+  const pending = new Set<Promise<void>>();
+  let failure: unknown;
+  const settle = async (): Promise<void> => {
+    if (failure !== undefined) throw failure;
+  };
+  return {
+    async add(write) {
+      while (pending.size >= limit) await Promise.race(pending);
+      await settle();
+      const task: Promise<void> = write()
+        .catch((error: unknown) => {
+          failure ??= error;
+        })
+        .finally(() => pending.delete(task));
+      pending.add(task);
+    },
+    async drain() {
+      await Promise.all(pending);
+      await settle();
+    },
+  };
 }
 
 /** Scratch folders of renders in progress, so an interrupt handler can remove their parked audio. */

@@ -81,6 +81,8 @@ interface SampleCoding {
 
 /** Bytes per sample of 24-bit PCM. */
 const PCM24_BYTES = 3;
+/** Half a quantisation step, for rounding half away from zero. */
+const HALF = 0.5;
 const CODINGS: Readonly<Record<WavFormat, SampleCoding>> = Object.freeze({
   pcm16: { tag: WAVE_FORMAT_PCM, bytesPerSample: 2, fmtBytes: PCM_FMT_BYTES, hasFact: false },
   pcm24: { tag: WAVE_FORMAT_PCM, bytesPerSample: PCM24_BYTES, fmtBytes: PCM_FMT_BYTES, hasFact: false },
@@ -241,24 +243,25 @@ function writeSamples(
   const fullScale = pcmFullScale(bytesPerSample);
   channels.forEach((channel, channelIndex) => {
     const first = start + channelIndex * bytesPerSample;
-    for (let n = 0; n < channel.length; n += 1) {
-      if (!Number.isFinite(channel[n] as number)) throw InputError.at(`channels[${channelIndex}][${n}]`, 'a finite sample', channel[n]);
-    }
     if (format === 'f32') {
       for (let n = 0, offset = first; n < channel.length; n += 1, offset += stride) {
-        view.setFloat32(offset, Math.max(-1, Math.min(1, channel[n] as number)), true);
+        const sample = channel[n] as number;
+        if (!Number.isFinite(sample)) throw InputError.at(`channels[${channelIndex}][${n}]`, 'a finite sample', sample);
+        view.setFloat32(offset, sample > 1 ? 1 : sample < -1 ? -1 : sample, true);
       }
       return;
     }
-    // Little-endian two's complement, low byte first; the same arithmetic as quantizeSample, inlined for speed.
+    // Little-endian two's complement, low byte first. The arithmetic of quantizeSample inlined:
+    // clip, scale, round half away from zero (x ± 0.5 truncated towards zero by `| 0`; |x| < 2^31).
+    const wide = bytesPerSample === PCM24_BYTES;
     for (let n = 0, offset = first; n < channel.length; n += 1, offset += stride) {
-      let scaled = (channel[n] as number) * fullScale;
-      if (scaled > fullScale) scaled = fullScale;
-      else if (scaled < -fullScale) scaled = -fullScale;
-      const value = scaled < 0 ? -Math.round(-scaled) : Math.round(scaled);
+      const sample = channel[n] as number;
+      if (!Number.isFinite(sample)) throw InputError.at(`channels[${channelIndex}][${n}]`, 'a finite sample', sample);
+      const scaled = (sample > 1 ? 1 : sample < -1 ? -1 : sample) * fullScale;
+      const value = (scaled < 0 ? scaled - HALF : scaled + HALF) | 0;
       bytes[offset] = value & BYTE_MASK;
       bytes[offset + 1] = (value >> BITS_PER_BYTE) & BYTE_MASK;
-      if (bytesPerSample === PCM24_BYTES) bytes[offset + 2] = (value >> (2 * BITS_PER_BYTE)) & BYTE_MASK;
+      if (wide) bytes[offset + 2] = (value >> (2 * BITS_PER_BYTE)) & BYTE_MASK;
     }
   });
 }
