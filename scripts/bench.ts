@@ -9,6 +9,7 @@ import { benchDistinct } from './bench/distinct.js';
 import { benchEnumerate } from './bench/enumerate.js';
 import { benchListeningPage } from './bench/listening-page.js';
 import { benchMeasures } from './bench/measures.js';
+import { benchRender } from './bench/render.js';
 import { benchStrings } from './bench/strings.js';
 
 console.log(`coilbench bench — node ${process.version}, ${cpus().length} cores (${cpus()[0]?.model ?? 'unknown cpu'})`);
@@ -18,4 +19,5 @@ await benchMeasures();
 await benchChain();
 await benchCircuit();
 benchListeningPage();
+benchRender();
 benchDistinct();

@@ -26,7 +26,7 @@ export {
 } from './write-file-atomic.js';
 export { defaultOutputRoot, outputFolder, wavFileName, netlistFileName } from './output-folder.js';
 export type { OutputFolder } from './output-folder.js';
-export { renderGuitar, RENDER_MODEL_VERSION, RESPONSE_POINTS } from './render-guitar.js';
+export { renderGuitar, removeScratchFoldersSync, RENDER_MODEL_VERSION, RESPONSE_POINTS } from './render-guitar.js';
 export type { HumMix, RenderEvents, RenderOutcome, RenderRequest, RenderedWiring } from './render-guitar.js';
 export { measureWiringAudio, measureRawAudio, referLevels, prepareReferenceSynthesis, REFERENCE_PHRASE, REFERENCE_SAMPLE_RATE_HZ, RENDER_TAIL_S } from './measure-wiring-audio.js';
 export type { AudioMetrics, RawAudioMetrics } from './measure-wiring-audio.js';

@@ -12,7 +12,7 @@ import { measureCentroid, measureEnergy, measureLevelDb, measureLoudness } from 
 import type { Guitar } from '../guitar/index.js';
 import { builtInPhrase } from '../string/index.js';
 import type { Wiring } from '../wiring/index.js';
-import { type WiringSynthesis, prepareWiringSynthesis } from './synthesize-wirings.js';
+import { type WiringSynthesis, prepareWiringSynthesis, shapeKey } from './synthesize-wirings.js';
 
 /** The reference performance for metrics (DESIGN.md, phrases). */
 export const REFERENCE_PHRASE = 'strum';
@@ -91,10 +91,12 @@ export function measureWiringAudio(
   const todo = new Map<string, Wiring>();
   for (const wiring of all) if (wiring.elements.length === 1) todo.set(wiring.id, wiring);
   for (const wiring of wanted) todo.set(wiring.id, wiring);
+  // Phase patterns of one shape share their transfers (see synthesize-wirings.ts): take them together.
+  const ordered = [...todo.values()].sort((a, b) => (shapeKey(a.network) < shapeKey(b.network) ? -1 : shapeKey(a.network) > shapeKey(b.network) ? 1 : 0));
   const raw = new Map<string, RawAudioMetrics>();
   const buffer = new Float32Array(synthesis.length);
   let done = 0;
-  for (const wiring of todo.values()) {
+  for (const wiring of ordered) {
     raw.set(wiring.id, measureRawAudio(synthesis.synthesize(wiring.network, buffer), synthesis.sampleRateHz));
     done += 1;
     onProgress?.(done, todo.size);

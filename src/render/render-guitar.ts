@@ -10,7 +10,8 @@
  * made from, so a re-run skips what is complete and unchanged and an
  * interrupted run is completed by the next one.
  */
-import { mkdirSync, readFileSync, rmSync, writeFileSync, existsSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { performance } from 'node:perf_hooks';
 import { basename, join, relative } from 'node:path';
 import {
   type CircuitOverrides,
@@ -52,12 +53,16 @@ import {
 import { type OutputFolder, netlistFileName, wavFileName } from './output-folder.js';
 import { gainToDb, planMatchedGains, planTrueLevelGain } from './plan-gains.js';
 import { MANIFEST_VERSION, type Manifest, hashOf, readManifest } from './render-manifest.js';
-import { type WiringSynthesis, assertAudible, prepareWiringSynthesis } from './synthesize-wirings.js';
+import { type WiringSynthesis, assertAudible, prepareWiringSynthesis, shapeKey } from './synthesize-wirings.js';
 import { type WavFormat, encodeWav } from './wav-file.js';
 import { removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
 
 /** Bump when the sound of a render changes for the same inputs (string model, pickup, chain), so old files are redone. */
 export const RENDER_MODEL_VERSION = 1;
+/** File writes allowed to run in the background at once (each holds one encoded file in memory). */
+const MAX_PENDING_WRITES = 4;
+/** Least time between manifest saves while writing files, ms: an interrupted run loses at most this much record (the files themselves are always whole). */
+const MANIFEST_SAVE_INTERVAL_MS = 250;
 /** Points of the response curves drawn on the listening page (log-spaced, 20 Hz–20 kHz). */
 export const RESPONSE_POINTS = 96;
 
@@ -125,8 +130,8 @@ interface Entry {
   metricsHash?: string;
   metrics?: RawAudioMetrics;
   audioHash?: string;
-  /** Peak and loudness of the processed audio before gain. */
-  audio?: { peak: number; loudnessLufs: number };
+  /** Peak and (for matched files) loudness of the processed audio before gain. */
+  audio?: { peak: number; loudnessLufs: number | null };
   fileHash?: string;
   file?: string;
 }
@@ -154,12 +159,16 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   const scratch = join(folder.root, '.scratch');
   rmSync(scratch, { recursive: true, force: true });
   mkdirSync(scratch, { recursive: true });
+  activeScratchFolders.add(scratch);
 
   const manifest = readManifest<Entry>(folder.manifest);
   const entries: Record<string, Entry> = { ...manifest.entries };
-  const saveManifest = async (): Promise<void> => {
+  let lastSave = performance.now();
+  const saveManifest = async (force = true): Promise<void> => {
+    if (!force && performance.now() - lastSave < MANIFEST_SAVE_INTERVAL_MS) return;
     const document: Manifest<Entry> = { version: MANIFEST_VERSION, entries };
     await writeFileAtomic(folder.manifest, JSON.stringify(document));
+    lastSave = performance.now();
   };
 
   const sound = soundOf(guitar);
@@ -213,7 +222,8 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
 
   // Pass 1: metrics (reference render) and processed audio (file render) for every wiring needed.
   const selectedIds = new Set(request.selected.map((wiring) => wiring.id));
-  const needed = [...request.all.filter((wiring) => wiring.elements.length === 1 || selectedIds.has(wiring.id))];
+  // Phase patterns of one network shape share their transfers: render them one after another.
+  const needed = groupByShape(request.all.filter((wiring) => wiring.elements.length === 1 || selectedIds.has(wiring.id)));
   const raw = new Map<string, RawAudioMetrics>();
   const scratchFiles = new Map<string, string>();
   events.onStage?.('rendering', needed.length);
@@ -233,20 +243,26 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     }
     if (selectedIds.has(wiring.id)) {
       const audioHash = audioHashOf(wiring);
-      if (entry.audioHash !== audioHash || !entry.audio) {
+      const missingLoudness = request.level === 'matched' && entry.audio?.loudnessLufs === null;
+      if (entry.audioHash !== audioHash || !entry.audio || missingLoudness) {
         const processed = await processedAudio(wiring, direct);
         const path = join(scratch, `${wiring.id}.f32`);
         writeFileSync(path, new Uint8Array(processed.buffer, processed.byteOffset, processed.byteLength));
         scratchFiles.set(wiring.id, path);
         Object.assign(entry, {
           audioHash,
-          audio: { peak: peakOf(processed), loudnessLufs: measureLoudness([processed], request.sampleRateHz) },
+          audio: {
+            peak: peakOf(processed),
+            // Only loudness-matched files need the processed audio's loudness.
+            loudnessLufs: request.level === 'matched' ? measureLoudness([processed], request.sampleRateHz) : null,
+          },
           fileHash: undefined,
         });
       }
     }
     step += 1;
     events.onStep?.(step, needed.length);
+    await saveManifest(false);
   }
   await saveManifest();
   const audioMetrics = referLevels(request.all, raw);
@@ -262,12 +278,16 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     gains = selected.map(() => gain);
     commonGainDb = gainToDb(gain);
   } else {
-    const planned = planMatchedGains(selected.map((wiring) => entries[wiring.expression]?.audio?.loudnessLufs ?? Number.NaN), peaks);
+    const planned = planMatchedGains(
+      selected.map((wiring) => entries[wiring.expression]?.audio?.loudnessLufs ?? Number.NaN),
+      peaks,
+    );
     gains = [...planned.gains];
     matchedLoudnessLufs = Number.isFinite(planned.targetLufs) ? planned.targetLufs : null;
   }
 
   // Pass 2: final files.
+  const writes = createWriteQueue(MAX_PENDING_WRITES);
   events.onStage?.('writing', selected.length);
   let written = 0;
   let skipped = 0;
@@ -293,22 +313,29 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
           software: request.generator,
         },
       });
-      await writeFileAtomic(path, bytes);
-      await writeFileAtomic(pageAudio, renderPageAudioScript(wiring.id, bytes));
-      Object.assign(entry, { fileHash, file: name });
-      await saveManifest();
+      // Written in the background while the next wiring is prepared; the manifest records a file only once it is whole.
+      await writes.add(async () => {
+        await writeFileAtomic(path, bytes);
+        await writeFileAtomic(pageAudio, renderPageAudioScript(wiring.id, bytes));
+        Object.assign(entry, { fileHash, file: name });
+      });
+      await saveManifest(false);
       written += 1;
     }
     events.onStep?.(index + 1, selected.length);
   }
+  await writes.drain();
+  await saveManifest();
   rmSync(scratch, { recursive: true, force: true });
+  activeScratchFolders.delete(scratch);
 
   // Netlists, one per rendered wiring (written only when their text changed).
   for (const wiring of selected) {
     const path = join(folder.netlistFolder, netlistFileName(wiring));
     const text = renderNetlist(guitar, wiring, request.overrides);
-    if (!existsSync(path) || readFileSync(path, 'utf8') !== text) await writeFileAtomic(path, text);
+    if (!existsSync(path) || readFileSync(path, 'utf8') !== text) await writes.add(() => writeFileAtomic(path, text));
   }
+  await writes.drain();
 
   // Circuit metrics and response curves.
   const circuit = measureCircuitMetrics(guitar, request.all, request.overrides);
@@ -392,6 +419,54 @@ function reportGroups(all: readonly Wiring[], distinct: Distinctness): ReportGro
       expressions: group.members.map((member) => all[member]?.expression ?? '?'),
     })),
   };
+}
+
+/**
+ * Runs file writes in the background, at most `limit` at a time: `add` waits
+ * only when the queue is full, `drain` waits for everything. The first
+ * failure is thrown by the next `add` or by `drain`.
+ */
+function createWriteQueue(limit: number): { add(write: () => Promise<void>): Promise<void>; drain(): Promise<void> } {
+  const pending = new Set<Promise<void>>();
+  let failure: unknown;
+  const settle = async (): Promise<void> => {
+    if (failure !== undefined) throw failure;
+  };
+  return {
+    async add(write) {
+      while (pending.size >= limit) await Promise.race(pending);
+      await settle();
+      const task: Promise<void> = write()
+        .catch((error: unknown) => {
+          failure ??= error;
+        })
+        .finally(() => pending.delete(task));
+      pending.add(task);
+    },
+    async drain() {
+      await Promise.all(pending);
+      await settle();
+    },
+  };
+}
+
+/** Scratch folders of renders in progress, so an interrupt handler can remove their parked audio. */
+const activeScratchFolders = new Set<string>();
+
+/** Remove the parked audio of every render in progress (for a SIGINT handler; the next run starts afresh). */
+export function removeScratchFoldersSync(): void {
+  for (const folder of activeScratchFolders) rmSync(folder, { recursive: true, force: true });
+  activeScratchFolders.clear();
+}
+
+/** Wirings reordered so those sharing a network shape are adjacent (stable within a shape). */
+function groupByShape(wirings: readonly Wiring[]): Wiring[] {
+  const groups = new Map<string, Wiring[]>();
+  for (const wiring of wirings) {
+    const key = shapeKey(wiring.network);
+    groups.set(key, [...(groups.get(key) ?? []), wiring]);
+  }
+  return [...groups.values()].flat();
 }
 
 function readScratch(path: string): Float32Array {

@@ -69,21 +69,45 @@ export function prepareWiringSynthesis(guitar: Guitar, phrase: Phrase, options: 
   const time = new Float64Array(fftSize);
   const length = strings.length;
 
-  const synthesize = (network: Network, out = new Float32Array(length)): Float32Array => {
-    solveTransfers(circuit, network, transfers);
-    output.fill(0);
+  // A wiring's phases only flip the signs of its coils' transfers (T_i carries p_i), so the
+  // products T_i·E_i of the unsigned network are kept for the last shape rendered, and each
+  // phase pattern of that shape costs a signed sum and one inverse FFT.
+  const products = guitar.coils.map(() => new Float64Array(2 * fft.bins));
+  const used = new Uint8Array(guitar.coils.length);
+  let cachedShape = '';
+  const solveShape = (network: Network): void => {
+    const shape = shapeKey(network);
+    if (shape === cachedShape) return;
+    solveTransfers(circuit, unsigned(network), transfers);
     transfers.forEach((transfer, coil) => {
       const emf = spectra[coil] as Float64Array;
-      // Y(f) += T_i(f)·E_i(f), complex product per bin.
-      for (let k = 0; k < output.length; k += 2) {
+      const product = products[coil] as Float64Array;
+      let any = 0;
+      // P_i(f) = T_i(f)·E_i(f), complex product per bin.
+      for (let k = 0; k < product.length; k += 2) {
         const tr = transfer[k] as number;
         const ti = transfer[k + 1] as number;
-        if (tr === 0 && ti === 0) continue;
         const er = emf[k] as number;
         const ei = emf[k + 1] as number;
-        output[k] = (output[k] as number) + tr * er - ti * ei;
-        output[k + 1] = (output[k + 1] as number) + tr * ei + ti * er;
+        product[k] = tr * er - ti * ei;
+        product[k + 1] = tr * ei + ti * er;
+        if (tr !== 0 || ti !== 0) any = 1;
       }
+      used[coil] = any;
+    });
+    cachedShape = shape;
+  };
+  const signs = new Float64Array(guitar.coils.length);
+
+  const synthesize = (network: Network, out = new Float32Array(length)): Float32Array => {
+    solveShape(network);
+    coilSigns(network, guitar, signs);
+    // Y(f) = Σ_i p_i·T_i(f)·E_i(f) with T_i of the unsigned network.
+    output.fill(0);
+    products.forEach((product, coil) => {
+      if (!used[coil]) return;
+      const sign = signs[coil] as number;
+      for (let k = 0; k < output.length; k += 1) output[k] = (output[k] as number) + sign * (product[k] as number);
     });
     fft.inverse(output, time);
     // The pickup spectra are delayed by `delay` samples so that every coil stays causal; undo it.
@@ -130,6 +154,30 @@ export function prepareWiringSynthesis(guitar: Guitar, phrase: Phrase, options: 
     synthesize,
     synthesizeHum,
   };
+}
+
+/** The network with every element in phase. */
+function unsigned(network: Network): Network {
+  if (network.kind === 'element') return network.inverted ? { ...network, inverted: false } : network;
+  return { kind: network.kind, parts: network.parts.map(unsigned) };
+}
+
+/** Key shared by the phase patterns of one network shape (canonical structure, phases left out). */
+export function shapeKey(network: Network): string {
+  if (network.kind === 'element') return String(network.element);
+  return `${network.kind === 'series' ? 's' : 'p'}(${network.parts.map(shapeKey).join(',')})`;
+}
+
+/** Phase sign p_i of every coil in the wiring (+1 for unused coils, which carry no signal). */
+function coilSigns(network: Network, guitar: Guitar, out: Float64Array): void {
+  out.fill(1);
+  const walk = (node: Network): void => {
+    if (node.kind === 'element') {
+      if (!node.inverted) return;
+      for (const coil of guitar.elements[node.element]?.coilIndices ?? []) out[coil] = -1;
+    } else node.parts.forEach(walk);
+  };
+  walk(network);
 }
 
 /** Refuse to render a guitar whose output is shorted (volume at 0): every file would be silence. */

@@ -79,9 +79,13 @@ interface SampleCoding {
   readonly hasFact: boolean;
 }
 
+/** Bytes per sample of 24-bit PCM. */
+const PCM24_BYTES = 3;
+/** Half a quantisation step, for rounding half away from zero. */
+const HALF = 0.5;
 const CODINGS: Readonly<Record<WavFormat, SampleCoding>> = Object.freeze({
   pcm16: { tag: WAVE_FORMAT_PCM, bytesPerSample: 2, fmtBytes: PCM_FMT_BYTES, hasFact: false },
-  pcm24: { tag: WAVE_FORMAT_PCM, bytesPerSample: 3, fmtBytes: PCM_FMT_BYTES, hasFact: false },
+  pcm24: { tag: WAVE_FORMAT_PCM, bytesPerSample: PCM24_BYTES, fmtBytes: PCM_FMT_BYTES, hasFact: false },
   f32: { tag: WAVE_FORMAT_IEEE_FLOAT, bytesPerSample: 4, fmtBytes: FLOAT_FMT_BYTES, hasFact: true },
 });
 
@@ -238,17 +242,26 @@ function writeSamples(
   const stride = channels.length * bytesPerSample;
   const fullScale = pcmFullScale(bytesPerSample);
   channels.forEach((channel, channelIndex) => {
-    let offset = start + channelIndex * bytesPerSample;
-    for (let n = 0; n < channel.length; n += 1, offset += stride) {
+    const first = start + channelIndex * bytesPerSample;
+    if (format === 'f32') {
+      for (let n = 0, offset = first; n < channel.length; n += 1, offset += stride) {
+        const sample = channel[n] as number;
+        if (!Number.isFinite(sample)) throw InputError.at(`channels[${channelIndex}][${n}]`, 'a finite sample', sample);
+        view.setFloat32(offset, sample > 1 ? 1 : sample < -1 ? -1 : sample, true);
+      }
+      return;
+    }
+    // Little-endian two's complement, low byte first. The arithmetic of quantizeSample inlined:
+    // clip, scale, round half away from zero (x ± 0.5 truncated towards zero by `| 0`; |x| < 2^31).
+    const wide = bytesPerSample === PCM24_BYTES;
+    for (let n = 0, offset = first; n < channel.length; n += 1, offset += stride) {
       const sample = channel[n] as number;
       if (!Number.isFinite(sample)) throw InputError.at(`channels[${channelIndex}][${n}]`, 'a finite sample', sample);
-      if (format === 'f32') {
-        view.setFloat32(offset, Math.max(-1, Math.min(1, sample)), true);
-      } else {
-        // Little-endian two's complement, low byte first (bytesPerSample of them).
-        const value = quantizeSample(sample, fullScale);
-        for (let byte = 0; byte < bytesPerSample; byte += 1) bytes[offset + byte] = (value >> (BITS_PER_BYTE * byte)) & BYTE_MASK;
-      }
+      const scaled = (sample > 1 ? 1 : sample < -1 ? -1 : sample) * fullScale;
+      const value = (scaled < 0 ? scaled - HALF : scaled + HALF) | 0;
+      bytes[offset] = value & BYTE_MASK;
+      bytes[offset + 1] = (value >> BITS_PER_BYTE) & BYTE_MASK;
+      if (wide) bytes[offset + 2] = (value >> (2 * BITS_PER_BYTE)) & BYTE_MASK;
     }
   });
 }

@@ -28,7 +28,7 @@ import {
 import { createProgress } from '../progress.js';
 import { readGuitarFile } from '../read-guitar.js';
 import { type AudioMetrics, REFERENCE_PHRASE, measureWiringAudio } from '../../render/index.js';
-import { writeFileAtomic } from '../write-file-atomic.js';
+import { writeFileAtomicSync } from '../../render/index.js';
 import { wiringRecord } from './wirings.js';
 
 interface AnalyzeOptions extends CircuitOptionText, AlikeOptionText {
@@ -137,7 +137,7 @@ export function registerAnalyze(program: Command, io: Io): void {
 
     if (options.csv !== undefined) {
       const path = resolve(io.cwd, options.csv);
-      writeFileAtomic(path, renderCsv(rows));
+      writeFileAtomicSync(path, renderCsv(rows));
       io.stderr(`coilbench: wrote ${options.csv} (${rows.length} wirings)\n`);
     }
     if (analysis.silent) io.stderr(`coilbench: note: ${SILENT_NOTE}\n`);

@@ -208,7 +208,8 @@ export async function runRender(file: string, guitar: Guitar, options: RenderOpt
 
 /** The summary line and where to look. */
 export function reportRender(io: Io, root: string, outcome: RenderOutcome, seconds: number): void {
-  const where = relative(io.cwd, root) || '.';
+  const nearby = relative(io.cwd, root);
+  const where = nearby === '' ? '.' : nearby.startsWith('..') ? root : nearby;
   const count = outcome.rows.length;
   const level =
     outcome.commonGainDb !== null
