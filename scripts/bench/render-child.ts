@@ -1,7 +1,7 @@
 /**
  * One render measured in a process of its own, so its peak memory is its own:
- * `tsx scripts/bench/render-child.ts <guitar> <chain>` prints
- * { wirings, seconds, audioSeconds, peakRssMb } as JSON.
+ * `tsx scripts/bench/render-child.ts <guitar> <chain> <threads> [cold|warm]` prints
+ * { wirings, seconds, warmSeconds, audioSeconds, peakRssMb } as JSON.
  */
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -12,13 +12,15 @@ import { type ChainName, outputFolder, renderGuitar } from '../../src/render/ind
 import { builtInPhrase } from '../../src/string/index.js';
 import { enumerateWirings } from '../../src/wiring/index.js';
 
-const [file = 'samples/three-single-coil.json', chain = 'direct'] = process.argv.slice(2);
+const [file = 'samples/three-single-coil.json', chain = 'direct', threadText = '2', repeat = 'cold'] = process.argv.slice(2);
 const guitar = parseGuitarText(readFileSync(file, 'utf8'), file);
 const all = enumerateWirings(guitar.elements);
-const root = mkdtempSync(join(tmpdir(), 'coilbench-bench-'));
-try {
-  const started = performance.now();
-  const outcome = await renderGuitar({
+/** One fresh render (empty folder, nothing cached); returns its wall time and audio seconds. */
+async function renderOnce(): Promise<{ seconds: number; audioSeconds: number }> {
+  const root = mkdtempSync(join(tmpdir(), 'coilbench-bench-'));
+  try {
+    const started = performance.now();
+    const outcome = await renderGuitar({
     guitar,
     all,
     selected: all,
@@ -32,10 +34,25 @@ try {
     seed: 1,
     folder: outputFolder(root),
     generator: 'coilbench bench',
-  });
-  const seconds = (performance.now() - started) / 1000;
-  const KILOBYTES_PER_MEGABYTE = 1024;
-  console.log(JSON.stringify({ wirings: all.length, seconds, audioSeconds: outcome.audioSeconds, peakRssMb: process.resourceUsage().maxRSS / KILOBYTES_PER_MEGABYTE }));
-} finally {
-  rmSync(root, { recursive: true, force: true });
+    threads: Number(threadText),
+    });
+    return { seconds: (performance.now() - started) / 1000, audioSeconds: outcome.audioSeconds };
+  } finally {
+    rmSync(root, { recursive: true, force: true });
+  }
 }
+
+const KILOBYTES_PER_MEGABYTE = 1024;
+// The first render in a fresh process pays for compiling the code (what `coilbench render` costs);
+// the second shows the steady rate of a longer session.
+const cold = await renderOnce();
+const warm = repeat === 'warm' ? await renderOnce() : null;
+console.log(
+  JSON.stringify({
+    wirings: all.length,
+    seconds: cold.seconds,
+    warmSeconds: warm?.seconds ?? null,
+    audioSeconds: cold.audioSeconds,
+    peakRssMb: process.resourceUsage().maxRSS / KILOBYTES_PER_MEGABYTE,
+  }),
+);

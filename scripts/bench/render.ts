@@ -6,33 +6,42 @@
  */
 import { spawnSync } from 'node:child_process';
 import { join } from 'node:path';
+import { defaultThreadCount } from '../../src/render/index.js';
 import { heading, line } from './timing.js';
 
 interface ChildResult {
   wirings: number;
   seconds: number;
+  warmSeconds: number | null;
   audioSeconds: number;
   peakRssMb: number;
 }
 
-function renderInChild(guitar: string, chain: string): ChildResult {
-  const child = spawnSync(process.execPath, ['--import', 'tsx', join(import.meta.dirname, 'render-child.ts'), guitar, chain], { encoding: 'utf8' });
+function renderInChild(guitar: string, chain: string, threads: number, repeat: 'cold' | 'warm'): ChildResult {
+  const child = spawnSync(process.execPath, ['--import', 'tsx', join(import.meta.dirname, 'render-child.ts'), guitar, chain, String(threads), repeat], {
+    encoding: 'utf8',
+  });
   if (child.status !== 0) throw new Error(`render bench failed: ${child.stderr}`);
   return JSON.parse(child.stdout.trim().split('\n').at(-1) ?? '{}') as ChildResult;
 }
 
 export function benchRender(): void {
-  heading('Rendering every wiring to files (strum, 48 kHz, 24-bit; one process per run)');
-  const cases: Array<[string, string]> = [
-    ['samples/three-single-coil.json', 'direct'],
-    ['samples/three-single-coil.json', 'drive'],
-    ['samples/humbucker-two-single-coil.json', 'direct'],
+  heading('Rendering every wiring to files (strum, 48 kHz, 24-bit, reports and page; one process per case)');
+  console.log('  first render in a fresh process (as `coilbench render` runs), then a second render in the same process');
+  const threads = defaultThreadCount();
+  const cases: Array<[string, string, number, 'cold' | 'warm']> = [
+    ['samples/three-single-coil.json', 'direct', threads, 'warm'],
+    ['samples/three-single-coil.json', 'drive', threads, 'warm'],
+    ['samples/humbucker-two-single-coil.json', 'direct', 1, 'cold'],
+    ['samples/humbucker-two-single-coil.json', 'direct', threads, 'cold'],
   ];
-  for (const [guitar, chain] of cases) {
-    const result = renderInChild(guitar, chain);
+  for (const [guitar, chain, threadCount, repeat] of cases) {
+    const result = renderInChild(guitar, chain, threadCount, repeat);
+    const rate = (seconds: number): string => `${(result.audioSeconds / seconds).toFixed(0)}×`;
+    const warm = result.warmSeconds === null ? '' : `; again ${result.warmSeconds.toFixed(2)} s, ${rate(result.warmSeconds)}`;
     line(
-      `${result.wirings} wirings, ${chain} chain`,
-      `${result.seconds.toFixed(2)} s for ${result.audioSeconds.toFixed(0)} s of audio: ${(result.audioSeconds / result.seconds).toFixed(0)}× real time, peak memory ${result.peakRssMb.toFixed(0)} MB`,
+      `${result.wirings} wirings, ${chain}, ${threadCount} thread${threadCount === 1 ? '' : 's'}`,
+      `${result.seconds.toFixed(2)} s for ${result.audioSeconds.toFixed(0)} s of audio: ${rate(result.seconds)} real time${warm}; peak memory ${result.peakRssMb.toFixed(0)} MB`,
     );
   }
 }

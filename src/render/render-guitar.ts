@@ -10,7 +10,7 @@
  * made from, so a re-run skips what is complete and unchanged and an
  * interrupted run is completed by the next one.
  */
-import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { performance } from 'node:perf_hooks';
 import { basename, join, relative } from 'node:path';
 import {
@@ -25,7 +25,7 @@ import {
   AUDIO_BAND_HIGH_HZ,
   AUDIO_BAND_LOW_HZ,
 } from '../circuit/index.js';
-import { type AlikeThresholds, type Distinctness, measureDistinctness, measureLoudness } from '../analysis/index.js';
+import { type AlikeThresholds, type Distinctness, measureDistinctness } from '../analysis/index.js';
 import type { Guitar } from '../guitar/index.js';
 import {
   type ListeningReport,
@@ -39,21 +39,20 @@ import {
 import type { Phrase } from '../string/index.js';
 import type { Wiring } from '../wiring/index.js';
 import type { ChainName } from './chain-name.js';
-import { renderEffectsChain } from './effects-chain.js';
 import {
   type RawAudioMetrics,
   REFERENCE_PHRASE,
   REFERENCE_SAMPLE_RATE_HZ,
   REFERENCE_SEED,
   RENDER_TAIL_S,
-  measureRawAudio,
-  prepareReferenceSynthesis,
   referLevels,
 } from './measure-wiring-audio.js';
+import { type AudioSettings, type HumMix, type PassItem, type WiringRenderer, createWiringRenderer } from './render-pass.js';
+import { defaultThreadCount, runRenderPassOnThreads } from './run-render-pass.js';
 import { type OutputFolder, netlistFileName, wavFileName } from './output-folder.js';
 import { gainToDb, planMatchedGains, planTrueLevelGain } from './plan-gains.js';
 import { MANIFEST_VERSION, type Manifest, hashOf, readManifest } from './render-manifest.js';
-import { type WiringSynthesis, assertAudible, prepareWiringSynthesis, shapeKey } from './synthesize-wirings.js';
+import { shapeKey } from './synthesize-wirings.js';
 import { type WavFormat, encodeWav } from './wav-file.js';
 import { removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
 
@@ -66,11 +65,7 @@ const MANIFEST_SAVE_INTERVAL_MS = 250;
 /** Points of the response curves drawn on the listening page (log-spaced, 20 Hz–20 kHz). */
 export const RESPONSE_POINTS = 96;
 
-export interface HumMix {
-  readonly mainsHz: 50 | 60;
-  /** Peak EMF the mains field induces in a coil of hum sensitivity 1, volts. */
-  readonly emfVolts: number;
-}
+export type { HumMix };
 
 export interface RenderRequest {
   readonly guitar: Guitar;
@@ -90,6 +85,8 @@ export interface RenderRequest {
   readonly folder: OutputFolder;
   /** Name of the generator for report.json ("coilbench 0.1.0"). */
   readonly generator: string;
+  /** Threads for the first pass (default: the machine's cores, at most two). */
+  readonly threads?: number;
   /** "Sounds alike" thresholds for the groups in the report (src/analysis defaults when absent). */
   readonly thresholds?: Partial<AlikeThresholds>;
 }
@@ -130,8 +127,8 @@ interface Entry {
   metricsHash?: string;
   metrics?: RawAudioMetrics;
   audioHash?: string;
-  /** Peak and (for matched files) loudness of the processed audio before gain. */
-  audio?: { peak: number; loudnessLufs: number | null };
+  /** Peak, length and (for matched files) loudness of the processed audio before gain. */
+  audio?: { peak: number; loudnessLufs: number | null; frames: number };
   fileHash?: string;
   file?: string;
 }
@@ -141,14 +138,6 @@ function soundOf(guitar: Guitar): unknown {
   return { ...guitar, name: undefined, notes: undefined, assumed: undefined, coils: guitar.coils.map((coil) => ({ ...coil, notes: undefined })) };
 }
 
-function peakOf(samples: Float32Array): number {
-  let peak = 0;
-  for (let n = 0; n < samples.length; n += 1) {
-    const magnitude = Math.abs(samples[n] as number);
-    if (magnitude > peak) peak = magnitude;
-  }
-  return peak;
-}
 
 export async function renderGuitar(request: RenderRequest, events: RenderEvents = {}): Promise<RenderOutcome> {
   const { guitar, folder } = request;
@@ -187,83 +176,62 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
       tail: RENDER_TAIL_S,
     });
 
-  // Syntheses are made on first need: a re-run with everything cached renders nothing.
-  let reference: WiringSynthesis | undefined;
-  const referenceSynthesis = (): WiringSynthesis => {
-    reference ??= prepareReferenceSynthesis(guitar, request.overrides);
-    assertAudible(reference, 'controls.volume.setting');
-    return reference;
-  };
-  const sameAsReference =
-    request.phrase.name === REFERENCE_PHRASE && request.sampleRateHz === REFERENCE_SAMPLE_RATE_HZ && request.seed === REFERENCE_SEED;
-  let files: WiringSynthesis | undefined;
-  const fileSynthesis = (): WiringSynthesis => {
-    if (sameAsReference) return referenceSynthesis();
-    files ??= prepareWiringSynthesis(guitar, request.phrase, {
-      sampleRateHz: request.sampleRateHz,
-      seed: request.seed,
-      overrides: request.overrides,
-      strings: { tailS: RENDER_TAIL_S },
-    });
-    assertAudible(files, 'controls.volume.setting');
-    return files;
+  const settings: AudioSettings = {
+    guitar,
+    overrides: request.overrides,
+    phrase: request.phrase,
+    chain: request.chain,
+    sampleRateHz: request.sampleRateHz,
+    seed: request.seed,
+    hum: request.hum,
+    measureProcessedLoudness: request.level === 'matched',
   };
 
-  // The processed audio of one wiring (file phrase, chain, hum), before gain.
-  const processedAudio = async (wiring: Wiring, direct?: Float32Array): Promise<Float32Array> => {
-    const synthesis = fileSynthesis();
-    const audio = direct && sameAsReference ? Float32Array.from(direct) : synthesis.synthesize(wiring.network);
-    if (request.hum) {
-      const hum = synthesis.synthesizeHum(wiring.network, request.hum.mainsHz, request.hum.emfVolts);
-      for (let n = 0; n < audio.length; n += 1) audio[n] = (audio[n] as number) + (hum[n] as number);
-    }
-    return renderEffectsChain(audio, synthesis.sampleRateHz, request.chain);
-  };
-
-  // Pass 1: metrics (reference render) and processed audio (file render) for every wiring needed.
+  // Pass 1: metrics (reference render) and processed audio (file render) for every wiring needed
+  // that the manifest does not already hold, spread over threads.
   const selectedIds = new Set(request.selected.map((wiring) => wiring.id));
   // Phase patterns of one network shape share their transfers: render them one after another.
   const needed = groupByShape(request.all.filter((wiring) => wiring.elements.length === 1 || selectedIds.has(wiring.id)));
   const raw = new Map<string, RawAudioMetrics>();
   const scratchFiles = new Map<string, string>();
-  events.onStage?.('rendering', needed.length);
-  let step = 0;
+  const items: PassItem[] = [];
+  const hashes = new Map<string, { metricsHash: string; audioHash: string }>();
   for (const wiring of needed) {
     const entry: Entry = (entries[wiring.expression] ??= {});
     const metricsHash = metricsHashOf(wiring);
-    let direct: Float32Array | undefined;
-    if (entry.metricsHash === metricsHash && entry.metrics) {
-      raw.set(wiring.id, entry.metrics);
-    } else {
-      const synthesis = referenceSynthesis();
-      direct = synthesis.synthesize(wiring.network);
-      const metrics = measureRawAudio(direct, synthesis.sampleRateHz);
-      raw.set(wiring.id, metrics);
-      Object.assign(entry, { metricsHash, metrics });
-    }
-    if (selectedIds.has(wiring.id)) {
-      const audioHash = audioHashOf(wiring);
-      const missingLoudness = request.level === 'matched' && entry.audio?.loudnessLufs === null;
-      if (entry.audioHash !== audioHash || !entry.audio || missingLoudness) {
-        const processed = await processedAudio(wiring, direct);
-        const path = join(scratch, `${wiring.id}.f32`);
-        writeFileSync(path, new Uint8Array(processed.buffer, processed.byteOffset, processed.byteLength));
-        scratchFiles.set(wiring.id, path);
-        Object.assign(entry, {
-          audioHash,
-          audio: {
-            peak: peakOf(processed),
-            // Only loudness-matched files need the processed audio's loudness.
-            loudnessLufs: request.level === 'matched' ? measureLoudness([processed], request.sampleRateHz) : null,
-          },
-          fileHash: undefined,
-        });
-      }
-    }
-    step += 1;
-    events.onStep?.(step, needed.length);
-    await saveManifest(false);
+    const audioHash = audioHashOf(wiring);
+    hashes.set(wiring.id, { metricsHash, audioHash });
+    const metricsCached = entry.metricsHash === metricsHash && entry.metrics !== undefined;
+    if (metricsCached && entry.metrics) raw.set(wiring.id, entry.metrics);
+    const missingLoudness = request.level === 'matched' && entry.audio?.loudnessLufs === null;
+    const audioCached = entry.audioHash === audioHash && entry.audio !== undefined && !missingLoudness;
+    const wantAudio = selectedIds.has(wiring.id) && !audioCached;
+    if (!metricsCached || wantAudio) items.push({ id: wiring.id, network: wiring.network, metrics: !metricsCached, audio: wantAudio });
   }
+  const expressionOf = new Map(needed.map((wiring) => [wiring.id, wiring.expression]));
+  events.onStage?.('rendering', items.length);
+  let step = 0;
+  const results = await runRenderPassOnThreads(settings, items, scratch, request.threads ?? defaultThreadCount(), () => {
+    step += 1;
+    events.onStep?.(step, items.length);
+  });
+  for (const result of results) {
+    const entry = entries[expressionOf.get(result.id) ?? ''] as Entry;
+    const hash = hashes.get(result.id);
+    if (result.metrics && hash) {
+      raw.set(result.id, result.metrics);
+      Object.assign(entry, { metricsHash: hash.metricsHash, metrics: result.metrics });
+    }
+    if (result.audio && result.scratch && hash) {
+      scratchFiles.set(result.id, result.scratch);
+      Object.assign(entry, { audioHash: hash.audioHash, audio: result.audio, fileHash: undefined });
+    }
+  }
+  let renderer: WiringRenderer | undefined;
+  const processedAudio = (wiring: Wiring): Promise<Float32Array> => {
+    renderer ??= createWiringRenderer(settings);
+    return renderer.processed(wiring.network);
+  };
   await saveManifest();
   const audioMetrics = referLevels(request.all, raw);
 
@@ -382,7 +350,10 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     };
   });
 
-  const audioSeconds = (selected.length * (reference?.length ?? files?.length ?? 0)) / request.sampleRateHz;
+  const frames = selected.map((wiring) => entries[wiring.expression]?.audio?.frames ?? 0);
+  const durationS = Math.max(0, ...frames) / request.sampleRateHz;
+  // Audio made in this run (cached files cost nothing).
+  const audioSeconds = (results.filter((result) => result.audio).length * durationS);
   const report: ListeningReport = {
     generator: request.generator,
     guitar: reportGuitar(guitar, basename(folder.root), circuit.load),
@@ -390,7 +361,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
       phrase: request.phrase.name,
       chain: request.chain,
       sampleRateHz: request.sampleRateHz,
-      durationS: (files ?? reference)?.length ? ((files ?? reference) as WiringSynthesis).length / request.sampleRateHz : 0,
+      durationS,
       level: request.level,
       commonGainDb: commonGainDb ?? 0,
       mainsHz: circuit.load.mainsHz,

@@ -8,7 +8,7 @@ import { createHash } from 'node:crypto';
 import { existsSync, readFileSync } from 'node:fs';
 
 /** Bump when the meaning of any output changes, so old files are re-rendered. */
-export const MANIFEST_VERSION = 1;
+export const MANIFEST_VERSION = 2;
 
 /** Stable SHA-256 of a JSON-able value (object keys sorted). */
 export function hashOf(value: unknown): string {

@@ -1,0 +1,152 @@
+/**
+ * The first pass of a render, for a list of wirings: each wiring's reference
+ * render measured (DESIGN.md metrics) and/or its file audio made (phrase,
+ * hum, effects chain) and parked in a scratch file, with its peak and, for
+ * loudness-matched files, its loudness. Runs in the main thread or in a
+ * worker thread alike (render-worker.ts): its input and output are plain data.
+ */
+import { writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { measureLoudness } from '../analysis/index.js';
+import type { CircuitOverrides } from '../circuit/index.js';
+import type { Guitar } from '../guitar/index.js';
+import type { Phrase } from '../string/index.js';
+import type { Network } from '../wiring/index.js';
+import type { ChainName } from './chain-name.js';
+import { renderEffectsChain } from './effects-chain.js';
+import {
+  type RawAudioMetrics,
+  REFERENCE_PHRASE,
+  REFERENCE_SAMPLE_RATE_HZ,
+  REFERENCE_SEED,
+  RENDER_TAIL_S,
+  measureRawAudio,
+  prepareReferenceSynthesis,
+} from './measure-wiring-audio.js';
+import { type WiringSynthesis, assertAudible, prepareWiringSynthesis } from './synthesize-wirings.js';
+
+export interface HumMix {
+  readonly mainsHz: 50 | 60;
+  /** Peak EMF the mains field induces in a coil of hum sensitivity 1, volts. */
+  readonly emfVolts: number;
+}
+
+/** What shapes the audio of every file (the same for all wirings of a render). */
+export interface AudioSettings {
+  readonly guitar: Guitar;
+  readonly overrides: CircuitOverrides;
+  readonly phrase: Phrase;
+  readonly chain: ChainName;
+  readonly sampleRateHz: number;
+  readonly seed: number;
+  readonly hum: HumMix | null;
+  /** Measure the loudness of the processed audio (loudness-matched files need it). */
+  readonly measureProcessedLoudness: boolean;
+}
+
+export interface PassItem {
+  readonly id: string;
+  readonly network: Network;
+  /** Measure the reference render (levels, loudness, centroid)? */
+  readonly metrics: boolean;
+  /** Make the file's audio and park it? */
+  readonly audio: boolean;
+}
+
+export interface PassResult {
+  readonly id: string;
+  readonly metrics?: RawAudioMetrics;
+  readonly audio?: { readonly peak: number; readonly loudnessLufs: number | null; readonly frames: number };
+  /** Scratch file holding the processed audio (raw float32), when made. */
+  readonly scratch?: string;
+}
+
+export interface WiringRenderer {
+  /** The reference render of a wiring (the metrics' input). */
+  reference(network: Network): Float32Array;
+  /** The processed audio of a wiring (file phrase, hum, chain), before gain; reuses `direct` when it is the same performance. */
+  processed(network: Network, direct?: Float32Array): Promise<Float32Array>;
+  readonly sampleRateHz: number;
+}
+
+/** Syntheses made on first need, so work that is all cached renders nothing. */
+export function createWiringRenderer(settings: AudioSettings): WiringRenderer {
+  let reference: WiringSynthesis | undefined;
+  const referenceSynthesis = (): WiringSynthesis => {
+    reference ??= prepareReferenceSynthesis(settings.guitar, settings.overrides);
+    assertAudible(reference, 'controls.volume.setting');
+    return reference;
+  };
+  const sameAsReference =
+    settings.phrase.name === REFERENCE_PHRASE && settings.sampleRateHz === REFERENCE_SAMPLE_RATE_HZ && settings.seed === REFERENCE_SEED;
+  let files: WiringSynthesis | undefined;
+  const fileSynthesis = (): WiringSynthesis => {
+    if (sameAsReference) return referenceSynthesis();
+    files ??= prepareWiringSynthesis(settings.guitar, settings.phrase, {
+      sampleRateHz: settings.sampleRateHz,
+      seed: settings.seed,
+      overrides: settings.overrides,
+      strings: { tailS: RENDER_TAIL_S },
+    });
+    assertAudible(files, 'controls.volume.setting');
+    return files;
+  };
+  return {
+    sampleRateHz: settings.sampleRateHz,
+    reference: (network) => referenceSynthesis().synthesize(network),
+    async processed(network, direct) {
+      const synthesis = fileSynthesis();
+      const audio = direct && sameAsReference ? Float32Array.from(direct) : synthesis.synthesize(network);
+      if (settings.hum) {
+        const hum = synthesis.synthesizeHum(network, settings.hum.mainsHz, settings.hum.emfVolts);
+        for (let n = 0; n < audio.length; n += 1) audio[n] = (audio[n] as number) + (hum[n] as number);
+      }
+      return renderEffectsChain(audio, synthesis.sampleRateHz, settings.chain);
+    },
+  };
+}
+
+/** Largest sample magnitude. */
+export function peakOf(samples: Float32Array): number {
+  let peak = 0;
+  for (let n = 0; n < samples.length; n += 1) {
+    const magnitude = Math.abs(samples[n] as number);
+    if (magnitude > peak) peak = magnitude;
+  }
+  return peak;
+}
+
+/** Run the first pass over `items`, parking processed audio in `scratchFolder`. `onStep` is told after each item. */
+export async function runRenderPass(
+  settings: AudioSettings,
+  items: readonly PassItem[],
+  scratchFolder: string,
+  onStep?: (result: PassResult) => void,
+): Promise<PassResult[]> {
+  const renderer = createWiringRenderer(settings);
+  const results: PassResult[] = [];
+  for (const item of items) {
+    let direct: Float32Array | undefined;
+    let metrics: RawAudioMetrics | undefined;
+    if (item.metrics) {
+      direct = renderer.reference(item.network);
+      metrics = measureRawAudio(direct, REFERENCE_SAMPLE_RATE_HZ);
+    }
+    let audio: PassResult['audio'];
+    let scratch: string | undefined;
+    if (item.audio) {
+      const processed = await renderer.processed(item.network, direct);
+      scratch = join(scratchFolder, `${item.id}.f32`);
+      writeFileSync(scratch, new Uint8Array(processed.buffer, processed.byteOffset, processed.byteLength));
+      audio = {
+        peak: peakOf(processed),
+        frames: processed.length,
+        loudnessLufs: settings.measureProcessedLoudness ? measureLoudness([processed], settings.sampleRateHz) : null,
+      };
+    }
+    const result: PassResult = { id: item.id, ...(metrics ? { metrics } : {}), ...(audio ? { audio } : {}), ...(scratch ? { scratch } : {}) };
+    results.push(result);
+    onStep?.(result);
+  }
+  return results;
+}

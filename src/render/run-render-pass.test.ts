@@ -1,0 +1,54 @@
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+import { parseGuitarText } from '../guitar/index.js';
+import { builtInPhrase } from '../string/index.js';
+import { enumerateWirings } from '../wiring/index.js';
+import type { AudioSettings, PassItem } from './render-pass.js';
+import { runRenderPassOnThreads, splitByShape } from './run-render-pass.js';
+import { shapeKey } from './synthesize-wirings.js';
+
+const guitar = parseGuitarText(readFileSync(join(import.meta.dirname, '..', '..', 'samples', 'humbucker-two-single-coil.json'), 'utf8'));
+const wirings = enumerateWirings(guitar.elements).slice(4, 40);
+const items: PassItem[] = wirings.map((wiring, index) => ({ id: wiring.id, network: wiring.network, metrics: true, audio: index % 3 !== 0 }));
+const settings: AudioSettings = {
+  guitar,
+  overrides: {},
+  phrase: builtInPhrase('riff'),
+  chain: 'drive',
+  sampleRateHz: 44_100,
+  seed: 7,
+  hum: { mainsHz: 50, emfVolts: 0.01 },
+  measureProcessedLoudness: true,
+};
+const folders: string[] = [];
+afterAll(() => folders.forEach((folder) => rmSync(folder, { recursive: true, force: true })));
+
+describe('runRenderPassOnThreads', () => {
+  it('keeps whole shapes together and balances the parts', () => {
+    const parts = splitByShape(items, 2);
+    expect(parts).toHaveLength(2);
+    expect(parts.flat().map((item) => item.id).sort()).toEqual(items.map((item) => item.id).sort());
+    const shapesOf = (part: readonly PassItem[]) => new Set(part.map((item) => shapeKey(item.network)));
+    const [first, second] = parts.map(shapesOf);
+    for (const shape of first ?? []) expect(second?.has(shape)).toBe(false);
+  });
+
+  it('gives the same results and the same audio bytes on two threads as on one (a worker thread does half)', async () => {
+    const [one, two] = [mkdtempSync(join(tmpdir(), 'coilbench-pass-')), mkdtempSync(join(tmpdir(), 'coilbench-pass-'))];
+    folders.push(one, two);
+    let steps = 0;
+    const single = await runRenderPassOnThreads(settings, items, one, 1);
+    const split = await runRenderPassOnThreads(settings, items, two, 2, () => (steps += 1), 1);
+    expect(steps).toBe(items.length);
+    expect(split.map((result) => result.id)).toEqual(items.map((item) => item.id));
+    split.forEach((result, index) => {
+      const reference = single[index];
+      expect(result.metrics).toEqual(reference?.metrics);
+      expect(result.audio).toEqual(reference?.audio);
+      expect(Boolean(result.scratch)).toBe(items[index]?.audio);
+      if (result.scratch && reference?.scratch) expect(readFileSync(result.scratch).equals(readFileSync(reference.scratch))).toBe(true);
+    });
+  });
+});

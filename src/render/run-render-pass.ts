@@ -1,0 +1,119 @@
+/**
+ * The first pass of a render spread over threads: the wirings are split into
+ * groups of whole network shapes (phase patterns of one shape share their
+ * transfers), one group stays on this thread and the others go to worker
+ * threads. Each wiring's result depends on nothing but its own input, so the
+ * output is the same, byte for byte, however it is split.
+ */
+import { availableParallelism } from 'node:os';
+import { readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { dirname, join } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import { Worker } from 'node:worker_threads';
+import { InputError, WorkError } from '../errors/index.js';
+import { type AudioSettings, type PassItem, type PassResult, runRenderPass } from './render-pass.js';
+import type { WorkerJob, WorkerMessage } from './render-worker.js';
+import { shapeKey } from './synthesize-wirings.js';
+
+/** Fewest wirings worth a worker: a worker starts cold (loading and compiling the code, rendering the strings and spectra again: about half a second), so small jobs stay on one thread. */
+export const MIN_ITEMS_PER_THREAD = 50;
+
+/** Threads to use by default: the machine's cores, at most two (the render's memory grows with each thread). */
+export function defaultThreadCount(): number {
+  return Math.max(1, Math.min(2, availableParallelism()));
+}
+
+/** The ESM entry of tsx's loader API, read from its package's exports map (development only: tsx is a dev dependency). */
+function tsxLoaderUrl(): string {
+  const manifestPath = createRequire(import.meta.url).resolve('tsx/package.json');
+  const manifest = JSON.parse(readFileSync(manifestPath, 'utf8')) as { exports: Record<string, { import: { default: string } }> };
+  const entry = manifest.exports['./esm/api']?.import.default ?? './dist/esm/api/index.mjs';
+  return pathToFileURL(join(dirname(manifestPath), entry)).href;
+}
+
+/**
+ * How to start a worker: the compiled worker beside this file, or, when
+ * running from source (development and tests), a small script that registers
+ * tsx's loader in the worker and then imports the TypeScript worker.
+ */
+function startWorker(job: WorkerJob): Worker {
+  const self = fileURLToPath(import.meta.url);
+  if (!self.endsWith('.ts')) return new Worker(new URL('./render-worker.js', import.meta.url), { workerData: job });
+  const loader = tsxLoaderUrl();
+  const entry = new URL('./render-worker.ts', import.meta.url).href;
+  const source = `import(${JSON.stringify(loader)}).then((api) => { api.register(); return import(${JSON.stringify(entry)}); });`;
+  return new Worker(source, { eval: true, workerData: job });
+}
+
+/** Split items into at most `parts` runs of whole shapes with about equal numbers of items (largest shapes placed first). */
+export function splitByShape(items: readonly PassItem[], parts: number): PassItem[][] {
+  const groups = new Map<string, PassItem[]>();
+  for (const item of items) {
+    const key = shapeKey(item.network);
+    groups.set(key, [...(groups.get(key) ?? []), item]);
+  }
+  const weight = (group: readonly PassItem[]): number => group.reduce((sum, item) => sum + (item.metrics ? 1 : 0) + (item.audio ? 1 : 0), 0);
+  const ordered = [...groups.values()].sort((a, b) => weight(b) - weight(a));
+  const bins: PassItem[][] = Array.from({ length: parts }, () => []);
+  const loads = new Array<number>(parts).fill(0);
+  for (const group of ordered) {
+    const lightest = loads.indexOf(Math.min(...loads));
+    bins[lightest]?.push(...group);
+    loads[lightest] = (loads[lightest] ?? 0) + weight(group);
+  }
+  return bins.filter((bin) => bin.length > 0);
+}
+
+function runInWorker(job: WorkerJob, onStep: () => void, workers: Worker[]): Promise<PassResult[]> {
+  return new Promise((resolve, reject) => {
+    const worker = startWorker(job);
+    workers.push(worker);
+    let settled = false;
+    worker.on('message', (message: WorkerMessage) => {
+      if (message.kind === 'step') onStep();
+      else if (message.kind === 'done') {
+        settled = true;
+        resolve(message.results);
+      } else {
+        settled = true;
+        reject(message.problems ? new InputError(message.problems) : new WorkError(`render worker failed: ${message.message}`));
+      }
+    });
+    worker.on('error', (error) => {
+      settled = true;
+      reject(new WorkError(`render worker failed: ${error.message}`, { cause: error }));
+    });
+    worker.on('exit', (code) => {
+      if (!settled) reject(new WorkError(`render worker stopped (exit code ${code})`));
+    });
+  });
+}
+
+/** Run the first pass on up to `threads` threads; results in the order of `items`. */
+export async function runRenderPassOnThreads(
+  settings: AudioSettings,
+  items: readonly PassItem[],
+  scratchFolder: string,
+  threads: number,
+  onStep?: () => void,
+  minItemsPerThread = MIN_ITEMS_PER_THREAD,
+): Promise<PassResult[]> {
+  const parts = Math.max(1, Math.min(threads, Math.floor(items.length / minItemsPerThread)));
+  if (parts <= 1) return runRenderPass(settings, items, scratchFolder, () => onStep?.());
+  const [own = [], ...others] = splitByShape(items, parts);
+  const step = (): void => onStep?.();
+  const workers: Worker[] = [];
+  let batches: PassResult[][];
+  try {
+    batches = await Promise.all([
+      ...others.map((chunk) => runInWorker({ settings, items: chunk, scratchFolder }, step, workers)),
+      runRenderPass(settings, own, scratchFolder, step),
+    ]);
+  } catch (error) {
+    await Promise.all(workers.map((worker) => worker.terminate()));
+    throw error;
+  }
+  const byId = new Map(batches.flat().map((result) => [result.id, result]));
+  return items.map((item) => byId.get(item.id) as PassResult);
+}
