@@ -8,12 +8,11 @@
 import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { pathToFileURL } from 'node:url';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { captureIo, main } from '../src/cli/index.js';
 import type { ComparisonReport } from '../src/report/index.js';
-import { CHROMIUM, INSTALL_HINT, RUN_BROWSER_TESTS, launchChromium } from './support/browser.js';
+import { CHROMIUM, INSTALL_HINT, RUN_BROWSER_TESTS, launchChromium, openFolderPage } from './support/browser.js';
 
 const OUTPUT_DIR = join(import.meta.dirname, '..', 'test-output');
 const samples = join(import.meta.dirname, '..', 'samples');
@@ -36,8 +35,8 @@ describe.skipIf(!RUN_BROWSER_TESTS)('the comparison page in chromium (file://)',
   let report: ComparisonReport;
   let browser: Browser;
   let page: Page;
-  const problems: string[] = [];
-  const outside: string[] = [];
+  let problems: string[] = [];
+  let outside: string[] = [];
   const view = 'coilbenchComparison';
 
   beforeAll(async () => {
@@ -50,17 +49,7 @@ describe.skipIf(!RUN_BROWSER_TESTS)('the comparison page in chromium (file://)',
     expect(status, io.err()).toBe(0);
     report = JSON.parse(readFileSync(join(folder, 'comparison.json'), 'utf8')) as ComparisonReport;
     browser = await launchChromium();
-    const context = await browser.newContext({ viewport: { width: 1360, height: 900 } });
-    page = await context.newPage();
-    const folderUrl = pathToFileURL(folder).href;
-    page.on('console', (message) => {
-      if (message.type() === 'error' || message.type() === 'warning') problems.push(`${message.type()}: ${message.text()}`);
-    });
-    page.on('pageerror', (error) => problems.push(`page error: ${error.message}`));
-    page.on('request', (request) => {
-      if (!request.url().startsWith(`${folderUrl}/`)) outside.push(request.url());
-    });
-    await page.goto(`${folderUrl}/index.html`);
+    ({ page, problems, outside } = await openFolderPage(browser, folder));
   });
 
   afterAll(async () => {

@@ -8,12 +8,11 @@
 import { mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { pathToFileURL } from 'node:url';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { captureIo, main } from '../src/cli/index.js';
 import type { ListeningReport } from '../src/report/index.js';
-import { CHROMIUM, INSTALL_HINT, RUN_BROWSER_TESTS, launchChromium } from './support/browser.js';
+import { CHROMIUM, INSTALL_HINT, RUN_BROWSER_TESTS, launchChromium, openFolderPage } from './support/browser.js';
 
 const OUTPUT_DIR = join(import.meta.dirname, '..', 'test-output');
 /** Largest jump of the playing position allowed when switching wirings, s. */
@@ -34,8 +33,8 @@ describe.skipIf(!RUN_BROWSER_TESTS)('the demo render in chromium (file://)', () 
   let report: ListeningReport;
   let browser: Browser;
   let page: Page;
-  const problems: string[] = [];
-  const outside: string[] = [];
+  let problems: string[] = [];
+  let outside: string[] = [];
 
   beforeAll(async () => {
     work = mkdtempSync(join(tmpdir(), 'coilbench-demo-'));
@@ -44,17 +43,7 @@ describe.skipIf(!RUN_BROWSER_TESTS)('the demo render in chromium (file://)', () 
     folder = join(work, 'renders', 'demo');
     report = JSON.parse(readFileSync(join(folder, 'report.json'), 'utf8')) as ListeningReport;
     browser = await launchChromium();
-    const context = await browser.newContext({ viewport: { width: 1360, height: 900 } });
-    page = await context.newPage();
-    const folderUrl = pathToFileURL(folder).href;
-    page.on('console', (message) => {
-      if (message.type() === 'error' || message.type() === 'warning') problems.push(`${message.type()}: ${message.text()}`);
-    });
-    page.on('pageerror', (error) => problems.push(`page error: ${error.message}`));
-    page.on('request', (request) => {
-      if (!request.url().startsWith(`${folderUrl}/`)) outside.push(request.url());
-    });
-    await page.goto(`${folderUrl}/index.html`);
+    ({ page, problems, outside } = await openFolderPage(browser, folder));
   });
 
   afterAll(async () => {

@@ -6,7 +6,7 @@
  *       = Σ_{i≤j} p_i·p_j·Q_ij,b,   Q_ij,b = (2 − δ_ij)·Σ_{s∈b} Re(T⁰_i·conj(T⁰_j)·C_ij,s)
  *
  * (Hermitian symmetry C_ji = conj(C_ij) folds the pairs i > j onto i < j;
- * T_i = p_i·T⁰_i, network-phases.ts). Q is solved once per network shape, so
+ * T_i = p_i·T⁰_i, src/wiring/network-phases.ts). Q is solved once per network shape, so
  * each wiring costs one sum over coil pairs per band.
  *
  * - energy: Σ over every segment, 0 Hz to Nyquist — the energy Σ y[n]² of the
@@ -23,11 +23,10 @@
  */
 import { type CircuitOverrides, prepareCircuit, solveTransfers } from '../circuit/index.js';
 import type { Guitar } from '../guitar/index.js';
-import { type Network, leaf } from '../wiring/index.js';
+import { type Network, coilPhases, leaf, shapeKey, withoutPhases } from '../wiring/index.js';
 import { designExcitationSpread } from './design-excitation-spread.js';
 import { LEVEL_FLOOR_DB } from './measure-energy.js';
 import type { SpectralBasis } from './measure-spectral-basis.js';
-import { coilPhases, shapeKey, withoutPhases } from './network-phases.js';
 
 export interface WiringSpectra {
   readonly basis: SpectralBasis;

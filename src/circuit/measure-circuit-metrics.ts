@@ -12,7 +12,7 @@
  */
 import type { Guitar } from '../guitar/index.js';
 import type { Coil } from '../guitar/index.js';
-import type { Network } from '../wiring/index.js';
+import { type Network, coilPhases, shapeKey, withoutPhases } from '../wiring/index.js';
 import { magnetSign } from './coil-signs.js';
 import type { CircuitLoad, CircuitOverrides } from './circuit-load.js';
 import { ANALYSIS_POINTS, analysisFrequencies } from './frequency-grid.js';
@@ -101,25 +101,3 @@ export function measureCircuitMetrics(
   return { load: prepared.load, silent: false, points, wirings: metrics };
 }
 
-/** A key equal for networks that differ only in phases (same structure, same element order). */
-function shapeKey(network: Network): string {
-  if (network.kind === 'element') return String(network.element);
-  return `${network.kind === 'series' ? 's' : 'p'}(${network.parts.map(shapeKey).join(',')})`;
-}
-
-/** The network with every element in phase. */
-function withoutPhases(network: Network): Network {
-  if (network.kind === 'element') return network.inverted ? { ...network, inverted: false } : network;
-  return { kind: network.kind, parts: network.parts.map(withoutPhases) };
-}
-
-/** p_i per coil (0 for coils not used), written into `out`. */
-function coilPhases(elements: Guitar['elements'], network: Network, out: Float64Array): void {
-  out.fill(0);
-  const walk = (node: Network): void => {
-    if (node.kind === 'element') {
-      for (const coil of elements[node.element]?.coilIndices ?? []) out[coil] = node.inverted ? -1 : 1;
-    } else node.parts.forEach(walk);
-  };
-  walk(network);
-}

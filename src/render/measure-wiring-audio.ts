@@ -12,7 +12,8 @@ import { measureCentroid, measureEnergy, measureLevelDb, measureLoudness } from 
 import type { Guitar } from '../guitar/index.js';
 import { builtInPhrase } from '../string/index.js';
 import type { Wiring } from '../wiring/index.js';
-import { type WiringSynthesis, prepareWiringSynthesis, shapeKey } from './synthesize-wirings.js';
+import { type WiringSynthesis, prepareWiringSynthesis } from './synthesize-wirings.js';
+import { shapeKey } from '../wiring/index.js';
 
 /** The reference performance for metrics (DESIGN.md, phrases). */
 export const REFERENCE_PHRASE = 'strum';

@@ -52,7 +52,7 @@ import { defaultThreadCount, runRenderPassOnThreads } from './run-render-pass.js
 import { type OutputFolder, netlistFileName, wavFileName } from './output-folder.js';
 import { gainToDb, planMatchedGains, planTrueLevelGain } from './plan-gains.js';
 import { MANIFEST_VERSION, type Manifest, hashOf, readManifest } from './render-manifest.js';
-import { shapeKey } from './synthesize-wirings.js';
+import { shapeKey } from '../wiring/index.js';
 import { type WavFormat, encodeWav } from './wav-file.js';
 import { removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
 

@@ -7,7 +7,7 @@ import { builtInPhrase } from '../string/index.js';
 import { enumerateWirings } from '../wiring/index.js';
 import type { AudioSettings, PassItem } from './render-pass.js';
 import { runRenderPassOnThreads, splitByShape } from './run-render-pass.js';
-import { shapeKey } from './synthesize-wirings.js';
+import { shapeKey } from '../wiring/index.js';
 
 const guitar = parseGuitarText(readFileSync(join(import.meta.dirname, '..', '..', 'samples', 'humbucker-two-single-coil.json'), 'utf8'));
 const wirings = enumerateWirings(guitar.elements).slice(4, 40);

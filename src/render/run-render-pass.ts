@@ -14,7 +14,7 @@ import { Worker } from 'node:worker_threads';
 import { InputError, WorkError } from '../errors/index.js';
 import { type AudioSettings, type PassItem, type PassResult, runRenderPass } from './render-pass.js';
 import type { WorkerJob, WorkerMessage } from './render-worker.js';
-import { shapeKey } from './synthesize-wirings.js';
+import { shapeKey } from '../wiring/index.js';
 
 /** Fewest wirings worth a worker: a worker starts cold (loading and compiling the code, rendering the strings and spectra again: about half a second), so small jobs stay on one thread. */
 export const MIN_ITEMS_PER_THREAD = 50;

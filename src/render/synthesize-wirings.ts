@@ -13,7 +13,7 @@ import type { Guitar } from '../guitar/index.js';
 import { nextPowerOfTwo, realFft } from '../math/index.js';
 import { computeCoilSpectra, pickupDelaySamples } from '../pickup/index.js';
 import { type Phrase, type StringOptions, renderPhrase } from '../string/index.js';
-import type { Network } from '../wiring/index.js';
+import { type Network, coilPhases, shapeKey, withoutPhases } from '../wiring/index.js';
 
 /**
  * EMF a coil of relative sensitivity 1 gives per m/s of string velocity
@@ -78,7 +78,7 @@ export function prepareWiringSynthesis(guitar: Guitar, phrase: Phrase, options: 
   const solveShape = (network: Network): void => {
     const shape = shapeKey(network);
     if (shape === cachedShape) return;
-    solveTransfers(circuit, unsigned(network), transfers);
+    solveTransfers(circuit, withoutPhases(network), transfers);
     transfers.forEach((transfer, coil) => {
       const emf = spectra[coil] as Float64Array;
       const product = products[coil] as Float64Array;
@@ -101,7 +101,7 @@ export function prepareWiringSynthesis(guitar: Guitar, phrase: Phrase, options: 
 
   const synthesize = (network: Network, out = new Float32Array(length)): Float32Array => {
     solveShape(network);
-    coilSigns(network, guitar, signs);
+    coilPhases(guitar.elements, network, signs);
     // Y(f) = Σ_i p_i·T_i(f)·E_i(f) with T_i of the unsigned network.
     output.fill(0);
     products.forEach((product, coil) => {
@@ -156,29 +156,6 @@ export function prepareWiringSynthesis(guitar: Guitar, phrase: Phrase, options: 
   };
 }
 
-/** The network with every element in phase. */
-function unsigned(network: Network): Network {
-  if (network.kind === 'element') return network.inverted ? { ...network, inverted: false } : network;
-  return { kind: network.kind, parts: network.parts.map(unsigned) };
-}
-
-/** Key shared by the phase patterns of one network shape (canonical structure, phases left out). */
-export function shapeKey(network: Network): string {
-  if (network.kind === 'element') return String(network.element);
-  return `${network.kind === 'series' ? 's' : 'p'}(${network.parts.map(shapeKey).join(',')})`;
-}
-
-/** Phase sign p_i of every coil in the wiring (+1 for unused coils, which carry no signal). */
-function coilSigns(network: Network, guitar: Guitar, out: Float64Array): void {
-  out.fill(1);
-  const walk = (node: Network): void => {
-    if (node.kind === 'element') {
-      if (!node.inverted) return;
-      for (const coil of guitar.elements[node.element]?.coilIndices ?? []) out[coil] = -1;
-    } else node.parts.forEach(walk);
-  };
-  walk(network);
-}
 
 /** Refuse to render a guitar whose output is shorted (volume at 0): every file would be silence. */
 export function assertAudible(synthesis: WiringSynthesis, volumePath: string): void {

@@ -9,7 +9,7 @@
  * loads only from there (its Content-Security-Policy allows scripts from
  * the page and its folder and no connections).
  */
-import { createHash } from 'node:crypto';
+import { renderContentSecurityPolicy } from './content-security-policy.js';
 import type { ComparisonDifference, ComparisonEntry, ComparisonReport, ComparisonRow } from './comparison-report.js';
 import { escapeHtml, serializeJsonForScript } from './escape-html.js';
 import { PAGE_BLIND_SCRIPT } from './page-blind-script.js';
@@ -34,10 +34,6 @@ const COMPARISON_STYLE = `
 `;
 
 const MINUS = '\u2212';
-
-function sha256Base64(text: string): string {
-  return createHash('sha256').update(text, 'utf8').digest('base64');
-}
 
 function signed(value: number | null, digits: number, unit: string): string {
   if (value === null || !Number.isFinite(value)) return '—';
@@ -139,16 +135,7 @@ function renderSetsList(report: ComparisonReport): string {
 export function renderComparisonPage(report: ComparisonReport): string {
   const script = ["'use strict';", PAGE_MATH_SCRIPT, PAGE_LOADER_SCRIPT, PAGE_PLAYER_SCRIPT, PAGE_BLIND_SCRIPT, PAGE_COMPARISON_SCRIPT].join('\n');
   const style = `${PAGE_STYLE}${COMPARISON_STYLE}`;
-  const policy = [
-    "default-src 'none'",
-    `script-src 'sha256-${sha256Base64(script)}' 'self'`,
-    `style-src 'sha256-${sha256Base64(style)}'`,
-    "img-src data:",
-    "media-src 'self'",
-    "connect-src 'none'",
-    "base-uri 'none'",
-    "form-action 'none'",
-  ].join('; ');
+  const policy = renderContentSecurityPolicy(script, style);
   const { thresholds } = report;
   const first = report.sets[0];
   const render = first?.render;

@@ -9,7 +9,7 @@
  * page-audio-file.ts); plots are inline SVG drawn by the page script from the
  * report's numbers.
  */
-import { createHash } from 'node:crypto';
+import { renderContentSecurityPolicy } from './content-security-policy.js';
 import { RECOMMENDED_ABX_TRIALS } from './abx-settings.js';
 import { escapeHtml, serializeJsonForScript } from './escape-html.js';
 import type { ListeningReport } from './listening-report.js';
@@ -50,10 +50,6 @@ export function compactReportForPage(report: ListeningReport): ListeningReport {
     ...report,
     wirings: report.wirings.map((wiring) => ({ ...wiring, responseDb: wiring.responseDb.map((db) => Number(round(db).toFixed(2))) })),
   };
-}
-
-function sha256Base64(text: string): string {
-  return createHash('sha256').update(text, 'utf8').digest('base64');
 }
 
 /** Element ids in the order they first appear among the wirings (single coils come first, so declaration order). */
@@ -178,16 +174,7 @@ function renderColumnHelp(report: ListeningReport): string {
 /** The listening page for a report, as one HTML document. */
 export function renderListeningPage(report: ListeningReport): string {
   const script = ["'use strict';", PAGE_MATH_SCRIPT, PAGE_LOADER_SCRIPT, PAGE_PLAYER_SCRIPT, PAGE_PLOT_SCRIPT, PAGE_BLIND_SCRIPT, PAGE_UI_SCRIPT].join('\n');
-  const policy = [
-    "default-src 'none'",
-    `script-src 'sha256-${sha256Base64(script)}' 'self'`,
-    `style-src 'sha256-${sha256Base64(PAGE_STYLE)}'`,
-    "img-src data:",
-    "media-src 'self'",
-    "connect-src 'none'",
-    "base-uri 'none'",
-    "form-action 'none'",
-  ].join('; ');
+  const policy = renderContentSecurityPolicy(script, PAGE_STYLE);
   const { guitar, render, wirings } = report;
   const name = escapeHtml(guitar.name);
   const quiet = wirings.filter((wiring) => wiring.humCancelling).length;

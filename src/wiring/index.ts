@@ -8,3 +8,4 @@ export { describeWiring, listInWords } from './describe-wiring.js';
 export { enumerateWirings, countWirings, makeWiring } from './enumerate-wirings.js';
 export type { Wiring } from './wiring.js';
 export { vocabularyOf, findWiring } from './vocabulary.js';
+export { coilPhases, shapeKey, withoutPhases } from './network-phases.js';

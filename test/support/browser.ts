@@ -31,3 +31,31 @@ export async function launchChromium(): Promise<Browser> {
   const { chromium } = await import('playwright-core');
   return chromium.launch({ executablePath: CHROMIUM, args: [...CHROMIUM_ARGS] });
 }
+
+/** A page opened from a folder on disk, with what went wrong while it ran. */
+export interface WatchedPage {
+  readonly page: import('playwright-core').Page;
+  /** Console errors and warnings, and uncaught page errors. */
+  readonly problems: string[];
+  /** Requests for anything outside the page's own folder. */
+  readonly outside: string[];
+}
+
+/** Open `<folder>/index.html` from file:// in a new context, recording console problems and requests that leave the folder. */
+export async function openFolderPage(browser: Browser, folder: string): Promise<WatchedPage> {
+  const { pathToFileURL } = await import('node:url');
+  const context = await browser.newContext({ viewport: { width: 1360, height: 900 } });
+  const page = await context.newPage();
+  const folderUrl = pathToFileURL(folder).href;
+  const problems: string[] = [];
+  const outside: string[] = [];
+  page.on('console', (message) => {
+    if (message.type() === 'error' || message.type() === 'warning') problems.push(`${message.type()}: ${message.text()}`);
+  });
+  page.on('pageerror', (error) => problems.push(`page error: ${error.message}`));
+  page.on('request', (request) => {
+    if (!request.url().startsWith(`${folderUrl}/`)) outside.push(request.url());
+  });
+  await page.goto(`${folderUrl}/index.html`);
+  return { page, problems, outside };
+}

@@ -23,6 +23,7 @@ import type { Guitar } from '../../guitar/index.js';
 import { type AlikeOptionText, addAlikeOptions, describeThresholds, parseAlikeOptions } from '../alike-options.js';
 import { type CircuitOptionText, addCircuitOptions, parseCircuitOptions } from '../circuit-options.js';
 import { formatTable } from '../format-table.js';
+import { collectOption } from '../collect-option.js';
 import type { Io } from '../io.js';
 import { readGuitarFile } from '../read-guitar.js';
 
@@ -34,8 +35,6 @@ interface CompareOptions extends CircuitOptionText, AlikeOptionText {
   readonly chain?: string;
   readonly phrase?: string;
 }
-
-const collect = (value: string, previous: string[]): string[] => [...previous, value];
 
 /** Mark of a difference at or above its threshold in the table. */
 const ABOVE = '*';
@@ -138,7 +137,7 @@ export function registerCompare(program: Command, io: Io): void {
     .argument('<guitarA>', 'baseline guitar file (JSON)')
     .argument('<guitarB>', 'candidate guitar file (JSON)')
     .argument('[more...]', 'more candidates, each compared with the baseline')
-    .option('--map <renamings>', 'coil ids that differ, first=other,… (once for every candidate, or once per candidate in order)', collect, [])
+    .option('--map <renamings>', 'coil ids that differ, first=other,… (once for every candidate, or once per candidate in order)', collectOption, [])
     .option('--json', 'print one JSON document on stdout')
     .option('--render', 'render every matched wiring on every set, and a comparison page to switch between sets while playing (default folder renders/<guitar>-compared)')
     .option('-o, --output <dir>', 'folder for --render')

@@ -23,6 +23,7 @@ import { type Wiring, enumerateWirings, findWiring, vocabularyOf } from '../../w
 import { type AlikeOptionText, addAlikeOptions, parseAlikeOptions } from '../alike-options.js';
 import { type CircuitOptionText, addCircuitOptions, parseCircuitOptions } from '../circuit-options.js';
 import { groupHeadline, renderGroupSummary } from '../group-summary.js';
+import { collectOption } from '../collect-option.js';
 import type { Io } from '../io.js';
 import { renderCsv, renderMarkdownTable } from '../metric-columns.js';
 import { createProgress } from '../progress.js';
@@ -57,7 +58,7 @@ export function addRenderOptions(command: Command): Command {
       .option('-o, --output <dir>', 'output folder (default renders/<guitar name>)')
       .option('--phrase <phrase>', `what the strings play: ${BUILT_IN_PHRASES.join(', ')} or a phrase file (default strum)`)
       .option('--chain <chain>', `effects chain: ${CHAIN_NAMES.join(', ')} (default ${DEFAULT_CHAIN})`)
-      .option('--only <wiring>', 'render only this wiring (an expression like "neck + ~bridge" or a number like w9); repeatable', (value: string, list: string[] = []) => [...list, value])
+      .option('--only <wiring>', 'render only this wiring (an expression like "neck + ~bridge" or a number like w9); repeatable', collectOption)
       .option('--rate <hz>', `sample rate of the files: ${SAMPLE_RATES_HZ.join(', ')} (default 48000)`)
       .option('--format <format>', `sample format: ${WAV_FORMATS.join(', ')} (default pcm24)`)
       .option('--level <mode>', 'true: one common gain, levels as the circuit makes them (default); matched: every file at one loudness')

@@ -13,6 +13,7 @@ import { type Wiring, enumerateWirings, findWiring, vocabularyOf } from '../../w
 import { type AlikeOptionText, addAlikeOptions, describeThresholds, parseAlikeOptions } from '../alike-options.js';
 import { type CircuitOptionText, addCircuitOptions, parseCircuitOptions } from '../circuit-options.js';
 import { formatTable } from '../format-table.js';
+import { collectOption } from '../collect-option.js';
 import type { Io } from '../io.js';
 import { readGuitarFile } from '../read-guitar.js';
 import { defaultOutputRoot } from '../../render/index.js';
@@ -31,8 +32,6 @@ interface ShortlistOptions extends CircuitOptionText, AlikeOptionText {
   readonly chain?: string;
   readonly phrase?: string;
 }
-
-const collect = (value: string, previous: string[]): string[] => [...previous, value];
 
 /** Largest shortlist asked for: a rotary switch has at most a dozen positions (common practice). */
 const MAX_COUNT = 12;
@@ -171,7 +170,7 @@ export function registerShortlist(program: Command, io: Io): void {
     .option('--count <K>', `how many wirings (1 to ${MAX_COUNT}), e.g. the positions of your switch`)
     .option('--hum-cancelling', 'only wirings that cancel hum')
     .option('--level-window <dB>', 'every chosen wiring within this many dB of every other')
-    .option('--include <wiring>', 'a wiring that must be in the list, like "neck + mid" or w4 (repeat for more)', collect, [])
+    .option('--include <wiring>', 'a wiring that must be in the list, like "neck + mid" or w4 (repeat for more)', collectOption, [])
     .option('--coils <ids>', 'only wirings of these coils, separated by commas')
     .option('--json', 'print one JSON document on stdout')
     .option('--render', 'render just these wirings, with their listening page (default folder renders/<guitar>-shortlist)')

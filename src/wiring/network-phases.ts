@@ -2,11 +2,11 @@
  * Phases only flip signs: the circuit solver applies each coil's phase p_i
  * at the leaves and every later step is linear, so a wiring's transfers are
  * T_i = p_i·T_i⁰, T⁰ being those of the same network with every element in
- * phase (src/circuit/measure-circuit-metrics.ts states and uses the same
- * fact). Solving once per network shape serves all 2^(k−1) phase patterns.
+ * phase. Solving once per network shape serves all 2^(k−1) phase patterns;
+ * the circuit metrics, the render and the distinctness analysis all do so.
  */
 import type { WiringElement } from '../guitar/index.js';
-import type { Network } from '../wiring/index.js';
+import type { Network } from './network.js';
 
 /** A key equal for networks that differ only in phases (same structure, same element order). */
 export function shapeKey(network: Network): string {

@@ -1,0 +1,26 @@
+/**
+ * The Content-Security-Policy of coilbench's pages: only the page's own
+ * inline script and style (pinned by their SHA-256 hashes, W3C CSP Level 3
+ * hash sources), audio and scripts from the page's own folder, no network
+ * connections, nothing else. A name from a guitar file that smuggled in a
+ * script tag could not run.
+ */
+import { createHash } from 'node:crypto';
+
+export function sha256Base64(text: string): string {
+  return createHash('sha256').update(text, 'utf8').digest('base64');
+}
+
+/** The policy for a page whose one inline script and one inline style are `script` and `style`. */
+export function renderContentSecurityPolicy(script: string, style: string): string {
+  return [
+    "default-src 'none'",
+    `script-src 'sha256-${sha256Base64(script)}' 'self'`,
+    `style-src 'sha256-${sha256Base64(style)}'`,
+    'img-src data:',
+    "media-src 'self'",
+    "connect-src 'none'",
+    "base-uri 'none'",
+    "form-action 'none'",
+  ].join('; ');
+}
