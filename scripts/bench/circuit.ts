@@ -4,8 +4,6 @@
  * eecircuit-engine WebAssembly build) for the 47 three-coil wirings, with the
  * ratio and the largest disagreement. Printed, never asserted.
  */
-import { readFileSync } from 'node:fs';
-import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { Simulation } from 'eecircuit-engine';
 import {
@@ -15,26 +13,16 @@ import {
   renderNetlist,
   solveTransfers,
 } from '../../src/circuit/index.js';
-import { type Guitar, parseGuitar, parseGuitarText } from '../../src/guitar/index.js';
+import type { Guitar } from '../../src/guitar/index.js';
 import { enumerateWirings, type Wiring } from '../../src/wiring/index.js';
+import { fiveCoilGuitar, sample } from './guitars.js';
 import { heading, line, medianMs } from './timing.js';
 
-const SAMPLES = join(import.meta.dirname, '..', '..', 'samples');
 const POINTS = 200;
 /** 67 points per decade over the three decades 20 Hz–20 kHz gives 202 log-spaced points, the nearest sweep to 200. */
 const SPICE_POINTS_PER_DECADE = 67;
 
-function sample(file: string): Guitar {
-  return parseGuitarText(readFileSync(join(SAMPLES, file), 'utf8'), file);
-}
 
-/** Five coils: the four-coil sample plus a bridge single coil (invented values). */
-function fiveCoilGuitar(): Guitar {
-  const raw = JSON.parse(readFileSync(join(SAMPLES, 'humbucker-two-single-coil.json'), 'utf8')) as { name: string; coils: unknown[] };
-  raw.name = 'Bench five-coil guitar (invented values)';
-  raw.coils.push({ id: 'extra', position: '70mm', resistance: '6.3k', inductance: '2.55H', capacitance: '120p', winding: 'cw', magnet: 'north' });
-  return parseGuitar(raw);
-}
 
 export async function benchCircuit(): Promise<void> {
   heading(`Circuit: analyze (resonance, peak, Q, hum for every wiring; ${POINTS} log-spaced frequencies, peaks refined)`);

@@ -4,8 +4,6 @@
  * 47, 572 and 9997 wirings; a shortlist of five on each; the comparison of
  * the demo with its candidate set. Printed, never asserted.
  */
-import { readFileSync } from 'node:fs';
-import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
 import {
   designBands,
@@ -22,26 +20,16 @@ import {
   solveWiringSpectra,
 } from '../../src/analysis/index.js';
 import { measureCircuitMetrics } from '../../src/circuit/index.js';
-import { type Guitar, parseGuitar, parseGuitarText } from '../../src/guitar/index.js';
+import type { Guitar } from '../../src/guitar/index.js';
 import { nextPowerOfTwo } from '../../src/math/index.js';
 import { computeCoilSpectra, pickupDelaySamples } from '../../src/pickup/index.js';
 import { builtInPhrase, renderPhrase } from '../../src/string/index.js';
 import { enumerateWirings } from '../../src/wiring/index.js';
+import { fiveCoilGuitar, sample } from './guitars.js';
 import { heading, line, medianMs } from './timing.js';
 
-const SAMPLES = join(import.meta.dirname, '..', '..', 'samples');
 
-function sample(file: string): Guitar {
-  return parseGuitarText(readFileSync(join(SAMPLES, file), 'utf8'), file);
-}
 
-/** Five coils: the four-coil sample plus a single coil between mid and bridge (invented values, as in bench/circuit.ts). */
-function fiveCoilGuitar(): Guitar {
-  const raw = JSON.parse(readFileSync(join(SAMPLES, 'humbucker-two-single-coil.json'), 'utf8')) as { name: string; coils: unknown[] };
-  raw.name = 'Bench five-coil guitar (invented values)';
-  raw.coils.push({ id: 'extra', position: '70mm', resistance: '6.3k', inductance: '2.55H', capacitance: '120p', winding: 'cw', magnet: 'north' });
-  return parseGuitar(raw);
-}
 
 function once<T>(work: () => T): { value: T; ms: number } {
   const start = performance.now();

@@ -9,7 +9,7 @@
  * loads only from there (its Content-Security-Policy allows scripts from
  * the page and its folder and no connections).
  */
-import { renderContentSecurityPolicy } from './content-security-policy.js';
+import { renderPageHead } from './render-page-head.js';
 import type { ComparisonDifference, ComparisonEntry, ComparisonReport, ComparisonRow } from './comparison-report.js';
 import { escapeHtml, serializeJsonForScript } from './escape-html.js';
 import { PAGE_BLIND_SCRIPT } from './page-blind-script.js';
@@ -135,7 +135,6 @@ function renderSetsList(report: ComparisonReport): string {
 export function renderComparisonPage(report: ComparisonReport): string {
   const script = ["'use strict';", PAGE_MATH_SCRIPT, PAGE_LOADER_SCRIPT, PAGE_PLAYER_SCRIPT, PAGE_BLIND_SCRIPT, PAGE_COMPARISON_SCRIPT].join('\n');
   const style = `${PAGE_STYLE}${COMPARISON_STYLE}`;
-  const policy = renderContentSecurityPolicy(script, style);
   const { thresholds } = report;
   const first = report.sets[0];
   const render = first?.render;
@@ -146,18 +145,7 @@ export function renderComparisonPage(report: ComparisonReport): string {
     label: `${report.sets[entry.set]?.label ?? '?'} · ${entry.wiringId} ${entry.expression}`,
   }));
   const data = { report, gains: planComparisonGains(report) };
-  return `<!doctype html>
-<html lang="en">
-<head>
-<meta charset="utf-8">
-<meta name="viewport" content="width=device-width, initial-scale=1">
-<meta http-equiv="Content-Security-Policy" content="${escapeHtml(policy)}">
-<meta name="generator" content="${escapeHtml(report.generator)}">
-<link rel="icon" href="data:,">
-<title>${escapeHtml(title)}</title>
-<style>${style}</style>
-</head>
-<body>
+  return `${renderPageHead({ title, script, style, generator: report.generator })}
 <a class="skip" href="#compared">Skip to the wirings</a>
 <header class="masthead">
 <p class="kicker">coilbench comparison page</p>

@@ -9,7 +9,7 @@
  * page-audio-file.ts); plots are inline SVG drawn by the page script from the
  * report's numbers.
  */
-import { renderContentSecurityPolicy } from './content-security-policy.js';
+import { renderPageHead } from './render-page-head.js';
 import { RECOMMENDED_ABX_TRIALS } from './abx-settings.js';
 import { escapeHtml, serializeJsonForScript } from './escape-html.js';
 import type { ListeningReport } from './listening-report.js';
@@ -174,22 +174,10 @@ function renderColumnHelp(report: ListeningReport): string {
 /** The listening page for a report, as one HTML document. */
 export function renderListeningPage(report: ListeningReport): string {
   const script = ["'use strict';", PAGE_MATH_SCRIPT, PAGE_LOADER_SCRIPT, PAGE_PLAYER_SCRIPT, PAGE_PLOT_SCRIPT, PAGE_BLIND_SCRIPT, PAGE_UI_SCRIPT].join('\n');
-  const policy = renderContentSecurityPolicy(script, PAGE_STYLE);
   const { guitar, render, wirings } = report;
   const name = escapeHtml(guitar.name);
   const quiet = wirings.filter((wiring) => wiring.humCancelling).length;
-  return `<!doctype html>
-<html lang="en">
-<head>
-<meta charset="utf-8">
-<meta name="viewport" content="width=device-width, initial-scale=1">
-<meta http-equiv="Content-Security-Policy" content="${escapeHtml(policy)}">
-<meta name="generator" content="${escapeHtml(report.generator)}">
-<link rel="icon" href="data:,">
-<title>${name} · listen to every wiring</title>
-<style>${PAGE_STYLE}</style>
-</head>
-<body>
+  return `${renderPageHead({ title: `${guitar.name} · listen to every wiring`, script, style: PAGE_STYLE, generator: report.generator })}
 <a class="skip" href="#wirings">Skip to the wirings</a>
 <header class="masthead">
 <p class="kicker">coilbench listening page</p>
