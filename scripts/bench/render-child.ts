@@ -7,10 +7,14 @@ import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
-import { parseGuitarText } from '../../src/guitar/index.js';
-import { type ChainName, outputFolder, renderGuitar } from '../../src/render/index.js';
-import { builtInPhrase } from '../../src/string/index.js';
-import { enumerateWirings } from '../../src/wiring/index.js';
+import type { ChainName } from '../../src/render/index.js';
+
+// The compiled code in dist/ (what `npx coilbench` runs; `npm run bench` builds it first), typed as its source.
+const dist = (folder: string): string => join(import.meta.dirname, '..', '..', 'dist', folder, 'index.js');
+const { parseGuitarText } = (await import(dist('guitar'))) as typeof import('../../src/guitar/index.js');
+const { outputFolder, renderGuitar } = (await import(dist('render'))) as typeof import('../../src/render/index.js');
+const { builtInPhrase } = (await import(dist('string'))) as typeof import('../../src/string/index.js');
+const { enumerateWirings } = (await import(dist('wiring'))) as typeof import('../../src/wiring/index.js');
 
 const [file = 'samples/three-single-coil.json', chain = 'direct', threadText = '2', repeat = 'cold'] = process.argv.slice(2);
 const guitar = parseGuitarText(readFileSync(file, 'utf8'), file);
