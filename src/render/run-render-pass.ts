@@ -12,12 +12,26 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { Worker } from 'node:worker_threads';
 import { InputError, WorkError } from '../errors/index.js';
+import type { ChainName } from './chain-name.js';
 import { type AudioSettings, type PassItem, type PassResult, runRenderPass } from './render-pass.js';
 import type { WorkerJob, WorkerMessage } from './render-worker.js';
 import { shapeKey } from '../wiring/index.js';
 
-/** Fewest wirings worth a worker: a worker starts cold (loading and compiling the code, rendering the strings and spectra again: about half a second), so small jobs stay on one thread. */
-export const MIN_ITEMS_PER_THREAD = 50;
+/**
+ * Fewest wirings worth a worker thread, by effects chain: a worker starts cold
+ * (loading and compiling the code, rendering the strings and spectra again:
+ * about half a second), so it pays only when each thread gets about a second
+ * of work. A wiring costs about 25 ms direct and 40–60 ms through a chain
+ * (measured with `npm run bench` on a 2-core machine: 47 wirings through the
+ * drive chain take 3.3–3.6 s on one thread and 2.7–3.0 s on two; direct, one
+ * thread was faster).
+ */
+export const MIN_ITEMS_PER_THREAD: Readonly<Record<ChainName, number>> = Object.freeze({
+  direct: 50,
+  clean: 16,
+  compressed: 16,
+  drive: 16,
+});
 
 /** Threads to use by default: the machine's cores, at most two (the render's memory grows with each thread). */
 export function defaultThreadCount(): number {
@@ -97,7 +111,7 @@ export async function runRenderPassOnThreads(
   scratchFolder: string,
   threads: number,
   onStep?: () => void,
-  minItemsPerThread = MIN_ITEMS_PER_THREAD,
+  minItemsPerThread = MIN_ITEMS_PER_THREAD[settings.chain],
 ): Promise<PassResult[]> {
   const parts = Math.max(1, Math.min(threads, Math.floor(items.length / minItemsPerThread)));
   if (parts <= 1) return runRenderPass(settings, items, scratchFolder, () => onStep?.());
