@@ -1,3 +1,4 @@
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { captureIo, main } from '../src/cli/index.js';
@@ -61,6 +62,13 @@ describe('command line errors', () => {
     const { status, err } = await run('wirings', 'three-single-coil.json', '--jsn');
     expect(status).toBe(2);
     expect(err).toContain("unknown option '--jsn'");
+  });
+
+  it('prints the version of package.json', async () => {
+    const { version } = JSON.parse(readFileSync(join(import.meta.dirname, '..', 'package.json'), 'utf8')) as { version: string };
+    const { status, out } = await run('--version');
+    expect(status).toBe(0);
+    expect(out.trim()).toBe(version);
   });
 
   it('prints help with status 0', async () => {

@@ -36,6 +36,8 @@ export const SAMPLE_RATES_HZ: readonly number[] = Object.freeze([44_100, 48_000,
 export const DEFAULT_HUM_EMF_V = 0.005;
 /** Largest hum EMF accepted, volts (a plausibility bound). */
 const MAX_HUM_EMF_V = 1;
+/** Default sample rate of the files, Hz (the reference render's rate). */
+export const DEFAULT_SAMPLE_RATE_HZ = 48_000;
 /** Default effects chain: an amplifier-like clean sound, since raw pickup signals mislead on small speakers (common practice). */
 export const DEFAULT_CHAIN: ChainName = 'clean';
 
@@ -59,7 +61,7 @@ export function addRenderOptions(command: Command): Command {
       .option('--phrase <phrase>', `what the strings play: ${BUILT_IN_PHRASES.join(', ')} or a phrase file (default strum)`)
       .option('--chain <chain>', `effects chain: ${CHAIN_NAMES.join(', ')} (default ${DEFAULT_CHAIN})`)
       .option('--only <wiring>', 'render only this wiring (an expression like "neck + ~bridge" or a number like w9); repeatable', collectOption)
-      .option('--rate <hz>', `sample rate of the files: ${SAMPLE_RATES_HZ.join(', ')} (default 48000)`)
+      .option('--rate <hz>', `sample rate of the files: ${SAMPLE_RATES_HZ.join(', ')} (default ${DEFAULT_SAMPLE_RATE_HZ})`)
       .option('--format <format>', `sample format: ${WAV_FORMATS.join(', ')} (default pcm24)`)
       .option('--level <mode>', 'true: one common gain, levels as the circuit makes them (default); matched: every file at one loudness')
       .option('--hum <hz>', 'mix mains hum at 50 or 60 Hz into every file, through each wiring\'s own hum pickup')
@@ -108,7 +110,7 @@ export function parseRenderOptions(options: RenderOptionText, guitar: Guitar, al
   const phrase = readPhrase(options.phrase, guitar, io, problems);
   const chain = (options.chain ?? DEFAULT_CHAIN) as ChainName;
   if (!CHAIN_NAMES.includes(chain)) problems.push(problemAt('--chain', `one of ${CHAIN_NAMES.join(', ')}`, options.chain));
-  const sampleRateHz = options.rate === undefined ? 48_000 : Number(options.rate.replace(/\s*hz$/iu, ''));
+  const sampleRateHz = options.rate === undefined ? DEFAULT_SAMPLE_RATE_HZ : Number(options.rate.replace(/\s*hz$/iu, ''));
   if (!SAMPLE_RATES_HZ.includes(sampleRateHz)) problems.push(problemAt('--rate', `one of ${SAMPLE_RATES_HZ.join(', ')} (Hz)`, options.rate));
   const format = (options.format ?? 'pcm24') as WavFormat;
   if (!WAV_FORMATS.includes(format)) problems.push(problemAt('--format', `one of ${WAV_FORMATS.join(', ')}`, options.format));
