@@ -47,7 +47,7 @@ function fixed(value: number | null, digits: number, signed = false): string {
   if (value === null) return NONE;
   const rounded = Number(value.toFixed(digits));
   const text = (rounded === 0 ? 0 : rounded).toFixed(digits); // never "-0.0"
-  return signed && value >= 0 ? `+${text}` : text;
+  return signed && rounded >= 0 ? `+${text}` : text;
 }
 
 const silent = (row: AnalyzedWiring): boolean => row.circuit.peakDb === null;
