@@ -2,6 +2,7 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { renderWiringsExactly, type ExactRenders } from '../../test/support/exact-wiring-renders.js';
+import { fitLogRatios } from '../../test/support/log-ratio-fit.js';
 import { type Guitar, parseGuitarText } from '../guitar/index.js';
 import { type Wiring, enumerateWirings } from '../wiring/index.js';
 import { measureCentroid } from './measure-centroid.js';
@@ -56,20 +57,7 @@ describe('solveWiringSpectra on the demo guitar (47 wirings)', () => {
   it('moves brightness with the render centroid: log ratios correlate ≥ 0.9, brightness moving about 1.4× as far', () => {
     // DESIGN.md's centroidHz of each exact render (magnitude weighted, Hann window) against brightnessHz (power weighted).
     const centroids = exact.renders.map((render) => measureCentroid(render, exact.sampleRateHz));
-    let xy = 0;
-    let xx = 0;
-    let yy = 0;
-    for (let a = 0; a < wirings.length; a += 1) {
-      for (let b = a + 1; b < wirings.length; b += 1) {
-        const x = Math.log((centroids[a] as number) / (centroids[b] as number));
-        const y = Math.log((spectra.brightnessHz[a] as number) / (spectra.brightnessHz[b] as number));
-        xy += x * y;
-        xx += x * x;
-        yy += y * y;
-      }
-    }
-    const slope = xy / xx;
-    const correlation = xy / Math.sqrt(xx * yy);
+    const { slope, correlation } = fitLogRatios(centroids, Array.from(spectra.brightnessHz));
     // Measured on this guitar: slope 1.42, correlation 0.96 (docs/distinctness.md).
     expect(correlation).toBeGreaterThan(0.9);
     expect(slope).toBeGreaterThan(1.2);

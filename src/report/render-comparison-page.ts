@@ -20,7 +20,7 @@ import { PAGE_PLAYER_SCRIPT } from './page-player-script.js';
 import { renderCautionsSection, renderGlossarySection } from './page-sections.js';
 import { PAGE_STYLE } from './page-style.js';
 import { planComparisonGains } from './plan-comparison-gains.js';
-import { START_VOLUME, renderBlindTestSection } from './render-listening-page.js';
+import { renderBlindTestSection, renderTransport } from './render-listening-page.js';
 
 /** Extra rules for the comparison table's set buttons (appended to the listening page's style). */
 const COMPARISON_STYLE = `
@@ -105,20 +105,6 @@ function renderTable(report: ComparisonReport): string {
   );
 }
 
-function renderTransport(report: ComparisonReport): string {
-  const duration = (report.sets[0]?.render.durationS ?? 0).toFixed(2);
-  return (
-    '<div id="transport" class="transport" role="region" aria-label="Player">' +
-    '<button type="button" id="transport-play" class="big-play" data-action="toggle" aria-label="Play" disabled><span aria-hidden="true" class="play-icon"></span></button>' +
-    '<div class="now"><span id="now-label">Press a set\'s letter on any row to listen</span><span id="now-detail"></span></div>' +
-    `<label class="scrub"><span class="visually-hidden">Position in the phrase</span><input type="range" id="scrub" min="0" max="${duration}" step="0.01" value="0"></label>` +
-    `<output id="time" aria-live="off">0.00 s / ${duration} s</output>` +
-    '<label class="check level-switch"><input type="checkbox" id="match-level" data-action="level-mode" checked> Level matched</label>' +
-    `<label class="volume">Volume <input type="range" id="volume" min="0" max="1" step="0.01" value="${START_VOLUME}"></label>` +
-    '<output id="level-note" class="level-note"></output>' +
-    '</div>'
-  );
-}
 
 function renderSetsList(report: ComparisonReport): string {
   const items = report.sets
@@ -176,7 +162,7 @@ ${renderGlossarySection()}
 ${renderCautionsSection()}
 </main>
 <footer class="footer"><p>Made with coilbench. Renders are models of pickups that may differ from real ones: try a candidate set by ear before you buy and fit it.</p></footer>
-${renderTransport(report)}
+${renderTransport(report.sets[0]?.render.durationS ?? 0, 'Press a set\'s letter on any row to listen')}
 <script type="application/json" id="comparison-data">${serializeJsonForScript(data)}</script>
 <script>${script}</script>
 </body>

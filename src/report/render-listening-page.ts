@@ -85,25 +85,38 @@ function renderFilters(report: ListeningReport): string {
   );
 }
 
-function renderTransport(report: ListeningReport): string {
-  const duration = report.render.durationS.toFixed(2);
+/**
+ * The player bar shared by coilbench's pages: play button, what is playing,
+ * position, time, then `extra` controls (the listening page's loop), the
+ * level-match switch and the volume.
+ */
+export function renderTransport(durationS: number, prompt: string, extra = ''): string {
+  const duration = durationS.toFixed(2);
   return (
     '<div id="transport" class="transport" role="region" aria-label="Player">' +
     '<button type="button" id="transport-play" class="big-play" data-action="toggle" aria-label="Play" disabled><span aria-hidden="true" class="play-icon"></span></button>' +
-    '<div class="now"><span id="now-label">Press ▶ on any row to listen</span><span id="now-detail"></span></div>' +
+    `<div class="now"><span id="now-label">${prompt}</span><span id="now-detail"></span></div>` +
     `<label class="scrub"><span class="visually-hidden">Position in the phrase</span><input type="range" id="scrub" min="0" max="${duration}" step="0.01" value="0"></label>` +
     `<output id="time" aria-live="off">0.00 s / ${duration} s</output>` +
+    extra +
+    '<label class="check level-switch"><input type="checkbox" id="match-level" data-action="level-mode" checked> Level matched</label>' +
+    `<label class="volume">Volume <input type="range" id="volume" min="0" max="1" step="0.01" value="${START_VOLUME}"></label>` +
+    '<output id="level-note" class="level-note"></output>' +
+    '</div>'
+  );
+}
+
+/** The loop controls of the listening page's player bar. */
+function renderLoopControls(durationS: number): string {
+  const duration = durationS.toFixed(2);
+  return (
     '<fieldset class="loop"><legend class="visually-hidden">Loop a region</legend>' +
     '<label class="check"><input type="checkbox" id="loop-on" data-action="loop"> Loop</label>' +
     `<label>from <input type="number" id="loop-start" min="0" max="${duration}" step="0.1" value="0"> s</label>` +
     `<label>to <input type="number" id="loop-end" min="0" max="${duration}" step="0.1" value="${duration}"> s</label>` +
     '<button type="button" data-action="loop-start-here" title="Loop from the current position">from here</button>' +
     '<button type="button" data-action="loop-end-here" title="Loop up to the current position">to here</button>' +
-    '</fieldset>' +
-    '<label class="check level-switch"><input type="checkbox" id="match-level" data-action="level-mode" checked> Level matched</label>' +
-    `<label class="volume">Volume <input type="range" id="volume" min="0" max="1" step="0.01" value="${START_VOLUME}"></label>` +
-    '<output id="level-note" class="level-note"></output>' +
-    '</div>'
+    '</fieldset>'
   );
 }
 
@@ -212,7 +225,7 @@ ${renderGlossarySection()}
 ${renderCautionsSection()}
 </main>
 <footer class="footer"><p>Made with coilbench. Renders are models: make the final choice by ear on the real instrument.</p></footer>
-${renderTransport(report)}
+${renderTransport(report.render.durationS, 'Press ▶ on any row to listen', renderLoopControls(report.render.durationS))}
 <script type="application/json" id="report-data">${serializeJsonForScript(compactReportForPage(report))}</script>
 <script>${script}</script>
 </body>
