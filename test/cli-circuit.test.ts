@@ -186,7 +186,7 @@ describe('netlists in plain ngspice (Debian ngspice, `ngspice -b`)', () => {
   if (!available && process.env.CI) throw new Error('ngspice is not installed: .ci/run installs the Debian package');
   it.skipIf(!available)('prints a sweep that matches the solver to the printed precision', async () => {
     const guitar = parseGuitarText(readFileSync(join(samples, 'humbucker-two-single-coil.json'), 'utf8'));
-    const wiring = enumerateWirings(guitar.elements).find((candidate) => candidate.expression === 'neck + (~mid // bridge-screw)');
+    const wiring = enumerateWirings(guitar.elements).find((candidate) => candidate.expression === 'neck + (~mid // bridge_screw)');
     expect(wiring).toBeDefined();
     const folder = mkdtempSync(join(tmpdir(), 'coilbench-ngspice-'));
     const { out } = await run(samples, 'netlist', 'humbucker-two-single-coil.json', wiring?.expression ?? '');

@@ -116,7 +116,7 @@ describe('coilbench shortlist', () => {
   };
 
   it('respects every constraint at once and reports the smallest distance of the set', async () => {
-    const document = await shortlist('humbucker-two-single-coil.json', '--count', '4', '--hum-cancelling', '--level-window', '4', '--include', 'neck + mid', '--coils', 'neck,mid,bridge-screw,bridge-slug');
+    const document = await shortlist('humbucker-two-single-coil.json', '--count', '4', '--hum-cancelling', '--level-window', '4', '--include', 'neck + mid', '--coils', 'neck,mid,bridge_screw,bridge_slug');
     expect(document.wirings).toHaveLength(4);
     expect(document.wirings.map((wiring) => wiring.expression)).toContain('neck + mid');
     for (const wiring of document.wirings) expect(wiring.humCancelling).toBe(true);
@@ -124,12 +124,12 @@ describe('coilbench shortlist', () => {
     expect(Math.max(...levels) - Math.min(...levels)).toBeLessThanOrEqual(4);
     const smallest = Math.min(...document.distances.flatMap((row, i) => row.filter((_, j) => j !== i)));
     expect(document.minDistance).toBeCloseTo(smallest, 12);
-    expect(document.constraints).toEqual({ humCancelling: true, levelWindowDb: 4, include: ['w5'], coils: ['neck', 'mid', 'bridge-screw', 'bridge-slug'] });
+    expect(document.constraints).toEqual({ humCancelling: true, levelWindowDb: 4, include: ['w5'], coils: ['neck', 'mid', 'bridge_screw', 'bridge_slug'] });
   });
 
   it('--coils keeps to the coils named', async () => {
-    const document = await shortlist('humbucker-two-single-coil.json', '--count', '3', '--coils', 'bridge-screw, bridge-slug');
-    for (const wiring of document.wirings) for (const coil of wiring.coils) expect(['bridge-screw', 'bridge-slug']).toContain(coil);
+    const document = await shortlist('humbucker-two-single-coil.json', '--count', '3', '--coils', 'bridge_screw, bridge_slug');
+    for (const wiring of document.wirings) for (const coil of wiring.coils) expect(['bridge_screw', 'bridge_slug']).toContain(coil);
     expect(document.candidates).toBe(6);
   });
 

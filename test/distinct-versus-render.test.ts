@@ -2,7 +2,7 @@
  * The distinctness analysis computes each wiring's level and brightness from
  * band cross-spectra, without rendering. Here they meet the render
  * pipeline's own figures for the same reference render (src/render:
- * measureWiringAudio, DESIGN.md's levelDb and centroidHz).
+ * measureWiringAudio, docs/design.md's levelDb and centroidHz).
  */
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';

@@ -6,7 +6,7 @@
  * - levelDb, 1 dB: the level difference limen for moderate levels. Jesteadt,
  *   Wier & Green (1977), "Intensity discrimination as a function of
  *   frequency and sensation level", J. Acoust. Soc. Am. 61(1), 169–177:
- *   ΔI/I = 0.463·(I/I0)^(−0.072), i.e. 0.93 dB at 40 dB SL (REFERENCES.md §7.2).
+ *   ΔI/I = 0.463·(I/I0)^(−0.072), i.e. 0.93 dB at 40 dB SL (docs/physics.md §7.2).
  * - spectrumDb, 1 dB: the level-matched excitation-pattern distance
  *   (measure-spectral-profiles.ts). A 1 dB RMS log-spectral distortion is
  *   the accepted limit of perceptually transparent spectral envelopes in
@@ -19,7 +19,7 @@
  *   Psychoacoustics: Facts and Models, 2nd ed., Springer, 1999, ch. 7 —
  *   from memory of the chapter).
  * - brightnessPercent, 3 %: centroid difference limens of a few percent —
- *   from memory, unverified (REFERENCES.md §7.2: 2–5 %; Kendall's
+ *   from memory, unverified (docs/physics.md §7.2: 2–5 %; Kendall's
  *   experiments stepped the centroid by 0.5–0.9 % per comparison).
  */
 import { InputError, type InputProblem, problemAt } from '../errors/index.js';

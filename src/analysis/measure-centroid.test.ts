@@ -19,7 +19,7 @@ const Meyda = meydaModule as unknown as MeydaSettings;
  * meyda (npm, 5.6.3) spectralCentroid in Hz. It returns a bin index over bins
  * 0 … N/2 − 1 of a symmetric-Hann-windowed frame, with the spectrum sized from
  * the global bufferSize: set it first, then Hz = bins · sampleRate / N
- * (REFERENCES.md §7.1, read from meyda's source).
+ * (docs/physics.md §7.1, read from meyda's source).
  */
 function meydaCentroidHz(frame: Float32Array, sampleRateHz: number): number {
   Meyda.bufferSize = frame.length;
@@ -54,7 +54,7 @@ describe('measureCentroid', () => {
   });
 
   it('gives 3.4142·f1 for 10 harmonics with 1/n amplitudes', () => {
-    // Derived (REFERENCES.md §7.1): Σ n·f1·(1/n) / Σ 1/n = 10·f1 / H_10, H_10 = 7381/2520.
+    // Derived (docs/physics.md §7.1): Σ n·f1·(1/n) / Σ 1/n = 10·f1 / H_10, H_10 = 7381/2520.
     const fundamentalHz = 220;
     const count = RATE_HZ;
     const tone = new Float64Array(count);
@@ -68,7 +68,7 @@ describe('measureCentroid', () => {
   });
 
   it('puts a sine exactly on bin 37 of 1024 at 37 bins (periodic Hann) and 37.00087 (symmetric)', () => {
-    // REFERENCES.md §7.1 check values (derived); the symmetric one is also meyda's reading.
+    // docs/physics.md §7.1 check values (derived); the symmetric one is also meyda's reading.
     const size = 1024;
     const frame = Float64Array.from({ length: size }, (_, n) => Math.sin((2 * Math.PI * 37 * n) / size));
     const wholeBand = { lowHz: 0, highHz: RATE_HZ / 2 };

@@ -28,7 +28,7 @@ import { nextPowerOfTwo, realFft } from '../math/index.js';
 export type HannWindowKind = 'symmetric' | 'periodic';
 
 export interface CentroidOptions {
-  /** Lowest frequency counted, Hz; finite, ≥ 0, below highHz. Default 20 Hz (the band of DESIGN.md's centroidHz). */
+  /** Lowest frequency counted, Hz; finite, ≥ 0, below highHz. Default 20 Hz (the band of docs/design.md's centroidHz). */
   readonly lowHz: number;
   /** Highest frequency counted, Hz; finite, above lowHz. The band also ends at Nyquist (fs/2). Default 20 kHz. */
   readonly highHz: number;
@@ -36,7 +36,7 @@ export interface CentroidOptions {
   readonly window: HannWindowKind;
 }
 
-/** The audible band, 20 Hz–20 kHz (common practice), as DESIGN.md defines centroidHz. */
+/** The audible band, 20 Hz–20 kHz (common practice), as docs/design.md defines centroidHz. */
 export const DEFAULT_CENTROID_OPTIONS: CentroidOptions = Object.freeze({ lowHz: 20, highHz: 20_000, window: 'symmetric' });
 
 /** What a silent signal reads, Hz (no centroid exists; 0 lies outside every band). */

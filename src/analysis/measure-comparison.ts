@@ -7,7 +7,7 @@
  *
  * Each difference is flagged when it reaches its threshold: level, spectrum
  * and brightness by the alike thresholds (alike-thresholds.ts); the loaded
- * resonance by RESONANCE_CHANGE_PERCENT (a heuristic, REFERENCES.md §7.2:
+ * resonance by RESONANCE_CHANGE_PERCENT (a heuristic, docs/physics.md §7.2:
  * "peak frequency < ~5 %", not from a source; the band spectrum is what
  * decides audibility); hum when its hum-cancelling state changes, or when
  * it moves by the level threshold or more while either of the two does not
@@ -19,7 +19,7 @@ import type { AlikeThresholds } from './alike-thresholds.js';
 import type { SpectralProfiles } from './measure-spectral-profiles.js';
 import { measureWiringDifference } from './measure-wiring-difference.js';
 
-/** Resonance shift flagged as a change, percent (heuristic, REFERENCES.md §7.2). */
+/** Resonance shift flagged as a change, percent (heuristic, docs/physics.md §7.2). */
 export const RESONANCE_CHANGE_PERCENT = 5;
 
 const PERCENT = 100;

@@ -3,7 +3,7 @@
  * and pickups that a wiring's band energies need, computed once per guitar
  * and phrase.
  *
- * A wiring's output spectrum is Y(f) = Σ_i T_i(f)·E_i(f) (DESIGN.md, data
+ * A wiring's output spectrum is Y(f) = Σ_i T_i(f)·E_i(f) (docs/design.md, data
  * flow), so its energy in a segment s of bins is
  *
  *   P_s = Σ_{k∈s} w_k·|Σ_i T_i(f_k)·E_i(f_k)|²

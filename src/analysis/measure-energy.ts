@@ -5,7 +5,7 @@
  * of one phrase all have the same length, so energy ratios are power ratios
  * and a level difference is ΔL = 10·log10(E / E_ref) dB.
  *
- * DESIGN.md's levelDb is a wiring's energy relative to the mean energy of the
+ * docs/design.md's levelDb is a wiring's energy relative to the mean energy of the
  * single-coil wirings; the pipeline computes that mean and calls
  * measureLevelDb(energy, meanSingleCoilEnergy).
  */

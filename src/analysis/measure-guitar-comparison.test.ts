@@ -29,7 +29,7 @@ describe('measureGuitarComparison', () => {
   });
 
   it('moves every resonance down when only the cable capacitance grows, as ω0 = √((1 + R/RL)/(L·C)) says', () => {
-    // REFERENCES.md §1.1: more capacitance across the coil lowers the loaded resonance of every wiring.
+    // docs/physics.md §1.1: more capacitance across the coil lowers the loaded resonance of every wiring.
     const longCable = parseGuitar({ ...demo, name: 'Demo with a long cable (invented)', cable: { capacitance: '1200p' } });
     const comparison = measureGuitarComparison(parseGuitar(demo), longCable);
     let shifted = 0;

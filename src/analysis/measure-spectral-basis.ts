@@ -13,7 +13,7 @@ import { type BandLayout, type BandOptions, designBands } from './design-bands.j
 import { type CrossSpectra, measureCrossSpectra } from './measure-cross-spectra.js';
 
 export interface SpectralBasisOptions {
-  /** The phrase every wiring plays. Default: the built-in `strum`, the reference phrase for metrics (DESIGN.md). */
+  /** The phrase every wiring plays. Default: the built-in `strum`, the reference phrase for metrics (docs/design.md). */
   readonly phrase: Phrase | undefined;
   /** Name shown for the phrase. Default "strum". */
   readonly phraseName: string;

@@ -55,7 +55,7 @@ describe('solveWiringSpectra on the demo guitar (47 wirings)', () => {
   });
 
   it('moves brightness with the render centroid: log ratios correlate ≥ 0.9, brightness moving about 1.4× as far', () => {
-    // DESIGN.md's centroidHz of each exact render (magnitude weighted, Hann window) against brightnessHz (power weighted).
+    // docs/design.md's centroidHz of each exact render (magnitude weighted, Hann window) against brightnessHz (power weighted).
     const centroids = exact.renders.map((render) => measureCentroid(render, exact.sampleRateHz));
     const { slope, correlation } = fitLogRatios(centroids, Array.from(spectra.brightnessHz));
     // Measured on this guitar: slope 1.42, correlation 0.96 (docs/distinctness.md).

@@ -12,9 +12,9 @@
  * - energy: Σ over every segment, 0 Hz to Nyquist — the energy Σ y[n]² of the
  *   wiring's render through the direct chain (Parseval, measure-cross-spectra.ts).
  * - levelDb: 10·log10(energy / mean energy of the single-element wirings),
- *   DESIGN.md's levelDb, computed without rendering.
+ *   docs/design.md's levelDb, computed without rendering.
  * - brightnessHz: the power-weighted spectral centroid Σ f·|Y(f)|² / Σ |Y(f)|²
- *   over the band spectrum's range (20 Hz–20 kHz). DESIGN.md's centroidHz is
+ *   over the band spectrum's range (20 Hz–20 kHz). docs/design.md's centroidHz is
  *   magnitude weighted (Σ f·|X| / Σ |X|) over a Hann-windowed FFT of the
  *   render; the two are different numbers (power weighting leans towards
  *   the strong low partials, so brightnessHz is lower) that move together:

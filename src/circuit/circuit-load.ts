@@ -4,7 +4,7 @@
  * the mains frequency used for hum. Resolved once from the guitar and the
  * overrides; everything after reads only this.
  *
- * Circuit (REFERENCES.md §1.1; common practice for the controls):
+ * Circuit (docs/physics.md §1.1; common practice for the controls):
  *
  *   hot ──┬── volume track top (1 − r)·Rv ──┬── out ── cable C ∥ amp R ∥ amp C ── ground
  *         │   [treble bleed, hot to out]     │
@@ -20,7 +20,7 @@ import { KNOB_FULL_SCALE, wiperFraction } from './pot-taper.js';
 /** Mains frequencies hum is evaluated at. */
 export type MainsHz = 50 | 60;
 
-/** Default mains frequency (DESIGN.md: 60 Hz unless `--mains 50`). */
+/** Default mains frequency (docs/design.md: 60 Hz unless `--mains 50`). */
 export const DEFAULT_MAINS_HZ: MainsHz = 60;
 
 /** Plausible total cable capacitance, the range the guitar file accepts (1 pF to 20 nF). */

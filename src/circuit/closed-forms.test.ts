@@ -1,6 +1,6 @@
 /**
  * The solver against closed forms for a single loaded coil and for two equal
- * coils (REFERENCES.md §1.1, §1.2, §1.4; the second-order peak and Q are the
+ * coils (docs/physics.md §1.1, §1.2, §1.4; the second-order peak and Q are the
  * textbook results ω_r = ω_n·√(1 − 2ζ²), M_r = 1/(2ζ·√(1 − ζ²)), ζ = 1/(2Q),
  * e.g. K. Ogata, Modern Control Engineering, as quoted there).
  */
@@ -16,7 +16,7 @@ interface Case {
   readonly coilCapacitanceF: number;
   readonly cableCapacitanceF: number;
   readonly loadOhms: number;
-  /** REFERENCES.md §1.4 table: f0, pole Q, peak frequency, peak gain, peak above DC (dB). */
+  /** docs/physics.md §1.4 table: f0, pole Q, peak frequency, peak gain, peak above DC (dB). */
   readonly f0Hz: number;
   readonly q: number;
   readonly peakHz: number;
@@ -49,7 +49,7 @@ function singleCoilGuitar(c: Pick<Case, 'resistanceOhms' | 'inductanceH' | 'coil
   });
 }
 
-/** REFERENCES.md §1.1: ω0 = √((1 + R/RL)/(L·C)), Q = ω0/(1/(RL·C) + R/L), K = RL/(R + RL). */
+/** docs/physics.md §1.1: ω0 = √((1 + R/RL)/(L·C)), Q = ω0/(1/(RL·C) + R/L), K = RL/(R + RL). */
 function secondOrder(c: Case): { f0Hz: number; q: number; dcGain: number } {
   const capacitance = c.coilCapacitanceF + c.cableCapacitanceF;
   const omega0 = Math.sqrt((1 + c.resistanceOhms / c.loadOhms) / (c.inductanceH * capacitance));
@@ -71,7 +71,7 @@ function halfPowerQ(q: number): number {
   return Math.sqrt(vPeak) / (Math.sqrt((b + root) / 2) - Math.sqrt((b - root) / 2));
 }
 
-describe('single loaded coil against the second-order closed forms (REFERENCES.md §1.4)', () => {
+describe('single loaded coil against the second-order closed forms (docs/physics.md §1.4)', () => {
   it.each(CASES)('$name: the formulas reproduce the published table', (c) => {
     const { f0Hz, q } = secondOrder(c);
     expect(f0Hz).toBeCloseTo(c.f0Hz, -1);
@@ -121,7 +121,7 @@ describe('single loaded coil against the second-order closed forms (REFERENCES.m
   });
 });
 
-describe('two equal coils in series and in parallel (REFERENCES.md §1.2)', () => {
+describe('two equal coils in series and in parallel (docs/physics.md §1.2)', () => {
   // Coil 2.25 H / 4 kΩ / 150 pF each; cable 500 pF; 500 kΩ ∥ 500 kΩ ∥ 1 MΩ = 200 kΩ.
   const guitar = singleCoilGuitar(
     { resistanceOhms: 4e3, inductanceH: 2.25, coilCapacitanceF: 150e-12, cableCapacitanceF: 500e-12, loadOhms: 200e3 },
@@ -142,7 +142,7 @@ describe('two equal coils in series and in parallel (REFERENCES.md §1.2)', () =
   });
 });
 
-describe('DC gain RL/(R + RL) (REFERENCES.md §1.1)', () => {
+describe('DC gain RL/(R + RL) (docs/physics.md §1.1)', () => {
   it('every wiring of a three-coil guitar at 0 Hz: resistive Millman by hand', () => {
     const guitar = parseGuitar({
       name: 'DC check (invented values)',

@@ -1,6 +1,6 @@
 /**
  * Sign conventions that tie a wiring's acoustic phase to the leads of each
- * coil (derived from Faraday's law, REFERENCES.md §6; the humbucking principle
+ * coil (derived from Faraday's law, docs/physics.md §6; the humbucking principle
  * is US Patent 2,896,491).
  *
  * - Winding sign w = +1 for "cw", −1 for "ccw": the sense of the turns seen

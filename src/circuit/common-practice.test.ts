@@ -1,6 +1,6 @@
 /**
  * What players and luthiers know from the trade (common practice, no single
- * published source; USER-NEEDS.md items 9–11, REFERENCES.md §1.2 and §6).
+ * published source; USER-NEEDS.md items 9–11, docs/physics.md §1.2 and §6).
  */
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
@@ -90,7 +90,7 @@ describe('turning the volume down without a treble bleed darkens the sound (comm
   });
 });
 
-describe('hum (common practice; REFERENCES.md §6)', () => {
+describe('hum (common practice; docs/physics.md §6)', () => {
   it('the in-between wirings with a reverse-wound, reverse-polarity middle coil cancel hum by more than 20 dB', () => {
     const wirings = enumerateWirings(guitar.elements);
     const analysis = measureCircuitMetrics(guitar, wirings);
@@ -121,7 +121,7 @@ describe('hum (common practice; REFERENCES.md §6)', () => {
     for (const metrics of analysis.wirings) expect(Number.isFinite(metrics.humDb)).toBe(true);
   });
 
-  it('a humbucker with a 5 % hum mismatch rejects about 26 dB (REFERENCES.md §6: −20·log10(0.05))', () => {
+  it('a humbucker with a 5 % hum mismatch rejects about 26 dB (docs/physics.md §6: −20·log10(0.05))', () => {
     const coil = { resistance: '4k', inductance: '2.3H', capacitance: '140p', position: '45mm' };
     const humbucker = parseGuitar({
       name: 'mismatched humbucker (invented values)',

@@ -1,9 +1,9 @@
 /** Frequency grids and the audio band the metrics look at. */
 
-/** The band metrics look at: 20 Hz to 20 kHz (DESIGN.md, metrics). */
+/** The band metrics look at: 20 Hz to 20 kHz (docs/design.md, metrics). */
 export const AUDIO_BAND_LOW_HZ = 20;
 export const AUDIO_BAND_HIGH_HZ = 20_000;
-/** Reference frequency for peak heights and response curves (DESIGN.md: "relative to … 100 Hz"). */
+/** Reference frequency for peak heights and response curves (docs/design.md: "relative to … 100 Hz"). */
 export const REFERENCE_FREQUENCY_HZ = 100;
 /** Points of the grid `analyze` solves on before refining peaks (200 log-spaced points, as the bench measures). */
 export const ANALYSIS_POINTS = 200;

@@ -1,5 +1,5 @@
 /**
- * Hum from a uniform mains field (DESIGN.md, metrics; REFERENCES.md §6).
+ * Hum from a uniform mains field (docs/design.md, metrics; docs/physics.md §6).
  * Each coil picks up an EMF h_i·(field) from start to finish with the sign of
  * its winding; connected with c_i = p_i·w_i·m_i it enters the network with
  * sign c_i·w_i = p_i·m_i. Since T_i already carries p_i, the hum at the
@@ -19,7 +19,7 @@ import { solveTransfers } from './solve-transfers.js';
 
 /** Lowest humDb reported: −120 dB stands for "cancelled as far as the model can tell" (our floor, well below any audible residue). */
 export const HUM_FLOOR_DB = -120;
-/** A wiring is hum cancelling when humDb ≤ −20 (DESIGN.md). */
+/** A wiring is hum cancelling when humDb ≤ −20 (docs/design.md). */
 export const HUM_CANCELLING_DB = -20;
 
 /** |H| at grid index `index` of solved transfers. */

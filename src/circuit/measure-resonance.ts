@@ -1,5 +1,5 @@
 /**
- * The loaded resonance of a wiring (DESIGN.md, metrics), from the power sum
+ * The loaded resonance of a wiring (docs/design.md, metrics), from the power sum
  * P(f) = √(Σ_i |T_i(f)|²):
  * - resonanceHz: where P is largest within 20 Hz–20 kHz; null when that
  *   maximum sits at an end of the band;

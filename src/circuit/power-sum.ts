@@ -1,6 +1,6 @@
 /**
  * The power sum √(Σ_i |T_i(f)|²) of a wiring's coil-to-output transfers
- * (DESIGN.md, metrics): the curve whose shape the network's poles set,
+ * (docs/design.md, metrics): the curve whose shape the network's poles set,
  * whatever the coils' phases.
  */
 import type { Network } from '../wiring/index.js';

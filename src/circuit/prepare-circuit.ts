@@ -38,7 +38,7 @@ export interface PreparedCircuit {
    * Per coil, the factor k taking its EMF to its open-circuit terminal
    * voltage: the EMF drives R + jωL into the self-capacitance C across the
    * terminals, so k = (1/jωC)/(R + jωL + 1/jωC) = 1/(1 + jωC·(R + jωL))
-   * (voltage divider; coil model of REFERENCES.md §1.1).
+   * (voltage divider; coil model of docs/physics.md §1.1).
    */
   readonly coilSource: readonly Float64Array[];
   /** Per coil, the Thevenin impedance Z = (R + jωL) ∥ 1/(jωC) = (R + jωL)·k. */

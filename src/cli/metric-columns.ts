@@ -6,7 +6,7 @@
 import { HUM_FLOOR_DB, type WiringCircuitMetrics } from '../circuit/index.js';
 import type { Wiring } from '../wiring/index.js';
 
-/** Figures from the wiring's render of the reference phrase (DESIGN.md metrics). */
+/** Figures from the wiring's render of the reference phrase (docs/design.md metrics). */
 export interface WiringAudioMetrics {
   readonly levelDb: number;
   readonly loudnessLufs: number;
@@ -25,7 +25,7 @@ export interface AnalyzedWiring {
 export type CellValue = string | number | boolean | null;
 
 export interface MetricColumn {
-  /** Name in CSV headers and JSON (DESIGN.md names). */
+  /** Name in CSV headers and JSON (docs/design.md names). */
   readonly key: string;
   /** Header in the table and Markdown. */
   readonly title: string;

@@ -82,7 +82,7 @@ describe('parseGuitar', () => {
 
   it('keeps four-conductor humbucker coils as separate elements', () => {
     const guitar = sample('two-humbucker.json');
-    expect(guitar.elements.map((element) => element.id)).toEqual(['neck-slug', 'neck-screw', 'bridge-screw', 'bridge-slug']);
+    expect(guitar.elements.map((element) => element.id)).toEqual(['neck_slug', 'neck_screw', 'bridge_screw', 'bridge_slug']);
     expect(guitar.pickups.map((pickup) => pickup.name)).toEqual(['neck', 'bridge']);
   });
 

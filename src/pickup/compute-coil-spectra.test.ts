@@ -56,7 +56,7 @@ function pickupSignal(guitarCoils: Coil[], render: StringRender): Float64Array[]
 
 const single = (note: PhraseNote, seconds = 1.5): StringRender => renderPhrase(demo, { name: 'one', notes: [note] }, { tailS: seconds });
 
-describe('computeCoilSpectra: position comb (REFERENCES.md §2, derived; Smith, PASP, "Pickup Modeling")', () => {
+describe('computeCoilSpectra: position comb (docs/physics.md §2, derived; Smith, PASP, "Pickup Modeling")', () => {
   const quarter = coil(demo.scaleM / 4, 0.02);
   // Plucked 60 mm from the bridge so that no neighbour sits in a pluck notch: the default 130 mm is
   // within 1 % of a fifth of a 648 mm scale and nulls harmonic 5 as well.
@@ -92,7 +92,7 @@ describe('computeCoilSpectra: position comb (REFERENCES.md §2, derived; Smith, 
     }
   });
 
-  // First pickup notch c/(2d), open strings on a 647.7 mm scale (REFERENCES.md §2.1 table).
+  // First pickup notch c/(2d), open strings on a 647.7 mm scale (docs/physics.md §2.1 table).
   it.each([
     [0.04, 1334, 5337],
     [0.1, 534, 2135],
@@ -121,7 +121,7 @@ describe('computeCoilSpectra: position comb (REFERENCES.md §2, derived; Smith, 
   });
 });
 
-describe('computeCoilSpectra: aperture (REFERENCES.md §3, uniform window, derived)', () => {
+describe('computeCoilSpectra: aperture (docs/physics.md §3, uniform window, derived)', () => {
   // 647.7 mm scale; E2 c = 106.75 m/s, E4 c = 427.0 m/s.
   it.each([
     [0.0254, 0, 4203, 1862],
@@ -145,7 +145,7 @@ describe('computeCoilSpectra: aperture (REFERENCES.md §3, uniform window, deriv
 });
 
 describe('computeCoilSpectra: what the coil senses', () => {
-  it('an ideal pluck at 120 mm seen by a point coil at 160 mm has the published harmonic amplitudes (REFERENCES.md §2.1: open E2, 647.7 mm)', () => {
+  it('an ideal pluck at 120 mm seen by a point coil at 160 mm has the published harmonic amplitudes (docs/physics.md §2.1: open E2, 647.7 mm)', () => {
     const guitar = { scaleM: 0.6477, strings: [{ index: 0, number: 1, openHz: 82.4069, name: 'E2' }] };
     const render = renderPhrase(
       guitar,

@@ -4,7 +4,7 @@
  *
  * A magnetic pickup senses the string's transverse velocity over its pole
  * pieces (Faraday's law for small motion; Smith, PASP, "Pickup Modeling";
- * REFERENCES §3). With W_s(t) the travelling velocity wave arriving at the
+ * docs/physics.md §3). With W_s(t) the travelling velocity wave arriving at the
  * bridge of string s and a rigid bridge (reflection −1), the velocity at
  * distance d from the bridge is
  *
@@ -12,7 +12,7 @@
  *
  * (d'Alembert, derived). Its notches fall at f = k·c/(2d) and, c being fixed
  * by the string's tension, do not move when the string is fretted
- * (REFERENCES §2). This centred standing-wave form is used on purpose: the
+ * (docs/physics.md §2). This centred standing-wave form is used on purpose: the
  * equivalent 1 − e^{−jω·2d/c} is this times e^{−jω·d/c}, a delay that
  * differs from coil to coil; it would shift coils at different positions
  * against each other in time and spoil every mix of coils, the out-of-phase
@@ -21,7 +21,7 @@
  *
  * The coil senses a strip of string of width w (its aperture) centred on d:
  * averaging v over a uniform window multiplies by sinc(π·f·w/c) =
- * sin(π·f·w/c)/(π·f·w/c), first null at c/w (REFERENCES §3, derived from
+ * sin(π·f·w/c)/(π·f·w/c), first null at c/w (docs/physics.md §3, derived from
  * Tillman's treatment of pickup width). It is real, so it adds no delay.
  * A slanted coil has its own d under each string (`coilPositionAt`).
  *

@@ -1,5 +1,5 @@
 /**
- * The audio metrics of DESIGN.md, from each wiring's render of the reference
+ * The audio metrics of docs/design.md, from each wiring's render of the reference
  * phrase through the direct chain: levelDb (energy relative to the mean of
  * the single-element wirings), loudnessLufs (ITU-R BS.1770 integrated) and
  * centroidHz (Σ f·|X| / Σ |X| over 20 Hz–20 kHz of one Hann-windowed FFT of
@@ -15,7 +15,7 @@ import type { Wiring } from '../wiring/index.js';
 import { type WiringSynthesis, prepareWiringSynthesis } from './synthesize-wirings.js';
 import { shapeKey } from '../wiring/index.js';
 
-/** The reference performance for metrics (DESIGN.md, phrases). */
+/** The reference performance for metrics (docs/design.md, phrases). */
 export const REFERENCE_PHRASE = 'strum';
 /** Sample rate of the reference render, Hz (the default rate of written files). */
 export const REFERENCE_SAMPLE_RATE_HZ = 48_000;

@@ -1,6 +1,6 @@
 /**
  * Where a render's files go: renders/<guitar-slug>/ with index.html, wav/,
- * netlists/, report.json, wirings.csv and report.md (DESIGN.md, output folder).
+ * netlists/, report.json, wirings.csv and report.md (docs/design.md, output folder).
  */
 import { join } from 'node:path';
 import { slugify } from '../guitar/index.js';

@@ -1,6 +1,6 @@
 /**
  * The first pass of a render, for a list of wirings: each wiring's reference
- * render measured (DESIGN.md metrics) and/or its file audio made (phrase,
+ * render measured (docs/design.md metrics) and/or its file audio made (phrase,
  * hum, effects chain) and parked in a scratch file, with its peak and, for
  * loudness-matched files, its loudness. Runs in the main thread or in a
  * worker thread alike (render-worker.ts): its input and output are plain data.

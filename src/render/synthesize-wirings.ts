@@ -2,7 +2,7 @@
  * The same performance through every wiring. Everything after the strings is
  * linear, so the strings are rendered once and each coil's EMF spectrum E_i(f)
  * is computed once; a wiring then costs its transfers T_i(f) at every FFT bin,
- * the sum Y(f) = Σ_i T_i(f)·E_i(f) and one inverse FFT (DESIGN.md, data flow).
+ * the sum Y(f) = Σ_i T_i(f)·E_i(f) and one inverse FFT (docs/design.md, data flow).
  *
  * Output samples are volts at the amplifier input: the coils' string EMF is
  * string velocity (m/s, from src/pickup) times COIL_VOLTS_PER_METRE_PER_SECOND.
@@ -19,7 +19,7 @@ import { type Network, coilPhases, shapeKey, withoutPhases } from '../wiring/ind
  * EMF a coil of relative sensitivity 1 gives per m/s of string velocity
  * sensed, volts (from memory: chosen so a firm strum gives open-circuit peaks
  * of a few hundred millivolts, the 100–300 mV typical of single coils quoted
- * in REFERENCES.md §1.3).
+ * in docs/physics.md §1.3).
  */
 export const COIL_VOLTS_PER_METRE_PER_SECOND = 0.02;
 

@@ -84,7 +84,7 @@ describe('encodeWav read back by wavefile', () => {
 
 describe('encodeWav layout', () => {
   it('has the 44-byte PCM header and the 58-byte float header (fmt 18 bytes + fact) without INFO', () => {
-    // REFERENCES.md §9 (derived from the 1991 specification's chunk layout).
+    // docs/physics.md §9 (derived from the 1991 specification's chunk layout).
     expect(encodeWav(new Float32Array(10), { format: 'pcm16' }).length).toBe(44 + 20);
     expect(encodeWav(new Float32Array(10), { format: 'f32' }).length).toBe(58 + 40);
     const text = new TextDecoder('latin1').decode(encodeWav(new Float32Array(10), { format: 'f32' }).subarray(0, 58));

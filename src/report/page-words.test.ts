@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { brightnessScale, formatDb, formatHz, humVerdict, peakCharacter, topologyInWords } from './page-words.js';
 
 describe('page words', () => {
-  it('marks hum: quiet at or below −20 dB (DESIGN.md humCancelling), partly to −6 dB, noisy above', () => {
+  it('marks hum: quiet at or below −20 dB (docs/design.md humCancelling), partly to −6 dB, noisy above', () => {
     expect(humVerdict(-32, true)).toBe('quiet');
     expect(humVerdict(-20, false)).toBe('quiet');
     expect(humVerdict(-19.9, false)).toBe('partly');

@@ -17,7 +17,7 @@ export function topologyInWords(topology: Topology): string {
   return TOPOLOGY_WORDS[topology];
 }
 
-/** A wiring counts as hum cancelling at or below this hum, dB (DESIGN.md, `humCancelling`). */
+/** A wiring counts as hum cancelling at or below this hum, dB (docs/design.md, `humCancelling`). */
 export const HUM_CANCELLING_DB = -20;
 /** Below this (and above the cancelling mark) a wiring is "partly cancelling": half the hum amplitude or less, dB (our own threshold). */
 export const HUM_PARTLY_CANCELLING_DB = -6;

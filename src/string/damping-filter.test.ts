@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { dampingFilterGain, dampingFilterPhaseDelay, stretchForBrightness } from './damping-filter.js';
 
 describe('damping filter Hd(z) = (1 − S) + S·z⁻¹', () => {
-  // Check values: REFERENCES.md §4.3 (derived from Smith, PASP, "One-Zero String Damping Filter").
+  // Check values: docs/physics.md §4.3 (derived from Smith, PASP, "One-Zero String Damping Filter").
   it.each([
     [0.5, [0.999507, 0.987688, 0.951057]],
     [0.25, [0.99963, 0.990781, 0.963525]],
@@ -13,7 +13,7 @@ describe('damping filter Hd(z) = (1 − S) + S·z⁻¹', () => {
     });
   });
 
-  it('with S = ½ gives harmonic k of plain Karplus–Strong the gain cos(πk/(N + ½)) per period (REFERENCES.md §4.3: E2, N = 534)', () => {
+  it('with S = ½ gives harmonic k of plain Karplus–Strong the gain cos(πk/(N + ½)) per period (docs/physics.md §4.3: E2, N = 534)', () => {
     const period = 534.5;
     expect(dampingFilterGain(0.5, (2 * Math.PI * 1) / period)).toBeCloseTo(0.99998273, 8);
     expect(dampingFilterGain(0.5, (2 * Math.PI * 10) / period)).toBeCloseTo(0.99827317, 8);

@@ -81,7 +81,7 @@ describe('renderPhrase: decay, level and shape', () => {
     expect(measuredT60).toBeLessThan(t60S * 1.03);
   });
 
-  it('the wave speed is 2·L·f_open per string and does not change with the fret (REFERENCES.md §8: E2 on 647.7 mm is 106.75 m/s)', () => {
+  it('the wave speed is 2·L·f_open per string and does not change with the fret (docs/physics.md §8: E2 on 647.7 mm is 106.75 m/s)', () => {
     const guitar = { scaleM: 0.6477, strings: demo.strings };
     const open = renderPhrase(guitar, phraseOf({ timeS: 0, string: 6, fret: 0, velocity: 1 }), { tailS: 0.1 });
     const fretted = renderPhrase(guitar, phraseOf({ timeS: 0, string: 6, fret: 7, velocity: 1 }), { tailS: 0.1 });
@@ -102,7 +102,7 @@ describe('renderPhrase: decay, level and shape', () => {
   });
 
   // Pluck-position comb: notches at k·c/(2p), fixed in hertz when the string is fretted
-  // (REFERENCES.md §2, derived; Jaffe & Smith 1983). p = L/4 puts a notch at 4·f_open.
+  // (docs/physics.md §2, derived; Jaffe & Smith 1983). p = L/4 puts a notch at 4·f_open.
   it.each([
     [0, 4],
     [5, 3],

@@ -3,7 +3,7 @@
  * each note's travelling velocity wave at the bridge, W_s(t), summed per
  * string. The pickups turn these into coil EMFs (src/pickup).
  *
- * Physics kept here (Fletcher & Rossing, ch. 2; REFERENCES §8):
+ * Physics kept here (Fletcher & Rossing, ch. 2; docs/physics.md §8):
  * - the wave speed of a string is c = 2·L·f_open and does not change with
  *   the fret; fret m shortens the vibrating length to L·2^(−m/12), so the
  *   note sounds f_open·2^(m/12);

@@ -38,7 +38,7 @@ function render(loop: StringLoop, seconds: number): Float64Array {
 }
 
 describe('runStringLoop', () => {
-  // Check values: REFERENCES.md §4.3 (pitch fs/(N + ½), Karplus & Strong 1983), measured by the
+  // Check values: docs/physics.md §4.3 (pitch fs/(N + ½), Karplus & Strong 1983), measured by the
   // pitchfinder package's YIN estimator (npm pitchfinder 2.3.4, de Cheveigné & Kawahara's YIN with aubio's refinement).
   it.each([
     [534, 82.4069, 82.507, 2.1],
@@ -54,7 +54,7 @@ describe('runStringLoop', () => {
     expect(centsBetween(measured ?? 0, targetHz)).toBeCloseTo(publishedCents, 1);
   });
 
-  it('plain Karplus–Strong, E2 with N = 534: harmonic 10 decays with τ ≈ 7.0 s (REFERENCES.md §4.3: gain 0.99827317 per period)', () => {
+  it('plain Karplus–Strong, E2 with N = 534: harmonic 10 decays with τ ≈ 7.0 s (docs/physics.md §4.3: gain 0.99827317 per period)', () => {
     const out = render(plainKarplusStrong(534), 4);
     const f10 = (10 * FS) / 534.5;
     const early = toneAmplitude(out, FS, f10, 0.2, 1);

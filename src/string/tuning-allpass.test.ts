@@ -12,12 +12,12 @@ function measuredPhaseDelay(eta: number, omega: number): number {
 }
 
 describe('tuning allpass (η + z⁻¹)/(1 + η·z⁻¹)', () => {
-  it('low-frequency mapping η = (1 − Δ)/(1 + Δ): Δ in [0.2, 1.2] ↔ η in [2/3, −1/11] (Smith, PASP, "First-Order Allpass Interpolation"; REFERENCES.md §4.2)', () => {
+  it('low-frequency mapping η = (1 − Δ)/(1 + Δ): Δ in [0.2, 1.2] ↔ η in [2/3, −1/11] (Smith, PASP, "First-Order Allpass Interpolation"; docs/physics.md §4.2)', () => {
     expect(allpassCoefficient(0.2, 0)).toBeCloseTo(2 / 3, 12);
     expect(allpassCoefficient(1.2, 0)).toBeCloseTo(-1 / 11, 12);
   });
 
-  it('the low-frequency coefficient gives the published phase delays at 329.6 Hz, fs = 44.1 kHz (REFERENCES.md §4.2)', () => {
+  it('the low-frequency coefficient gives the published phase delays at 329.6 Hz, fs = 44.1 kHz (docs/physics.md §4.2)', () => {
     const omega = (2 * Math.PI * 329.6) / 44100;
     const published = [0.2, 0.5001, 1.0, 1.1999];
     [0.2, 0.5, 1.0, 1.2].forEach((delay, i) => {

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { centsBetween, midiToHz, noteName, parseNoteName } from './pitch.js';
 
 // Open-string frequencies of standard tuning, equal temperament with A4 = 440 Hz
-// (ISO 16:1975); the values are the table in REFERENCES.md §8.
+// (ISO 16:1975); the values are the table in docs/physics.md §8.
 const ISO16_TABLE = [
   ['E2', 40, 82.4069],
   ['A2', 45, 110.0],
@@ -28,7 +28,7 @@ describe('pitch', () => {
 
   it('measures cents', () => {
     expect(centsBetween(440 * 2 ** (1 / 12), 440)).toBeCloseTo(100, 10);
-    // E2 from a Karplus–Strong delay of 534 samples at 44.1 kHz: +2.10 cents (REFERENCES.md §4.3).
+    // E2 from a Karplus–Strong delay of 534 samples at 44.1 kHz: +2.10 cents (docs/physics.md §4.3).
     expect(centsBetween(44100 / 534.5, midiToHz(40))).toBeCloseTo(2.1, 1);
   });
 });

@@ -1,5 +1,5 @@
 /**
- * Distinctness without trusting the canonical form (REFERENCES.md §5): give
+ * Distinctness without trusting the canonical form (docs/physics.md §5): give
  * each element a random complex impedance and EMF, compute every wiring's
  * Thevenin source (V, Z) with a small evaluator written here, and count the
  * distinct results up to a global sign of V. Each enumerated wiring must be

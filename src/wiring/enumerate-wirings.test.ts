@@ -13,7 +13,7 @@ const binomial = (n: number, k: number): number => {
   return value;
 };
 
-/** W(n) = Σ_k C(n,k)·A006351(k)·2^(k−1) (REFERENCES.md §5). */
+/** W(n) = Σ_k C(n,k)·A006351(k)·2^(k−1) (docs/physics.md §5). */
 const expectedCount = (n: number): number =>
   A006351.slice(0, n).reduce((sum, networks, index) => sum + binomial(n, index + 1) * networks * 2 ** index, 0);
 

@@ -6,8 +6,8 @@ import { type Network, invertAll } from './network.js';
 import { parseWiring } from './parse-wiring.js';
 import { printNetwork } from './print-wiring.js';
 
-const elementIds = ['neck', 'mid', 'bridge', 'bridge-screw'];
-const vocabulary = { elementIds, housedCoils: new Map([['inner', 'bridge-hb']]) };
+const elementIds = ['neck', 'mid', 'bridge', 'bridge_screw'];
+const vocabulary = { elementIds, housedCoils: new Map([['inner', 'bridge_hb']]) };
 const canonical = (text: string) => printNetwork(parseWiring(text, vocabulary), elementIds);
 
 describe('parseWiring', () => {
@@ -20,7 +20,7 @@ describe('parseWiring', () => {
     ['neck + (mid + bridge)', 'neck + mid + bridge'],
     ['~(mid // bridge) + neck', 'neck + (~mid // ~bridge)'],
     ['~~neck + mid', 'neck + mid'],
-    ['  bridge-screw //neck ', 'neck // bridge-screw'],
+    ['  bridge_screw //neck ', 'neck // bridge_screw'],
   ])('reads %j as %j', (text, expected) => {
     expect(canonical(text)).toBe(expected);
   });
@@ -37,7 +37,7 @@ describe('parseWiring', () => {
     ['neck + mid)', 'no ")" without a matching "("'],
     ['', 'a wiring such as'],
     ['neck mid', '"+", "//" or the end'],
-    ['inner + neck', 'two-lead pickup "bridge-hb"'],
+    ['inner + neck', 'two-lead pickup "bridge_hb"'],
   ])('refuses %j with a clear message', (text, message) => {
     expect(() => parseWiring(text, vocabulary, '--only')).toThrow(InputError);
     try {

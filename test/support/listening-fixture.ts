@@ -112,7 +112,7 @@ function measureTone(tone: Tone, samples: Float32Array, durationS: number): { me
   return { meanSquare: energy / samples.length, centroidHz };
 }
 
-/** Second-order low-pass magnitude (REFERENCES.md §1.1): |H| = 1/√((1−x²)² + (x/Q)²), x = f/f0, in dB relative to 100 Hz. */
+/** Second-order low-pass magnitude (docs/physics.md §1.1): |H| = 1/√((1−x²)² + (x/Q)²), x = f/f0, in dB relative to 100 Hz. */
 function lowPassResponse(naturalHz: number, q: number, frequencies: readonly number[]): number[] {
   const magnitude = (hz: number): number => {
     const x = hz / naturalHz;

@@ -5,7 +5,7 @@ import { demoGuitarPath } from '../package-root.js';
 import { readGuitarFile } from '../read-guitar.js';
 import { type RenderOptionText, addRenderOptions, reportRender, runRender } from './render.js';
 
-/** Where the demo's files go, relative to the working folder (DESIGN.md). */
+/** Where the demo's files go, relative to the working folder (docs/design.md). */
 export const DEMO_FOLDER = join('renders', 'demo');
 
 /** `demo`: the main job on the bundled demo guitar. */

@@ -4,7 +4,7 @@ import { formatTable } from '../format-table.js';
 import type { Io } from '../io.js';
 import { readGuitarFile } from '../read-guitar.js';
 
-/** The `--json` record of a wiring (contract in DESIGN.md). */
+/** The `--json` record of a wiring (contract in docs/design.md). */
 export function wiringRecord(wiring: Wiring): Record<string, unknown> {
   return {
     id: wiring.id,
