@@ -11,10 +11,15 @@
  * stops at once when its input goes silent (no source playing) and drops the
  * frames still inside its oversampler, which would lose the input's last
  * 128 frames. Zeros played by a source are not silence to it.
+ *
+ * The buffer is taken from the promise or, when the library's promise loses
+ * its race and gives null, from the context's `complete` event
+ * (await-rendered-buffer.ts).
  */
 import { OfflineAudioContext } from 'node-web-audio-api';
 import { webAudioQ } from './biquad-design.js';
 import type { ChainDesign, ChainStage } from './chain-design.js';
+import { type BufferSource, type RenderingContext, awaitRenderedBuffer } from './await-rendered-buffer.js';
 
 type Context = InstanceType<typeof OfflineAudioContext>;
 
@@ -52,11 +57,13 @@ function createStageNode(context: Context, stage: ChainStage): AudioNode {
   }
 }
 
-/** Render mono `samples` through `design` at its sample rate. The output has the input's length and timing. */
-export async function renderChainDesign(samples: Float32Array, design: ChainDesign): Promise<Float32Array> {
+/**
+ * A context wired to render mono `samples` through `design`: the input,
+ * then `latencyFrames` zeros (see above), through every stage. The first
+ * `latencyFrames` frames of its result are the chain's fixed delay.
+ */
+export function prepareChainContext(samples: Float32Array, design: ChainDesign): Context {
   const frames = samples.length;
-  const output = new Float32Array(frames);
-  if (frames === 0) return output;
   const latency = design.latencyFrames;
   const context = new OfflineAudioContext({ numberOfChannels: 1, length: frames + latency, sampleRate: design.sampleRateHz });
   const padded = new Float32Array(frames + latency); // input, then zeros through the latency (see above)
@@ -73,7 +80,24 @@ export async function renderChainDesign(samples: Float32Array, design: ChainDesi
   }
   last.connect(context.destination);
   source.start(0);
-  const rendered = await context.startRendering();
-  rendered.copyFromChannel(output, 0, latency);
+  return context;
+}
+
+/**
+ * Render mono `samples` through `design` at its sample rate. The output has
+ * the input's length and timing. `onBufferSource` is told where the result
+ * came from (the stress test counts the races).
+ */
+export async function renderChainDesign(
+  samples: Float32Array,
+  design: ChainDesign,
+  onBufferSource?: (source: BufferSource) => void,
+): Promise<Float32Array> {
+  const output = new Float32Array(samples.length);
+  if (samples.length === 0) return output;
+  const context = prepareChainContext(samples, design);
+  const { buffer: rendered, source: from } = await awaitRenderedBuffer(context as unknown as RenderingContext);
+  onBufferSource?.(from);
+  rendered.copyFromChannel(output, 0, design.latencyFrames);
   return output;
 }

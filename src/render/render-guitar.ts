@@ -26,6 +26,7 @@ import {
   AUDIO_BAND_LOW_HZ,
 } from '../circuit/index.js';
 import { type AlikeThresholds, type Distinctness, measureDistinctness } from '../analysis/index.js';
+import { WorkError } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
 import {
   type ListeningReport,
@@ -206,7 +207,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     const missingLoudness = request.level === 'matched' && entry.audio?.loudnessLufs === null;
     const audioCached = entry.audioHash === audioHash && entry.audio !== undefined && !missingLoudness;
     const wantAudio = selectedIds.has(wiring.id) && !audioCached;
-    if (!metricsCached || wantAudio) items.push({ id: wiring.id, network: wiring.network, metrics: !metricsCached, audio: wantAudio });
+    if (!metricsCached || wantAudio) items.push({ id: wiring.id, name: wiring.expression, network: wiring.network, metrics: !metricsCached, audio: wantAudio });
   }
   const expressionOf = new Map(needed.map((wiring) => [wiring.id, wiring.expression]));
   events.onStage?.('rendering', items.length);
@@ -230,9 +231,16 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   let renderer: WiringRenderer | undefined;
   const processedAudio = (wiring: Wiring): Promise<Float32Array> => {
     renderer ??= createWiringRenderer(settings);
-    return renderer.processed(wiring.network);
+    return renderer.processed(wiring.network, undefined, wiring.expression);
   };
   await saveManifest();
+  // A wiring whose chain failed twice: what the others made is kept in the manifest, so the same command finishes the work.
+  const failures = results.filter((result) => result.failure !== undefined).map((result) => result.failure as string);
+  if (failures.length > 0) {
+    rmSync(scratch, { recursive: true, force: true });
+    activeScratchFolders.delete(scratch);
+    throw new WorkError(`${failures.join('; ')}; nothing written was lost, and running the same command again finishes the render`);
+  }
   const audioMetrics = referLevels(request.all, raw);
 
   // Gains: one for all files, or one per file to a common loudness.
@@ -259,38 +267,45 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   events.onStage?.('writing', selected.length);
   let written = 0;
   let skipped = 0;
-  for (const [index, wiring] of selected.entries()) {
-    const entry = entries[wiring.expression] as Entry;
-    const gain = gains[index] ?? 1;
-    const name = wavFileName(wiring);
-    const path = join(folder.wavFolder, name);
-    const pageAudio = join(folder.root, pageAudioPath(relative(folder.root, path)));
-    const fileHash = hashOf({ audio: entry.audioHash, gain: gain.toPrecision(12), format: request.format, name });
-    if (entry.fileHash === fileHash && entry.file === name && existsSync(path) && existsSync(pageAudio)) {
-      skipped += 1;
-    } else {
-      const parked = scratchFiles.get(wiring.id);
-      const audio = parked ? readScratch(parked) : await processedAudio(wiring);
-      for (let n = 0; n < audio.length; n += 1) audio[n] = (audio[n] as number) * gain;
-      const bytes = encodeWav(audio, {
-        sampleRateHz: request.sampleRateHz,
-        format: request.format,
-        info: {
-          name: wiring.expression,
-          comment: `${wiring.description}; phrase ${request.phrase.name}; ${request.chain} chain; ${request.level === 'true' ? 'true relative level' : 'loudness matched'}`,
-          software: request.generator,
-        },
-      });
-      // Written in the background while the next wiring is prepared; the manifest records a file only once it is whole.
-      await writes.add(async () => {
-        await writeFileAtomic(path, bytes);
-        await writeFileAtomic(pageAudio, renderPageAudioScript(wiring.id, bytes));
-        Object.assign(entry, { fileHash, file: name });
-      });
-      await saveManifest(false);
-      written += 1;
+  try {
+    for (const [index, wiring] of selected.entries()) {
+      const entry = entries[wiring.expression] as Entry;
+      const gain = gains[index] ?? 1;
+      const name = wavFileName(wiring);
+      const path = join(folder.wavFolder, name);
+      const pageAudio = join(folder.root, pageAudioPath(relative(folder.root, path)));
+      const fileHash = hashOf({ audio: entry.audioHash, gain: gain.toPrecision(12), format: request.format, name });
+      if (entry.fileHash === fileHash && entry.file === name && existsSync(path) && existsSync(pageAudio)) {
+        skipped += 1;
+      } else {
+        const parked = scratchFiles.get(wiring.id);
+        const audio = parked ? readScratch(parked) : await processedAudio(wiring);
+        for (let n = 0; n < audio.length; n += 1) audio[n] = (audio[n] as number) * gain;
+        const bytes = encodeWav(audio, {
+          sampleRateHz: request.sampleRateHz,
+          format: request.format,
+          info: {
+            name: wiring.expression,
+            comment: `${wiring.description}; phrase ${request.phrase.name}; ${request.chain} chain; ${request.level === 'true' ? 'true relative level' : 'loudness matched'}`,
+            software: request.generator,
+          },
+        });
+        // Written in the background while the next wiring is prepared; the manifest records a file only once it is whole.
+        await writes.add(async () => {
+          await writeFileAtomic(path, bytes);
+          await writeFileAtomic(pageAudio, renderPageAudioScript(wiring.id, bytes));
+          Object.assign(entry, { fileHash, file: name });
+        });
+        await saveManifest(false);
+        written += 1;
+      }
+      events.onStep?.(index + 1, selected.length);
     }
-    events.onStep?.(index + 1, selected.length);
+  } catch (error) {
+    // Keep the record of every file already whole, so a re-run skips them and finishes the rest.
+    await writes.drain().catch(() => undefined);
+    await saveManifest();
+    throw error;
   }
   await writes.drain();
   await saveManifest();
