@@ -15,13 +15,24 @@
  * The buffer is taken from the promise or, when the library's promise loses
  * its race and gives null, from the context's `complete` event
  * (await-rendered-buffer.ts).
+ *
+ * The library (a native module) is loaded on the first chain render only:
+ * commands and direct renders that need no chain do not pay for loading it.
  */
-import { OfflineAudioContext } from 'node-web-audio-api';
+import type { OfflineAudioContext } from 'node-web-audio-api';
 import { webAudioQ } from './biquad-design.js';
 import type { ChainDesign, ChainStage } from './chain-design.js';
 import { type BufferSource, type RenderingContext, awaitRenderedBuffer } from './await-rendered-buffer.js';
 
 type Context = InstanceType<typeof OfflineAudioContext>;
+type ContextClass = typeof OfflineAudioContext;
+
+let contextClass: Promise<ContextClass> | undefined;
+/** node-web-audio-api's OfflineAudioContext, imported once on first need. */
+function loadContextClass(): Promise<ContextClass> {
+  contextClass ??= import('node-web-audio-api').then((library) => library.OfflineAudioContext);
+  return contextClass;
+}
 
 /** One Web Audio node for one stage. */
 function createStageNode(context: Context, stage: ChainStage): AudioNode {
@@ -62,7 +73,8 @@ function createStageNode(context: Context, stage: ChainStage): AudioNode {
  * then `latencyFrames` zeros (see above), through every stage. The first
  * `latencyFrames` frames of its result are the chain's fixed delay.
  */
-export function prepareChainContext(samples: Float32Array, design: ChainDesign): Context {
+export async function prepareChainContext(samples: Float32Array, design: ChainDesign): Promise<Context> {
+  const OfflineAudioContext = await loadContextClass();
   const frames = samples.length;
   const latency = design.latencyFrames;
   const context = new OfflineAudioContext({ numberOfChannels: 1, length: frames + latency, sampleRate: design.sampleRateHz });
@@ -95,7 +107,7 @@ export async function renderChainDesign(
 ): Promise<Float32Array> {
   const output = new Float32Array(samples.length);
   if (samples.length === 0) return output;
-  const context = prepareChainContext(samples, design);
+  const context = await prepareChainContext(samples, design);
   const { buffer: rendered, source: from } = await awaitRenderedBuffer(context as unknown as RenderingContext);
   onBufferSource?.(from);
   rendered.copyFromChannel(output, 0, design.latencyFrames);

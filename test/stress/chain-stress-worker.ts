@@ -35,7 +35,7 @@ export interface StressReport {
 
 /** The old rendering: the promise's value only (it may be null). */
 async function renderOld(samples: Float32Array, design: ChainDesign): Promise<Float32Array> {
-  const rendered = await prepareChainContext(samples, design).startRendering();
+  const rendered = await (await prepareChainContext(samples, design)).startRendering();
   const output = new Float32Array(samples.length);
   rendered.copyFromChannel(output, 0, design.latencyFrames);
   return output;
