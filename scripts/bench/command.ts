@@ -21,7 +21,8 @@ import { heading, line, medianMs } from './timing.js';
 import { fiveCoilGuitarJson } from './guitars.js';
 
 const ROOT = join(import.meta.dirname, '..', '..');
-const CLI = join(ROOT, 'dist', 'cli.js');
+/** The built command to time (BENCH_CLI: another build, e.g. of an older commit, for before/after figures). */
+const CLI = process.env.BENCH_CLI ?? join(ROOT, 'dist', 'cli.js');
 const GNU_TIME = '/usr/bin/time';
 /** Runs per case (the minimum for a median and range). */
 const RUNS = Number(process.env.BENCH_RUNS ?? 3);
@@ -117,8 +118,10 @@ export function benchCommands(): void {
   ];
   // Minutes today: only when asked for (BENCH_BIG=1).
   if (process.env.BENCH_BIG === '1') cases.push({ label: '9,997 wirings, analyze', args: () => ['analyze', five, '--json'], audioSeconds: () => null });
+  // BENCH_CASES: a regular expression choosing cases by label (e.g. "47 wirings").
+  const only = process.env.BENCH_CASES ? new RegExp(process.env.BENCH_CASES, 'u') : null;
   try {
-    for (const item of cases) runCase(item);
+    for (const item of cases) if (!only || only.test(item.label)) runCase(item);
   } finally {
     rmSync(scratch, { recursive: true, force: true });
   }
