@@ -1,27 +1,24 @@
-import { renderListeningPage, renderPageAudioScript } from '../../src/report/index.js';
+import { parseGuitar } from '../../src/guitar/index.js';
+import { builtInPhrase } from '../../src/string/index.js';
+import { renderPageFor } from '../../src/render/write-listening-page.js';
 import { makeExampleReport } from '../../test/support/example-report.js';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
 import { heading, line, medianMs } from './timing.js';
 
-const RESPONSE_POINTS = 200;
-const SAMPLE_RATE_HZ = 48000;
-const DURATION_S = 6;
-const BYTES_PER_SAMPLE_24_BIT = 3;
 const BYTES_PER_MB = 1e6;
+const SAMPLE_RATE_HZ = 48000;
 
+/** Page size grows with coils, not wirings: the three-coil sample (47 wirings) and the two-humbucker sample (four coils, 572 wirings). */
 export function benchListeningPage(): void {
-  heading('Listening page (renderListeningPage; figures invented, 200 response points)');
-  for (const ids of [['neck', 'mid', 'bridge'], ['neck', 'neck-inner', 'bridge-inner', 'bridge']]) {
-    const report = makeExampleReport(ids, 'Bench guitar (invented values)', RESPONSE_POINTS);
+  heading('Listening page (coil signals in the page; strum at 48 kHz)');
+  for (const sample of ['three-single-coil.json', 'two-humbucker.json']) {
+    const guitar = parseGuitar(JSON.parse(readFileSync(join(import.meta.dirname, '..', '..', 'samples', sample), 'utf8')));
+    const report = makeExampleReport(guitar.elements.map((element) => element.id), guitar.name, 96);
     let size = 0;
     const ms = medianMs(() => {
-      size = renderListeningPage(report).length;
+      size = renderPageFor(report, { guitar, phrase: builtInPhrase('strum', guitar.strings.length), sampleRateHz: SAMPLE_RATE_HZ, seed: 1, overrides: {}, hum: null }).length;
     });
-    line(`${report.wirings.length} wirings: page of ${(size / BYTES_PER_MB).toFixed(2)} MB`, `${ms.toFixed(1)} ms`);
+    line(`${sample}: ${guitar.coils.length} coils, page of ${(size / BYTES_PER_MB).toFixed(2)} MB (${(size / BYTES_PER_MB / guitar.coils.length).toFixed(2)} MB per coil)`, `${ms.toFixed(0)} ms`);
   }
-  const wav = new Uint8Array(44 + SAMPLE_RATE_HZ * DURATION_S * BYTES_PER_SAMPLE_24_BIT).map((_, index) => index % 251);
-  let scriptSize = 0;
-  const ms = medianMs(() => {
-    scriptSize = renderPageAudioScript('w1', wav).length;
-  });
-  line(`page audio script for a ${DURATION_S} s 24-bit WAV: ${(scriptSize / BYTES_PER_MB).toFixed(2)} MB`, `${ms.toFixed(1)} ms`);
 }

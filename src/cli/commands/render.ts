@@ -52,6 +52,8 @@ export interface RenderOptionText extends CircuitOptionText, AlikeOptionText {
   readonly hum?: string;
   readonly humLevel?: string;
   readonly seed?: string;
+  /** False with --no-wav. */
+  readonly wav?: boolean;
 }
 
 export function addRenderOptions(command: Command): Command {
@@ -66,7 +68,8 @@ export function addRenderOptions(command: Command): Command {
       .option('--level <mode>', 'true: one common gain, levels as the circuit makes them (default); matched: every file at one loudness')
       .option('--hum <hz>', 'mix mains hum at 50 or 60 Hz into every file, through each wiring\'s own hum pickup')
       .option('--hum-level <volts>', `peak hum EMF in a nominal coil with --hum, like "5mV" (default ${DEFAULT_HUM_EMF_V * 1000} mV)`)
-      .option('--seed <n>', 'seed of the pluck noise (default 1)'),
+      .option('--seed <n>', 'seed of the pluck noise (default 1)')
+      .option('--no-wav', 'write only the listening page, netlists and reports (the page plays every wiring without the WAV files)'),
   ));
 }
 
@@ -187,6 +190,7 @@ export async function runRender(file: string, guitar: Guitar, options: RenderOpt
       folder,
       generator: `coilbench ${COILBENCH_VERSION}`,
       thresholds: parsed.thresholds,
+      writeWav: options.wav !== false,
     },
     { onStage: (stage, total) => progress.stage(stage, total), onStep: (done, total) => progress.step(done, total) },
   );
