@@ -413,7 +413,13 @@ function samplesToBase64(samples: Float32Array): string {
       loudnessLufs: rendered.loudnessLufs,
       centroidHz: measureCentroid(rendered.samples, engine.sampleRateHz),
       peak: rendered.peak,
+      matchedGainDb: playbackGainDb(rendered, true, trueGainDb),
     };
+  },
+  /** The direct signal of `expression` at the render's knobs (base64 float32): the synthesis alone, for the cross-host checks. */
+  direct(expression: string): string {
+    const network = canonicalize(parseWiring(expression, vocabulary, 'expression'));
+    return samplesToBase64(engine.synthesize(network, engine.renderKnobs));
   },
   /** Playback gain the page gives the render of `expression` at the current knobs, dB (null before it is rendered). */
   gainDb: (expression: string) => {

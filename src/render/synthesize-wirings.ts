@@ -112,10 +112,18 @@ export function coilSpectraOfSignals(coils: CoilSignals): Float64Array[] {
   });
 }
 
-/** Render the strings and coil spectra once; return a function that renders any wiring. */
+/**
+ * Render the strings and coil spectra once; return a function that renders
+ * any wiring. The spectra are taken from the float32 coil signals the
+ * listening page carries (`renderCoilSignals`), so the command line and the
+ * page synthesise from the very same numbers: float32 rounding of a coil
+ * signal is −144 dB of it, but a wiring whose coils cancel deeply (out of
+ * phase) would expose it at about −76 dB of its own output, so both hosts
+ * use the rounded signals.
+ */
 export function prepareWiringSynthesis(guitar: Guitar, phrase: Phrase, options: SynthesisOptions): WiringSynthesis {
-  const { spectra, length, delay, fftSize } = renderCoilSpectra(guitar, phrase, options);
-  return createWiringSynthesis(guitar, { spectra, length, delay, fftSize, sampleRateHz: options.sampleRateHz }, options.overrides);
+  const coils = renderCoilSignals(guitar, phrase, options);
+  return createWiringSynthesis(guitar, { ...coils, spectra: coilSpectraOfSignals(coils) }, options.overrides);
 }
 
 /** The coil spectra a synthesis sums, and where its output sits in the FFT frame. */

@@ -21,11 +21,13 @@ export interface PageSettings {
   readonly seed: number;
   readonly overrides: CircuitOverrides;
   readonly hum: HumMix | null;
+  /** Ring-out after the last note, s (default: the files' RENDER_TAIL_S). */
+  readonly tailS?: number;
 }
 
 /** The page's HTML for a report: the same performance as the files (phrase, rate, seed, tail). */
 export function renderPageFor(report: ListeningReport, settings: PageSettings): string {
-  const coils = renderCoilSignals(settings.guitar, settings.phrase, { sampleRateHz: settings.sampleRateHz, seed: settings.seed, strings: { tailS: RENDER_TAIL_S } });
+  const coils = renderCoilSignals(settings.guitar, settings.phrase, { sampleRateHz: settings.sampleRateHz, seed: settings.seed, strings: { tailS: settings.tailS ?? RENDER_TAIL_S } });
   return renderListeningPage(
     report,
     {
