@@ -36,7 +36,9 @@ function byId<T extends HTMLElement>(id: string): T {
 
 const data = JSON.parse(byId('page-data').textContent ?? '{}') as PageData;
 const { guitar, report } = data;
+performance.mark('coilbench-data');
 const engine = createWiringEngine(data);
+performance.mark('coilbench-engine');
 const wirings: Wiring[] = enumerateWirings(guitar.elements);
 const reported = new Map<string, ReportWiring>(report.wirings.map((wiring) => [wiring.id, wiring]));
 const byKey = new Map<string, Wiring>(wirings.map((wiring) => [wiring.id, wiring]));
@@ -151,6 +153,8 @@ function search(): void {
   byId('shown-count').textContent = `Showing ${shown} of ${wirings.length}`;
 }
 byId('search').addEventListener('input', search);
+
+performance.mark('coilbench-list');
 
 /* ---------- typing an expression ---------- */
 
@@ -388,6 +392,7 @@ updateLabels();
 updateTime();
 setInterval(updateTime, TICK_MS);
 byId<HTMLButtonElement>('transport-play').disabled = false;
+performance.mark('coilbench-ready');
 
 /** Float32 samples as base64 (the page's own coil-signal codec), for tests that compare hosts. */
 function samplesToBase64(samples: Float32Array): string {

@@ -171,24 +171,24 @@ function renderBlindSection(): string {
 export function renderBlindTestSection(choices: ReadonlyArray<{ readonly id: string; readonly label: string }>, introText: string): string {
   const options = choices.map((choice) => `<option value="${escapeHtml(choice.id)}">${escapeHtml(choice.label)}</option>`).join('');
   return (
-    '<section id="blind" aria-labelledby="blind-title"><h2 id="blind-title">Blind test: can you really hear the difference?</h2>' +
+    '<section id="blind" aria-labelledby="blind-title"><h2 id="blind-title">Blind test: is the difference real to your ears?</h2>' +
     `<p>${escapeHtml(introText)}` +
-    `Do <strong>at least ${RECOMMENDED_ABX_TRIALS} trials</strong>: guessing gets about half right, and the page shows how likely your score would be by guessing alone.</p>` +
+    `Give it <strong>${RECOMMENDED_ABX_TRIALS} rounds or more</strong>: the tally says how often a coin would do as well. (The method is the ABX test.)</p>` +
     '<div class="abx-pick">' +
-    `<label>A <select id="abx-a">${options}</select></label>` +
-    `<label>B <select id="abx-b">${options}</select></label>` +
-    '<button type="button" data-action="abx-start">Start a blind test</button></div>' +
+    `<label>First wiring <select id="abx-a">${options}</select></label>` +
+    `<label>Second wiring <select id="abx-b">${options}</select></label>` +
+    '<button type="button" data-action="abx-start">Begin</button></div>' +
     '<div id="abx-trial" class="abx-trial" hidden>' +
     '<p id="abx-status" aria-live="polite"></p>' +
     '<div class="abx-listen" role="group" aria-label="Listen">' +
-    '<button type="button" data-action="abx-play-a">Play A</button>' +
-    '<button type="button" data-action="abx-play-b">Play B</button>' +
-    '<button type="button" data-action="abx-play-x">Play X</button>' +
-    '<button type="button" data-action="abx-stop">Stop</button></div>' +
+    '<button type="button" data-action="abx-play-a">Hear the first</button>' +
+    '<button type="button" data-action="abx-play-b">Hear the second</button>' +
+    '<button type="button" data-action="abx-play-x">Hear the mystery</button>' +
+    '<button type="button" data-action="abx-stop">Silence</button></div>' +
     '<div class="abx-answer" role="group" aria-label="Answer">' +
-    '<button type="button" data-action="abx-answer-a">X is A</button>' +
-    '<button type="button" data-action="abx-answer-b">X is B</button></div>' +
-    '<button type="button" data-action="abx-end">End the test and show the answers</button>' +
+    '<button type="button" data-action="abx-answer-a">The mystery is the first</button>' +
+    '<button type="button" data-action="abx-answer-b">The mystery is the second</button></div>' +
+    '<button type="button" data-action="abx-end">Finish and reveal the answers</button>' +
     '</div>' +
     '<p id="abx-score" class="score" aria-live="polite"></p>' +
     '<ol id="abx-log" class="abx-log"></ol>' +

@@ -223,9 +223,8 @@ export function reportRender(io: Io, root: string, outcome: RenderOutcome, secon
       ? `true relative level, common gain ${outcome.commonGainDb >= 0 ? '+' : ''}${outcome.commonGainDb.toFixed(1)} dB`
       : `loudness matched at ${outcome.matchedLoudnessLufs?.toFixed(1) ?? '?'} LUFS`;
   const speed = outcome.written > 0 && seconds > 0 ? `, ${(outcome.audioSeconds / seconds).toFixed(0)}× real time` : '';
-  io.stderr(
-    `coilbench: ${count} wirings in ${where}/wav: ${outcome.written} written, ${outcome.skipped} unchanged (${level}; ${seconds.toFixed(1)} s${speed})\n`,
-  );
+  if (outcome.rows.every((row) => row.wav === null)) io.stderr(`coilbench: ${count} wirings on the listening page, no WAV files (--no-wav; ${seconds.toFixed(1)} s)\n`);
+  else io.stderr(`coilbench: ${count} wirings in ${where}/wav: ${outcome.written} written, ${outcome.skipped} unchanged (${level}; ${seconds.toFixed(1)} s${speed})\n`);
   io.stderr(`coilbench: ${groupHeadline(outcome.distinct.spectra.count, outcome.distinct)}; see "Which wirings sound alike" on the page and in report.md\n`);
   io.stdout(`${where}/index.html\n`);
   io.stderr(`coilbench: open ${where}/index.html in a browser to listen; start at a low volume. Reports: report.md, wirings.csv, report.json; netlists in ${where}/netlists\n`);
