@@ -28,7 +28,7 @@ import { PAGE_LIST_STYLE } from './page-list-style.js';
 import { SUGGESTED_ROUNDS, loopsByDefault } from '../page/index.js';
 import type { PageData } from '../page/index.js';
 
-/** Playback volume the page starts at, linear (−10.5 dB; start low, USER-NEEDS.md §(d)). */
+/** Playback volume the page starts at, linear (−10.5 dB; start low to protect hearing: common practice). */
 export const START_VOLUME = 0.3;
 
 const TOPOLOGY_OPTIONS: ReadonlyArray<readonly [string, string]> = [
