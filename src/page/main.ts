@@ -207,7 +207,7 @@ function levelNote(): string {
   const wiring = currentWiring;
   const render = wiring ? played.get(renderKey(wiring.expression, knobs)) : undefined;
   if (!wiring || !render) return matched ? 'Level matched.' : 'True level.';
-  let note = `${matched ? 'Level matched' : 'True level'}. This render: ${render.loudnessLufs.toFixed(1)} LUFS before playback gain`;
+  let note = `${matched ? 'Level matched' : 'True level'}. This render: ${render.loudnessLufs.toFixed(1).replace('-', '\u2212')} LUFS before playback gain`;
   if (previous && previous.wiring.id !== wiring.id && Number.isFinite(previous.loudness) && Number.isFinite(render.loudnessLufs)) {
     const difference = render.loudnessLufs - previous.loudness;
     note += `; at true level ${Math.abs(difference).toFixed(1)} dB ${difference >= 0 ? 'louder' : 'quieter'} than ${previous.wiring.expression}`;
