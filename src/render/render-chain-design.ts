@@ -20,8 +20,8 @@
  * commands and direct renders that need no chain do not pay for loading it.
  */
 import type { OfflineAudioContext } from 'node-web-audio-api';
-import { webAudioQ } from './biquad-design.js';
-import type { ChainDesign, ChainStage } from './chain-design.js';
+import type { ChainDesign } from './chain-design.js';
+import { type ChainContext, connectChainDesign } from './connect-chain-design.js';
 import { type BufferSource, type RenderingContext, awaitRenderedBuffer } from './await-rendered-buffer.js';
 
 type Context = InstanceType<typeof OfflineAudioContext>;
@@ -32,40 +32,6 @@ let contextClass: Promise<ContextClass> | undefined;
 function loadContextClass(): Promise<ContextClass> {
   contextClass ??= import('node-web-audio-api').then((library) => library.OfflineAudioContext);
   return contextClass;
-}
-
-/** One Web Audio node for one stage. */
-function createStageNode(context: Context, stage: ChainStage): AudioNode {
-  switch (stage.kind) {
-    case 'gain': {
-      const node = context.createGain();
-      node.gain.value = stage.gain;
-      return node;
-    }
-    case 'biquad': {
-      const node = context.createBiquadFilter();
-      node.type = stage.filter.kind;
-      node.frequency.value = stage.filter.frequencyHz;
-      node.Q.value = webAudioQ(stage.filter);
-      node.gain.value = stage.filter.gainDb;
-      return node;
-    }
-    case 'shaper': {
-      const node = context.createWaveShaper();
-      node.curve = stage.curve;
-      node.oversample = stage.oversample;
-      return node;
-    }
-    case 'compressor': {
-      const node = context.createDynamicsCompressor();
-      node.threshold.value = stage.settings.thresholdDb;
-      node.knee.value = stage.settings.kneeDb;
-      node.ratio.value = stage.settings.ratio;
-      node.attack.value = stage.settings.attackS;
-      node.release.value = stage.settings.releaseS;
-      return node;
-    }
-  }
 }
 
 /**
@@ -84,13 +50,8 @@ export async function prepareChainContext(samples: Float32Array, design: ChainDe
   buffer.copyToChannel(padded, 0);
   const source = context.createBufferSource();
   source.buffer = buffer;
-  let last: AudioNode = source;
-  for (const stage of design.stages) {
-    const node = createStageNode(context, stage);
-    last.connect(node);
-    last = node;
-  }
-  last.connect(context.destination);
+  const last = connectChainDesign(context as unknown as ChainContext<AudioNode>, design, source as unknown as AudioNode);
+  last.connect(context.destination as unknown as AudioNode);
   source.start(0);
   return context;
 }
