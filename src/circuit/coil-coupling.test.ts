@@ -27,6 +27,7 @@ import {
   phaseClassNetwork,
   phaseClassSigns,
   prepareCircuit,
+  renderBuildSheet,
   solveCoilsImpedance,
   solveNodalTransfers,
   solveTransfers,
@@ -218,5 +219,16 @@ describe('phase classes: coupled coils keep their relative phase', () => {
     // Without coupling reversed[1] would be exactly −inPhase[1].
     const differs = (inPhase[1] as Float64Array).some((value, i) => Math.abs(value + (reversed[1] as Float64Array)[i]!) > 1e-6 * Math.abs(value));
     expect(differs).toBe(true);
+  });
+});
+
+describe('the build sheet\'s meter reading includes the coupling', () => {
+  it('two coils of 2.2 H with k = 0.1: in phase (hum cancelling) 4.84 H = L1 + L2 + 2M, one reversed 3.96 H', () => {
+    const guitar = parseGuitarText(readFileSync(join(import.meta.dirname, '..', '..', 'samples', 'two-humbucker.json'), 'utf8'));
+    const sheet = (network: ReturnType<typeof series>): string =>
+      renderBuildSheet(guitar, { network, expression: 'check', description: 'check' });
+    // 2.2 + 2.2 ± 2·0.1·2.2 (the sample's neck coils, default coupling)
+    expect(sheet(series(leaf(0), leaf(1)))).toMatch(/inductance meter \(series mode, 120 Hz\): about 4\.84 H/u);
+    expect(sheet(series(leaf(0), leaf(1, true)))).toMatch(/inductance meter \(series mode, 120 Hz\): about 3\.96 H/u);
   });
 });
