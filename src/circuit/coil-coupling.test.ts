@@ -116,6 +116,29 @@ describe('mutual inductance against the closed forms L1 + L2 ± 2M', () => {
     expect(Math.abs((z[1] as number) / expectedIm - 1)).toBeLessThan(INDUCTANCE_TOLERANCE);
   });
 
+  it('three coils in one pickup (every pair coupled): in series, L = Σ L_i + 2·Σ M_ij·d_i·d_j', () => {
+    const windings = ['cw', 'ccw', 'cw'] as const;
+    const magnets = ['north', 'south', 'south'] as const;
+    const inductances = [2.3, 2.1, 1.7];
+    const triple = parseGuitar({
+      name: 'three coupled coils (invented values)',
+      coils: inductances.map((inductance, c) => ({
+        id: `coil${c + 1}`, pickup: 'triple', position: `${40 + 15 * c}mm`, resistance: '1', inductance, capacitance: '1p', winding: windings[c], magnet: magnets[c],
+      })),
+      pickups: { triple: { coupling: 0.2 } },
+    });
+    // d_i: the series current runs start→finish in coil i when its finish is towards hot, c_i = w_i·m_i (in phase).
+    const sign = (c: number): number => (windings[c] === 'cw' ? 1 : -1) * (magnets[c] === 'north' ? 1 : -1);
+    let expected = inductances.reduce((sum, value) => sum + value, 0);
+    for (let a = 0; a < 3; a += 1) {
+      for (let b = a + 1; b < 3; b += 1) {
+        const mutual = -(windings[a] === windings[b] ? 1 : -1) * 0.2 * Math.sqrt((inductances[a] as number) * (inductances[b] as number));
+        expected += 2 * mutual * sign(a) * sign(b);
+      }
+    }
+    expectClose(inductanceOf(triple, graphOfNetwork(triple, series(leaf(0), leaf(1), leaf(2)))), expected);
+  });
+
   it('an open-circuited partner changes nothing: one coil alone reads L1', () => {
     const guitar = pair(k, 'ccw');
     const graph: CircuitGraph = { nodeCount: 3, ground: 0, hot: 1, coils: [{ coil: 0, start: 0, finish: 1 }, { coil: 1, start: 0, finish: 2 }] };
