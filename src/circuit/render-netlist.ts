@@ -18,6 +18,7 @@ import type { Coil, Guitar } from '../guitar/index.js';
 import type { Network, Wiring } from '../wiring/index.js';
 import { magnetSign, windingSign } from './coil-signs.js';
 import { type CircuitOverrides, resolveCircuitLoad } from './circuit-load.js';
+import type { CoilModel } from './coil-model.js';
 import { AUDIO_BAND_HIGH_HZ, AUDIO_BAND_LOW_HZ } from './frequency-grid.js';
 import { GROUND_NODE, HOT_NODE, layoutWiring } from './layout-wiring.js';
 
@@ -82,6 +83,39 @@ function spiceNames(coils: readonly Coil[]): string[] {
   });
 }
 
+/** Comment text for a coil's losses. */
+function lossText(coil: CoilModel): string {
+  const parts: string[] = [];
+  if (coil.eddyShare > 0) parts.push(`eddy branch ${spiceNumber(coil.eddyShare)} of L with ${spiceNumber(coil.eddyResistanceOhms)} ohm`);
+  if (coil.lossResistanceOhms !== null) parts.push(`loss resistance ${spiceNumber(coil.lossResistanceOhms)} ohm`);
+  return parts.length > 0 ? `, ${parts.join(', ')}` : '';
+}
+
+/**
+ * The coil's elements after its EMF source (node `${name}_emf`), as in
+ * coil-model.ts: L·(1−κ), then κ·L ∥ Re (the eddy branch), then R to the
+ * finish lead; C and the loss resistance Rp from start to finish.
+ */
+export function coilElementLines(coil: CoilModel, name: string, startNode: string, finishNode: string): string[] {
+  const lines: string[] = [];
+  const kappa = coil.eddyShare;
+  lines.push(`L${name} ${name}_emf ${name}_l ${spiceNumber(coil.inductanceH * (1 - kappa))}`);
+  let resistorStart = `${name}_l`;
+  if (kappa > 0) {
+    lines.push(
+      `L${name}__eddy ${name}_l ${name}_e ${spiceNumber(coil.inductanceH * kappa)}`,
+      `R${name}__eddy ${name}_l ${name}_e ${spiceNumber(coil.eddyResistanceOhms)}`,
+    );
+    resistorStart = `${name}_e`;
+  }
+  lines.push(
+    `R${name} ${resistorStart} ${finishNode} ${spiceNumber(coil.resistanceOhms)}`,
+    `C${name} ${startNode} ${finishNode} ${spiceNumber(coil.capacitanceF)}`,
+  );
+  if (coil.lossResistanceOhms !== null) lines.push(`R${name}__loss ${startNode} ${finishNode} ${spiceNumber(coil.lossResistanceOhms)}`);
+  return lines;
+}
+
 /**
  * The netlist text of a wiring of `guitar`, with the load after `overrides`.
  * Throws InputError for a bad override.
@@ -114,9 +148,10 @@ export function renderNetlist(
   lines.push(asciiText(`coilbench: ${guitar.name} - ${label}`));
   lines.push(
     asciiText(`* ${wiring.description}`),
-    '* Written by coilbench. A model, not a measurement: real pickups also lose treble to eddy currents.',
+    '* Written by coilbench. A model, not a measurement.',
     '* Each coil: its string EMF (the AC source; 1 = equal string signals for every coil) in series with',
-    '* its inductance and resistance, its self-capacitance across its leads. The AC value is the EMF seen',
+    '* its inductance, an eddy-current branch (part of the inductance in parallel with a resistor) and its',
+    '* resistance; its self-capacitance (and any loss resistance) across its leads. The AC value is the EMF seen',
     '* from the start lead to the finish lead: its sign is winding x magnet (cw = +1, north up = +1).',
     '* Nodes: hot = volume pot input, out = amplifier input, 0 = ground, j* = joints between coils.',
     '',
@@ -133,14 +168,12 @@ export function renderNetlist(
     lines.push(
       asciiText(
         `* coil ${coil.id}${inside}: ${spiceNumber(coil.resistanceOhms)} ohm, ${spiceNumber(coil.inductanceH)} H, ` +
-          `${spiceNumber(coil.capacitanceF)} F; winding ${coil.winding}, ${coil.magnet} up; ` +
+          `${spiceNumber(coil.capacitanceF)} F${lossText(coil)}; winding ${coil.winding}, ${coil.magnet} up; ` +
           `${placement.phase === 1 ? 'in phase' : 'out of phase'}: ${placement.plusLead} lead at ${node(placement.plusNode)}, ` +
           `${placement.minusLead} lead at ${node(placement.minusNode)}`,
       ),
       `V${name} ${name}_emf ${startNode} DC 0 AC ${spiceNumber(phasor.magnitude)} ${spiceNumber(phaseDeg)}`,
-      `L${name} ${name}_emf ${name}_l ${spiceNumber(coil.inductanceH)}`,
-      `R${name} ${name}_l ${finishNode} ${spiceNumber(coil.resistanceOhms)}`,
-      `C${name} ${startNode} ${finishNode} ${spiceNumber(coil.capacitanceF)}`,
+      ...coilElementLines(coil, name, startNode, finishNode),
     );
   }
   if (layout.unused.length > 0) {
