@@ -7,7 +7,7 @@
  * Output samples are volts at the amplifier input: the coils' string EMF is
  * string velocity (m/s, from src/pickup) times COIL_VOLTS_PER_METRE_PER_SECOND.
  */
-import { type CircuitOverrides, type PreparedCircuit, magnetSign, prepareCircuit, solveTransfers } from '../circuit/index.js';
+import { type CircuitOverrides, type PreparedCircuit, humFieldWeights, prepareCircuit, solveTransfers } from '../circuit/index.js';
 import { InputError } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
 import { nextPowerOfTwo, realFft } from '../math/index.js';
@@ -127,11 +127,12 @@ export function prepareWiringSynthesis(guitar: Guitar, phrase: Phrase, options: 
     solveTransfers(probe.prepared, network, probe.transfers);
     out.fill(0);
     HUM_HARMONICS.forEach(([harmonic, amplitude], index) => {
-      // H(f) = Σ_i m_i·h_i·T_i(f): the hum sign of a coil is p_i·m_i and T_i carries p_i (src/circuit/measure-hum.ts).
+      // H(f) = Σ_i m_i·h_i·B(x_i)·T_i(f): the hum sign of a coil is p_i·m_i and T_i carries p_i (src/circuit/measure-hum.ts).
+      const weights = humFieldWeights(guitar, probe.prepared.load);
       let re = 0;
       let im = 0;
-      guitar.coils.forEach((coil, c) => {
-        const weight = magnetSign(coil.magnet) * coil.humSensitivity;
+      guitar.coils.forEach((_coil, c) => {
+        const weight = weights[c] as number;
         const transfer = probe.transfers[c] as Float64Array;
         re += weight * (transfer[2 * index] as number);
         im += weight * (transfer[2 * index + 1] as number);
