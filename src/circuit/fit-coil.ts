@@ -10,7 +10,7 @@
  *   DC, or Q) of the open-lead voltage response, with the DC resistance and
  *   inductance, solved in closed form for C and a parallel loss resistance.
  */
-import { type CoilModel, coilImpedanceAt } from './coil-model.js';
+import { type CoilModel, coilImpedanceAt, createCoilPhasors, evaluateCoil } from './coil-model.js';
 import type { ImpedancePoint } from './parse-impedance-sweep.js';
 
 /** Which losses the sweep fit may use. */
@@ -48,6 +48,8 @@ const START_SHARES = [0.1, 0.3, 0.5];
 const START_CORNER_FRACTIONS = [0.3, 1];
 /** Starting parallel loss resistance as a multiple of the highest measured |Z|. */
 const START_LOSS_FACTOR = 3;
+/** A fitted loss resistance above this multiple of the highest measured |Z| is reported as none (it moves |Z| by under 0.1 %). */
+const NEGLIGIBLE_LOSS_FACTOR = 1000;
 /** Largest eddy share the fit may reach (as the guitar file accepts). */
 const MAX_EDDY_SHARE = 0.95;
 
@@ -197,7 +199,10 @@ export function fitCoilToSweep(sweep: readonly ImpedancePoint[], options: Partia
     const result = minimise(start, layout, sweep, settings.maxIterations);
     if (best === null || result.cost < best.cost) best = result;
   }
-  const fitted = unpack((best as { theta: number[] }).theta, layout);
+  const raw = unpack((best as { theta: number[] }).theta, layout);
+  // A loss resistance far above every measured |Z| changes nothing the sweep can see: report none.
+  const negligible = raw.lossResistanceOhms !== null && raw.lossResistanceOhms > NEGLIGIBLE_LOSS_FACTOR * Math.hypot(peak.realOhms, peak.imaginaryOhms);
+  const fitted = negligible ? { ...raw, lossResistanceOhms: null } : raw;
   let sumSquares = 0;
   let maxError = 0;
   for (const point of sweep) {
@@ -260,4 +265,48 @@ export function fitCoilToPeak(measurement: PeakMeasurement): CoilModel | null {
     eddyShare: 0,
     eddyResistanceOhms: 0,
   };
+}
+
+/** Search range and grid for the unloaded peak, Hz (the coil alone peaks between a few and a few tens of kHz). */
+const UNLOADED_LOW_HZ = 100;
+const UNLOADED_HIGH_HZ = 200e3;
+const UNLOADED_GRID_POINTS = 600;
+const GOLDEN = (Math.sqrt(5) - 1) / 2;
+const REFINE_STEPS = 80;
+
+/** |k(f)| = |1/(1 + Z_s·Y_p)|: the open-lead voltage over the EMF (coil-model.ts). */
+function openLeadGain(coil: CoilModel, frequencyHz: number): number {
+  const phasors = evaluateCoil(coil, TWO_PI * frequencyHz, createCoilPhasors());
+  return Math.hypot(phasors.sourceRe, phasors.sourceIm);
+}
+
+/**
+ * The unloaded resonant peak of a coil: frequency and height above DC of its
+ * open-lead voltage response (what a maker measures with an exciter coil and
+ * a high-impedance probe); null when the response has no peak in range.
+ */
+export function measureUnloadedPeak(coil: CoilModel): { readonly frequencyHz: number; readonly heightDb: number } | null {
+  const ratio = Math.log(UNLOADED_HIGH_HZ / UNLOADED_LOW_HZ) / (UNLOADED_GRID_POINTS - 1);
+  let bestIndex = 0;
+  let bestGain = -Infinity;
+  for (let k = 0; k < UNLOADED_GRID_POINTS; k += 1) {
+    const gain = openLeadGain(coil, UNLOADED_LOW_HZ * Math.exp(ratio * k));
+    if (gain > bestGain) {
+      bestGain = gain;
+      bestIndex = k;
+    }
+  }
+  if (bestIndex === 0 || bestIndex === UNLOADED_GRID_POINTS - 1) return null;
+  // Golden-section refinement in log frequency between the neighbours of the best grid point.
+  let a = Math.log(UNLOADED_LOW_HZ) + ratio * (bestIndex - 1);
+  let b = Math.log(UNLOADED_LOW_HZ) + ratio * (bestIndex + 1);
+  for (let step = 0; step < REFINE_STEPS; step += 1) {
+    const c = b - GOLDEN * (b - a);
+    const d = a + GOLDEN * (b - a);
+    if (openLeadGain(coil, Math.exp(c)) > openLeadGain(coil, Math.exp(d))) b = d;
+    else a = c;
+  }
+  const frequencyHz = Math.exp((a + b) / 2);
+  const dc = coil.lossResistanceOhms === null ? 1 : coil.lossResistanceOhms / (coil.lossResistanceOhms + coil.resistanceOhms);
+  return { frequencyHz, heightDb: 20 * Math.log10(openLeadGain(coil, frequencyHz) / dc) };
 }

@@ -52,5 +52,5 @@ export { renderBuildSheet } from './render-build-sheet.js';
 export type { ImpedancePoint } from './parse-impedance-sweep.js';
 export { parseImpedanceSweep, MIN_SWEEP_POINTS } from './parse-impedance-sweep.js';
 export type { CoilLossModel, FittedCoil, PeakMeasurement, SweepFitOptions } from './fit-coil.js';
-export { fitCoilToPeak, fitCoilToSweep, DEFAULT_SWEEP_FIT_OPTIONS } from './fit-coil.js';
+export { fitCoilToPeak, fitCoilToSweep, measureUnloadedPeak, DEFAULT_SWEEP_FIT_OPTIONS } from './fit-coil.js';
 export { renderSampleSweep, SAMPLE_SWEEP_COIL, SAMPLE_SWEEP_POINTS } from './sample-coil-sweep.js';
