@@ -23,8 +23,9 @@ export interface ConstructionDefaults {
  * quoted by Koch [P61]; 2.5 H within the 2.2–3 H of §1.3); small eddy share,
  * high corner (alnico rods conduct poorly; from memory).
  * Steel-pole coil over a bar magnet (one coil of a humbucker): 5000 turns at
- * 2.3 H (from memory; two in series ≈ 4.7 H [P17]); eddy share 0.4 (40–50 %
- * of L from core and eddy effects [P17]), corner 3 kHz (from memory).
+ * 2.3 H (from memory; two in series ≈ 4.7 H, common practice, §1.3); eddy
+ * share 0.4 (40–50 % of L from core and eddy effects, from memory, §1.3),
+ * corner 3 kHz (from memory).
  */
 export const CONSTRUCTION_DEFAULTS: Readonly<Record<CoilConstruction, ConstructionDefaults>> = Object.freeze({
   'rod magnets': Object.freeze({
@@ -39,7 +40,7 @@ export const CONSTRUCTION_DEFAULTS: Readonly<Record<CoilConstruction, Constructi
     nominalInductanceH: 2.3,
     eddyShare: 0.4,
     eddyCornerHz: 3000,
-    source: 'eddy share: [P17]; turns and corner: from memory',
+    source: 'from memory (docs/physics.md §1.3)',
   }),
 });
 
