@@ -345,6 +345,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
       resonanceQ: row.circuit.resonanceQ,
       humDb: row.circuit.humDb ?? 0,
       humCancelling: row.circuit.humCancelling,
+      humCategory: row.circuit.humCategory,
       responseDb: response ? Array.from(response) : [],
       group: groupById.get(row.wiring.id) ?? null,
     };
