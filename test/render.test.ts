@@ -173,7 +173,8 @@ describe('coilbench render: options', () => {
 
   it('--hum 60 mixes hum through each wiring: a hum-cancelling pair carries far less 60 Hz than a single coil', async () => {
     const target = scratchFolder();
-    const result = await run(samples, 'render', GUITAR, '-o', target, '--hum', '60', '--hum-level', '20mV', '--chain', 'direct', '--only', 'neck', '--only', 'neck // mid');
+    // A uniform hum field (--hum-gradient 0), where neck // mid cancels; in the default gradient it only reduces hum (docs/physics.md §6.1).
+    const result = await run(samples, 'render', GUITAR, '-o', target, '--hum', '60', '--hum-level', '20mV', '--hum-gradient', '0', '--chain', 'direct', '--only', 'neck', '--only', 'neck // mid');
     expect(result.status).toBe(0);
     const report = readReport(target);
     const at60 = report.wirings.map((wiring) => {

@@ -12,7 +12,8 @@ import { type ShortlistRequest, type ShortlistWiring, solveShortlist } from './s
 const file = join(import.meta.dirname, '..', '..', 'samples', 'three-single-coil.json');
 const guitar = parseGuitarText(readFileSync(file, 'utf8'), 'three-single-coil.json');
 const wirings = enumerateWirings(guitar.elements);
-const circuit = measureCircuitMetrics(guitar, wirings).wirings;
+// A uniform hum field (docs/physics.md §6.1) leaves enough hum-cancelling wirings to exercise every constraint.
+const circuit = measureCircuitMetrics(guitar, wirings, { humGradientPerM: 0 }).wirings;
 const { profiles, thresholds } = measureDistinctness(guitar, wirings);
 const table = wirings.map((_, a) => wirings.map((__, b) => measureWiringDistance(profiles, a, profiles, b, thresholds)));
 const distance = (a: number, b: number): number => table[a]![b]!;

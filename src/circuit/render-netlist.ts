@@ -23,9 +23,10 @@ import type { Coil, Guitar } from '../guitar/index.js';
 import type { Network, Wiring } from '../wiring/index.js';
 import { magnetSign, windingSign } from './coil-signs.js';
 import { type CircuitLoad, type CircuitOverrides, resolveCircuitLoad } from './circuit-load.js';
+import type { CoilModel } from './coil-model.js';
 import { AUDIO_BAND_HIGH_HZ, AUDIO_BAND_LOW_HZ } from './frequency-grid.js';
 import type { CircuitGraph } from './circuit-graph.js';
-import { coilCouplings, mutualInductanceH } from './coil-coupling.js';
+import { type CoilCoupling, coilCouplings, mutualInductanceH } from './coil-coupling.js';
 import { GROUND_NODE, HOT_NODE, layoutWiring } from './layout-wiring.js';
 
 /** A source's AC value: magnitude and phase in degrees. */
@@ -89,6 +90,39 @@ function spiceNames(coils: readonly Coil[]): string[] {
   });
 }
 
+/** Comment text for a coil's losses. */
+function lossText(coil: CoilModel): string {
+  const parts: string[] = [];
+  if (coil.eddyShare > 0) parts.push(`eddy branch ${spiceNumber(coil.eddyShare)} of L with ${spiceNumber(coil.eddyResistanceOhms)} ohm`);
+  if (coil.lossResistanceOhms !== null) parts.push(`loss resistance ${spiceNumber(coil.lossResistanceOhms)} ohm`);
+  return parts.length > 0 ? `, ${parts.join(', ')}` : '';
+}
+
+/**
+ * The coil's elements after its EMF source (node `${name}_emf`), as in
+ * coil-model.ts: L·(1−κ), then κ·L ∥ Re (the eddy branch), then R to the
+ * finish lead; C and the loss resistance Rp from start to finish.
+ */
+export function coilElementLines(coil: CoilModel, name: string, startNode: string, finishNode: string): string[] {
+  const lines: string[] = [];
+  const kappa = coil.eddyShare;
+  lines.push(`L${name} ${name}_emf ${name}_l ${spiceNumber(coil.inductanceH * (1 - kappa))}`);
+  let resistorStart = `${name}_l`;
+  if (kappa > 0) {
+    lines.push(
+      `L${name}__eddy ${name}_l ${name}_e ${spiceNumber(coil.inductanceH * kappa)}`,
+      `R${name}__eddy ${name}_l ${name}_e ${spiceNumber(coil.eddyResistanceOhms)}`,
+    );
+    resistorStart = `${name}_e`;
+  }
+  lines.push(
+    `R${name} ${resistorStart} ${finishNode} ${spiceNumber(coil.resistanceOhms)}`,
+    `C${name} ${startNode} ${finishNode} ${spiceNumber(coil.capacitanceF)}`,
+  );
+  if (coil.lossResistanceOhms !== null) lines.push(`R${name}__loss ${startNode} ${finishNode} ${spiceNumber(coil.lossResistanceOhms)}`);
+  return lines;
+}
+
 /** One coil as the netlist places it: its nodes (SPICE names) and a comment line. */
 interface NetlistCoil {
   readonly coil: Coil;
@@ -138,7 +172,7 @@ export function renderNetlist(
       finishNode: spiceNode(placement.plusLead === 'finish' ? placement.plusNode : placement.minusNode),
       comment:
         `* coil ${coil.id}${inside}: ${spiceNumber(coil.resistanceOhms)} ohm, ${spiceNumber(coil.inductanceH)} H, ` +
-        `${spiceNumber(coil.capacitanceF)} F; winding ${coil.winding}, ${coil.magnet} up; ` +
+        `${spiceNumber(coil.capacitanceF)} F${lossText(coil)}; winding ${coil.winding}, ${coil.magnet} up; ` +
         `${placement.phase === 1 ? 'in phase' : 'out of phase'}: ${placement.plusLead} lead at ${spiceNode(placement.plusNode)}, ` +
         `${placement.minusLead} lead at ${spiceNode(placement.minusNode)}`,
     };
@@ -190,12 +224,25 @@ export function renderGraphNetlist(
       finishNode,
       comment:
         `* coil ${coil.id}: ${spiceNumber(coil.resistanceOhms)} ohm, ${spiceNumber(coil.inductanceH)} H, ` +
-        `${spiceNumber(coil.capacitanceF)} F; winding ${coil.winding}, ${coil.magnet} up; start lead at ${startNode}, finish lead at ${finishNode}`,
+        `${spiceNumber(coil.capacitanceF)} F${lossText(coil)}; winding ${coil.winding}, ${coil.magnet} up; start lead at ${startNode}, finish lead at ${finishNode}`,
     });
   }
   const unused = guitar.coils.filter((coil) => !used.has(coil.index));
   const description = graph.hot === graph.ground ? 'Hot is grounded: nothing reaches the amplifier.' : 'A connection of coil leads.';
   return netlistText(guitar, label, description, coils, unused, load, settings);
+}
+
+/**
+ * The K value SPICE needs: M = K·√(L1'·L2') over the inductors the netlist
+ * names, which hold L·(1−κ) of each coil (the rest is the eddy branch,
+ * coil-model.ts), so K = M/√(L1'·L2') with M = sign·k·√(L1·L2) as the
+ * solver uses it (coil-coupling.ts).
+ */
+function spiceCouplingCoefficient(guitar: Guitar, pair: CoilCoupling): number {
+  const first = guitar.coils[pair.first] as Coil;
+  const second = guitar.coils[pair.second] as Coil;
+  const named = Math.sqrt(first.inductanceH * (1 - first.eddyShare) * second.inductanceH * (1 - second.eddyShare));
+  return mutualInductanceH(guitar, pair) / named;
 }
 
 function netlistText(
@@ -213,9 +260,10 @@ function netlistText(
   lines.push(asciiText(`coilbench: ${guitar.name} - ${label}`));
   lines.push(
     asciiText(`* ${description}`),
-    '* Written by coilbench. A model, not a measurement: real pickups also lose treble to eddy currents.',
+    '* Written by coilbench. A model, not a measurement.',
     '* Each coil: its string EMF (the AC source; 1 = equal string signals for every coil) in series with',
-    '* its inductance and resistance, its self-capacitance across its leads. The AC value is the EMF seen',
+    '* its inductance, an eddy-current branch (part of the inductance in parallel with a resistor) and its',
+    '* resistance; its self-capacitance (and any loss resistance) across its leads. The AC value is the EMF seen',
     '* from the start lead to the finish lead: its sign is winding x magnet (cw = +1, north up = +1).',
     '* Nodes: hot = volume pot input, out = amplifier input, 0 = ground, j* = joints between coils.',
     '',
@@ -228,9 +276,7 @@ function netlistText(
     lines.push(
       asciiText(comment),
       `V${name} ${name}_emf ${startNode} DC 0 AC ${spiceNumber(phasor.magnitude)} ${spiceNumber(phaseDeg)}`,
-      `L${name} ${name}_emf ${name}_l ${spiceNumber(coil.inductanceH)}`,
-      `R${name} ${name}_l ${finishNode} ${spiceNumber(coil.resistanceOhms)}`,
-      `C${name} ${startNode} ${finishNode} ${spiceNumber(coil.capacitanceF)}`,
+      ...coilElementLines(coil, name, startNode, finishNode),
     );
   }
   const present = new Set(coils.map(({ coil }) => coil.index));
@@ -243,7 +289,7 @@ function netlistText(
         `* coils ${guitar.coils[pair.first]?.id} and ${guitar.coils[pair.second]?.id} share flux: coupling ${spiceNumber(pair.coefficient)}, ` +
           `mutual inductance ${spiceNumber(mutualInductanceH(guitar, pair))} H with both inductors read from start to finish`,
       ),
-      `K${first}_${second} L${first} L${second} ${spiceNumber(pair.sign * pair.coefficient)}`,
+      `K${first}_${second} L${first} L${second} ${spiceNumber(spiceCouplingCoefficient(guitar, pair))}`,
     );
   }
   if (unusedCoils.length > 0) {

@@ -161,3 +161,23 @@ describe('ngspice (eecircuit-engine) with every part of the load in play', () =>
     }
   });
 });
+
+describe('ngspice (eecircuit-engine) with every loss element of the coil model (docs/physics.md §1.6)', () => {
+  // Invented losses: a parallel loss resistance on every coil, different eddy branches, one coil without any.
+  const base = JSON.parse(readFileSync(join(SAMPLES, 'three-single-coil.json'), 'utf8')) as { coils: Array<Record<string, unknown>> };
+  const losses: Array<Record<string, unknown>> = [
+    { lossResistance: '450k', eddyShare: 0.3, eddyCorner: '4k' },
+    { lossResistance: '1.2M', eddyShare: 0 },
+    { lossResistance: '700k', eddyShare: 0.6, eddyCorner: '900' },
+  ];
+  it('every wiring within 0.01 dB and 0.1°, with a different string signal in every coil', async () => {
+    const guitar = parseGuitarText(JSON.stringify({ ...base, coils: base.coils.map((coil, index) => ({ ...coil, ...losses[index] })) }), 'lossy variant');
+    expect(renderNetlist(guitar, enumerateWirings(guitar.elements)[0] as Wiring)).toMatch(/^Rneck__loss /mu);
+    const phasors = genericPhasors(guitar);
+    for (const wiring of enumerateWirings(guitar.elements)) {
+      const deviation = await compare(guitar, wiring, phasors);
+      expect(deviation.db, wiring.expression).toBeLessThan(MAGNITUDE_TOLERANCE_DB);
+      expect(deviation.deg, wiring.expression).toBeLessThan(PHASE_TOLERANCE_DEG);
+    }
+  });
+});

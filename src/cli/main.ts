@@ -31,6 +31,7 @@ const COMMANDS: ReadonlyArray<readonly [string, () => Promise<Register>]> = [
   ['render', async () => (await import('./commands/render.js')).registerRender],
   ['shortlist', async () => (await import('./commands/shortlist.js')).registerShortlist],
   ['compare', async () => (await import('./commands/compare.js')).registerCompare],
+  ['fit-coil', async () => (await import('./commands/fit-coil.js')).registerFitCoil],
 ];
 
 /** The registration functions the command line needs: the named command's, or every one. */

@@ -101,17 +101,31 @@ const coil: ObjectSpec = {
       default: 'north',
       defaultSource: 'assumed; say it when known, since phase depends on it',
     },
+    construction: {
+      spec: {
+        type: 'enum',
+        description:
+          'How the coil is built: "rod magnets" (winding round magnet rods, the usual single coil) or "steel poles" (winding round steel poles over a bar magnet, a humbucker\'s coil). Sets the defaults for turns and losses.',
+        values: ['rod magnets', 'steel poles'],
+      },
+    },
+    turns: {
+      spec: { type: 'number', description: 'Turns of wire. When missing, derived from the inductance (N ∝ √L for coils of one construction).', min: 100, max: 100000, integer: true, noun: 'a number of turns' },
+    },
+    lossResistance: {
+      spec: quantity('resistance', 'Parallel loss resistance across the leads (core losses), as fitted to a measured impedance; absent for none.', 10e3, 10e9, '10 kΩ and 10 GΩ'),
+    },
+    eddyShare: {
+      spec: { type: 'number', description: 'Share of the inductance that eddy currents take away at high frequency (0 for none).', min: 0, max: 0.95, noun: 'a share between 0 and 0.95' },
+    },
+    eddyCorner: {
+      spec: quantity('frequency', 'Corner frequency of the eddy-current loss branch: above it the inductance falls by the eddy share.', 10, 1e6, '10 Hz and 1 MHz'),
+    },
     sensitivity: {
-      spec: { type: 'number', description: 'Relative string-signal sensitivity (1 = nominal).', min: 0, max: 100, minExclusive: true, noun: 'a relative sensitivity' },
-      default: 1,
-      defaultSource: 'neutral value',
-      quietDefault: true,
+      spec: { type: 'number', description: 'Relative string-signal sensitivity, e.g. a measured output relative to a nominal coil. When missing: turns / nominal turns of the construction.', min: 0, max: 100, minExclusive: true, noun: 'a relative sensitivity' },
     },
     humSensitivity: {
-      spec: { type: 'number', description: 'Relative sensitivity to a uniform mains field (turns × area; 1 = nominal).', min: 0, max: 100, noun: 'a relative hum sensitivity' },
-      default: 1,
-      defaultSource: 'neutral value',
-      quietDefault: true,
+      spec: { type: 'number', description: 'Relative sensitivity to a mains field (turns × area; 1 = nominal coil). When missing: turns / nominal turns of the construction.', min: 0, max: 100, noun: 'a relative hum sensitivity' },
     },
     pickup: {
       spec: { type: 'string', description: 'Name of the pickup housing this coil (shared by the coils of a humbucker).', pattern: ID_PATTERN, patternText: ID_PATTERN_TEXT, maxLength: 32 },

@@ -2,6 +2,7 @@ export type {
   Amp,
   Cable,
   Coil,
+  CoilConstruction,
   Controls,
   Guitar,
   MagnetPole,
@@ -11,9 +12,12 @@ export type {
   Taper,
   ToneControl,
   TrebleBleed,
+  TurnsSource,
   Winding,
   WiringElement,
 } from './guitar.js';
+export { CONSTRUCTION_DEFAULTS, eddyResistanceFromCorner, turnsFromInductance } from './coil-construction.js';
+export type { ConstructionDefaults } from './coil-construction.js';
 export { coilPositionAt } from './guitar.js';
 export { parseGuitar, parseGuitarText, MAX_WIRING_ELEMENTS } from './parse-guitar.js';
 export { parseJsonText, lineAndColumn } from './parse-json.js';

@@ -6,10 +6,12 @@
  */
 import { InputError, type InputProblem, problemAt } from '../errors/index.js';
 import { formatEngineering, hzToMidi, noteName, parseNoteName, parseQuantity } from '../units/index.js';
+import { CONSTRUCTION_DEFAULTS, eddyResistanceFromCorner, turnsFromInductance } from './coil-construction.js';
 import type {
   Amp,
   Cable,
   Coil,
+  CoilConstruction,
   Controls,
   Guitar,
   OpenString,
@@ -121,7 +123,7 @@ export function parseGuitar(raw: unknown): Guitar {
 
   if (problems.length > 0) throw new InputError(problems);
 
-  const coils = coilsRaw.map((entry, index) => buildCoil(asRecord(entry), index));
+  const coils = coilsRaw.map((entry, index) => buildCoil(asRecord(entry), index, assumed));
   const pickups: Pickup[] = [...members.entries()].map(([name, coilIndices]) => ({
     name,
     leads: asRecord(pickupsRaw[name]).leads === 2 ? 2 : 4,
@@ -166,24 +168,52 @@ export function parseGuitar(raw: unknown): Guitar {
   });
 }
 
-function buildCoil(entry: Raw, index: number): Coil {
+/**
+ * A coil with its derived figures: construction (steel poles inside a pickup
+ * housing, rod magnets otherwise), turns (N = N0·√(L/L0) when missing),
+ * sensitivities (turns / nominal turns when missing) and the eddy branch
+ * (docs/physics.md §1.6).
+ */
+function buildCoil(entry: Raw, index: number, assumed: string[]): Coil {
   const position = entry.position;
   const bass = typeof position === 'number' ? position : (asNumber(asRecord(position).bass) ?? 0);
   const treble = typeof position === 'number' ? position : (asNumber(asRecord(position).treble) ?? 0);
+  const inductanceH = entry.inductance as number;
+  const pickupName = asString(entry.pickup);
+  let construction: CoilConstruction;
+  if (entry.construction === 'rod magnets' || entry.construction === 'steel poles') construction = entry.construction;
+  else {
+    construction = pickupName === undefined ? 'rod magnets' : 'steel poles';
+    assumed.push(`coils[${index}].construction`);
+  }
+  const defaults = CONSTRUCTION_DEFAULTS[construction];
+  const givenTurns = asNumber(entry.turns);
+  const turns = givenTurns ?? turnsFromInductance(inductanceH, construction);
+  const relativeTurns = turns / defaults.nominalTurns;
+  const givenSensitivity = asNumber(entry.sensitivity);
+  const eddyShare = asNumber(entry.eddyShare) ?? defaults.eddyShare;
+  const eddyCornerHz = asNumber(entry.eddyCorner) ?? defaults.eddyCornerHz;
   return Object.freeze({
     id: asString(entry.id) ?? '',
     index,
     positionBassM: bass,
     positionTrebleM: treble,
     resistanceOhms: entry.resistance as number,
-    inductanceH: entry.inductance as number,
+    inductanceH,
     capacitanceF: entry.capacitance as number,
     apertureM: entry.aperture as number,
     winding: entry.winding === 'ccw' ? 'ccw' : 'cw',
     magnet: entry.magnet === 'south' ? 'south' : 'north',
-    sensitivity: entry.sensitivity as number,
-    humSensitivity: entry.humSensitivity as number,
-    pickup: asString(entry.pickup),
+    construction,
+    turns,
+    turnsSource: givenTurns === undefined ? 'inductance' : 'file',
+    lossResistanceOhms: asNumber(entry.lossResistance) ?? null,
+    eddyShare,
+    eddyResistanceOhms: eddyResistanceFromCorner(eddyCornerHz, eddyShare, inductanceH),
+    sensitivity: givenSensitivity ?? relativeTurns,
+    humSensitivity: asNumber(entry.humSensitivity) ?? relativeTurns,
+    sensitivityGiven: givenSensitivity !== undefined,
+    pickup: pickupName,
     notes: asString(entry.notes),
   });
 }

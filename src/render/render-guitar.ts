@@ -58,7 +58,7 @@ import { removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
 import { writeListeningPage } from './write-listening-page.js';
 
 /** Bump when the sound of a render changes for the same inputs (string model, pickup, chain), so old files are redone. */
-export const RENDER_MODEL_VERSION = 1;
+export const RENDER_MODEL_VERSION = 2;
 /** File writes allowed to run in the background at once (each holds one encoded file in memory). */
 const MAX_PENDING_WRITES = 4;
 /** Least time between manifest saves while writing files, ms: an interrupted run loses at most this much record (the files themselves are always whole). */
@@ -364,6 +364,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
       resonanceQ: row.circuit.resonanceQ,
       humDb: row.circuit.humDb ?? 0,
       humCancelling: row.circuit.humCancelling,
+      humCategory: row.circuit.humCategory,
       responseDb: response ? Array.from(response) : [],
       group: groupById.get(row.wiring.id) ?? null,
     };

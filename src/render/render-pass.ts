@@ -24,6 +24,7 @@ import {
   measureRawAudio,
   prepareReferenceSynthesis,
 } from './measure-wiring-audio.js';
+import { PEAK_CEILING_DB } from './plan-gains.js';
 import { type WiringSynthesis, assertAudible, prepareWiringSynthesis } from './synthesize-wirings.js';
 
 export interface HumMix {
@@ -147,6 +148,21 @@ export function peakOf(samples: Float32Array): number {
 }
 
 /** Run the first pass over `items`, parking processed audio in `scratchFolder`. `onStep` is told after each item. */
+/**
+ * Loudness of `audio` as it will be written: ITU-R BS.1770's absolute gate
+ * (−70 LKFS) makes loudness shift by slightly more or less than a gain, so a
+ * quiet wiring (−45 LUFS before gain) is measured scaled to the peak ceiling,
+ * near the level its file gets, and the scale taken off again:
+ * L = L(g·x) − 20·log10(g), g = ceiling / peak.
+ */
+function measureLoudnessNearCeiling(audio: Float32Array, sampleRateHz: number): number {
+  const peak = peakOf(audio);
+  if (!(peak > 0)) return measureLoudness([audio], sampleRateHz);
+  const gain = 10 ** (PEAK_CEILING_DB / 20) / peak;
+  const scaled = Float32Array.from(audio, (value) => value * gain);
+  return measureLoudness([scaled], sampleRateHz) - 20 * Math.log10(gain);
+}
+
 export async function runRenderPass(
   settings: AudioSettings,
   items: readonly PassItem[],
@@ -181,7 +197,7 @@ export async function runRenderPass(
       audio = {
         peak: peakOf(processed),
         frames: processed.length,
-        loudnessLufs: settings.measureProcessedLoudness ? measureLoudness([processed], settings.sampleRateHz) : null,
+        loudnessLufs: settings.measureProcessedLoudness ? measureLoudnessNearCeiling(processed, settings.sampleRateHz) : null,
       };
     }
     const result: PassResult = {

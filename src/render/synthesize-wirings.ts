@@ -10,7 +10,7 @@
 import {
   type CircuitOverrides,
   type PreparedCircuit,
-  magnetSign,
+  humFieldWeights,
   phaseClassKey,
   phaseClassNetwork,
   phaseClassSigns,
@@ -219,11 +219,12 @@ export function createWiringSynthesis(guitar: Guitar, coils: CoilSpectra, overri
     solveTransfers(probe.prepared, network, probe.transfers);
     out.fill(0);
     HUM_HARMONICS.forEach(([harmonic, amplitude], index) => {
-      // H(f) = Σ_i m_i·h_i·T_i(f): the hum sign of a coil is p_i·m_i and T_i carries p_i (src/circuit/measure-hum.ts).
+      // H(f) = Σ_i m_i·h_i·B(x_i)·T_i(f): the hum sign of a coil is p_i·m_i and T_i carries p_i (src/circuit/measure-hum.ts).
+      const weights = humFieldWeights(guitar, probe.prepared.load);
       let re = 0;
       let im = 0;
-      guitar.coils.forEach((coil, c) => {
-        const weight = magnetSign(coil.magnet) * coil.humSensitivity;
+      guitar.coils.forEach((_coil, c) => {
+        const weight = weights[c] as number;
         const transfer = probe.transfers[c] as Float64Array;
         re += weight * (transfer[2 * index] as number);
         im += weight * (transfer[2 * index + 1] as number);
