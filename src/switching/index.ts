@@ -1,0 +1,23 @@
+export type { KitPole, KitPosition, SwitchDefinition, SwitchKit } from './switch-kit.js';
+export {
+  MAX_KIT_POSITIONS,
+  countKitPositions,
+  describeKitPosition,
+  enumerateKitPoles,
+  enumerateKitPositions,
+  poleLetter,
+  withMorePoles,
+  withSwitch,
+} from './switch-kit.js';
+export { MAX_POLES, MAX_POSITIONS, PRESET_NAMES_TEXT, parsePresetSwitch, presetSwitch } from './switch-presets.js';
+export { MAX_SWITCHES, parseSwitchText, parseSwitchTexts, parseSwitchingSection } from './parse-switching.js';
+export type { CoilLead, PositionCircuit, PositionCoil } from './element-terminals.js';
+export { GROUND_ITEM, HOT_ITEM, circuitOfComponents, coilLeadOf, describeItem, itemCount, minusItem, plusItem } from './element-terminals.js';
+export type { TargetPartitions } from './target-partitions.js';
+export { enumerateTargetPartitions } from './target-partitions.js';
+export type { PositionReading } from './read-position-wiring.js';
+export { readPositionWiring } from './read-position-wiring.js';
+export type { KitLugLayout, PositionWish, SwitchPlan, SwitchPlanOptions, SwitchPlanResult } from './solve-switch-plan.js';
+export { DEFAULT_SWITCH_PLAN_OPTIONS, kitLugLayout, solveSwitchPlan } from './solve-switch-plan.js';
+export type { PlanPosition } from './plan-positions.js';
+export { componentsAt, readPlanPositions } from './plan-positions.js';
