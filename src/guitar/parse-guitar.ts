@@ -19,7 +19,7 @@ import type {
   TrebleBleed,
   WiringElement,
 } from './guitar.js';
-import { DEFAULT_CABLE_CAPACITANCE, GUITAR_SPEC } from './guitar-spec.js';
+import { DEFAULT_CABLE_CAPACITANCE, DEFAULT_PICKUP_COUPLING, GUITAR_SPEC } from './guitar-spec.js';
 import { parseJsonText } from './parse-json.js';
 import { validateField } from './validate-fields.js';
 
@@ -126,6 +126,7 @@ export function parseGuitar(raw: unknown): Guitar {
     name,
     leads: asRecord(pickupsRaw[name]).leads === 2 ? 2 : 4,
     coilIndices,
+    coupling: asNumber(asRecord(pickupsRaw[name]).coupling) ?? DEFAULT_PICKUP_COUPLING,
   }));
   const elements = buildElements(coils, pickups);
   if (elements.length > MAX_WIRING_ELEMENTS) {
