@@ -14,6 +14,7 @@ import { registerNetlist } from './commands/netlist.js';
 import { registerRender } from './commands/render.js';
 import { registerShortlist } from './commands/shortlist.js';
 import { registerCompare } from './commands/compare.js';
+import { registerSwitch } from './commands/switch.js';
 import type { Io } from './io.js';
 import { COILBENCH_VERSION } from './version.js';
 
@@ -44,6 +45,7 @@ function buildProgram(io: Io): Command {
   registerRender(program, io);
   registerShortlist(program, io);
   registerCompare(program, io);
+  registerSwitch(program, io);
   for (const command of program.commands) {
     command.exitOverride().configureOutput({
       writeOut: (text) => io.stdout(text),

@@ -10,7 +10,7 @@
  * (circuit/coil-signs.ts: c = p·w·m, c = +1 puts the finish towards hot).
  */
 import type { Coil, Guitar } from '../guitar/index.js';
-import { type Lead, connectionSign } from '../circuit/index.js';
+import { type CircuitGraph, type GraphCoil, type Lead, connectionSign } from '../circuit/index.js';
 
 export const GROUND_ITEM = 0;
 export const HOT_ITEM = 1;
@@ -60,29 +60,14 @@ export function describeItem(guitar: Guitar, item: number): string {
   return `${lead.coil.id} ${lead.lead}`;
 }
 
-/** Where one coil's leads go, as node numbers (null: floating). Same shape as the nodal solver's graph. */
-export interface PositionCoil {
-  readonly coil: number;
-  readonly start: number | null;
-  readonly finish: number | null;
-}
-
-/** A circuit of coil leads: nodes 0 … nodeCount − 1, the load on `hot`, `ground` the ground bus. */
-export interface PositionCircuit {
-  readonly nodeCount: number;
-  readonly hot: number;
-  readonly ground: number;
-  readonly coils: readonly PositionCoil[];
-  readonly nodeNames: readonly string[];
-}
-
 /**
  * The circuit of one position from the component of every item
  * (`componentOf[item]`, any numbering): one node per component that holds an
  * item, and inside a two-lead pickup a node for each joint the maker made.
- * A lead alone on its component is floating (null).
+ * A lead alone on its component is floating (null). This is the nodal
+ * solver's circuit graph (circuit/circuit-graph.ts).
  */
-export function circuitOfComponents(guitar: Guitar, componentOf: ArrayLike<number>): PositionCircuit {
+export function circuitOfComponents(guitar: Guitar, componentOf: ArrayLike<number>): CircuitGraph {
   const count = new Map<number, number>();
   for (let item = 0; item < itemCount(guitar); item += 1) {
     const component = componentOf[item] as number;
@@ -103,7 +88,7 @@ export function circuitOfComponents(guitar: Guitar, componentOf: ArrayLike<numbe
   const hot = nodeOf(HOT_ITEM) as number;
   names[ground] = 'ground';
   if (hot !== ground) names[hot] = 'hot';
-  const coils: PositionCoil[] = [];
+  const coils: GraphCoil[] = [];
   guitar.elements.forEach((element, e) => {
     const plusNode = nodeOf(plusItem(e));
     const minusNode = nodeOf(minusItem(e));

@@ -3,7 +3,8 @@
  * (read-position-wiring.ts) and the circuit the nodal solver takes.
  */
 import type { Guitar } from '../guitar/index.js';
-import { type PositionCircuit, circuitOfComponents, itemCount } from './element-terminals.js';
+import type { CircuitGraph } from '../circuit/index.js';
+import { circuitOfComponents, itemCount } from './element-terminals.js';
 import { type PositionReading, readPositionWiring } from './read-position-wiring.js';
 import { type KitPosition, enumerateKitPoles, enumerateKitPositions } from './switch-kit.js';
 import { type SwitchPlan, kitLugLayout } from './solve-switch-plan.js';
@@ -39,7 +40,7 @@ export interface PlanPosition {
   readonly position: KitPosition;
   readonly componentOf: Int32Array;
   readonly reading: PositionReading;
-  readonly circuit: PositionCircuit;
+  readonly circuit: CircuitGraph;
 }
 
 /** Every kit position of a plan, read off and as a circuit. */

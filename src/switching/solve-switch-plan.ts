@@ -421,16 +421,20 @@ export function solveSwitchPlan(
     return false;
   };
 
-  /** Item `item` joins an existing fixed net or starts the next one. */
-  const searchItems = (item: number): boolean => {
-    if (item === items) return searchLugs(0, 0);
+  // Items in search order: ground, hot, then every element's minus lead, then the plus leads, so
+  // that the first plans tried put minus leads towards ground (coils in phase, not all reversed).
+  const order = [GROUND_ITEM, HOT_ITEM, ...allElements.map(minusItem), ...allElements.map(plusItem)];
+  /** The `k`-th item in search order joins an existing fixed net or starts the next one. */
+  const searchItems = (k: number): boolean => {
+    if (k === items) return searchLugs(0, 0);
+    const item = order[k] as number;
     for (let net = 0; net <= fixedNets; net += 1) {
       if (item === HOT_ITEM && net === itemNets[GROUND_ITEM]) continue; // hot fixed to ground would silence every position
       step();
       const isNew = net === fixedNets;
       if (isNew) fixedNets += 1;
       itemNets[item] = net;
-      if (allHold(0, 0) && searchItems(item + 1)) return true;
+      if (allHold(0, 0) && searchItems(k + 1)) return true;
       itemNets[item] = -1;
       if (isNew) fixedNets -= 1;
     }
