@@ -33,9 +33,7 @@ import {
   solveSwitchRequest,
   verifySwitchPlan,
   withMorePoles,
-  withSwitch,
-  presetSwitch,
-  type SwitchDefinition,
+    type SwitchDefinition,
   MAX_POLES,
 } from '../../switching/index.js';
 import { type Wiring, enumerateWirings, findWiring, vocabularyOf } from '../../wiring/index.js';
@@ -66,11 +64,11 @@ interface SwitchOptions extends CircuitOptionText, AlikeOptionText {
 /** Search steps allowed per plan search by default (about 10–30 s on a slow machine at the worst; a step is one net tried on one lug or lead). */
 const DEFAULT_SEARCH_STEPS = 2_000_000;
 const MAX_SEARCH_STEPS = 1_000_000_000;
-/** The shortlist's limit on wirings per set (a rotary switch has at most a dozen positions; common practice). */
-const MAX_CHOICE = 12;
 const MAX_WINDOW_DB = 60;
-/** Orders of a chosen set tried over the positions before a smaller set is taken (our choice). */
-const ORDER_LIMIT = 120;
+/** Plan searches per threshold tried by --choose before settling for the best found (our choice: a few seconds per kit). */
+const PLAN_SEARCH_LIMIT = 40;
+/** Steps per plan search inside --choose by default (our choice: most sets of a small kit settle in far fewer; --search-limit raises it). */
+const CHOICE_SEARCH_STEPS = 5_000;
 
 /** The kit: --switch options, else the guitar file's `switching` section. */
 function readKit(file: string, options: SwitchOptions, io: Io): SwitchKit {
@@ -307,16 +305,15 @@ async function renderPositions(
   return rendered;
 }
 
-/** Kits to compare with the given one: its first switch with 1 to 4 poles (a common range of levers and rotaries), and with an added push-pull. */
+/** Kits to compare with the given one: its first switch with 1, 2 and 4 poles (the pole counts levers are commonly sold with; common practice). */
 function comparisonKits(kit: SwitchKit): SwitchKit[] {
   const first = kit.switches[0] as SwitchDefinition;
   const kits: SwitchKit[] = [kit];
-  const COMPARED_POLES = [1, 2, 3, 4];
+  const COMPARED_POLES = [1, 2, 4];
   for (const poles of COMPARED_POLES) {
     if (poles === first.poles || poles > MAX_POLES) continue;
     kits.push(withMorePoles(kit, 0, poles - first.poles));
   }
-  if (kit.switches.length === 1) kits.push(withSwitch(kit, presetSwitch('push-pull-1-pole') as SwitchDefinition));
   return kits;
 }
 
@@ -361,58 +358,37 @@ async function runChoose(
     network: wiring.network,
   }));
   const distance = (a: number, b: number): number => measureWiringDistance(distinct.profiles, a, distinct.profiles, b, distinct.thresholds);
-  const request = {
-    maxCount: MAX_CHOICE,
-    humCancelling: options.humCancelling === true,
-    elements: null,
-    elementIds: guitar.elements.map((element) => element.id),
-    include,
-    levelWindowDb,
-    orderLimit: ORDER_LIMIT,
-  };
-  const solveFor = (candidate: SwitchKit) => {
-    try {
-      return solveSwitchChoice(candidate, guitar.elements.length, list, distance, request, { stepBudget });
-    } catch (error) {
-      if (!(error instanceof InputError)) throw error;
-      throw new InputError(error.problems.map((problem) => (problem.path.startsWith('include') ? { ...problem, path: '--include' } : problem)));
-    }
-  };
+  const request = { humCancelling: options.humCancelling === true, include, levelWindowDb, planSearchLimit: PLAN_SEARCH_LIMIT };
   const kits = comparisonKits(kit);
-  const choices = kits.map(solveFor);
+  const choiceSteps = options.searchLimit === undefined ? CHOICE_SEARCH_STEPS : stepBudget;
+  const choices = kits.map((candidate) => solveSwitchChoice(candidate, guitar.elements.length, list, distance, request, { stepBudget: choiceSteps }));
   const mine = choices[0] as ReturnType<typeof solveSwitchChoice>;
   const rows = kits.map((candidate, k) => {
     const choice = choices[k] as ReturnType<typeof solveSwitchChoice>;
-    const chosen = choice.assignment?.filter((w) => w >= 0).length ?? 0;
     return {
       kit: describeKit(candidate),
-      reachable: choice.reachable.length,
-      chosen,
+      chosen: choice.assignment === null ? 'none found' : String(new Set(choice.assignment).size),
       minDistance: choice.assignment === null ? '-' : Number.isFinite(choice.minDistance) ? `${choice.minDistance.toFixed(2)}×` : '-',
-      proven: choice.complete ? '' : 'search limit reached',
+      proven: choice.proven ? 'proven' : 'best found (search limit reached)',
     };
   });
   if (mine.assignment === null || mine.result?.plan == null) {
-    throw new WorkError(`no set of wirings found that ${describeKit(kit)} gives under these constraints${mine.complete ? '' : ' within the search limit'}`);
+    throw new WorkError(`no set of wirings found that ${describeKit(kit)} gives under these constraints${mine.proven ? '' : ' within the search limit'}`);
   }
-  const wishes = mine.assignment.map((w): PositionWish => (w < 0 ? { kind: 'free' } : { kind: 'wiring', network: (wirings[w] as Wiring).network, expression: (wirings[w] as Wiring).expression }));
+  const wishes = mine.assignment.map((w): PositionWish => ({ kind: 'wiring', network: (wirings[w] as Wiring).network, expression: (wirings[w] as Wiring).expression }));
   if (!options.json) {
-    io.stdout(`${guitar.name}: the most distinct wirings ${describeKit(kit)} gives, one per position\n`);
+    io.stdout(`${guitar.name}: the most distinct wirings ${describeKit(kit)} gives together, one per position\n`);
     io.stdout(
-      `${mine.reachable.length} of ${wirings.length} wirings can be had in some position; smallest difference between the chosen: ${Number.isFinite(mine.minDistance) ? `${mine.minDistance.toFixed(2)}×` : '-'} the just-noticeable difference.\n`,
+      `smallest difference between two positions: ${Number.isFinite(mine.minDistance) ? `${mine.minDistance.toFixed(2)}×` : '-'} the just-noticeable difference; ` +
+        `${mine.proven ? 'proven the largest possible (exact search)' : 'the best found: a search limit was reached, so a better set may exist'}.\n`,
     );
-    io.stdout(
-      'The set is the most distinct among what each position gives on its own' +
-        `${mine.exactSet ? ' (exact max–min choice)' : ' (the shortlist\'s heuristic)'}, and one plan gives it all together; it is not proven the most distinct set reachable together.\n\n`,
-    );
-    io.stdout('Kits compared (same constraints):\n');
+    io.stdout('Any one wiring can be wired fixed; what a switch limits is which wirings it gives together.\n\nKits compared (same constraints):\n');
     io.stdout(
       formatTable(rows, [
         { title: 'kit', value: (row) => row.kit },
-        { title: 'wirings it can give', value: (row) => String(row.reachable), align: 'right' },
-        { title: 'chosen', value: (row) => String(row.chosen), align: 'right' },
+        { title: 'different wirings', value: (row) => row.chosen, align: 'right' },
         { title: 'smallest difference (× just noticeable)', value: (row) => row.minDistance, align: 'right' },
-        { title: 'note', value: (row) => row.proven },
+        { title: 'search', value: (row) => row.proven },
       ]),
     );
     io.stdout('\n');
