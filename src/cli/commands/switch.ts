@@ -5,11 +5,11 @@
  * pole counts compare. Every plan is checked by simulation before it is
  * shown.
  */
-import { readFileSync } from 'node:fs';
+import { mkdirSync, readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { measureDistinctness, measureWiringDistance } from '../../analysis/index.js';
-import { measureCircuitMetrics } from '../../circuit/index.js';
+import { measureCircuitMetrics, renderGraphNetlist } from '../../circuit/index.js';
 import { InputError, type InputProblem, WorkError, problemAt } from '../../errors/index.js';
 import { type Guitar, parseJsonText } from '../../guitar/index.js';
 import { defaultOutputRoot, writeFileAtomicSync } from '../../render/index.js';
@@ -53,6 +53,7 @@ interface SwitchOptions extends CircuitOptionText, AlikeOptionText {
   readonly levelWindow?: string;
   readonly include: string[];
   readonly svg?: string;
+  readonly netlists?: string;
   readonly searchLimit?: string;
   readonly json?: boolean;
   readonly render?: boolean;
@@ -118,6 +119,7 @@ export function registerSwitch(program: Command, io: Io): void {
     .option('--level-window <dB>', 'with --choose: every chosen wiring within this many dB of every other')
     .option('--include <wiring>', 'with --choose: a wiring that must be among them (repeat for more)', collectOption, [])
     .option('--svg <file>', 'also write the drawing of the lugs to this SVG file')
+    .option('--netlists <dir>', 'also write one SPICE netlist per position into this folder (ngspice -b runs each)')
     .option('--search-limit <steps>', `search steps per plan before giving up unproven (default ${DEFAULT_SEARCH_STEPS})`)
     .option('--json', 'print one JSON document on stdout')
     .option('--render', 'render the positions\' wirings with their listening page (default folder renders/<guitar>-switch)')
@@ -229,6 +231,14 @@ async function showPlan(
   const drawing = renderSwitchDrawing(guitar, plan);
   const sheet = renderSwitchSheet(guitar, plan, positions, wishes, verification);
   if (options.svg !== undefined) writeFileAtomicSync(resolve(io.cwd, options.svg), drawing);
+  if (options.netlists !== undefined) {
+    const folder = resolve(io.cwd, options.netlists);
+    mkdirSync(folder, { recursive: true });
+    positions.forEach((position, index) => {
+      const label = `position ${describeKitPosition(plan.kit, position.position)}: ${describeReading(guitar, position.reading)}`;
+      writeFileAtomicSync(resolve(folder, `position-${index + 1}.cir`), renderGraphNetlist(guitar, position.circuit, label, overrides));
+    });
+  }
   let rendered: Awaited<ReturnType<typeof renderPositions>> | null = null;
   if (options.render) rendered = await renderPositions(file, guitar, plan, positions, options, sheet, drawing, io);
   if (options.json) {
@@ -261,6 +271,7 @@ async function showPlan(
   io.stdout(sheet);
   io.stdout(`Search: a plan found in ${result.steps} steps (exact search; docs/switching.md).\n`);
   if (options.svg !== undefined) io.stdout(`Drawing written to ${options.svg}\n`);
+  if (options.netlists !== undefined) io.stdout(`Netlists written to ${options.netlists}/position-N.cir\n`);
   if (rendered) reportRender(io, rendered.root, rendered.outcome, rendered.seconds);
 }
 
