@@ -15,6 +15,7 @@
  * on one axis).
  */
 import type { Coil, Guitar } from '../guitar/index.js';
+import type { Network } from '../wiring/index.js';
 import { windingSign } from './coil-signs.js';
 
 /** One coupled pair: M = sign·coefficient·√(L_first·L_second), coils by index. */
@@ -60,4 +61,48 @@ export function mutualInductanceH(guitar: Guitar, coupling: CoilCoupling): numbe
   const first = guitar.coils[coupling.first] as Coil;
   const second = guitar.coils[coupling.second] as Coil;
   return coupling.sign * coupling.coefficient * Math.sqrt(first.inductanceH * second.inductanceH);
+}
+
+/** Per wiring element, the index of its coupling group (elements whose coils are coupled), or −1. */
+const elementGroupCache = new WeakMap<Guitar, Int32Array>();
+
+export function elementCouplingGroups(guitar: Guitar): Int32Array {
+  const known = elementGroupCache.get(guitar);
+  if (known !== undefined) return known;
+  const elementOfCoil = new Int32Array(guitar.coils.length);
+  for (const element of guitar.elements) for (const coil of element.coilIndices) elementOfCoil[coil] = element.index;
+  const parent = Int32Array.from({ length: guitar.elements.length }, (_, k) => k);
+  const find = (k: number): number => {
+    let n = k;
+    while (parent[n] !== n) n = parent[n] as number;
+    return n;
+  };
+  const coupled = new Uint8Array(guitar.elements.length);
+  for (const pair of coilCouplings(guitar)) {
+    const a = elementOfCoil[pair.first] as number;
+    const b = elementOfCoil[pair.second] as number;
+    coupled[a] = 1;
+    coupled[b] = 1;
+    const ra = find(a);
+    const rb = find(b);
+    if (ra !== rb) parent[Math.max(ra, rb)] = Math.min(ra, rb);
+  }
+  const groups = new Int32Array(guitar.elements.length).fill(-1);
+  for (let e = 0; e < groups.length; e += 1) if (coupled[e] === 1) groups[e] = find(e);
+  elementGroupCache.set(guitar, groups);
+  return groups;
+}
+
+/** Does the network hold both coils of a coupled pair (so only nodal analysis solves it)? */
+export function usesCoupledCoils(guitar: Guitar, network: Network): boolean {
+  const couplings = coilCouplings(guitar);
+  if (couplings.length === 0) return false;
+  const present = new Uint8Array(guitar.coils.length);
+  const walk = (node: Network): void => {
+    if (node.kind === 'element') {
+      for (const coil of guitar.elements[node.element]?.coilIndices ?? []) present[coil] = 1;
+    } else node.parts.forEach(walk);
+  };
+  walk(network);
+  return couplings.some((pair) => present[pair.first] === 1 && present[pair.second] === 1);
 }

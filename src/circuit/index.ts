@@ -37,6 +37,8 @@ export { renderGraphNetlist, renderNetlist, DEFAULT_NETLIST_OPTIONS } from './re
 export { renderBuildSheet } from './render-build-sheet.js';
 export type { CircuitGraph, GraphCoil } from './circuit-graph.js';
 export { graphOfNetwork } from './circuit-graph.js';
-export { solveNodalTransfers } from './solve-nodal.js';
+export { solveCoilsImpedance, solveNodalTransfers } from './solve-nodal.js';
 export type { CoilCoupling } from './coil-coupling.js';
 export { coilCouplings, mutualInductanceH } from './coil-coupling.js';
+export { phaseClassKey, phaseClassNetwork, phaseClassSigns } from './phase-class.js';
+export { usesCoupledCoils } from './coil-coupling.js';

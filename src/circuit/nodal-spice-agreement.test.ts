@@ -95,6 +95,22 @@ async function compare(guitar: Guitar, graph: CircuitGraph, phasors: readonly So
   return { db: Number.isNaN(db) ? Infinity : db, deg: Number.isNaN(deg) ? Infinity : deg, points: frequencies.length };
 }
 
+/** The five coils with two coupled pairs: one side by side (k = 0.25), one stacked (k = −0.15). */
+const COUPLED_FIVE: Guitar = parseGuitar({
+  name: 'five-coil bridge check with coupling (invented values)',
+  coils: [
+    { id: 'neck', pickup: 'front', position: '160mm', resistance: '5.9k', inductance: '2.35H', capacitance: '110p', winding: 'cw', magnet: 'north' },
+    { id: 'mid_neck', pickup: 'front', position: '160mm', resistance: '6.3k', inductance: '2.6H', capacitance: '118p', winding: 'ccw', magnet: 'south' },
+    { id: 'mid', position: '100mm', resistance: '7.1k', inductance: '3.0H', capacitance: '130p', winding: 'cw', magnet: 'north' },
+    { id: 'mid_bridge', pickup: 'rear', position: '50mm', resistance: '4.2k', inductance: '2.2H', capacitance: '145p', winding: 'ccw', magnet: 'north' },
+    { id: 'bridge', pickup: 'rear', position: '32mm', resistance: '8.1k', inductance: '3.6H', capacitance: '150p', winding: 'cw', magnet: 'south' },
+  ],
+  pickups: { front: { coupling: -0.15 }, rear: { coupling: 0.25 } },
+  controls: { volume: { pot: '500k', setting: 10, taper: 'audio' }, tone: { pot: '500k', capacitor: '22n', setting: 10 } },
+  cable: { capacitance: '470p' },
+  amp: { resistance: '1M', capacitance: '50p' },
+});
+
 /** A different string signal in every coil, so each transfer counts on its own. */
 function genericPhasors(guitar: Guitar): SourcePhasor[] {
   return guitar.coils.map((_, c) => ({ magnitude: 1 + 0.37 * c, phaseDeg: -23 + 41 * c }));
@@ -119,5 +135,36 @@ describe('ngspice (eecircuit-engine) agrees with the nodal solver on a bridge ne
     const deviation = await compare(FIVE_COILS, graph, genericPhasors(FIVE_COILS));
     expect(deviation.db).toBeLessThan(MAGNITUDE_TOLERANCE_DB);
     expect(deviation.deg).toBeLessThan(PHASE_TOLERANCE_DEG);
+  });
+});
+
+describe('ngspice (eecircuit-engine) agrees with the nodal solver on coupled coils (K lines)', () => {
+  it('the bridge network with two coupled pairs: within 0.01 dB and 0.1°', async () => {
+    const netlist = renderGraphNetlist(COUPLED_FIVE, BRIDGE_GRAPH, 'check');
+    expect(netlist.match(/^K/gmu)).toHaveLength(2);
+    const deviation = await compare(COUPLED_FIVE, BRIDGE_GRAPH, genericPhasors(COUPLED_FIVE), { volumeSetting: 7 });
+    expect(deviation.db).toBeLessThan(MAGNITUDE_TOLERANCE_DB);
+    expect(deviation.deg).toBeLessThan(PHASE_TOLERANCE_DEG);
+  });
+
+  it('a coil shorted on itself acts on its coupled partner (a shorted turn)', async () => {
+    // neck from hot to ground; mid_neck's leads both on ground; mid_bridge floating at one end.
+    const graph: CircuitGraph = {
+      nodeCount: 3,
+      ground: 0,
+      hot: 1,
+      coils: [
+        { coil: 0, start: 0, finish: 1 },
+        { coil: 1, start: 0, finish: 0 },
+        { coil: 3, start: 1, finish: null },
+      ],
+    };
+    const deviation = await compare(COUPLED_FIVE, graph, genericPhasors(COUPLED_FIVE));
+    expect(deviation.db).toBeLessThan(MAGNITUDE_TOLERANCE_DB);
+    expect(deviation.deg).toBeLessThan(PHASE_TOLERANCE_DEG);
+    // and the short matters: without it the neck coil alone peaks higher.
+    const alone = solveNodalTransfers(prepareCircuit(COUPLED_FIVE, Float64Array.of(3000)), { ...graph, coils: [graph.coils[0]!] });
+    const shorted = solveNodalTransfers(prepareCircuit(COUPLED_FIVE, Float64Array.of(3000)), graph);
+    expect(Math.abs(Math.hypot(alone[0]![0]!, alone[0]![1]!) - Math.hypot(shorted[0]![0]!, shorted[0]![1]!))).toBeGreaterThan(0.01);
   });
 });

@@ -13,6 +13,11 @@
  * source's value is the string EMF from start to finish, so its sign is w·m
  * (coil-signs.ts): "AC 1 0" or "AC 1 180". The wiring's connection then puts
  * the finish or the start lead towards hot, which turns it into p.
+ *
+ * Coupled coils (coil-coupling.ts) get a `K` line naming their inductors,
+ * with coefficient sign·k: each L is written from the start side to the
+ * finish side, so SPICE's dot convention (mutual M = K·√(L1·L2) with both
+ * currents entering the first node) reads start to finish as the solver does.
  */
 import type { Coil, Guitar } from '../guitar/index.js';
 import type { Network, Wiring } from '../wiring/index.js';
@@ -20,6 +25,7 @@ import { magnetSign, windingSign } from './coil-signs.js';
 import { type CircuitLoad, type CircuitOverrides, resolveCircuitLoad } from './circuit-load.js';
 import { AUDIO_BAND_HIGH_HZ, AUDIO_BAND_LOW_HZ } from './frequency-grid.js';
 import type { CircuitGraph } from './circuit-graph.js';
+import { coilCouplings, mutualInductanceH } from './coil-coupling.js';
 import { GROUND_NODE, HOT_NODE, layoutWiring } from './layout-wiring.js';
 
 /** A source's AC value: magnitude and phase in degrees. */
@@ -225,6 +231,19 @@ function netlistText(
       `L${name} ${name}_emf ${name}_l ${spiceNumber(coil.inductanceH)}`,
       `R${name} ${name}_l ${finishNode} ${spiceNumber(coil.resistanceOhms)}`,
       `C${name} ${startNode} ${finishNode} ${spiceNumber(coil.capacitanceF)}`,
+    );
+  }
+  const present = new Set(coils.map(({ coil }) => coil.index));
+  for (const pair of coilCouplings(guitar)) {
+    if (!present.has(pair.first) || !present.has(pair.second)) continue;
+    const first = names[pair.first] as string;
+    const second = names[pair.second] as string;
+    lines.push(
+      asciiText(
+        `* coils ${guitar.coils[pair.first]?.id} and ${guitar.coils[pair.second]?.id} share flux: coupling ${spiceNumber(pair.coefficient)}, ` +
+          `mutual inductance ${spiceNumber(mutualInductanceH(guitar, pair))} H with both inductors read from start to finish`,
+      ),
+      `K${first}_${second} L${first} L${second} ${spiceNumber(pair.sign * pair.coefficient)}`,
     );
   }
   if (unusedCoils.length > 0) {

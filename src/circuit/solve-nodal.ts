@@ -57,6 +57,8 @@ interface ActiveCoil {
   readonly stringSign: number;
   /** Index of its coupling group, −1 when it is coupled to nothing present. */
   readonly group: number;
+  /** Its row in the group's admittance block. */
+  readonly slot: number;
 }
 
 interface CouplingGroup {
@@ -113,9 +115,32 @@ interface NodalPlan {
   readonly out: number;
   readonly coils: readonly ActiveCoil[];
   readonly groups: readonly CouplingGroup[];
+  /** Per active coil, its branch admittance Y_b at the frequency being solved (complex, scratch). */
+  readonly branch: Float64Array;
+  /** Per active coil, x_finish − x_start of the adjoint solution (complex, scratch). */
+  readonly drop: Float64Array;
 }
 
-function planGraph(prepared: PreparedCircuit, graph: CircuitGraph): NodalPlan | null {
+/**
+ * How the load enters a plan: "loaded" hangs the controls off hot (with out a
+ * node of its own when the volume is not fully up); "coils" leaves them off,
+ * to read the coils' own impedance between hot and ground.
+ */
+type PlanMode = 'loaded' | 'loaded-bridged' | 'coils';
+
+/** Plans already made, by graph (a plan depends on the guitar and the mode). */
+const plans = new WeakMap<CircuitGraph, { readonly guitar: PreparedCircuit['guitar']; readonly mode: PlanMode; readonly plan: NodalPlan | null }>();
+
+function planFor(prepared: PreparedCircuit, graph: CircuitGraph, withLoad: boolean): NodalPlan | null {
+  const mode: PlanMode = !withLoad ? 'coils' : prepared.bridgeAdmittance === null ? 'loaded' : 'loaded-bridged';
+  const known = plans.get(graph);
+  if (known !== undefined && known.guitar === prepared.guitar && known.mode === mode) return known.plan;
+  const plan = planGraph(prepared, graph, mode);
+  plans.set(graph, { guitar: prepared.guitar, mode, plan });
+  return plan;
+}
+
+function planGraph(prepared: PreparedCircuit, graph: CircuitGraph, mode: PlanMode): NodalPlan | null {
   const guitar = prepared.guitar;
   if (!Number.isInteger(graph.nodeCount) || graph.nodeCount < 1) {
     throw new RangeError(`solveNodalTransfers: nodeCount must be a positive integer, got ${graph.nodeCount}`);
@@ -143,8 +168,10 @@ function planGraph(prepared: PreparedCircuit, graph: CircuitGraph): NodalPlan | 
     const rb = root(parent, b);
     if (ra !== rb) parent[ra] = rb;
   };
-  join(graph.hot, graph.ground);
+  if (mode !== 'coils') join(graph.hot, graph.ground);
   for (const placed of connected) join(placed.start as number, placed.finish as number);
+  // The coils alone: hot with no path to ground is an open circuit.
+  if (mode === 'coils' && root(parent, graph.hot) !== root(parent, graph.ground)) return null;
   // Fixed at 0 V: ground, and one node of every part with no path to ground.
   const fixed = new Uint8Array(graph.nodeCount);
   fixed[graph.ground] = 1;
@@ -166,8 +193,8 @@ function planGraph(prepared: PreparedCircuit, graph: CircuitGraph): NodalPlan | 
     }
   }
   const hot = unknownOf[graph.hot] as number;
-  const out = prepared.bridgeAdmittance === null ? hot : unknowns;
-  if (prepared.bridgeAdmittance !== null) unknowns += 1;
+  const out = mode === 'loaded-bridged' ? unknowns : hot;
+  if (mode === 'loaded-bridged') unknowns += 1;
 
   // Coupling groups among the coils present (connected components of the coupling pairs).
   const position = new Map<number, number>();
@@ -201,9 +228,10 @@ function planGraph(prepared: PreparedCircuit, graph: CircuitGraph): NodalPlan | 
       finish: unknownOf[placed.finish as number] as number,
       stringSign: windingSign(coil.winding) * magnetSign(coil.magnet),
       group: groupOfRoot.get(root(groupParent, k)) ?? -1,
+      slot: memberLists[groupOfRoot.get(root(groupParent, k)) ?? -1]?.indexOf(k) ?? -1,
     };
   });
-  return { unknowns, hot, out, coils, groups };
+  return { unknowns, hot, out, coils, groups, branch: new Float64Array(2 * coils.length), drop: new Float64Array(2 * coils.length) };
 }
 
 function makeGroup(
@@ -264,7 +292,7 @@ function invertSmall(scratch: Float64Array, size: number, target: Float64Array):
     let best = -1;
     for (let r = col; r < size; r += 1) {
       const at = 2 * (r * width + col);
-      const magnitude = Math.hypot(scratch[at] as number, scratch[at + 1] as number);
+      const magnitude = Math.abs(scratch[at] as number) + Math.abs(scratch[at + 1] as number);
       if (magnitude > best) {
         best = magnitude;
         pivot = r;
@@ -416,79 +444,65 @@ export function solveNodalTransfers(prepared: PreparedCircuit, graph: CircuitGra
   for (let c = 0; fits && c < coilCount; c += 1) fits = (result[c] as Float64Array).length === length;
   if (!fits) throw new RangeError(`solveNodalTransfers: out must hold ${coilCount} arrays of length ${length}`);
   for (const array of result) array.fill(0);
-  const plan = planGraph(prepared, graph);
+  const plan = planFor(prepared, graph, true);
   if (plan === null || prepared.load.silent || plan.coils.length === 0) return result;
 
   const n = plan.unknowns;
   const { matrix, rhs } = workspaceFor(prepared, n);
   const { hot, out: output, coils, groups } = plan;
   const bridge = prepared.bridgeAdmittance;
+  const branch = plan.branch;
+  const drop = plan.drop;
   for (let f = 0; f < frequencies.length; f += 1) {
     const re = 2 * f;
     const im = re + 1;
-    const omega = TWO_PI * (frequencies[f] as number);
     matrix.fill(0, 0, 2 * n * n);
     rhs.fill(0, 0, 2 * n);
     // The load.
     add(matrix, n, hot, hot, prepared.hotAdmittance[re] as number, prepared.hotAdmittance[im] as number);
     add(matrix, n, output, output, prepared.outAdmittance[re] as number, prepared.outAdmittance[im] as number);
     if (bridge !== null) stampAdmittance(matrix, n, hot, output, bridge[re] as number, bridge[im] as number);
-    // Uncoupled coils: 1/Z between the leads.
-    for (const coil of coils) {
-      const zr = prepared.coilImpedance[coil.coil]?.[re] as number;
-      const zi = prepared.coilImpedance[coil.coil]?.[im] as number;
-      const zn = zr * zr + zi * zi;
-      if (coil.group < 0) {
-        stampAdmittance(matrix, n, coil.start, coil.finish, zr / zn, -zi / zn);
-        continue;
-      }
-      // Coupled coil: its shunt (1 − k)/Z here, its branch in the group's block below.
-      const kr = prepared.coilSource[coil.coil]?.[re] as number;
-      const ki = prepared.coilSource[coil.coil]?.[im] as number;
-      const ar = 1 - kr;
-      const ai = -ki;
-      stampAdmittance(matrix, n, coil.start, coil.finish, (ar * zr + ai * zi) / zn, (ai * zr - ar * zi) / zn);
-    }
-    for (const group of groups) fillGroupAdmittance(prepared, coils, group, f, omega);
-    for (const group of groups) stampGroup(matrix, n, coils, group);
+    stampCoils(matrix, n, prepared, plan, f, TWO_PI * (frequencies[f] as number));
     // Adjoint solve: A·x = u_out.
     rhs[2 * output] = 1;
     solveDense(matrix, rhs, n);
-    for (const coil of coils) {
-      const target = result[coil.coil] as Float64Array;
+    // d_j = x_finish − x_start per coil.
+    for (let j = 0; j < coils.length; j += 1) {
+      const coil = coils[j] as ActiveCoil;
+      drop[2 * j] = difference(rhs, coil.finish, coil.start, 0);
+      drop[2 * j + 1] = difference(rhs, coil.finish, coil.start, 1);
+    }
+    for (let j = 0; j < coils.length; j += 1) {
+      const coil = coils[j] as ActiveCoil;
       let tr: number;
       let ti: number;
       if (coil.group < 0) {
-        // b = (k/Z)·(u_finish − u_start)
-        const zr = prepared.coilImpedance[coil.coil]?.[re] as number;
-        const zi = prepared.coilImpedance[coil.coil]?.[im] as number;
-        const kr = prepared.coilSource[coil.coil]?.[re] as number;
-        const ki = prepared.coilSource[coil.coil]?.[im] as number;
-        const zn = zr * zr + zi * zi;
-        const yr = (kr * zr + ki * zi) / zn;
-        const yi = (ki * zr - kr * zi) / zn;
-        const dr = difference(rhs, coil.finish, coil.start, 0);
-        const di = difference(rhs, coil.finish, coil.start, 1);
+        // b = Y_b·(u_finish − u_start), Y_b = k/Z
+        const yr = branch[2 * j] as number;
+        const yi = branch[2 * j + 1] as number;
+        const dr = drop[2 * j] as number;
+        const di = drop[2 * j + 1] as number;
         tr = yr * dr - yi * di;
         ti = yr * di + yi * dr;
       } else {
-        // b_k = Σ_j Y_jk·(u_finish_j − u_start_j)
+        // b_k = Σ_m Y_mk·(u_finish_m − u_start_m)
         const group = groups[coil.group] as CouplingGroup;
         const size = group.members.length;
-        const k = group.members.indexOf(coils.indexOf(coil));
+        const k = coil.slot;
         tr = 0;
         ti = 0;
-        for (let j = 0; j < size; j += 1) {
-          const member = coils[group.members[j] as number] as ActiveCoil;
-          const at = 2 * (j * size + k);
+        for (let m = 0; m < size; m += 1) {
+          const member = group.members[m] as number;
+          const at = 2 * (m * size + k);
           const yr = group.admittance[at] as number;
           const yi = group.admittance[at + 1] as number;
-          const dr = difference(rhs, member.finish, member.start, 0);
-          const di = difference(rhs, member.finish, member.start, 1);
+          const dr = drop[2 * member] as number;
+          const di = drop[2 * member + 1] as number;
           tr += yr * dr - yi * di;
           ti += yr * di + yi * dr;
         }
       }
+      const target = result[coil.coil] as Float64Array;
       target[re] = coil.stringSign * tr;
       target[im] = coil.stringSign * ti;
     }
@@ -496,30 +510,89 @@ export function solveNodalTransfers(prepared: PreparedCircuit, graph: CircuitGra
   return result;
 }
 
-/** Y_g = (diag(Z_b) + jω·M)⁻¹ with Z_b = Z/k, for one frequency. */
-function fillGroupAdmittance(prepared: PreparedCircuit, coils: readonly ActiveCoil[], group: CouplingGroup, f: number, omega: number): void {
+/**
+ * Every coil's stamps for frequency index f: an uncoupled coil 1/Z between
+ * its leads; a coupled one its shunt (1 − k)/Z, and its group's block. Leaves
+ * each coil's branch admittance Y_b = k/Z in `plan.branch`.
+ */
+function stampCoils(matrix: Float64Array, n: number, prepared: PreparedCircuit, plan: NodalPlan, f: number, omega: number): void {
+  const { coils, groups, branch } = plan;
+  const re = 2 * f;
+  const im = re + 1;
+  for (let j = 0; j < coils.length; j += 1) {
+    const coil = coils[j] as ActiveCoil;
+    const impedance = prepared.coilImpedance[coil.coil] as Float64Array;
+    const source = prepared.coilSource[coil.coil] as Float64Array;
+    const zr = impedance[re] as number;
+    const zi = impedance[im] as number;
+    const kr = source[re] as number;
+    const ki = source[im] as number;
+    const zn = zr * zr + zi * zi;
+    const yr = zr / zn; // 1/Z
+    const yi = -zi / zn;
+    const br = kr * yr - ki * yi; // Y_b = k/Z
+    const bi = kr * yi + ki * yr;
+    branch[2 * j] = br;
+    branch[2 * j + 1] = bi;
+    if (coil.group < 0) stampAdmittance(matrix, n, coil.start, coil.finish, yr, yi);
+    else stampAdmittance(matrix, n, coil.start, coil.finish, yr - br, yi - bi); // (1 − k)/Z
+  }
+  for (const group of groups) {
+    fillGroupAdmittance(plan, group, omega);
+    stampGroup(matrix, n, coils, group);
+  }
+}
+
+/** Y_g = (diag(Z_b) + jω·M)⁻¹ with Z_b = 1/Y_b = Z/k, for one frequency. */
+function fillGroupAdmittance(plan: NodalPlan, group: CouplingGroup, omega: number): void {
   const size = group.members.length;
   const width = 2 * size;
   const scratch = group.scratch;
-  const re = 2 * f;
-  const im = re + 1;
+  const branch = plan.branch;
   for (let j = 0; j < size; j += 1) {
     for (let k = 0; k < size; k += 1) {
       const at = 2 * (j * width + k);
       scratch[at] = 0;
       scratch[at + 1] = omega * (group.mutualH[j * size + k] as number);
     }
-    const coil = (coils[group.members[j] as number] as ActiveCoil).coil;
-    const zr = prepared.coilImpedance[coil]?.[re] as number;
-    const zi = prepared.coilImpedance[coil]?.[im] as number;
-    const kr = prepared.coilSource[coil]?.[re] as number;
-    const ki = prepared.coilSource[coil]?.[im] as number;
-    const kn = kr * kr + ki * ki;
+    const member = group.members[j] as number;
+    const br = branch[2 * member] as number;
+    const bi = branch[2 * member + 1] as number;
+    const bn = br * br + bi * bi;
     const at = 2 * (j * width + j);
-    scratch[at] = (zr * kr + zi * ki) / kn;
-    scratch[at + 1] = (zi * kr - zr * ki) / kn;
+    scratch[at] = br / bn;
+    scratch[at + 1] = -bi / bn;
   }
-  invertSmall(scratch, size, group.admittance);
+  if (size === 2) invertTwo(scratch, group.admittance);
+  else invertSmall(scratch, size, group.admittance);
+}
+
+/**
+ * A 2×2 complex symmetric-or-not inverse in closed form (the usual humbucker):
+ * [a b; c d]⁻¹ = [d −b; −c a]/(a·d − b·c). Reads the left half of `scratch` (rows of 4 complex).
+ */
+function invertTwo(scratch: Float64Array, target: Float64Array): void {
+  const ar = scratch[0] as number;
+  const ai = scratch[1] as number;
+  const br = scratch[2] as number;
+  const bi = scratch[3] as number;
+  const cr = scratch[8] as number;
+  const ci = scratch[9] as number;
+  const dr = scratch[10] as number;
+  const di = scratch[11] as number;
+  const detR = ar * dr - ai * di - (br * cr - bi * ci);
+  const detI = ar * di + ai * dr - (br * ci + bi * cr);
+  const norm = detR * detR + detI * detI;
+  const ir = detR / norm;
+  const ii = -detI / norm;
+  target[0] = dr * ir - di * ii;
+  target[1] = dr * ii + di * ir;
+  target[2] = -(br * ir - bi * ii);
+  target[3] = -(br * ii + bi * ir);
+  target[4] = -(cr * ir - ci * ii);
+  target[5] = -(cr * ii + ci * ir);
+  target[6] = ar * ir - ai * ii;
+  target[7] = ar * ii + ai * ir;
 }
 
 /** i_j = Σ_k Y_jk·(v_s_k − v_f_k + e_k) leaves the branch at f_j: the coupled-inductor stamp. */
@@ -538,4 +611,38 @@ function stampGroup(matrix: Float64Array, n: number, coils: readonly ActiveCoil[
       add(matrix, n, a.start, b.finish, -yr, -yi);
     }
   }
+}
+
+/**
+ * The impedance of the coils alone between hot and ground, per frequency
+ * (interleaved complex, length 2·F): controls, cable and amplifier
+ * disconnected, EMFs off, as an impedance meter across the harness's hot and
+ * ground leads reads it. Nodal analysis with 1 A driven into hot: Z = v_hot.
+ * 0 where hot is ground; Infinity (real part) where the coils leave hot with
+ * no path to ground.
+ */
+export function solveCoilsImpedance(prepared: PreparedCircuit, graph: CircuitGraph): Float64Array {
+  const frequencies = prepared.frequenciesHz;
+  const result = new Float64Array(2 * frequencies.length);
+  if (graph.hot === graph.ground) {
+    planGraph(prepared, graph, 'coils'); // validates the graph
+    return result;
+  }
+  const plan = planFor(prepared, graph, false);
+  if (plan === null) {
+    for (let f = 0; f < frequencies.length; f += 1) result[2 * f] = Infinity;
+    return result;
+  }
+  const n = plan.unknowns;
+  const { matrix, rhs } = workspaceFor(prepared, n);
+  for (let f = 0; f < frequencies.length; f += 1) {
+    matrix.fill(0, 0, 2 * n * n);
+    rhs.fill(0, 0, 2 * n);
+    stampCoils(matrix, n, prepared, plan, f, TWO_PI * (frequencies[f] as number));
+    rhs[2 * plan.hot] = 1;
+    solveDense(matrix, rhs, n);
+    result[2 * f] = rhs[2 * plan.hot] as number;
+    result[2 * f + 1] = rhs[2 * plan.hot + 1] as number;
+  }
+  return result;
 }

@@ -122,9 +122,11 @@ const coil: ObjectSpec = {
 
 /**
  * Coupling coefficient k between the coils of one pickup when the file gives
- * none. 0 for now: coupling is not yet applied by the series–parallel path.
+ * none (from memory: the side-by-side coils of a humbucker share a small part
+ * of their flux, so their series inductance exceeds the sum of the two by a
+ * few tenths of a henry; measure yours with k = (L_series − L1 − L2)/(2·√(L1·L2))).
  */
-export const DEFAULT_PICKUP_COUPLING = 0;
+export const DEFAULT_PICKUP_COUPLING = 0.1;
 
 const pickup: ObjectSpec = {
   type: 'object',
@@ -140,7 +142,7 @@ const pickup: ObjectSpec = {
         noun: 'a coupling coefficient between -0.99 and 0.99',
       },
       default: DEFAULT_PICKUP_COUPLING,
-      defaultSource: 'no coupling',
+      defaultSource: 'from memory (side-by-side humbucker coils share a small part of their flux)',
     },
     leads: {
       spec: { type: 'enum', description: '2: the coils are joined in series inside the cover and wired as one element; 4: every coil on its own leads.', values: [2, 4] },

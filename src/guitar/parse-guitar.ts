@@ -128,6 +128,11 @@ export function parseGuitar(raw: unknown): Guitar {
     coilIndices,
     coupling: asNumber(asRecord(pickupsRaw[name]).coupling) ?? DEFAULT_PICKUP_COUPLING,
   }));
+  // A pickup with no entry of its own still couples its coils by the default k: say so.
+  for (const pickup of pickups) {
+    const path = `pickups.${pickup.name}.coupling`;
+    if (pickup.coilIndices.length > 1 && pickupsRaw[pickup.name] === undefined && !assumed.includes(path)) assumed.push(path);
+  }
   const elements = buildElements(coils, pickups);
   if (elements.length > MAX_WIRING_ELEMENTS) {
     throw new InputError([

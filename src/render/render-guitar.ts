@@ -19,6 +19,7 @@ import {
   logSpacedFrequencies,
   measureCircuitMetrics,
   measureResponseDb,
+  phaseClassKey,
   prepareCircuit,
   renderNetlist,
   solveTransfers,
@@ -52,7 +53,6 @@ import { defaultThreadCount, runRenderPassOnThreads } from './run-render-pass.js
 import { type OutputFolder, netlistFileName, wavFileName } from './output-folder.js';
 import { gainToDb, planMatchedGains, planTrueLevelGain } from './plan-gains.js';
 import { MANIFEST_VERSION, type Manifest, hashOf, readManifest } from './render-manifest.js';
-import { shapeKey } from '../wiring/index.js';
 import { type WavFormat, encodeWav } from './wav-file.js';
 import { removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
 
@@ -191,7 +191,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   // that the manifest does not already hold, spread over threads.
   const selectedIds = new Set(request.selected.map((wiring) => wiring.id));
   // Phase patterns of one network shape share their transfers: render them one after another.
-  const needed = groupByShape(request.all.filter((wiring) => wiring.elements.length === 1 || selectedIds.has(wiring.id)));
+  const needed = groupByShape(guitar, request.all.filter((wiring) => wiring.elements.length === 1 || selectedIds.has(wiring.id)));
   const raw = new Map<string, RawAudioMetrics>();
   const scratchFiles = new Map<string, string>();
   const items: PassItem[] = [];
@@ -430,11 +430,11 @@ export function removeScratchFoldersSync(): void {
   activeScratchFolders.clear();
 }
 
-/** Wirings reordered so those sharing a network shape are adjacent (stable within a shape). */
-function groupByShape(wirings: readonly Wiring[]): Wiring[] {
+/** Wirings reordered so those sharing a network shape (a phase class, with coupled coils) are adjacent (stable within one). */
+function groupByShape(guitar: Guitar, wirings: readonly Wiring[]): Wiring[] {
   const groups = new Map<string, Wiring[]>();
   for (const wiring of wirings) {
-    const key = shapeKey(wiring.network);
+    const key = phaseClassKey(guitar, wiring.network);
     groups.set(key, [...(groups.get(key) ?? []), wiring]);
   }
   return [...groups.values()].flat();
