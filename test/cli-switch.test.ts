@@ -76,6 +76,25 @@ describe('coilbench switch', () => {
     expect(bad.err).toMatch(/coilbench: switching\.switches\[0\]\.preset: expected a preset like/u);
   });
 
+  it('--choose picks the most different wirings a two-position toggle gives for one humbucker, and compares pole counts', async () => {
+    const folder = mkdtempSync(join(tmpdir(), 'coilbench-switch-'));
+    const guitar = {
+      name: 'one humbucker (invented values)',
+      coils: [
+        { id: 'screw', pickup: 'bridge', position: '51mm', resistance: '4.1k', inductance: '2.1H', winding: 'cw', magnet: 'north' },
+        { id: 'slug', pickup: 'bridge', position: '33mm', resistance: '4.0k', inductance: '2.0H', winding: 'ccw', magnet: 'south' },
+      ],
+    };
+    writeFileSync(join(folder, 'one.json'), JSON.stringify(guitar));
+    const { code, out, err } = await run(folder, 'switch', 'one.json', '--switch', 'toggle-2-position-1-pole', '--choose');
+    expect(err).toBe('');
+    expect(code).toBe(0);
+    expect(out).toMatch(/Kits compared/u);
+    expect(out).toMatch(/toggle-2-position-2-pole \(2 positions\)\s+2\s+\d+\.\d\d×/u);
+    const rows = out.split('\n').filter((line) => /^\s+[12]\s{2,}\S/u.test(line));
+    expect(rows).toHaveLength(2);
+  });
+
   const found = spawnSync('ngspice', ['--version'], { encoding: 'utf8' });
   const available = found.status === 0;
   if (!available && process.env['CI']) throw new Error('ngspice is not installed: .ci/run installs the Debian package');

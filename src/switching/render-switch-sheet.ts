@@ -5,7 +5,7 @@
  * position before closing up.
  */
 import type { Guitar } from '../guitar/index.js';
-import { networkResistanceOhms } from '../circuit/index.js';
+import { WORKSHOP_CAUTIONS, networkResistanceOhms } from '../circuit/index.js';
 import { formatEngineering } from '../units/index.js';
 import { printNetwork } from '../wiring/index.js';
 import { describePlan } from './describe-plan.js';
@@ -58,12 +58,7 @@ export function renderSwitchSheet(
   lines.push(`Switch plan: ${guitar.name}`, `Kit: ${describeKit(plan.kit)}`, '');
   lines.push(
     'Read this first',
-    '  - Unplug the guitar from the amplifier before you open it. Never open an amplifier: its',
-    '    capacitors can hold a lethal charge long after it is unplugged; leave that to a technician.',
-    '  - Keep the soldering iron in its stand when you are not using it and keep flammables off the',
-    '    bench; burns are the most common injury. Wear eye protection.',
-    '  - Work with ventilation or a fume extractor, keep food and drink off the bench, and wash your',
-    '    hands after handling solder.',
+    ...WORKSHOP_CAUTIONS,
     '  - Switch lug layouts differ between makers: which lug is the common and which lugs each',
     '    position closes. Match the drawing to the switch in hand (check with a meter, switch in',
     '    each position) before you solder.',

@@ -73,6 +73,12 @@ describe('checks of the trade (common practice)', () => {
     const { result, read } = readings(HUMBUCKER, kit, [wish(HUMBUCKER, wirings, 'screw + slug'), wish(HUMBUCKER, wirings, 'screw')]);
     expect(result.status).toBe('found');
     expect(read).toEqual(['screw + slug', 'screw']);
+    // With coupled coils the unused coil must be left open, not shorted: still possible, one lead switched.
+    const open = solveSwitchPlan(kit, HUMBUCKER.elements.length, [wish(HUMBUCKER, wirings, 'screw + slug'), wish(HUMBUCKER, wirings, 'screw')], { allowShorted: false });
+    expect(open.status).toBe('found');
+    const second = readPlanPositions(HUMBUCKER, open.plan as NonNullable<typeof open.plan>)[1];
+    const slug = second?.circuit.coils.find((placed) => placed.coil === 1);
+    expect(slug === undefined || slug.start === null || slug.finish === null).toBe(true);
   });
 
   it('three single coils on a five-position lever with one pole of three lugs: each coil alone and the adjacent pairs in parallel', () => {

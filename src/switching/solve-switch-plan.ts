@@ -68,9 +68,14 @@ export interface SwitchPlan {
 export interface SwitchPlanOptions {
   /** Search steps (a net tried on an item or a lug) before giving up unproven. Default 3 000 000. */
   readonly stepBudget: number;
+  /**
+   * May an unused element be shorted (both leads on one point)? Default true. Set false when coils
+   * are magnetically coupled: a shorted coil then loads its neighbour, so unused elements must be open.
+   */
+  readonly allowShorted: boolean;
 }
 
-export const DEFAULT_SWITCH_PLAN_OPTIONS: Readonly<SwitchPlanOptions> = Object.freeze({ stepBudget: 3_000_000 });
+export const DEFAULT_SWITCH_PLAN_OPTIONS: Readonly<SwitchPlanOptions> = Object.freeze({ stepBudget: 3_000_000, allowShorted: true });
 
 export interface SwitchPlanResult {
   /** found: a plan; impossible: proven none exists; unknown: the budget ran out first. */
@@ -285,7 +290,7 @@ export function solveSwitchPlan(
       for (const e of position.open) {
         const a = itemNets[plusItem(e)] as number;
         const b = itemNets[minusItem(e)] as number;
-        if (!isolated(a) && !isolated(b) && find(a) !== find(b)) return false;
+        if (!isolated(a) && !isolated(b) && (find(a) !== find(b) || !settings.allowShorted)) return false;
       }
       return true;
     }
@@ -336,6 +341,10 @@ export function solveSwitchPlan(
         const a = itemNets[plusItem(e)] as number;
         const b = itemNets[minusItem(e)] as number;
         if (isolated(a) || isolated(b)) continue;
+        if (!settings.allowShorted) {
+          fits = false;
+          break;
+        }
         const pa = find(a);
         const pb = find(b);
         if (pa === pb) continue;

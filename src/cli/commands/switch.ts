@@ -44,6 +44,7 @@ import { formatTable } from '../format-table.js';
 import type { Io } from '../io.js';
 import { readGuitarFile } from '../read-guitar.js';
 import { reportRender, runRender } from './render.js';
+import { parseLevelWindow } from './shortlist.js';
 
 interface SwitchOptions extends CircuitOptionText, AlikeOptionText {
   readonly switch: string[];
@@ -65,7 +66,6 @@ interface SwitchOptions extends CircuitOptionText, AlikeOptionText {
 /** Search steps allowed per plan search by default (about 10–30 s on a slow machine at the worst; a step is one net tried on one lug or lead). */
 const DEFAULT_SEARCH_STEPS = 2_000_000;
 const MAX_SEARCH_STEPS = 1_000_000_000;
-const MAX_WINDOW_DB = 60;
 /** Plan searches per threshold tried by --choose before settling for the best found (our choice: a few seconds per kit). */
 const PLAN_SEARCH_LIMIT = 40;
 /** Steps per plan search inside --choose by default (our choice: most sets of a small kit settle in far fewer; --search-limit raises it). */
@@ -159,7 +159,8 @@ export function registerSwitch(program: Command, io: Io): void {
       await runChoose(file, guitar, kit, wirings, options, overrides, thresholds, stepBudget, io);
       return;
     }
-    const request = solveSwitchRequest(kit, guitar.elements.length, wishes, { stepBudget });
+    const allowShorted = guitar.pickups.every((pickup) => pickup.coupling === 0);
+    const request = solveSwitchRequest(kit, guitar.elements.length, wishes, { stepBudget, allowShorted });
     if (request.result.status !== 'found' || request.result.plan === null) {
       refuse(guitar, kit, wishes, request, io);
       return;
@@ -340,13 +341,7 @@ async function runChoose(
   io: Io,
 ): Promise<void> {
   const problems: InputProblem[] = [];
-  let levelWindowDb: number | null = null;
-  if (options.levelWindow !== undefined) {
-    const text = options.levelWindow.trim().replace(/\s*db$/iu, '');
-    const value = Number(text);
-    if (!/^\d*\.?\d+$/u.test(text) || value > MAX_WINDOW_DB) problems.push(problemAt('--level-window', `a level spread in dB from 0 to ${MAX_WINDOW_DB}, like 3 or 4.5dB`, options.levelWindow));
-    else levelWindowDb = value;
-  }
+  const levelWindowDb = parseLevelWindow(options.levelWindow, problems);
   const vocabulary = vocabularyOf(guitar);
   const include: number[] = [];
   for (const text of options.include) {
@@ -372,7 +367,8 @@ async function runChoose(
   const request = { humCancelling: options.humCancelling === true, include, levelWindowDb, planSearchLimit: PLAN_SEARCH_LIMIT };
   const kits = comparisonKits(kit);
   const choiceSteps = options.searchLimit === undefined ? CHOICE_SEARCH_STEPS : stepBudget;
-  const choices = kits.map((candidate) => solveSwitchChoice(candidate, guitar.elements.length, list, distance, request, { stepBudget: choiceSteps }));
+  const allowShorted = guitar.pickups.every((pickup) => pickup.coupling === 0);
+  const choices = kits.map((candidate) => solveSwitchChoice(candidate, guitar.elements.length, list, distance, request, { stepBudget: choiceSteps, allowShorted }));
   const mine = choices[0] as ReturnType<typeof solveSwitchChoice>;
   const rows = kits.map((candidate, k) => {
     const choice = choices[k] as ReturnType<typeof solveSwitchChoice>;
