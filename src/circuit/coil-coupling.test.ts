@@ -27,6 +27,7 @@ import {
   phaseClassNetwork,
   phaseClassSigns,
   prepareCircuit,
+  renderBuildSheet,
   solveCoilsImpedance,
   solveNodalTransfers,
   solveTransfers,
@@ -113,6 +114,29 @@ describe('mutual inductance against the closed forms L1 + L2 ± 2M', () => {
     const expectedIm = omega * L1 - (w2m2 * omega * L2) / z2n;
     expect(Math.abs((z[0] as number) / expectedRe - 1)).toBeLessThan(INDUCTANCE_TOLERANCE);
     expect(Math.abs((z[1] as number) / expectedIm - 1)).toBeLessThan(INDUCTANCE_TOLERANCE);
+  });
+
+  it('three coils in one pickup (every pair coupled): in series, L = Σ L_i + 2·Σ M_ij·d_i·d_j', () => {
+    const windings = ['cw', 'ccw', 'cw'] as const;
+    const magnets = ['north', 'south', 'south'] as const;
+    const inductances = [2.3, 2.1, 1.7];
+    const triple = parseGuitar({
+      name: 'three coupled coils (invented values)',
+      coils: inductances.map((inductance, c) => ({
+        id: `coil${c + 1}`, pickup: 'triple', position: `${40 + 15 * c}mm`, resistance: '1', inductance, capacitance: '1p', winding: windings[c], magnet: magnets[c],
+      })),
+      pickups: { triple: { coupling: 0.2 } },
+    });
+    // d_i: the series current runs start→finish in coil i when its finish is towards hot, c_i = w_i·m_i (in phase).
+    const sign = (c: number): number => (windings[c] === 'cw' ? 1 : -1) * (magnets[c] === 'north' ? 1 : -1);
+    let expected = inductances.reduce((sum, value) => sum + value, 0);
+    for (let a = 0; a < 3; a += 1) {
+      for (let b = a + 1; b < 3; b += 1) {
+        const mutual = -(windings[a] === windings[b] ? 1 : -1) * 0.2 * Math.sqrt((inductances[a] as number) * (inductances[b] as number));
+        expected += 2 * mutual * sign(a) * sign(b);
+      }
+    }
+    expectClose(inductanceOf(triple, graphOfNetwork(triple, series(leaf(0), leaf(1), leaf(2)))), expected);
   });
 
   it('an open-circuited partner changes nothing: one coil alone reads L1', () => {
@@ -218,5 +242,16 @@ describe('phase classes: coupled coils keep their relative phase', () => {
     // Without coupling reversed[1] would be exactly −inPhase[1].
     const differs = (inPhase[1] as Float64Array).some((value, i) => Math.abs(value + (reversed[1] as Float64Array)[i]!) > 1e-6 * Math.abs(value));
     expect(differs).toBe(true);
+  });
+});
+
+describe('the build sheet\'s meter reading includes the coupling', () => {
+  it('two coils of 2.2 H with k = 0.1: in phase (hum cancelling) 4.84 H = L1 + L2 + 2M, one reversed 3.96 H', () => {
+    const guitar = parseGuitarText(readFileSync(join(import.meta.dirname, '..', '..', 'samples', 'two-humbucker.json'), 'utf8'));
+    const sheet = (network: ReturnType<typeof series>): string =>
+      renderBuildSheet(guitar, { network, expression: 'check', description: 'check' });
+    // 2.2 + 2.2 ± 2·0.1·2.2 (the sample's neck coils, default coupling)
+    expect(sheet(series(leaf(0), leaf(1)))).toMatch(/inductance meter \(series mode, 120 Hz\): about 4\.84 H/u);
+    expect(sheet(series(leaf(0), leaf(1, true)))).toMatch(/inductance meter \(series mode, 120 Hz\): about 3\.96 H/u);
   });
 });

@@ -42,3 +42,4 @@ export type { CoilCoupling } from './coil-coupling.js';
 export { coilCouplings, mutualInductanceH } from './coil-coupling.js';
 export { phaseClassKey, phaseClassNetwork, phaseClassSigns } from './phase-class.js';
 export { usesCoupledCoils } from './coil-coupling.js';
+export { parseConnections } from './parse-connections.js';

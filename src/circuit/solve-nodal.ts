@@ -68,7 +68,7 @@ interface CouplingGroup {
   readonly mutualH: Float64Array;
   /** Branch admittance Y_g per frequency, g×g complex (interleaved), refilled per frequency. */
   readonly admittance: Float64Array;
-  /** Scratch for the inversion: g×2g complex. */
+  /** Scratch for the inversion: g×2g complex, then a g×g work matrix and a column. */
   readonly scratch: Float64Array;
 }
 
@@ -254,7 +254,7 @@ function makeGroup(
     mutualH[a * size + b] = mutual;
     mutualH[b * size + a] = mutual;
   }
-  return { members, mutualH, admittance: new Float64Array(2 * size * size), scratch: new Float64Array(4 * size * size) };
+  return { members, mutualH, admittance: new Float64Array(2 * size * size), scratch: new Float64Array(6 * size * size + 2 * size) };
 }
 
 /** A[row][col] += (re, im); a fixed node (−1) has no row or column. */
@@ -275,65 +275,28 @@ function stampAdmittance(matrix: Float64Array, n: number, a: number, b: number, 
 
 /**
  * Invert the g×g complex matrix held in the left half of `scratch` (g rows of
- * 2g complex entries, right half ignored) into `target`, by Gauss–Jordan
- * elimination with partial pivoting.
+ * 2g complex entries) into `target`, one column at a time with `solveDense`
+ * (`scratch` holds a work matrix and a column after the g×2g rows). For
+ * groups of three or more coupled coils; two use `invertTwo`.
  */
 function invertSmall(scratch: Float64Array, size: number, target: Float64Array): void {
   const width = 2 * size;
-  for (let r = 0; r < size; r += 1) {
-    for (let c = 0; c < size; c += 1) {
-      const at = 2 * (r * width + size + c);
-      scratch[at] = r === c ? 1 : 0;
-      scratch[at + 1] = 0;
-    }
-  }
-  for (let col = 0; col < size; col += 1) {
-    let pivot = col;
-    let best = -1;
-    for (let r = col; r < size; r += 1) {
-      const at = 2 * (r * width + col);
-      const magnitude = Math.abs(scratch[at] as number) + Math.abs(scratch[at + 1] as number);
-      if (magnitude > best) {
-        best = magnitude;
-        pivot = r;
-      }
-    }
-    if (pivot !== col) swapRows(scratch, width, pivot, col);
-    const pAt = 2 * (col * width + col);
-    const pr = scratch[pAt] as number;
-    const pi = scratch[pAt + 1] as number;
-    const pn = pr * pr + pi * pi;
-    const ir = pr / pn;
-    const ii = -pi / pn;
-    for (let c = 0; c < width; c += 1) {
-      const at = 2 * (col * width + c);
-      const ar = scratch[at] as number;
-      const ai = scratch[at + 1] as number;
-      scratch[at] = ar * ir - ai * ii;
-      scratch[at + 1] = ar * ii + ai * ir;
-    }
+  const matrixEnd = 4 * size * size;
+  const work = scratch.subarray(matrixEnd, matrixEnd + 2 * size * size);
+  const column = scratch.subarray(matrixEnd + 2 * size * size, matrixEnd + 2 * size * size + 2 * size);
+  for (let c = 0; c < size; c += 1) {
     for (let r = 0; r < size; r += 1) {
-      if (r === col) continue;
-      const fAt = 2 * (r * width + col);
-      const fr = scratch[fAt] as number;
-      const fi = scratch[fAt + 1] as number;
-      if (fr === 0 && fi === 0) continue;
-      for (let c = 0; c < width; c += 1) {
-        const src = 2 * (col * width + c);
-        const dst = 2 * (r * width + c);
-        const sr = scratch[src] as number;
-        const si = scratch[src + 1] as number;
-        scratch[dst] = (scratch[dst] as number) - (fr * sr - fi * si);
-        scratch[dst + 1] = (scratch[dst + 1] as number) - (fr * si + fi * sr);
+      for (let k = 0; k < size; k += 1) {
+        work[2 * (r * size + k)] = scratch[2 * (r * width + k)] as number;
+        work[2 * (r * size + k) + 1] = scratch[2 * (r * width + k) + 1] as number;
       }
     }
-  }
-  for (let r = 0; r < size; r += 1) {
-    for (let c = 0; c < size; c += 1) {
-      const from = 2 * (r * width + size + c);
-      const to = 2 * (r * size + c);
-      target[to] = scratch[from] as number;
-      target[to + 1] = scratch[from + 1] as number;
+    column.fill(0);
+    column[2 * c] = 1;
+    solveDense(work, column, size);
+    for (let r = 0; r < size; r += 1) {
+      target[2 * (r * size + c)] = column[2 * r] as number;
+      target[2 * (r * size + c) + 1] = column[2 * r + 1] as number;
     }
   }
 }
