@@ -15,6 +15,7 @@ import { benchListeningPage } from './bench/listening-page.js';
 import { benchMeasures } from './bench/measures.js';
 import { benchRender } from './bench/render.js';
 import { benchStrings } from './bench/strings.js';
+import { benchSwitch } from './bench/switch.js';
 
 const SECTIONS: ReadonlyArray<readonly [string, () => unknown]> = [
   ['commands', benchCommands],
@@ -26,6 +27,7 @@ const SECTIONS: ReadonlyArray<readonly [string, () => unknown]> = [
   ['circuit', benchCircuit],
   ['page', benchListeningPage],
   ['distinct', benchDistinct],
+  ['switch', benchSwitch],
 ];
 
 const wanted = process.argv.slice(2);

@@ -48,7 +48,7 @@ export type { CoilPlacement, Lead, WiringLayout } from './layout-wiring.js';
 export { layoutWiring, networkResistanceOhms, HOT_NODE, GROUND_NODE } from './layout-wiring.js';
 export type { NetlistOptions, SourcePhasor } from './render-netlist.js';
 export { renderGraphNetlist, renderNetlist, DEFAULT_NETLIST_OPTIONS } from './render-netlist.js';
-export { renderBuildSheet } from './render-build-sheet.js';
+export { renderBuildSheet, WORKSHOP_CAUTIONS } from './render-build-sheet.js';
 export type { CircuitGraph, GraphCoil } from './circuit-graph.js';
 export { graphOfNetwork } from './circuit-graph.js';
 export { solveCoilsImpedance, solveNodalTransfers } from './solve-nodal.js';

@@ -50,6 +50,15 @@ function parallelOhms(...values: number[]): number {
   return 1 / values.reduce((sum, value) => sum + 1 / value, 0);
 }
 
+/** The workshop cautions every build sheet starts with (amplifier, iron, fumes), as indented lines. */
+export const WORKSHOP_CAUTIONS: readonly string[] = Object.freeze([
+  '  - Unplug the guitar from the amplifier before you open it. Never open an amplifier: its',
+  '    capacitors can hold a lethal charge long after it is unplugged; leave that to a technician.',
+  '  - Keep the soldering iron in its stand when you are not using it and keep flammables off the',
+  '    bench; burns are the most common injury. Wear eye protection.',
+  '  - Work with ventilation or a fume extractor, keep food and drink off the bench, and wash your',
+  '    hands after handling solder.',
+]);
 /** Test frequency of the inductance reading (common practice: LCR meters test at 100 Hz, 120 Hz or 1 kHz; the lowest keeps the self-capacitance out of the reading). */
 const METER_TEST_HZ = 120;
 
@@ -76,12 +85,7 @@ export function renderBuildSheet(
 
   lines.push(
     'Read this first',
-    '  - Unplug the guitar from the amplifier before you open it. Never open an amplifier: its',
-    '    capacitors can hold a lethal charge long after it is unplugged; leave that to a technician.',
-    '  - Keep the soldering iron in its stand when you are not using it and keep flammables off the',
-    '    bench; burns are the most common injury. Wear eye protection.',
-    '  - Work with ventilation or a fume extractor, keep food and drink off the bench, and wash your',
-    '    hands after handling solder.',
+    ...WORKSHOP_CAUTIONS,
     '  - This sheet comes from a model of your guitar file. Check every lead against your pickups,',
     '    and make the final choice by ear on the real instrument.',
     '',

@@ -32,6 +32,7 @@ const COMMANDS: ReadonlyArray<readonly [string, () => Promise<Register>]> = [
   ['shortlist', async () => (await import('./commands/shortlist.js')).registerShortlist],
   ['compare', async () => (await import('./commands/compare.js')).registerCompare],
   ['fit-coil', async () => (await import('./commands/fit-coil.js')).registerFitCoil],
+  ['switch', async () => (await import('./commands/switch.js')).registerSwitch],
 ];
 
 /** The registration functions the command line needs: the named command's, or every one. */

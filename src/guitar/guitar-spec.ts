@@ -241,6 +241,45 @@ const amp: ObjectSpec = {
   },
 };
 
+/**
+ * Switch hardware for `coilbench switch` (src/switching/): each switch a
+ * preset named by its geometry or written out. The planner checks what the
+ * shape cannot (lug numbers within the pole, at least two positions).
+ */
+const SWITCH_PRESET_PATTERN = /^(lever-5-position|lever-3-position|rotary-\d{1,2}-position|toggle-2-position|toggle-3-position|push-pull)-\d-pole$/u;
+const switchDefinition: ObjectSpec = {
+  type: 'object',
+  description:
+    'One switch: { "preset": "lever-5-position-2-pole" } (also lever-3-position, rotary-N-position, toggle-2-position, toggle-3-position, push-pull, each -P-pole), or written out with poles, lugs and positions.',
+  fields: {
+    name: { spec: { type: 'string', description: 'A name for the switch in reports.', maxLength: 40 } },
+    preset: {
+      spec: { type: 'string', description: 'A switch named by its geometry, like "lever-5-position-2-pole".', pattern: SWITCH_PRESET_PATTERN, patternText: 'a preset like "lever-5-position-2-pole", "toggle-2-position-2-pole", "push-pull-2-pole" or "rotary-6-position-2-pole"', maxLength: 40 },
+    },
+    poles: { spec: { type: 'number', description: 'Poles: identical sets of a common lug and its contact lugs, moving together.', min: 1, max: 6, integer: true, noun: 'a number of poles' } },
+    lugs: { spec: { type: 'number', description: 'Contact lugs per pole (the common lug not counted).', min: 1, max: 12, integer: true, noun: 'a number of lugs' } },
+    positions: {
+      spec: {
+        type: 'array',
+        description: 'For each position, the contact lugs (numbered from 1) the common touches: [[1], [1, 2], [2], [2, 3], [3]] for a lever whose in-between positions touch two lugs; [] for a centre-off.',
+        items: { type: 'array', description: 'Lugs the common touches in this position.', items: { type: 'number', description: 'A lug number, from 1.', min: 1, max: 12, integer: true, noun: 'a lug number' }, minItems: 0, maxItems: 12 },
+        minItems: 2,
+        maxItems: 12,
+      },
+    },
+    notes: { spec: { type: 'string', description: 'Free text.', maxLength: 2000 } },
+  },
+};
+
+const switching: ObjectSpec = {
+  type: 'object',
+  description: 'The switch hardware `coilbench switch` plans lug wiring for: the kit\'s positions are every combination of its switches\' positions, the first switch changing fastest.',
+  fields: {
+    switches: { spec: { type: 'array', description: 'The switches, in order.', items: switchDefinition, minItems: 1, maxItems: 4 }, required: true },
+    notes: { spec: { type: 'string', description: 'Free text.', maxLength: 2000 } },
+  },
+};
+
 /** Standard six-string tuning, lowest string first (common practice). */
 export const STANDARD_TUNING: readonly string[] = Object.freeze(['E2', 'A2', 'D3', 'G3', 'B3', 'E4']);
 /** Default scale: 25.5 in (common practice). */
@@ -290,6 +329,7 @@ export const GUITAR_SPEC: ObjectSpec = {
     controls: { spec: controls, default: {}, defaultSource: 'common practice' },
     cable: { spec: cable, default: { capacitance: DEFAULT_CABLE_CAPACITANCE }, defaultSource: 'common practice' },
     amp: { spec: amp, default: {}, defaultSource: 'common practice' },
+    switching: { spec: switching },
   },
 };
 

@@ -35,7 +35,20 @@ interface ShortlistOptions extends CircuitOptionText, AlikeOptionText {
 
 /** Largest shortlist asked for: a rotary switch has at most a dozen positions (common practice). */
 const MAX_COUNT = 12;
+/** Widest level window accepted, dB (our choice: far wider than any real spread of wirings). */
 const MAX_WINDOW_DB = 60;
+
+/** `--level-window 3` or `4.5dB`: a level spread in dB, or null when not given; a bad value is appended to `problems`. */
+export function parseLevelWindow(text: string | undefined, problems: InputProblem[]): number | null {
+  if (text === undefined) return null;
+  const number = text.trim().replace(/\s*db$/iu, '');
+  const value = Number(number);
+  if (!/^\d*\.?\d+$/u.test(number) || value > MAX_WINDOW_DB) {
+    problems.push(problemAt('--level-window', `a level spread in dB from 0 to ${MAX_WINDOW_DB}, like 3 or 4.5dB`, text));
+    return null;
+  }
+  return value;
+}
 
 const CAUTION =
   'These are models: listen to each on the real instrument before you build. To wire one, `coilbench netlist <guitar> <wiring> --build-sheet` ' +
@@ -59,13 +72,7 @@ function parsePlan(options: ShortlistOptions, guitar: Guitar, wirings: readonly 
     if (!/^\s*\d+\s*$/u.test(options.count) || value < 1 || value > MAX_COUNT) problems.push(problemAt('--count', `a whole number from 1 to ${MAX_COUNT}`, options.count));
     else count = value;
   }
-  let levelWindowDb: number | null = null;
-  if (options.levelWindow !== undefined) {
-    const text = options.levelWindow.trim().replace(/\s*db$/iu, '');
-    const value = Number(text);
-    if (!/^\d*\.?\d+$/u.test(text) || value > MAX_WINDOW_DB) problems.push(problemAt('--level-window', `a level spread in dB from 0 to ${MAX_WINDOW_DB}, like 3 or 4.5dB`, options.levelWindow));
-    else levelWindowDb = value;
-  }
+  const levelWindowDb = parseLevelWindow(options.levelWindow, problems);
   const ids = guitar.elements.map((element) => element.id);
   let elements: number[] | null = null;
   if (options.coils !== undefined) {
