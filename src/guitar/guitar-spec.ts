@@ -186,11 +186,15 @@ const controls: ObjectSpec = {
   },
 };
 
+/** Total cable capacitance the guitar file accepts, farads (a plausibility range: a few centimetres of lead to a hundred metres of ordinary lead). */
+export const CABLE_CAPACITANCE_MIN_F = 1e-12;
+export const CABLE_CAPACITANCE_MAX_F = 20e-9;
+
 const cable: ObjectSpec = {
   type: 'object',
   description: 'The lead from guitar to amplifier: give its total capacitance, or its length and capacitance per metre.',
   fields: {
-    capacitance: { spec: quantity('capacitance', 'Total capacitance of the lead.', 1e-12, 20e-9, '1 pF and 20 nF') },
+    capacitance: { spec: quantity('capacitance', 'Total capacitance of the lead.', CABLE_CAPACITANCE_MIN_F, CABLE_CAPACITANCE_MAX_F, '1 pF and 20 nF') },
     length: { spec: quantity('length', 'Length of the lead.', 0.1, 100, '10 cm and 100 m') },
     capacitancePerMetre: {
       spec: quantity('capacitance', 'Capacitance per metre of lead.', 10e-12, 1e-9, '10 pF and 1 nF per metre'),
@@ -266,7 +270,7 @@ export function listDefaults(spec: ObjectSpec = GUITAR_SPEC, prefix = ''): Array
     const path = prefix === '' ? name : `${prefix}.${name}`;
     if (entry.default !== undefined && entry.spec.type !== 'object') found.push({ path, entry });
     const inner = entry.spec.type === 'array' ? entry.spec.items : entry.spec;
-    if (inner.type === 'object') found.push(...listDefaults(inner, inner === entry.spec ? path : `${path}[]`));
+    if (inner.type === 'object') for (const item of listDefaults(inner, inner === entry.spec ? path : `${path}[]`)) found.push(item);
   }
   return found;
 }

@@ -55,6 +55,7 @@ import { MANIFEST_VERSION, type Manifest, hashOf, readManifest } from './render-
 import { shapeKey } from '../wiring/index.js';
 import { type WavFormat, encodeWav } from './wav-file.js';
 import { removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
+import { maxOf } from '../math/index.js';
 
 /** Bump when the sound of a render changes for the same inputs (string model, pickup, chain), so old files are redone. */
 export const RENDER_MODEL_VERSION = 1;
@@ -351,7 +352,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   });
 
   const frames = selected.map((wiring) => entries[wiring.expression]?.audio?.frames ?? 0);
-  const durationS = Math.max(0, ...frames) / request.sampleRateHz;
+  const durationS = Math.max(0, maxOf(frames)) / request.sampleRateHz;
   // Audio made in this run (cached files cost nothing).
   const audioSeconds = (results.filter((result) => result.audio).length * durationS);
   const report: ListeningReport = {

@@ -14,7 +14,7 @@ import { mkdtempSync, mkdirSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
-import { createRandom, seedFromText } from '../../src/math/index.js';
+import { createRandom, seedFromText, maxOf } from '../../src/math/index.js';
 import { type ListeningReport, type ReportWiring, renderListeningPage, renderPageAudioScript } from '../../src/report/index.js';
 import { enumerateWirings } from '../../src/wiring/index.js';
 import { encodeTestWav } from './write-test-wav.js';
@@ -166,7 +166,7 @@ export function buildListeningFixture(partial: Partial<FixtureOptions> = {}): Li
       };
     }
     const responseDb = lowPassResponse(naturalHz, q, frequencies);
-    const peakIndex = responseDb.indexOf(Math.max(...responseDb));
+    const peakIndex = responseDb.indexOf(maxOf(responseDb));
     const hasPeak = peakIndex > 0 && peakIndex < responseDb.length - 1;
     const humDb = humFigure(wiring.elementIds.length, wiring.outOfPhase.length);
     return { wiring, wav, figures, responseDb, hasPeak, peakIndex, humDb, q };

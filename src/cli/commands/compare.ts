@@ -26,6 +26,7 @@ import { formatTable } from '../format-table.js';
 import { collectOption } from '../collect-option.js';
 import type { Io } from '../io.js';
 import { readGuitarFile } from '../read-guitar.js';
+import { maxOf, appendAll } from '../../math/index.js';
 
 interface CompareOptions extends CircuitOptionText, AlikeOptionText {
   readonly map: string[];
@@ -126,7 +127,7 @@ function renderComparisonText(comparison: GuitarComparison, label: string): stri
     { title: 'distance', value: (w) => `${w.distance.toFixed(2)}×`, align: 'right' },
     { title: 'heard', value: (w) => (w.audible ? 'yes' : '') },
   ]);
-  lines.push(...table.trimEnd().split('\n').map((line) => `  ${line}`));
+  appendAll(lines, table.trimEnd().split('\n').map((line) => `  ${line}`));
   return `${lines.join('\n')}\n`;
 }
 
@@ -152,7 +153,7 @@ export function registerCompare(program: Command, io: Io): void {
         guitars.push(readGuitarFile(file, io.cwd));
       } catch (error) {
         if (!(error instanceof InputError)) throw error;
-        problems.push(...error.problems);
+        appendAll(problems, error.problems);
       }
     }
     if (problems.length > 0) throw new InputError(problems);
@@ -340,7 +341,7 @@ function comparisonReport(
       })),
     });
   }
-  const largest = (row: ComparisonRow): number => Math.max(...row.differences.map((difference) => difference.distance));
+  const largest = (row: ComparisonRow): number => maxOf(row.differences.map((difference) => difference.distance));
   rows.sort((a, b) => largest(b) - largest(a) || a.number - b.number);
   return {
     generator: `coilbench ${COILBENCH_VERSION}`,

@@ -29,6 +29,7 @@ import { renderCsv, renderMarkdownTable } from '../metric-columns.js';
 import { createProgress } from '../progress.js';
 import { readGuitarFile } from '../read-guitar.js';
 import { COILBENCH_VERSION } from '../version.js';
+import { appendAll } from '../../math/index.js';
 
 /** Sample rates a file may be written at, Hz (common practice for audio files). */
 export const SAMPLE_RATES_HZ: readonly number[] = Object.freeze([44_100, 48_000, 88_200, 96_000]);
@@ -95,7 +96,7 @@ function readPhrase(text: string | undefined, guitar: Guitar, io: Io, problems: 
     return parsePhrase(readFileSync(path, 'utf8'), name, guitar.strings.length);
   } catch (error) {
     if (error instanceof InputError) {
-      problems.push(...error.problems);
+      appendAll(problems, error.problems);
       return undefined;
     }
     throw error;
@@ -144,7 +145,7 @@ export function parseRenderOptions(options: RenderOptionText, guitar: Guitar, al
       if (!selected.includes(wiring)) selected.push(wiring);
     } catch (error) {
       if (!(error instanceof InputError)) throw error;
-      problems.push(...error.problems);
+      appendAll(problems, error.problems);
     }
   }
   if (problems.length > 0) throw new InputError(problems);

@@ -19,6 +19,7 @@ import { readGuitarFile } from '../read-guitar.js';
 import { defaultOutputRoot } from '../../render/index.js';
 import { reportRender, runRender } from './render.js';
 import { wiringRecord } from './wirings.js';
+import { appendAll } from '../../math/index.js';
 
 interface ShortlistOptions extends CircuitOptionText, AlikeOptionText {
   readonly count?: string;
@@ -86,7 +87,7 @@ function parsePlan(options: ShortlistOptions, guitar: Guitar, wirings: readonly 
       include.push(findWiring(text, wirings, vocabulary, '--include'));
     } catch (error) {
       if (!(error instanceof InputError)) throw error;
-      problems.push(...error.problems);
+      appendAll(problems, error.problems);
     }
   }
   return { count, humCancelling: options.humCancelling === true, levelWindowDb, include, elements };
