@@ -55,6 +55,7 @@ import { MANIFEST_VERSION, type Manifest, hashOf, readManifest } from './render-
 import { shapeKey } from '../wiring/index.js';
 import { type WavFormat, encodeWav } from './wav-file.js';
 import { removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
+import { type FileRecord, fileMatches, recordOf } from './file-record.js';
 import { maxOf } from '../math/index.js';
 
 /** Bump when the sound of a render changes for the same inputs (string model, pickup, chain), so old files are redone. */
@@ -119,8 +120,10 @@ export interface RenderOutcome {
   /** Loudness every matched file reaches, LUFS; null for true-level files. */
   readonly matchedLoudnessLufs: number | null;
   readonly audioSeconds: number;
-  /** Which of all the guitar's wirings sound alike (request.all order). */
+  /** Which wirings of `scope` sound alike (in `scope` order). */
   readonly distinct: Distinctness;
+  /** The wirings `distinct` covers: every wiring on a full render; the rendered ones and the single elements otherwise. */
+  readonly scope: readonly Wiring[];
 }
 
 /** What the manifest keeps per wiring, keyed by canonical expression. */
@@ -132,6 +135,8 @@ interface Entry {
   audio?: { peak: number; loudnessLufs: number | null; frames: number };
   fileHash?: string;
   file?: string;
+  /** Size and SHA-256 of the WAV and of its page-audio copy as written: a re-run keeps them only if both still match. */
+  written?: { wav: FileRecord; pageAudio: FileRecord };
 }
 
 /** The parts of a guitar that shape its sound (names and notes do not). */
@@ -146,7 +151,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     mkdirSync(path, { recursive: true });
     removeStaleTempFiles(path);
   }
-  const scratch = join(folder.root, '.scratch');
+  const scratch = folder.scratch;
   rmSync(scratch, { recursive: true, force: true });
   mkdirSync(scratch, { recursive: true });
   activeScratchFolders.add(scratch);
@@ -225,7 +230,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     }
     if (result.audio && result.scratch && hash) {
       scratchFiles.set(result.id, result.scratch);
-      Object.assign(entry, { audioHash: hash.audioHash, audio: result.audio, fileHash: undefined });
+      Object.assign(entry, { audioHash: hash.audioHash, audio: result.audio, fileHash: undefined, written: undefined });
     }
   }
   let renderer: WiringRenderer | undefined;
@@ -267,7 +272,8 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     const path = join(folder.wavFolder, name);
     const pageAudio = join(folder.root, pageAudioPath(relative(folder.root, path)));
     const fileHash = hashOf({ audio: entry.audioHash, gain: gain.toPrecision(12), format: request.format, name });
-    if (entry.fileHash === fileHash && entry.file === name && existsSync(path) && existsSync(pageAudio)) {
+    const intact = entry.written !== undefined && fileMatches(path, entry.written.wav) && fileMatches(pageAudio, entry.written.pageAudio);
+    if (entry.fileHash === fileHash && entry.file === name && intact) {
       skipped += 1;
     } else {
       const parked = scratchFiles.get(wiring.id);
@@ -284,9 +290,10 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
       });
       // Written in the background while the next wiring is prepared; the manifest records a file only once it is whole.
       await writes.add(async () => {
+        const script = renderPageAudioScript(wiring.id, bytes);
         await writeFileAtomic(path, bytes);
-        await writeFileAtomic(pageAudio, renderPageAudioScript(wiring.id, bytes));
-        Object.assign(entry, { fileHash, file: name });
+        await writeFileAtomic(pageAudio, script);
+        Object.assign(entry, { fileHash, file: name, written: { wav: recordOf(bytes), pageAudio: recordOf(script) } });
       });
       await saveManifest(false);
       written += 1;
@@ -306,11 +313,14 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   }
   await writes.drain();
 
-  // Circuit metrics and response curves.
-  const circuit = measureCircuitMetrics(guitar, request.all, request.overrides);
-  const circuitById = new Map(request.all.map((wiring, index) => [wiring.id, circuit.wirings[index] as WiringCircuitMetrics]));
-  const distinct = measureDistinctness(guitar, request.all, { overrides: request.overrides, thresholds: request.thresholds });
-  const groupById = new Map(request.all.map((wiring, index) => [wiring.id, distinct.groups.groupOf[index] ?? null]));
+  // Circuit metrics, groups and response curves: for every wiring on a full render; for the chosen
+  // ones (and the single elements, which levels refer to) when only some are asked for, so that
+  // one wiring of a six-element guitar costs one wiring, not 228,386.
+  const scope = distinctScope(request.all, request.selected);
+  const circuit = measureCircuitMetrics(guitar, selected, request.overrides);
+  const circuitById = new Map(selected.map((wiring, index) => [wiring.id, circuit.wirings[index] as WiringCircuitMetrics]));
+  const distinct = measureDistinctness(guitar, scope, { overrides: request.overrides, thresholds: request.thresholds });
+  const groupById = new Map(scope.map((wiring, index) => [wiring.id, distinct.groups.groupOf[index] ?? null]));
   const responseGrid = logSpacedFrequencies(AUDIO_BAND_LOW_HZ, AUDIO_BAND_HIGH_HZ, RESPONSE_POINTS);
   const responseCircuit = prepareCircuit(guitar, responseGrid, request.overrides);
   const transfers = guitar.coils.map(() => new Float64Array(2 * RESPONSE_POINTS));
@@ -371,11 +381,18 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     },
     responseFrequenciesHz: Array.from(responseGrid),
     wirings: reportWirings,
-    groups: reportGroups(request.all, distinct),
+    groups: reportGroups(scope, distinct),
   };
   await writeFileAtomic(folder.reportJson, `${JSON.stringify(report, null, 2)}\n`);
   await writeFileAtomic(folder.page, renderListeningPage(report));
-  return { report, rows, written, skipped, commonGainDb, matchedLoudnessLufs, audioSeconds, distinct };
+  return { report, rows, written, skipped, commonGainDb, matchedLoudnessLufs, audioSeconds, distinct, scope };
+}
+
+/** The wirings whose groups a render reports: all of them, or the chosen ones and the single elements (in numbering order). */
+function distinctScope(all: readonly Wiring[], selected: readonly Wiring[]): readonly Wiring[] {
+  if (selected.length === all.length) return all;
+  const chosen = new Set(selected.map((wiring) => wiring.id));
+  return all.filter((wiring) => wiring.elements.length === 1 || chosen.has(wiring.id));
 }
 
 /** The report's record of the groups of alike wirings. */

@@ -30,6 +30,7 @@ interface ShortlistOptions extends CircuitOptionText, AlikeOptionText {
   readonly json?: boolean;
   readonly render?: boolean;
   readonly output?: string;
+  readonly force?: boolean;
   readonly chain?: string;
   readonly phrase?: string;
 }
@@ -176,6 +177,7 @@ export function registerShortlist(program: Command, io: Io): void {
     .option('--json', 'print one JSON document on stdout')
     .option('--render', 'render just these wirings, with their listening page (default folder renders/<guitar>-shortlist)')
     .option('-o, --output <dir>', 'folder for --render')
+    .option('--force', 'with --render: write into a folder coilbench did not make, replacing only the files coilbench writes')
     .option('--chain <chain>', 'effects chain for --render: direct, clean, drive or compressed (default clean)')
     .option('--phrase <phrase>', 'what the strings play for --render: open-strings, strum, riff or a phrase file (default strum)');
   addAlikeOptions(addCircuitOptions(command)).action(async (file: string, options: ShortlistOptions) => {
@@ -288,11 +290,11 @@ export function registerShortlist(program: Command, io: Io): void {
 
 /** Render the chosen wirings into their own folder (a listening page of just these). */
 async function renderShortlist(file: string, guitar: Guitar, options: ShortlistOptions, ids: readonly string[], io: Io) {
-  const { output, chain, phrase, volume, tone, cable, mains, levelThreshold, spectrumThreshold, brightnessThreshold } = options;
+  const { output, force, chain, phrase, volume, tone, cable, mains, levelThreshold, spectrumThreshold, brightnessThreshold } = options;
   return runRender(
     file,
     guitar,
-    { output, chain, phrase, volume, tone, cable, mains, levelThreshold, spectrumThreshold, brightnessThreshold, only: [...ids] },
+    { output, force, chain, phrase, volume, tone, cable, mains, levelThreshold, spectrumThreshold, brightnessThreshold, only: [...ids] },
     io,
     defaultOutputRoot('.', `${guitar.name} shortlist`),
   );
