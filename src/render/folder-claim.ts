@@ -146,6 +146,13 @@ export function claimOutputFolder(request: ClaimRequest): FolderClaim {
   heldLocks.add(lock);
   const ownNames = [...new Set([...request.ownNames, FOLDER_MARKER])];
   const before = createdFolders.length > 0 ? new Set<string>() : listOwnFiles(root, ownNames);
+  // The reports, manifest and marker at the top as they were: a failed run puts them back (WAVs it
+  // replaced stay, complete, and the manifest put back no longer vouches for them, so the next run redoes them).
+  const topFiles = new Map<string, Buffer>();
+  for (const name of ownNames) {
+    const path = join(root, name);
+    if (before.has(name) && statOrNull(path)?.isFile()) topFiles.set(path, readFileSync(path));
+  }
   const previousFiles = marker?.files ?? [];
   writeMarker(root, request.purpose, previousFiles);
 
@@ -164,6 +171,10 @@ export function claimOutputFolder(request: ClaimRequest): FolderClaim {
         }
         for (const path of listOwnFiles(root, ownNames)) {
           if (!before.has(path)) rmSync(join(root, path), { recursive: true, force: true });
+        }
+        for (const [path, bytes] of topFiles) {
+          const now = statOrNull(path)?.isFile() ? readFileSync(path) : null;
+          if (now === null || !now.equals(bytes)) writeFileAtomicSync(path, bytes);
         }
       } finally {
         release();
