@@ -64,6 +64,9 @@ const position: FieldSpec = {
   },
 };
 
+/** Least relative sensitivity accepted: 1/1000 of nominal, 60 dB down (a plausibility bound; far smaller values underflow the rendered energies to zero). */
+export const MIN_RELATIVE_SENSITIVITY = 0.001;
+
 const coil: ObjectSpec = {
   type: 'object',
   description: 'One winding: a single-coil pickup, or one coil of a humbucker.',
@@ -102,7 +105,7 @@ const coil: ObjectSpec = {
       defaultSource: 'assumed; say it when known, since phase depends on it',
     },
     sensitivity: {
-      spec: { type: 'number', description: 'Relative string-signal sensitivity (1 = nominal).', min: 0, max: 100, minExclusive: true, noun: 'a relative sensitivity' },
+      spec: { type: 'number', description: 'Relative string-signal sensitivity (1 = nominal).', min: MIN_RELATIVE_SENSITIVITY, max: 100, noun: 'a relative sensitivity' },
       default: 1,
       defaultSource: 'neutral value',
       quietDefault: true,
