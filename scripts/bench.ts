@@ -11,6 +11,7 @@ import { benchListeningPage } from './bench/listening-page.js';
 import { benchMeasures } from './bench/measures.js';
 import { benchRender } from './bench/render.js';
 import { benchStrings } from './bench/strings.js';
+import { benchSixElements } from './bench/six-elements.js';
 
 console.log(`coilbench bench — node ${process.version}, ${cpus().length} cores (${cpus()[0]?.model ?? 'unknown cpu'})`);
 benchEnumerate();
@@ -21,3 +22,4 @@ await benchCircuit();
 benchListeningPage();
 benchRender();
 benchDistinct();
+benchSixElements();
