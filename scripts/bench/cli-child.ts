@@ -1,6 +1,6 @@
 /**
  * Runs one coilbench command in this fresh process with its standard output
- * thrown away, then prints {seconds, peakRssMb, status} as the last line
+ * thrown away, then prints {seconds, cpuSeconds, peakRssMb, status, outputMb} as the last line
  * (for scripts/bench/six-elements.ts).
  */
 import { performance } from 'node:perf_hooks';
@@ -17,6 +17,10 @@ const status = await main(process.argv.slice(2), {
   cwd: process.cwd(),
 });
 const seconds = (performance.now() - started) / 1000;
+/** process.cpuUsage() is in microseconds. */
+const MICROSECONDS_PER_SECOND = 1e6;
+const usage = process.cpuUsage();
+const cpuSeconds = (usage.user + usage.system) / MICROSECONDS_PER_SECOND;
 /** process.resourceUsage().maxRSS is in kibibytes. */
 const KIB_PER_MIB = 1024;
-console.log(JSON.stringify({ seconds, peakRssMb: process.resourceUsage().maxRSS / KIB_PER_MIB, status, outputMb: bytes / 1e6 }));
+console.log(JSON.stringify({ seconds, cpuSeconds, peakRssMb: process.resourceUsage().maxRSS / KIB_PER_MIB, status, outputMb: bytes / 1e6 }));

@@ -13,6 +13,8 @@ import { heading, line } from './timing.js';
 
 interface CliResult {
   seconds: number;
+  /** Processor time of the whole child process (start-up included): on a busy machine, closer to what an idle one takes than the wall time. */
+  cpuSeconds: number;
   peakRssMb: number;
   status: number;
   outputMb: number;
@@ -42,7 +44,7 @@ export function benchSixElements(): void {
       const six = runInChild(withOutput('samples/three-humbucker.json', 'six'));
       line(
         `${label}: six elements`,
-        `${six.seconds.toFixed(1)} s, ${six.peakRssMb.toFixed(0)} MB peak, ${six.outputMb.toFixed(1)} MB out (${(six.seconds / four.seconds).toFixed(1)}× the four-element run)`,
+        `${six.seconds.toFixed(1)} s wall, ${six.cpuSeconds.toFixed(1)} s processor, ${six.peakRssMb.toFixed(0)} MB peak, ${six.outputMb.toFixed(1)} MB out (${(six.seconds / four.seconds).toFixed(1)}× the four-element run)`,
       );
     }
   } finally {

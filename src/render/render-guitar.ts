@@ -122,7 +122,7 @@ export interface RenderOutcome {
   readonly audioSeconds: number;
   /** Which wirings of `scope` sound alike (in `scope` order). */
   readonly distinct: Distinctness;
-  /** The wirings `distinct` covers: every wiring on a full render; the rendered ones and the single elements otherwise. */
+  /** The wirings `distinct` covers: every wiring, or for `--only` on a guitar of more than 1000 wirings the rendered ones and the single elements. */
   readonly scope: readonly Wiring[];
 }
 
@@ -313,8 +313,8 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   }
   await writes.drain();
 
-  // Circuit metrics, groups and response curves: for every wiring on a full render; for the chosen
-  // ones (and the single elements, which levels refer to) when only some are asked for, so that
+  // Circuit metrics for the rendered wirings; groups for every wiring, or (when only some of more than
+  // MAX_WIRINGS_GROUPED_FOR_SOME are asked for) among the chosen ones and the single elements, so that
   // one wiring of a six-element guitar costs one wiring, not 228,386.
   const scope = distinctScope(request.all, request.selected);
   const circuit = measureCircuitMetrics(guitar, selected, request.overrides);
@@ -388,9 +388,16 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   return { report, rows, written, skipped, commonGainDb, matchedLoudnessLufs, audioSeconds, distinct, scope };
 }
 
+/**
+ * Most wirings a guitar may have for `--only` renders to still group all of them (four elements: 572,
+ * a second or two), so that their group numbers are those of `analyze`; beyond it (9,997 and 228,386
+ * wirings) the groups are among the chosen wirings and the single elements.
+ */
+const MAX_WIRINGS_GROUPED_FOR_SOME = 1000;
+
 /** The wirings whose groups a render reports: all of them, or the chosen ones and the single elements (in numbering order). */
 function distinctScope(all: readonly Wiring[], selected: readonly Wiring[]): readonly Wiring[] {
-  if (selected.length === all.length) return all;
+  if (selected.length === all.length || all.length <= MAX_WIRINGS_GROUPED_FOR_SOME) return all;
   const chosen = new Set(selected.map((wiring) => wiring.id));
   return all.filter((wiring) => wiring.elements.length === 1 || chosen.has(wiring.id));
 }
