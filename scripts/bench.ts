@@ -19,7 +19,7 @@ benchStrings();
 await benchMeasures();
 await benchChain();
 await benchCircuit();
-benchListeningPage();
+await benchListeningPage();
 benchRender();
 benchDistinct();
 benchSixElements();

@@ -29,11 +29,10 @@ import { type AlikeThresholds, type Distinctness, measureDistinctness } from '..
 import type { Guitar } from '../guitar/index.js';
 import {
   type ListeningReport,
+  pageAudioPath,
+  renderPageAudioScript,
   type ReportGroups,
   type ReportWiring,
-  pageAudioPath,
-  renderListeningPage,
-  renderPageAudioScript,
   reportGuitar,
 } from '../report/index.js';
 import type { Phrase } from '../string/index.js';
@@ -57,6 +56,7 @@ import { type WavFormat, encodeWav } from './wav-file.js';
 import { removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
 import { type FileRecord, fileMatches, recordOf } from './file-record.js';
 import { maxOf } from '../math/index.js';
+import { writeListeningPage } from './write-listening-page.js';
 
 /** Bump when the sound of a render changes for the same inputs (string model, pickup, chain), so old files are redone. */
 export const RENDER_MODEL_VERSION = 1;
@@ -87,6 +87,10 @@ export interface RenderRequest {
   readonly folder: OutputFolder;
   /** Name of the generator for report.json ("coilbench 0.1.0"). */
   readonly generator: string;
+  /** Also write `wav/<name>.wav.js` beside each WAV for the comparison page of `compare --render` (the listening page needs none). */
+  readonly pageAudioCopies?: boolean;
+  /** Write the WAV files (default true); false writes only the page, netlists and reports. */
+  readonly writeWav?: boolean;
   /** Threads for the first pass (default: the machine's cores, at most two). */
   readonly threads?: number;
   /** "Sounds alike" thresholds for the groups in the report (src/analysis defaults when absent). */
@@ -106,8 +110,8 @@ export interface RenderedWiring {
   readonly levelDb: number;
   readonly loudnessLufs: number;
   readonly centroidHz: number;
-  /** Path of the WAV relative to the folder. */
-  readonly wav: string;
+  /** Path of the WAV relative to the folder, or null with `writeWav: false`. */
+  readonly wav: string | null;
 }
 
 export interface RenderOutcome {
@@ -136,7 +140,7 @@ interface Entry {
   fileHash?: string;
   file?: string;
   /** Size and SHA-256 of the WAV and of its page-audio copy as written: a re-run keeps them only if both still match. */
-  written?: { wav: FileRecord; pageAudio: FileRecord };
+  written?: { wav: FileRecord; pageAudio?: FileRecord };
 }
 
 /** The parts of a guitar that shape its sound (names and notes do not). */
@@ -211,7 +215,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     if (metricsCached && entry.metrics) raw.set(wiring.id, entry.metrics);
     const missingLoudness = request.level === 'matched' && entry.audio?.loudnessLufs === null;
     const audioCached = entry.audioHash === audioHash && entry.audio !== undefined && !missingLoudness;
-    const wantAudio = selectedIds.has(wiring.id) && !audioCached;
+    const wantAudio = request.writeWav !== false && selectedIds.has(wiring.id) && !audioCached;
     if (!metricsCached || wantAudio) items.push({ id: wiring.id, network: wiring.network, metrics: !metricsCached, audio: wantAudio });
   }
   const expressionOf = new Map(needed.map((wiring) => [wiring.id, wiring.expression]));
@@ -270,10 +274,14 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     const gain = gains[index] ?? 1;
     const name = wavFileName(wiring);
     const path = join(folder.wavFolder, name);
-    const pageAudio = join(folder.root, pageAudioPath(relative(folder.root, path)));
     const fileHash = hashOf({ audio: entry.audioHash, gain: gain.toPrecision(12), format: request.format, name });
-    const intact = entry.written !== undefined && fileMatches(path, entry.written.wav) && fileMatches(pageAudio, entry.written.pageAudio);
-    if (entry.fileHash === fileHash && entry.file === name && intact) {
+    const pageAudio = request.pageAudioCopies ? join(folder.root, pageAudioPath(relative(folder.root, path))) : null;
+    // Kept only if the files still match the size and SHA-256 recorded when they were written.
+    const intact =
+      entry.written !== undefined &&
+      fileMatches(path, entry.written.wav) &&
+      (pageAudio === null || (entry.written.pageAudio !== undefined && fileMatches(pageAudio, entry.written.pageAudio)));
+    if (request.writeWav === false || (entry.fileHash === fileHash && entry.file === name && intact)) {
       skipped += 1;
     } else {
       const parked = scratchFiles.get(wiring.id);
@@ -290,10 +298,10 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
       });
       // Written in the background while the next wiring is prepared; the manifest records a file only once it is whole.
       await writes.add(async () => {
-        const script = renderPageAudioScript(wiring.id, bytes);
+        const script = pageAudio ? renderPageAudioScript(wiring.id, bytes) : '';
         await writeFileAtomic(path, bytes);
-        await writeFileAtomic(pageAudio, script);
-        Object.assign(entry, { fileHash, file: name, written: { wav: recordOf(bytes), pageAudio: recordOf(script) } });
+        if (pageAudio) await writeFileAtomic(pageAudio, script);
+        Object.assign(entry, { fileHash, file: name, written: { wav: recordOf(bytes), pageAudio: pageAudio ? recordOf(script) : undefined } });
       });
       await saveManifest(false);
       written += 1;
@@ -333,7 +341,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
       levelDb: audio?.levelDb ?? Number.NaN,
       loudnessLufs: audio?.loudnessLufs ?? Number.NaN,
       centroidHz: audio?.centroidHz ?? Number.NaN,
-      wav: relative(folder.root, join(folder.wavFolder, wavFileName(wiring))).split('\\').join('/'),
+      wav: request.writeWav === false ? null : relative(folder.root, join(folder.wavFolder, wavFileName(wiring))).split('\\').join('/'),
     };
   });
   const reportWirings: ReportWiring[] = rows.map((row) => {
@@ -384,7 +392,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     groups: reportGroups(scope, distinct),
   };
   await writeFileAtomic(folder.reportJson, `${JSON.stringify(report, null, 2)}\n`);
-  await writeFileAtomic(folder.page, renderListeningPage(report));
+  await writeListeningPage(folder.page, report, request);
   return { report, rows, written, skipped, commonGainDb, matchedLoudnessLufs, audioSeconds, distinct, scope };
 }
 

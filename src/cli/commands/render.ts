@@ -61,6 +61,8 @@ export interface RenderOptionText extends CircuitOptionText, AlikeOptionText {
   readonly humLevel?: string;
   readonly seed?: string;
   readonly force?: boolean;
+  /** False with --no-wav. */
+  readonly wav?: boolean;
 }
 
 export function addRenderOptions(command: Command): Command {
@@ -76,7 +78,8 @@ export function addRenderOptions(command: Command): Command {
       .option('--hum <hz>', 'mix mains hum at 50 or 60 Hz into every file, through each wiring\'s own hum pickup')
       .option('--hum-level <volts>', `peak hum EMF in a nominal coil with --hum, like "5mV" (default ${DEFAULT_HUM_EMF_V * 1000} mV)`)
       .option('--seed <n>', 'seed of the pluck noise (default 1)')
-      .option('--force', 'write into a folder coilbench did not make, replacing only the files coilbench writes (index.html, report.*, wirings.csv, wav/, netlists/)'),
+      .option('--force', 'write into a folder coilbench did not make, replacing only the files coilbench writes (index.html, report.*, wirings.csv, wav/, netlists/)')
+      .option('--no-wav', 'write only the listening page, netlists and reports (the page plays every wiring without the WAV files)'),
   ));
 }
 
@@ -230,7 +233,7 @@ export async function runRender(file: string, guitar: Guitar, options: RenderOpt
     note: (line) => io.stderr(`coilbench: ${line}\n`),
   });
   try {
-    const result = await renderIntoFolder(file, guitar, parsed, folder, all, io);
+    const result = await renderIntoFolder(file, guitar, parsed, folder, all, io, options.wav !== false);
     claim.finish(listRenderedFiles(folder, result.outcome));
     return { ...result, root };
   } catch (error) {
@@ -258,9 +261,11 @@ function renderSettingsRecord(parsed: ParsedRenderOptions): Record<string, unkno
 export function listRenderedFiles(folder: OutputFolder, outcome: RenderOutcome): string[] {
   const files: string[] = [];
   for (const row of outcome.rows) {
-    files.push(row.wav);
-    const pageAudio = pageAudioPath(row.wav);
-    if (existsSync(join(folder.root, pageAudio))) files.push(pageAudio);
+    if (row.wav !== null) {
+      files.push(row.wav);
+      const pageAudio = pageAudioPath(row.wav);
+      if (existsSync(join(folder.root, pageAudio))) files.push(pageAudio);
+    }
     files.push(relative(folder.root, join(folder.netlistFolder, netlistFileName(row.wiring))).split(sep).join('/'));
   }
   return files;
@@ -279,6 +284,7 @@ async function renderIntoFolder(
   folder: OutputFolder,
   all: readonly Wiring[],
   io: Io,
+  writeWav: boolean,
 ): Promise<{ outcome: RenderOutcome; seconds: number }> {
   const progress = createProgress(io);
   const started = performance.now();
@@ -298,6 +304,7 @@ async function renderIntoFolder(
       folder,
       generator: `coilbench ${COILBENCH_VERSION}`,
       thresholds: parsed.thresholds,
+      writeWav,
     },
     { onStage: (stage, total) => progress.stage(stage, total), onStep: (done, total) => progress.step(done, total) },
   );
@@ -329,9 +336,8 @@ export function reportRender(io: Io, root: string, outcome: RenderOutcome, secon
       ? `true relative level, common gain ${outcome.commonGainDb >= 0 ? '+' : ''}${outcome.commonGainDb.toFixed(1)} dB`
       : `loudness matched at ${outcome.matchedLoudnessLufs?.toFixed(1) ?? '?'} LUFS`;
   const speed = outcome.written > 0 && seconds > 0 ? `, ${(outcome.audioSeconds / seconds).toFixed(0)}× real time` : '';
-  io.stderr(
-    `coilbench: ${count} wirings in ${where}/wav: ${outcome.written} written, ${outcome.skipped} unchanged (${level}; ${seconds.toFixed(1)} s${speed})\n`,
-  );
+  if (outcome.rows.every((row) => row.wav === null)) io.stderr(`coilbench: ${count} wirings on the listening page, no WAV files (--no-wav; ${seconds.toFixed(1)} s)\n`);
+  else io.stderr(`coilbench: ${count} wirings in ${where}/wav: ${outcome.written} written, ${outcome.skipped} unchanged (${level}; ${seconds.toFixed(1)} s${speed})\n`);
   io.stderr(`coilbench: ${groupHeadline(outcome.distinct.spectra.count, outcome.distinct)}; see "Which wirings sound alike" on the page and in report.md\n`);
   io.stdout(`${where}/index.html\n`);
   io.stderr(`coilbench: open ${where}/index.html in a browser to listen; start at a low volume. Reports: report.md, wirings.csv, report.json; netlists in ${where}/netlists\n`);
