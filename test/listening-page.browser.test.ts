@@ -34,7 +34,7 @@ import { enumerateWirings } from '../src/wiring/index.js';
 import { CHROMIUM, INSTALL_HINT, RUN_BROWSER_TESTS, type WatchedPage, launchChromium, openFolderPage } from './support/browser.js';
 import { makeExampleReport } from './support/example-report.js';
 import { referenceLoudness } from './support/ebur128-reference.js';
-import { maxOf } from '../src/math/index.js';
+import { maxOf, minOf } from '../src/math/index.js';
 
 const SAMPLE_RATE_HZ = 22050;
 const TAIL_S = 0.6;
@@ -203,7 +203,7 @@ describe.skipIf(!RUN_BROWSER_TESTS)('the listening page in chromium: one engine,
       }
     }
     const loudness = referenceLoudness(cases);
-    const spread = Math.max(...loudness) - Math.min(...loudness);
+    const spread = maxOf(loudness) - minOf(loudness);
     console.info(`level matched, ${loudness.length} renders over three chains: spread ${spread.toFixed(3)} LU (ebur128-wasm)`);
     expect(spread).toBeLessThan(LOUDNESS_LU);
   });

@@ -124,10 +124,11 @@ export function claimOutputFolder(request: ClaimRequest): FolderClaim {
     throw refusal('a folder to write the render into', `"${shownAs}", which is a file`);
   }
   const entries = info === null ? [] : readdirSync(root);
-  // A live lock is named first, whatever else the folder holds: another run is writing it.
+  // A live lock is named first, whatever else the folder holds: another run is writing it. (A lock and
+  // its temporary file, `.coilbench.lock.<pid>.<hex>`, alone mean a run is just starting there.)
   if (entries.includes(FOLDER_LOCK)) refuseIfLocked(lock, shownAs);
   const marker = readMarker(join(root, FOLDER_MARKER));
-  const ownBefore = marker !== null || entries.includes(LEGACY_MARKER) || (entries.length > 0 && entries.every((name) => name === FOLDER_LOCK || name === FOLDER_MARKER));
+  const ownBefore = marker !== null || entries.includes(LEGACY_MARKER) || (entries.length > 0 && entries.every((name) => name.startsWith(FOLDER_LOCK) || name === FOLDER_MARKER));
   if (entries.length > 0 && !ownBefore) refuseOrTakeOver(request, entries);
   if (marker !== null && request.namedAfterGuitar && marker.guitar !== request.purpose.guitar && !request.force) {
     throw refusal(
