@@ -16,6 +16,7 @@ import { benchMeasures } from './bench/measures.js';
 import { benchRender } from './bench/render.js';
 import { benchStrings } from './bench/strings.js';
 import { benchSwitch } from './bench/switch.js';
+import { benchSixElements } from './bench/six-elements.js';
 
 const SECTIONS: ReadonlyArray<readonly [string, () => unknown]> = [
   ['commands', benchCommands],
@@ -28,6 +29,7 @@ const SECTIONS: ReadonlyArray<readonly [string, () => unknown]> = [
   ['page', benchListeningPage],
   ['distinct', benchDistinct],
   ['switch', benchSwitch],
+  ['six-elements', benchSixElements],
 ];
 
 const wanted = process.argv.slice(2);

@@ -73,7 +73,7 @@ describe('coilbench render: the whole folder', () => {
     expect(report.wirings).toHaveLength(47);
     expect(report.render).toMatchObject({ phrase: 'strum', chain: 'clean', sampleRateHz: 48_000, level: 'true', format: 'pcm24' });
     // No temporary or scratch files are left behind.
-    expect(readdirSync(folder).filter((name) => name.startsWith('.') && name !== '.coilbench-manifest.json')).toEqual([]);
+    expect(readdirSync(folder).filter((name) => name.startsWith('.') && !['.coilbench-manifest.json', '.coilbench-folder.json'].includes(name))).toEqual([]);
     expect(wavs.filter((name) => name.includes('.tmp'))).toEqual([]);
   });
 

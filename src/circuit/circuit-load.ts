@@ -14,7 +14,7 @@
  * resistor of r_t·Rt, so setting 10 is its full resistance.
  */
 import { InputError } from '../errors/index.js';
-import type { Guitar, Taper, TrebleBleed } from '../guitar/index.js';
+import { CABLE_CAPACITANCE_MAX_F, CABLE_CAPACITANCE_MIN_F, type Guitar, type Taper, type TrebleBleed } from '../guitar/index.js';
 import { KNOB_FULL_SCALE, wiperFraction } from './pot-taper.js';
 
 /** Mains frequencies hum is evaluated at. */
@@ -36,9 +36,8 @@ export const DEFAULT_HUM_GRADIENT_PER_M = DIPOLE_FIELD_EXPONENT / DEFAULT_HUM_SO
 /** Steepest gradient accepted: a source 0.15 m away (closer than any practical hum source, our own bound). */
 export const HUM_GRADIENT_MAX_PER_M = 20;
 
-/** Plausible total cable capacitance, the range the guitar file accepts (1 pF to 20 nF). */
-export const CABLE_CAPACITANCE_MIN_F = 1e-12;
-export const CABLE_CAPACITANCE_MAX_F = 20e-9;
+/** Plausible total cable capacitance: the range the guitar file accepts (1 pF to 20 nF, src/guitar/guitar-spec.ts). */
+export { CABLE_CAPACITANCE_MIN_F, CABLE_CAPACITANCE_MAX_F };
 
 /** What-if settings that replace the guitar file's values; validated once by `resolveCircuitLoad`. */
 export interface CircuitOverrides {
@@ -112,7 +111,8 @@ export function resolveCircuitLoad(guitar: Guitar, overrides: CircuitOverrides =
   }
   const cable = overrides.cableCapacitanceF ?? guitar.cable.capacitanceF;
   if (!Number.isFinite(cable) || cable < CABLE_CAPACITANCE_MIN_F || cable > CABLE_CAPACITANCE_MAX_F) {
-    throw InputError.at('cableCapacitanceF', 'a cable capacitance between 1 pF and 20 nF', cable);
+    // The guitar validator and the option parser refuse such a cable first, each with the user's own path.
+    throw InputError.at(overrides.cableCapacitanceF === undefined ? 'cable' : 'overrides.cableCapacitanceF', 'a total cable capacitance between 1 pF and 20 nF', cable);
   }
   const mainsHz = overrides.mainsHz ?? DEFAULT_MAINS_HZ;
   if (mainsHz !== 50 && mainsHz !== 60) throw InputError.at('mainsHz', '50 or 60', mainsHz);

@@ -12,6 +12,7 @@ import { graphOfNetwork } from './circuit-graph.js';
 import { prepareCircuit } from './prepare-circuit.js';
 import { solveCoilsImpedance } from './solve-nodal.js';
 import { type CoilPlacement, GROUND_NODE, HOT_NODE, type Lead, layoutWiring, networkResistanceOhms } from './layout-wiring.js';
+import { appendAll } from '../math/index.js';
 
 const POINT_WORDS: Readonly<Record<string, string>> = Object.freeze({
   [HOT_NODE]: 'hot',
@@ -174,6 +175,8 @@ export function renderBuildSheet(
   for (const id of seenPickups) {
     cautions.push(`  - ${id}: if its cover is tied to the lead that now goes to hot or a joint, separate it and ground the cover on its own.`);
   }
-  lines.push('', 'Covers tied to a lead', ...cautions, '');
+  lines.push('', 'Covers tied to a lead');
+  appendAll(lines, cautions);
+  lines.push('');
   return lines.join('\n');
 }

@@ -64,6 +64,9 @@ const position: FieldSpec = {
   },
 };
 
+/** Least relative sensitivity accepted: 1/1000 of nominal, 60 dB down (a plausibility bound; far smaller values underflow the rendered energies to zero). */
+export const MIN_RELATIVE_SENSITIVITY = 0.001;
+
 const coil: ObjectSpec = {
   type: 'object',
   description: 'One winding: a single-coil pickup, or one coil of a humbucker.',
@@ -122,7 +125,7 @@ const coil: ObjectSpec = {
       spec: quantity('frequency', 'Corner frequency of the eddy-current loss branch: above it the inductance falls by the eddy share.', 10, 1e6, '10 Hz and 1 MHz'),
     },
     sensitivity: {
-      spec: { type: 'number', description: 'Relative string-signal sensitivity, e.g. a measured output relative to a nominal coil. When missing: turns / nominal turns of the construction.', min: 0, max: 100, minExclusive: true, noun: 'a relative sensitivity' },
+      spec: { type: 'number', description: 'Relative string-signal sensitivity, e.g. a measured output relative to a nominal coil. When missing: turns / nominal turns of the construction.', min: MIN_RELATIVE_SENSITIVITY, max: 100, noun: 'a relative sensitivity' },
     },
     humSensitivity: {
       spec: { type: 'number', description: 'Relative sensitivity to a mains field (turns × area; 1 = nominal coil). When missing: turns / nominal turns of the construction.', min: 0, max: 100, noun: 'a relative hum sensitivity' },
@@ -220,11 +223,15 @@ const controls: ObjectSpec = {
   },
 };
 
+/** Total cable capacitance the guitar file accepts, farads (a plausibility range: a few centimetres of lead to a hundred metres of ordinary lead). */
+export const CABLE_CAPACITANCE_MIN_F = 1e-12;
+export const CABLE_CAPACITANCE_MAX_F = 20e-9;
+
 const cable: ObjectSpec = {
   type: 'object',
   description: 'The lead from guitar to amplifier: give its total capacitance, or its length and capacitance per metre.',
   fields: {
-    capacitance: { spec: quantity('capacitance', 'Total capacitance of the lead.', 1e-12, 20e-9, '1 pF and 20 nF') },
+    capacitance: { spec: quantity('capacitance', 'Total capacitance of the lead.', CABLE_CAPACITANCE_MIN_F, CABLE_CAPACITANCE_MAX_F, '1 pF and 20 nF') },
     length: { spec: quantity('length', 'Length of the lead.', 0.1, 100, '10 cm and 100 m') },
     capacitancePerMetre: {
       spec: quantity('capacitance', 'Capacitance per metre of lead.', 10e-12, 1e-9, '10 pF and 1 nF per metre'),
@@ -340,7 +347,7 @@ export function listDefaults(spec: ObjectSpec = GUITAR_SPEC, prefix = ''): Array
     const path = prefix === '' ? name : `${prefix}.${name}`;
     if (entry.default !== undefined && entry.spec.type !== 'object') found.push({ path, entry });
     const inner = entry.spec.type === 'array' ? entry.spec.items : entry.spec;
-    if (inner.type === 'object') found.push(...listDefaults(inner, inner === entry.spec ? path : `${path}[]`));
+    if (inner.type === 'object') for (const item of listDefaults(inner, inner === entry.spec ? path : `${path}[]`)) found.push(item);
   }
   return found;
 }

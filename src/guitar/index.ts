@@ -22,5 +22,5 @@ export { coilPositionAt } from './guitar.js';
 export { parseGuitar, parseGuitarText, MAX_WIRING_ELEMENTS } from './parse-guitar.js';
 export { parseJsonText, lineAndColumn } from './parse-json.js';
 export { renderGuitarSchema, SCHEMA_PATH } from './json-schema.js';
-export { GUITAR_SPEC, listDefaults, STANDARD_TUNING, KNOB_MIN, KNOB_MAX } from './guitar-spec.js';
+export { GUITAR_SPEC, listDefaults, STANDARD_TUNING, KNOB_MIN, KNOB_MAX, CABLE_CAPACITANCE_MIN_F, CABLE_CAPACITANCE_MAX_F } from './guitar-spec.js';
 export { slugify } from './slugify.js';

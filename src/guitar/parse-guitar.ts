@@ -21,7 +21,7 @@ import type {
   TrebleBleed,
   WiringElement,
 } from './guitar.js';
-import { DEFAULT_CABLE_CAPACITANCE, DEFAULT_PICKUP_COUPLING, GUITAR_SPEC } from './guitar-spec.js';
+import { CABLE_CAPACITANCE_MAX_F, CABLE_CAPACITANCE_MIN_F, DEFAULT_CABLE_CAPACITANCE, DEFAULT_PICKUP_COUPLING, GUITAR_SPEC } from './guitar-spec.js';
 import { parseJsonText } from './parse-json.js';
 import { validateField } from './validate-fields.js';
 
@@ -113,6 +113,21 @@ export function parseGuitar(raw: unknown): Guitar {
   }
   if (cableInput.capacitancePerMetre !== undefined && cableInput.length === undefined) {
     problems.push(problemAt('cable.length', 'a length to go with "capacitancePerMetre"', undefined));
+  }
+  const cableLengthM = asNumber(cableRaw.length);
+  if (cableLengthM !== undefined && cableInput.capacitance === undefined) {
+    // Total = length × capacitance per metre must stay in the range a total capacitance is accepted in.
+    const perMetreF = asNumber(cableRaw.capacitancePerMetre) ?? DEFAULT_CABLE_CAPACITANCE_PER_METRE_F;
+    const totalF = cableLengthM * perMetreF;
+    if (!(totalF >= CABLE_CAPACITANCE_MIN_F && totalF <= CABLE_CAPACITANCE_MAX_F)) {
+      problems.push(
+        problemAt(
+          'cable.length',
+          `a lead whose total capacitance (length × capacitancePerMetre) is between 1 pF and 20 nF`,
+          `${String(cableInput.length)} × ${String(cableInput.capacitancePerMetre ?? `${formatEngineering(perMetreF, 'F')}/m`)} = ${formatEngineering(totalF, 'F')}`,
+        ),
+      );
+    }
   }
 
   // Treble bleed: a series arrangement needs its resistor.

@@ -25,6 +25,9 @@ export {
   STALE_TEMP_FILE_AGE_MS,
 } from './write-file-atomic.js';
 export { defaultOutputRoot, outputFolder, wavFileName, netlistFileName } from './output-folder.js';
+export { claimOutputFolder, ownNamesOf, releaseFolderLocksSync, FOLDER_MARKER, FOLDER_LOCK } from './folder-claim.js';
+export type { ClaimRequest, FolderClaim, FolderPurpose } from './folder-claim.js';
+export { guitarFolderName } from './folder-name.js';
 export type { OutputFolder } from './output-folder.js';
 export { renderGuitar, removeScratchFoldersSync, RENDER_MODEL_VERSION, RESPONSE_POINTS } from './render-guitar.js';
 export type { HumMix, RenderEvents, RenderOutcome, RenderRequest, RenderedWiring } from './render-guitar.js';

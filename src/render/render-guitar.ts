@@ -55,6 +55,8 @@ import { gainToDb, planMatchedGains, planTrueLevelGain } from './plan-gains.js';
 import { MANIFEST_VERSION, type Manifest, hashOf, readManifest } from './render-manifest.js';
 import { type WavFormat, encodeWav } from './wav-file.js';
 import { removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
+import { type FileRecord, fileMatches, recordOf } from './file-record.js';
+import { maxOf } from '../math/index.js';
 import { writeListeningPage } from './write-listening-page.js';
 
 /** Bump when the sound of a render changes for the same inputs (string model, pickup, chain), so old files are redone. */
@@ -123,8 +125,10 @@ export interface RenderOutcome {
   /** Loudness every matched file reaches, LUFS; null for true-level files. */
   readonly matchedLoudnessLufs: number | null;
   readonly audioSeconds: number;
-  /** Which of all the guitar's wirings sound alike (request.all order). */
+  /** Which wirings of `scope` sound alike (in `scope` order). */
   readonly distinct: Distinctness;
+  /** The wirings `distinct` covers: every wiring, or for `--only` on a guitar of more than 1000 wirings the rendered ones and the single elements. */
+  readonly scope: readonly Wiring[];
 }
 
 /** What the manifest keeps per wiring, keyed by canonical expression. */
@@ -136,6 +140,8 @@ interface Entry {
   audio?: { peak: number; loudnessLufs: number | null; frames: number };
   fileHash?: string;
   file?: string;
+  /** Size and SHA-256 of the WAV and of its page-audio copy as written: a re-run keeps them only if both still match. */
+  written?: { wav: FileRecord; pageAudio?: FileRecord };
 }
 
 /** The parts of a guitar that shape its sound (names and notes do not). */
@@ -150,7 +156,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     mkdirSync(path, { recursive: true });
     removeStaleTempFiles(path);
   }
-  const scratch = join(folder.root, '.scratch');
+  const scratch = folder.scratch;
   rmSync(scratch, { recursive: true, force: true });
   mkdirSync(scratch, { recursive: true });
   activeScratchFolders.add(scratch);
@@ -229,7 +235,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     }
     if (result.audio && result.scratch && hash) {
       scratchFiles.set(result.id, result.scratch);
-      Object.assign(entry, { audioHash: hash.audioHash, audio: result.audio, fileHash: undefined });
+      Object.assign(entry, { audioHash: hash.audioHash, audio: result.audio, fileHash: undefined, written: undefined });
     }
   }
   let renderer: WiringRenderer | undefined;
@@ -279,7 +285,12 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
       const path = join(folder.wavFolder, name);
       const fileHash = hashOf({ audio: entry.audioHash, gain: gain.toPrecision(12), format: request.format, name });
       const pageAudio = request.pageAudioCopies ? join(folder.root, pageAudioPath(relative(folder.root, path))) : null;
-      if (request.writeWav === false || (entry.fileHash === fileHash && entry.file === name && existsSync(path) && (pageAudio === null || existsSync(pageAudio)))) {
+      // Kept only if the files still match the size and SHA-256 recorded when they were written.
+      const intact =
+        entry.written !== undefined &&
+        fileMatches(path, entry.written.wav) &&
+        (pageAudio === null || (entry.written.pageAudio !== undefined && fileMatches(pageAudio, entry.written.pageAudio)));
+      if (request.writeWav === false || (entry.fileHash === fileHash && entry.file === name && intact)) {
         skipped += 1;
       } else {
         const parked = scratchFiles.get(wiring.id);
@@ -296,9 +307,10 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
         });
         // Written in the background while the next wiring is prepared; the manifest records a file only once it is whole.
         await writes.add(async () => {
+          const script = pageAudio ? renderPageAudioScript(wiring.id, bytes) : '';
           await writeFileAtomic(path, bytes);
-          if (pageAudio) await writeFileAtomic(pageAudio, renderPageAudioScript(wiring.id, bytes));
-          Object.assign(entry, { fileHash, file: name });
+          if (pageAudio) await writeFileAtomic(pageAudio, script);
+          Object.assign(entry, { fileHash, file: name, written: { wav: recordOf(bytes), pageAudio: pageAudio ? recordOf(script) : undefined } });
         });
         await saveManifest(false);
         written += 1;
@@ -324,11 +336,14 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   }
   await writes.drain();
 
-  // Circuit metrics and response curves.
-  const circuit = measureCircuitMetrics(guitar, request.all, request.overrides);
-  const circuitById = new Map(request.all.map((wiring, index) => [wiring.id, circuit.wirings[index] as WiringCircuitMetrics]));
-  const distinct = measureDistinctness(guitar, request.all, { overrides: request.overrides, thresholds: request.thresholds });
-  const groupById = new Map(request.all.map((wiring, index) => [wiring.id, distinct.groups.groupOf[index] ?? null]));
+  // Circuit metrics for the rendered wirings; groups for every wiring, or (when only some of more than
+  // MAX_WIRINGS_GROUPED_FOR_SOME are asked for) among the chosen ones and the single elements, so that
+  // one wiring of a six-element guitar costs one wiring, not 228,386.
+  const scope = distinctScope(request.all, request.selected);
+  const circuit = measureCircuitMetrics(guitar, selected, request.overrides);
+  const circuitById = new Map(selected.map((wiring, index) => [wiring.id, circuit.wirings[index] as WiringCircuitMetrics]));
+  const distinct = measureDistinctness(guitar, scope, { overrides: request.overrides, thresholds: request.thresholds });
+  const groupById = new Map(scope.map((wiring, index) => [wiring.id, distinct.groups.groupOf[index] ?? null]));
   const responseGrid = logSpacedFrequencies(AUDIO_BAND_LOW_HZ, AUDIO_BAND_HIGH_HZ, RESPONSE_POINTS);
   const responseCircuit = prepareCircuit(guitar, responseGrid, request.overrides);
   const transfers = guitar.coils.map(() => new Float64Array(2 * RESPONSE_POINTS));
@@ -371,7 +386,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   });
 
   const frames = selected.map((wiring) => entries[wiring.expression]?.audio?.frames ?? 0);
-  const durationS = Math.max(0, ...frames) / request.sampleRateHz;
+  const durationS = Math.max(0, maxOf(frames)) / request.sampleRateHz;
   // Audio made in this run (cached files cost nothing).
   const audioSeconds = (results.filter((result) => result.audio).length * durationS);
   const report: ListeningReport = {
@@ -390,11 +405,25 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     },
     responseFrequenciesHz: Array.from(responseGrid),
     wirings: reportWirings,
-    groups: reportGroups(request.all, distinct),
+    groups: reportGroups(scope, distinct),
   };
   await writeFileAtomic(folder.reportJson, `${JSON.stringify(report, null, 2)}\n`);
   await writeListeningPage(folder.page, report, request);
-  return { report, rows, written, skipped, commonGainDb, matchedLoudnessLufs, audioSeconds, distinct };
+  return { report, rows, written, skipped, commonGainDb, matchedLoudnessLufs, audioSeconds, distinct, scope };
+}
+
+/**
+ * Most wirings a guitar may have for `--only` renders to still group all of them (four elements: 572,
+ * a second or two), so that their group numbers are those of `analyze`; beyond it (9,997 and 228,386
+ * wirings) the groups are among the chosen wirings and the single elements.
+ */
+const MAX_WIRINGS_GROUPED_FOR_SOME = 1000;
+
+/** The wirings whose groups a render reports: all of them, or the chosen ones and the single elements (in numbering order). */
+function distinctScope(all: readonly Wiring[], selected: readonly Wiring[]): readonly Wiring[] {
+  if (selected.length === all.length || all.length <= MAX_WIRINGS_GROUPED_FOR_SOME) return all;
+  const chosen = new Set(selected.map((wiring) => wiring.id));
+  return all.filter((wiring) => wiring.elements.length === 1 || chosen.has(wiring.id));
 }
 
 /** The report's record of the groups of alike wirings. */

@@ -16,6 +16,7 @@ import type { ChainName } from './chain-name.js';
 import { type AudioSettings, type PassItem, type PassResult, runRenderPass } from './render-pass.js';
 import type { WorkerJob, WorkerMessage } from './render-worker.js';
 import { shapeKey } from '../wiring/index.js';
+import { minOf, appendAll } from '../math/index.js';
 
 /**
  * Fewest wirings worth a worker thread, by effects chain: a worker starts cold
@@ -77,8 +78,8 @@ export function splitByShape(items: readonly PassItem[], parts: number): PassIte
   const bins: PassItem[][] = Array.from({ length: parts }, () => []);
   const loads = new Array<number>(parts).fill(0);
   for (const group of ordered) {
-    const lightest = loads.indexOf(Math.min(...loads));
-    bins[lightest]?.push(...group);
+    const lightest = loads.indexOf(minOf(loads));
+    appendAll(bins[lightest] ?? [], group);
     loads[lightest] = (loads[lightest] ?? 0) + weight(group);
   }
   return bins.filter((bin) => bin.length > 0);

@@ -5,6 +5,7 @@ import { enumerateWirings, findWiring, vocabularyOf } from '../../wiring/index.j
 import { type CircuitOptionText, addCircuitOptions, parseCircuitOptions } from '../circuit-options.js';
 import type { Io } from '../io.js';
 import { readGuitarFile } from '../read-guitar.js';
+import { appendAll } from '../../math/index.js';
 
 interface NetlistCommandOptions extends CircuitOptionText {
   readonly buildSheet?: boolean;
@@ -40,7 +41,7 @@ export function registerNetlist(program: Command, io: Io): void {
       wiring = findWiring(expression, enumerateWirings(guitar.elements), vocabularyOf(guitar), '<wiring>');
     } catch (error) {
       if (!(error instanceof InputError)) throw error;
-      problems.push(...error.problems);
+      appendAll(problems, error.problems);
     }
     if (problems.length > 0 || wiring === undefined) throw new InputError(problems);
     if (!options.buildSheet && resolveCircuitLoad(guitar, overrides).silent) {

@@ -19,6 +19,7 @@ import { readGuitarFile } from '../read-guitar.js';
 import { defaultOutputRoot, measureWiringAudio } from '../../render/index.js';
 import { reportRender, runRender } from './render.js';
 import { wiringRecord } from './wirings.js';
+import { appendAll } from '../../math/index.js';
 
 interface ShortlistOptions extends CircuitOptionText, AlikeOptionText {
   readonly count?: string;
@@ -29,6 +30,7 @@ interface ShortlistOptions extends CircuitOptionText, AlikeOptionText {
   readonly json?: boolean;
   readonly render?: boolean;
   readonly output?: string;
+  readonly force?: boolean;
   readonly chain?: string;
   readonly phrase?: string;
 }
@@ -93,7 +95,7 @@ function parsePlan(options: ShortlistOptions, guitar: Guitar, wirings: readonly 
       include.push(findWiring(text, wirings, vocabulary, '--include'));
     } catch (error) {
       if (!(error instanceof InputError)) throw error;
-      problems.push(...error.problems);
+      appendAll(problems, error.problems);
     }
   }
   return { count, humCancelling: options.humCancelling === true, levelWindowDb, include, elements };
@@ -182,6 +184,7 @@ export function registerShortlist(program: Command, io: Io): void {
     .option('--json', 'print one JSON document on stdout')
     .option('--render', 'render just these wirings, with their listening page (default folder renders/<guitar>-shortlist)')
     .option('-o, --output <dir>', 'folder for --render')
+    .option('--force', 'with --render: write into a folder coilbench did not make, replacing only the files coilbench writes')
     .option('--chain <chain>', 'effects chain for --render: direct, clean, drive or compressed (default clean)')
     .option('--phrase <phrase>', 'what the strings play for --render: open-strings, strum, riff or a phrase file (default strum)');
   addAlikeOptions(addCircuitOptions(command)).action(async (file: string, options: ShortlistOptions) => {
@@ -298,11 +301,11 @@ export function registerShortlist(program: Command, io: Io): void {
 
 /** Render the chosen wirings into their own folder (a listening page of just these). */
 async function renderShortlist(file: string, guitar: Guitar, options: ShortlistOptions, ids: readonly string[], io: Io) {
-  const { output, chain, phrase, volume, tone, cable, mains, levelThreshold, spectrumThreshold, brightnessThreshold } = options;
+  const { output, force, chain, phrase, volume, tone, cable, mains, levelThreshold, spectrumThreshold, brightnessThreshold } = options;
   return runRender(
     file,
     guitar,
-    { output, chain, phrase, volume, tone, cable, mains, levelThreshold, spectrumThreshold, brightnessThreshold, only: [...ids] },
+    { output, force, chain, phrase, volume, tone, cable, mains, levelThreshold, spectrumThreshold, brightnessThreshold, only: [...ids] },
     io,
     defaultOutputRoot('.', `${guitar.name} shortlist`),
   );
