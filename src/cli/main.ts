@@ -5,7 +5,6 @@
  * stack trace only with --verbose.
  */
 import { Command, CommanderError } from 'commander';
-import { InputError, WorkError, formatProblem } from '../errors/index.js';
 import { registerCheck } from './commands/check.js';
 import { registerDemo } from './commands/demo.js';
 import { registerWirings } from './commands/wirings.js';
@@ -16,10 +15,9 @@ import { registerShortlist } from './commands/shortlist.js';
 import { registerCompare } from './commands/compare.js';
 import type { Io } from './io.js';
 import { COILBENCH_VERSION } from './version.js';
+import { EXIT_BAD_INPUT, EXIT_OK, describeCommanderMessage, describeError } from './describe-error.js';
 
-export const EXIT_OK = 0;
-export const EXIT_FAILURE = 1;
-export const EXIT_BAD_INPUT = 2;
+export { EXIT_BAD_INPUT, EXIT_FAILURE, EXIT_INTERRUPTED, EXIT_OK } from './describe-error.js';
 
 const VERSION = COILBENCH_VERSION;
 
@@ -34,7 +32,7 @@ function buildProgram(io: Io): Command {
     .configureOutput({
       writeOut: (text) => io.stdout(text),
       writeErr: (text) => io.stderr(text),
-      outputError: (text, write) => write(`coilbench: ${text.replace(/^error: /u, '')}`),
+      outputError: (text, write) => write(describeCommanderMessage(text)),
     });
   registerDemo(program, io);
   registerCheck(program, io);
@@ -48,7 +46,7 @@ function buildProgram(io: Io): Command {
     command.exitOverride().configureOutput({
       writeOut: (text) => io.stdout(text),
       writeErr: (text) => io.stderr(text),
-      outputError: (text, write) => write(`coilbench: ${text.replace(/^error: /u, '')}`),
+      outputError: (text, write) => write(describeCommanderMessage(text)),
     });
     command.showHelpAfterError(`(run coilbench ${command.name()} --help for usage)`);
   }
@@ -74,18 +72,7 @@ function reportError(error: unknown, io: Io, verbose: boolean): number {
     }
     return EXIT_BAD_INPUT; // commander has already printed its message
   }
-  if (error instanceof InputError) {
-    for (const problem of error.problems) io.stderr(`coilbench: ${formatProblem(problem)}\n`);
-    if (verbose) io.stderr(`${error.stack ?? ''}\n`);
-    return EXIT_BAD_INPUT;
-  }
-  if (error instanceof WorkError) {
-    io.stderr(`coilbench: ${error.message}\n`);
-    if (verbose) io.stderr(`${error.stack ?? ''}\n`);
-    return EXIT_FAILURE;
-  }
-  const message = error instanceof Error ? error.message : String(error);
-  io.stderr(`coilbench: internal error: ${message}${verbose ? '' : ' (run with --verbose for details)'}\n`);
-  if (verbose && error instanceof Error) io.stderr(`${error.stack ?? ''}\n`);
-  return EXIT_FAILURE;
+  const described = describeError(error, verbose);
+  for (const line of described.lines) io.stderr(line);
+  return described.status;
 }

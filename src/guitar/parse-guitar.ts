@@ -28,6 +28,9 @@ export const MAX_WIRING_ELEMENTS = 6;
 /** Capacitance per metre used when a cable gives a length but no capacitance per metre (common practice: 100–125 pF/m is usual). */
 export const DEFAULT_CABLE_CAPACITANCE_PER_METRE_F = 100e-12;
 
+/** Wiring numbers as commands accept them (`w1`, `w12`): no coil or pickup may be named so. */
+const WIRING_NUMBER_PATTERN = /^w\d+$/u;
+
 type Raw = Record<string, unknown>;
 
 const asRecord = (value: unknown): Raw => (typeof value === 'object' && value !== null ? (value as Raw) : {});
@@ -59,6 +62,16 @@ export function parseGuitar(raw: unknown): Guitar {
     if (earlier !== undefined) {
       problems.push(problemAt(`coils[${index}].id`, `a name not used by another coil (coils[${earlier}] is already "${id}")`, id));
     } else firstUse.set(id, index);
+  });
+
+  // No coil or pickup named like a wiring number ("w12" selects a wiring wherever a wiring is named).
+  coilsRaw.forEach((coil, index) => {
+    for (const field of ['id', 'pickup'] as const) {
+      const name = asString(asRecord(coil)[field]);
+      if (name !== undefined && WIRING_NUMBER_PATTERN.test(name)) {
+        problems.push(problemAt(`coils[${index}].${field}`, 'a name that is not a wiring number like "w1" (those select wirings)', name));
+      }
+    }
   });
 
   // Coils inside the scale.

@@ -101,7 +101,7 @@ function fadeOut(waves: readonly Float64Array[], samples: number): void {
 }
 
 /** Every note on a string the guitar has, plucked between the bridge and the fret. */
-function checkPhraseFitsGuitar(phrase: Phrase, guitar: Pick<Guitar, 'scaleM' | 'strings'>, defaultPluckM: number): void {
+export function checkPhraseFitsGuitar(phrase: Phrase, guitar: Pick<Guitar, 'scaleM' | 'strings'>, defaultPluckM: number): void {
   const problems: InputProblem[] = [];
   const count = guitar.strings.length;
   phrase.notes.forEach((note: PhraseNote, i) => {

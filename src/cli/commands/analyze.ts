@@ -27,6 +27,7 @@ import {
 } from '../metric-columns.js';
 import { createProgress } from '../progress.js';
 import { readGuitarFile } from '../read-guitar.js';
+import { findOutputProblems } from '../guard-outputs.js';
 import { type AudioMetrics, REFERENCE_PHRASE, measureWiringAudio } from '../../render/index.js';
 import { writeFileAtomicSync } from '../../render/index.js';
 import { wiringRecord } from './wirings.js';
@@ -115,6 +116,7 @@ export function registerAnalyze(program: Command, io: Io): void {
     }
     if (options.json && options.markdown) problems.push(problemAt('--markdown', 'either --json or --markdown, not both', '--json --markdown'));
     if (options.csv !== undefined && options.csv.trim() === '') problems.push(problemAt('--csv', 'a file name', options.csv));
+    else if (options.csv !== undefined) problems.push(...findOutputProblems([file], [{ option: '--csv', path: options.csv, kind: 'file' }], io.cwd));
     if (problems.length > 0) throw new InputError(problems);
 
     const wirings = enumerateWirings(guitar.elements);

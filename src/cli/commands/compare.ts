@@ -17,7 +17,7 @@ import {
 import type { Wiring } from '../../wiring/index.js';
 import { createProgress } from '../progress.js';
 import { COILBENCH_VERSION } from '../version.js';
-import { parseRenderOptions } from './render.js';
+import { parseRenderOptions, renderInputs } from './render.js';
 import { InputError, type InputProblem, problemAt } from '../../errors/index.js';
 import type { Guitar } from '../../guitar/index.js';
 import { type AlikeOptionText, addAlikeOptions, describeThresholds, parseAlikeOptions } from '../alike-options.js';
@@ -26,6 +26,7 @@ import { formatTable } from '../format-table.js';
 import { collectOption } from '../collect-option.js';
 import type { Io } from '../io.js';
 import { readGuitarFile } from '../read-guitar.js';
+import { guardOutputs } from '../guard-outputs.js';
 
 interface CompareOptions extends CircuitOptionText, AlikeOptionText {
   readonly map: string[];
@@ -236,6 +237,8 @@ async function renderComparison(base: Guitar, comparisons: readonly GuitarCompar
       return { guitar: comparison.candidate.guitar, all: comparison.candidate.wirings, selected: [...selected].sort((a, b) => a.number - b.number) };
     }),
   ];
+  const entries = ['comparison.json', 'index.html', ...sets.map((_, index) => `${setFolder(index)}/`)];
+  guardOutputs([...renderInputs(files[0] ?? '', options.phrase), ...files.slice(1)], [{ option: options.output === undefined ? 'output folder' : '--output', path: root, kind: 'folder', entries }], io.cwd);
   const progress = createProgress(io);
   const outcomes: RenderOutcome[] = [];
   for (const [index, set] of sets.entries()) {

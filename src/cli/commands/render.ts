@@ -1,5 +1,4 @@
 import { existsSync } from 'node:fs';
-import { readFileSync } from 'node:fs';
 import { relative, resolve } from 'node:path';
 import type { Command } from 'commander';
 import { InputError, type InputProblem, problemAt } from '../../errors/index.js';
@@ -17,7 +16,15 @@ import {
   renderGuitar,
   writeFileAtomic,
 } from '../../render/index.js';
-import { BUILT_IN_PHRASES, type BuiltInPhraseName, type Phrase, builtInPhrase, parsePhrase } from '../../string/index.js';
+import {
+  BUILT_IN_PHRASES,
+  type BuiltInPhraseName,
+  DEFAULT_STRING_OPTIONS,
+  type Phrase,
+  builtInPhrase,
+  checkPhraseFitsGuitar,
+  parsePhrase,
+} from '../../string/index.js';
 import { QuantityError, parseQuantity } from '../../units/index.js';
 import { type Wiring, enumerateWirings, findWiring, vocabularyOf } from '../../wiring/index.js';
 import { type AlikeOptionText, addAlikeOptions, parseAlikeOptions } from '../alike-options.js';
@@ -28,6 +35,8 @@ import type { Io } from '../io.js';
 import { renderCsv, renderMarkdownTable } from '../metric-columns.js';
 import { createProgress } from '../progress.js';
 import { readGuitarFile } from '../read-guitar.js';
+import { guardOutputs } from '../guard-outputs.js';
+import { readInputText } from '../read-input-file.js';
 import { COILBENCH_VERSION } from '../version.js';
 
 /** Sample rates a file may be written at, Hz (common practice for audio files). */
@@ -92,7 +101,9 @@ function readPhrase(text: string | undefined, guitar: Guitar, io: Io, problems: 
     return undefined;
   }
   try {
-    return parsePhrase(readFileSync(path, 'utf8'), name, guitar.strings.length);
+    const phrase = parsePhrase(readInputText(name, io.cwd, 'phrase file (JSON)'), name, guitar.strings.length);
+    checkPhraseFitsGuitar(phrase, guitar, DEFAULT_STRING_OPTIONS.pluckM); // every pluck on its string, before anything is written
+    return phrase;
   } catch (error) {
     if (error instanceof InputError) {
       problems.push(...error.problems);
@@ -163,11 +174,17 @@ export function parseRenderOptions(options: RenderOptionText, guitar: Guitar, al
   };
 }
 
+/** The files a render reads: the guitar file, and the phrase file when the phrase is not a built-in one. */
+export function renderInputs(file: string, phrase: string | undefined): string[] {
+  return phrase === undefined || (BUILT_IN_PHRASES as readonly string[]).includes(phrase) ? [file] : [file, phrase];
+}
+
 /** Render a guitar file's wirings into a folder and write the reports; returns the outcome for the summary. */
 export async function runRender(file: string, guitar: Guitar, options: RenderOptionText, io: Io, defaultRoot?: string): Promise<{ outcome: RenderOutcome; root: string; seconds: number }> {
   const all = enumerateWirings(guitar.elements);
   const parsed = parseRenderOptions(options, guitar, all, io);
   const root = resolve(io.cwd, options.output ?? defaultRoot ?? defaultOutputRoot('.', guitar.name));
+  guardOutputs(renderInputs(file, options.phrase), [{ option: options.output === undefined ? 'output folder' : '--output', path: options.output ?? root, kind: 'folder' }], io.cwd);
   const folder = outputFolder(root);
   const progress = createProgress(io);
   const started = performance.now();
