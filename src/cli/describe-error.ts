@@ -11,6 +11,7 @@ import {
   escapeForMessage,
   fileSystemCodeOf,
   formatProblem,
+  type InputProblem,
   isPathProblem,
 } from '../errors/index.js';
 
@@ -44,8 +45,10 @@ export function describeError(error: unknown, verbose: boolean): DescribedError 
   if (code !== undefined) {
     const path = (error as { path?: unknown }).path;
     const where = typeof path === 'string' ? escapeForMessage(path, MAX_PATH_SHOWN) : 'a file';
-    const status = isPathProblem(code) ? EXIT_BAD_INPUT : EXIT_FAILURE;
-    return { lines: [`coilbench: ${where}: ${describeFileSystemCode(code)}\n`, ...stack], status };
+    if (isPathProblem(code)) {
+      return { lines: [`coilbench: ${where}: expected a path that can be used, got ${describeFileSystemCode(code)}\n`, ...stack], status: EXIT_BAD_INPUT };
+    }
+    return { lines: [`coilbench: ${where}: ${describeFileSystemCode(code)}\n`, ...stack], status: EXIT_FAILURE };
   }
   if (error instanceof RangeError && /call stack/iu.test(error.message)) {
     return { lines: [`coilbench: input nested too deeply to read${verbose ? '' : ' (run with --verbose for details)'}\n`, ...stack], status: EXIT_BAD_INPUT };
@@ -55,12 +58,27 @@ export function describeError(error: unknown, verbose: boolean): DescribedError 
   return { lines: [`coilbench: internal error: ${escapeForMessage(message, MAX_MESSAGE_SHOWN)}${hint}\n`, ...stack], status: EXIT_FAILURE };
 }
 
-/** Commander's own message (unknown option, missing argument) as escaped lines, without its "error: " prefix. */
-export function describeCommanderMessage(text: string): string {
-  return text
-    .replace(/^error: /u, '')
-    .split('\n')
-    .filter((line) => line !== '')
-    .map((line) => `coilbench: ${escapeForMessage(line, MAX_MESSAGE_SHOWN)}\n`)
-    .join('');
+/** Commander's own refusals (unknown option, missing value, unknown command) as one problem line each. */
+export function describeCommanderError(code: string, message: string, command: string | undefined): string[] {
+  const text = message.replace(/^error: /u, '');
+  const quoted = /'([^']*)'/u.exec(text)?.[1] ?? '';
+  const help = `coilbench ${command === undefined ? '' : `${command} `}--help`;
+  const suggestion = /\(Did you mean ([^?]+)\?\)/u.exec(text)?.[1];
+  const problem = ((): InputProblem => {
+    switch (code) {
+      case 'commander.unknownOption':
+        return { path: quoted, expected: `an option listed by ${help}${suggestion ? ` (did you mean ${suggestion}?)` : ''}`, got: 'an unknown option' };
+      case 'commander.unknownCommand':
+        return { path: 'command', expected: `a command listed by coilbench --help${suggestion ? ` (did you mean ${suggestion}?)` : ''}`, got: JSON.stringify(quoted) };
+      case 'commander.optionMissingArgument':
+        return { path: quoted.split(' ').find((word) => word.startsWith('--')) ?? quoted, expected: 'a value after the option', got: 'nothing' };
+      case 'commander.missingArgument':
+        return { path: `<${quoted}>`, expected: `the ${quoted} argument (see ${help})`, got: 'nothing' };
+      case 'commander.excessArguments':
+        return { path: 'arguments', expected: `the arguments listed by ${help}`, got: text.replace(/^.*?\. /u, '') };
+      default:
+        return { path: 'command line', expected: `arguments as listed by ${help}`, got: text.split('\n')[0] ?? text };
+    }
+  })();
+  return [`coilbench: ${formatProblem(problem)}\n`];
 }

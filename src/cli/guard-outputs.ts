@@ -102,6 +102,10 @@ function checkTarget(target: OutputTarget, full: string, problems: InputProblem[
     return false;
   }
   const parent = target.kind === 'file' ? dirname(full) : kind === 'folder' ? full : nearestExistingFolder(full);
+  if (kindOf(parent) === 'file' || kindOf(parent) === 'other') {
+    problems.push({ path: at, expected: 'a path whose every step is a folder', got: `${JSON.stringify(target.path)}, which passes through a file` });
+    return false;
+  }
   if (target.kind === 'file' && kindOf(parent) !== 'folder') {
     problems.push({ path: at, expected: 'a file in an existing folder', got: `${JSON.stringify(target.path)} (no folder ${JSON.stringify(dirname(target.path))})` });
     return false;

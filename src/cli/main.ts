@@ -15,7 +15,7 @@ import { registerShortlist } from './commands/shortlist.js';
 import { registerCompare } from './commands/compare.js';
 import type { Io } from './io.js';
 import { COILBENCH_VERSION } from './version.js';
-import { EXIT_BAD_INPUT, EXIT_OK, describeCommanderMessage, describeError } from './describe-error.js';
+import { EXIT_BAD_INPUT, EXIT_OK, describeCommanderError, describeError } from './describe-error.js';
 
 export { EXIT_BAD_INPUT, EXIT_FAILURE, EXIT_INTERRUPTED, EXIT_OK } from './describe-error.js';
 
@@ -28,11 +28,10 @@ function buildProgram(io: Io): Command {
     .version(VERSION)
     .option('--verbose', 'show stack traces on errors')
     .exitOverride()
-    .showHelpAfterError('(run coilbench --help for usage)')
     .configureOutput({
       writeOut: (text) => io.stdout(text),
       writeErr: (text) => io.stderr(text),
-      outputError: (text, write) => write(describeCommanderMessage(text)),
+      outputError: () => undefined, // reported as one problem line by describeCommanderError
     });
   registerDemo(program, io);
   registerCheck(program, io);
@@ -46,9 +45,8 @@ function buildProgram(io: Io): Command {
     command.exitOverride().configureOutput({
       writeOut: (text) => io.stdout(text),
       writeErr: (text) => io.stderr(text),
-      outputError: (text, write) => write(describeCommanderMessage(text)),
+      outputError: () => undefined, // reported as one problem line by describeCommanderError
     });
-    command.showHelpAfterError(`(run coilbench ${command.name()} --help for usage)`);
   }
   return program;
 }
@@ -61,16 +59,18 @@ export async function main(argv: readonly string[], io: Io): Promise<number> {
     await program.parseAsync([...argv], { from: 'user' });
     return EXIT_OK;
   } catch (error) {
-    return reportError(error, io, verbose);
+    return reportError(error, io, verbose, argv, program);
   }
 }
 
-function reportError(error: unknown, io: Io, verbose: boolean): number {
+function reportError(error: unknown, io: Io, verbose: boolean, argv: readonly string[], program: Command): number {
   if (error instanceof CommanderError) {
     if (error.code === 'commander.helpDisplayed' || error.code === 'commander.version' || error.code === 'commander.help') {
       return EXIT_OK;
     }
-    return EXIT_BAD_INPUT; // commander has already printed its message
+    const commandName = argv.find((word) => program.commands.some((command) => command.name() === word));
+    for (const line of describeCommanderError(error.code, error.message, commandName)) io.stderr(line);
+    return EXIT_BAD_INPUT;
   }
   const described = describeError(error, verbose);
   for (const line of described.lines) io.stderr(line);
