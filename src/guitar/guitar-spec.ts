@@ -25,6 +25,9 @@ function quantity(
   return { type: 'quantity', quantity: quantityKind, description, min, max, rangeText, zeroAllowed };
 }
 
+/** Largest total cable capacitance, farads, however it is given (200 m of ordinary lead; far past any real cable). */
+export const MAX_CABLE_CAPACITANCE_F = 20e-9;
+
 const knob = (what: string): FieldSpec => ({
   type: 'number',
   description: `${what} knob setting, 0 (fully down) to 10 (fully up).`,
@@ -190,7 +193,7 @@ const cable: ObjectSpec = {
   type: 'object',
   description: 'The lead from guitar to amplifier: give its total capacitance, or its length and capacitance per metre.',
   fields: {
-    capacitance: { spec: quantity('capacitance', 'Total capacitance of the lead.', 1e-12, 20e-9, '1 pF and 20 nF') },
+    capacitance: { spec: quantity('capacitance', 'Total capacitance of the lead.', 1e-12, MAX_CABLE_CAPACITANCE_F, '1 pF and 20 nF') },
     length: { spec: quantity('length', 'Length of the lead.', 0.1, 100, '10 cm and 100 m') },
     capacitancePerMetre: {
       spec: quantity('capacitance', 'Capacitance per metre of lead.', 10e-12, 1e-9, '10 pF and 1 nF per metre'),

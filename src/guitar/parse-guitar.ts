@@ -19,7 +19,7 @@ import type {
   TrebleBleed,
   WiringElement,
 } from './guitar.js';
-import { DEFAULT_CABLE_CAPACITANCE, GUITAR_SPEC } from './guitar-spec.js';
+import { DEFAULT_CABLE_CAPACITANCE, GUITAR_SPEC, MAX_CABLE_CAPACITANCE_F } from './guitar-spec.js';
 import { parseJsonText } from './parse-json.js';
 import { validateField } from './validate-fields.js';
 
@@ -124,6 +124,17 @@ export function parseGuitar(raw: unknown): Guitar {
   }
   if (cableInput.capacitancePerMetre !== undefined && cableInput.length === undefined) {
     problems.push(problemAt('cable.length', 'a length to go with "capacitancePerMetre"', undefined));
+  }
+
+  // Cable given by length: its total stays within the bound a total is held to.
+  const lengthM = asNumber(cableRaw.length);
+  if (lengthM !== undefined) {
+    const perMetre = asNumber(cableRaw.capacitancePerMetre) ?? DEFAULT_CABLE_CAPACITANCE_PER_METRE_F;
+    if (lengthM * perMetre > MAX_CABLE_CAPACITANCE_F) {
+      problems.push(
+        problemAt('cable.length', `a cable of at most ${formatEngineering(MAX_CABLE_CAPACITANCE_F, 'F')} in all (length × capacitance per metre is ${formatEngineering(lengthM * perMetre, 'F')})`, cableInput.length),
+      );
+    }
   }
 
   // Treble bleed: a series arrangement needs its resistor.
