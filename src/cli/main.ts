@@ -16,6 +16,7 @@ import { registerCompare } from './commands/compare.js';
 import type { Io } from './io.js';
 import { COILBENCH_VERSION } from './version.js';
 import { EXIT_BAD_INPUT, EXIT_OK, describeCommanderError, describeError } from './describe-error.js';
+import { removeLeftoversSync } from './interrupt.js';
 
 export { EXIT_BAD_INPUT, EXIT_FAILURE, EXIT_INTERRUPTED, EXIT_OK } from './describe-error.js';
 
@@ -72,6 +73,7 @@ function reportError(error: unknown, io: Io, verbose: boolean, argv: readonly st
     for (const line of describeCommanderError(error.code, error.message, commandName)) io.stderr(line);
     return EXIT_BAD_INPUT;
   }
+  removeLeftoversSync(); // a failed render leaves no scratch audio and no temporary file
   const described = describeError(error, verbose);
   for (const line of described.lines) io.stderr(line);
   return described.status;

@@ -1,4 +1,4 @@
-import { resolve } from 'node:path';
+import { dirname, resolve } from 'node:path';
 import type { Command } from 'commander';
 import {
   type CircuitLoad,
@@ -29,7 +29,7 @@ import { createProgress } from '../progress.js';
 import { readGuitarFile } from '../read-guitar.js';
 import { findOutputProblems } from '../guard-outputs.js';
 import { type AudioMetrics, REFERENCE_PHRASE, measureWiringAudio } from '../../render/index.js';
-import { writeFileAtomicSync } from '../../render/index.js';
+import { removeStaleTempFiles, writeFileAtomicSync } from '../../render/index.js';
 import { wiringRecord } from './wirings.js';
 
 interface AnalyzeOptions extends CircuitOptionText, AlikeOptionText {
@@ -106,7 +106,7 @@ export function registerAnalyze(program: Command, io: Io): void {
     .option('--markdown', 'print a Markdown table')
     .option('--sort <column>', `order rows by ${sortNames().join('|')} (default id)`)
     .option('--no-audio', 'skip level, loudness and brightness (they need each wiring rendered in memory)');
-  addAlikeOptions(addCircuitOptions(command)).action((file: string, options: AnalyzeOptions) => {
+  addAlikeOptions(addCircuitOptions(command)).action(async (file: string, options: AnalyzeOptions) => {
     const guitar = readGuitarFile(file, io.cwd);
     const problems: InputProblem[] = [];
     const overrides = parseCircuitOptions(options, guitar, problems);
@@ -139,6 +139,7 @@ export function registerAnalyze(program: Command, io: Io): void {
 
     if (options.csv !== undefined) {
       const path = resolve(io.cwd, options.csv);
+      await removeStaleTempFiles(dirname(path)); // what a killed earlier run may have left
       writeFileAtomicSync(path, renderCsv(rows));
       io.stderr(`coilbench: wrote ${options.csv} (${rows.length} wirings)\n`);
     }
