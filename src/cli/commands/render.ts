@@ -10,6 +10,7 @@ import {
   type RenderOutcome,
   WAV_FORMATS,
   type WavFormat,
+  RENDER_TAIL_S,
   defaultOutputRoot,
   describeChain,
   outputFolder,
@@ -37,6 +38,7 @@ import { createProgress } from '../progress.js';
 import { readGuitarFile } from '../read-guitar.js';
 import { guardOutputs } from '../guard-outputs.js';
 import { readInputText } from '../read-input-file.js';
+import { checkWorkSize, estimateRender } from '../estimate-work.js';
 import { COILBENCH_VERSION } from '../version.js';
 
 /** Sample rates a file may be written at, Hz (common practice for audio files). */
@@ -61,6 +63,8 @@ export interface RenderOptionText extends CircuitOptionText, AlikeOptionText {
   readonly hum?: string;
   readonly humLevel?: string;
   readonly seed?: string;
+  /** Start work past the size limit without asking (src/cli/estimate-work.ts). */
+  readonly yes?: boolean;
 }
 
 export function addRenderOptions(command: Command): Command {
@@ -75,7 +79,8 @@ export function addRenderOptions(command: Command): Command {
       .option('--level <mode>', 'true: one common gain, levels as the circuit makes them (default); matched: every file at one loudness')
       .option('--hum <hz>', 'mix mains hum at 50 or 60 Hz into every file, through each wiring\'s own hum pickup')
       .option('--hum-level <volts>', `peak hum EMF in a nominal coil with --hum, like "5mV" (default ${DEFAULT_HUM_EMF_V * 1000} mV)`)
-      .option('--seed <n>', 'seed of the pluck noise (default 1)'),
+      .option('--seed <n>', 'seed of the pluck noise (default 1)')
+      .option('--yes', 'start even when the render is estimated past 10 minutes or 5 GB'),
   ));
 }
 
@@ -185,8 +190,11 @@ export async function runRender(file: string, guitar: Guitar, options: RenderOpt
   const parsed = parseRenderOptions(options, guitar, all, io);
   const root = resolve(io.cwd, options.output ?? defaultRoot ?? defaultOutputRoot('.', guitar.name));
   guardOutputs(renderInputs(file, options.phrase), [{ option: options.output === undefined ? 'output folder' : '--output', path: options.output ?? root, kind: 'folder' }], io.cwd);
+  const lastNoteS = parsed.phrase.notes.reduce((latest, note) => Math.max(latest, note.timeS), 0);
+  const estimate = estimateRender(parsed.selected.length, lastNoteS + RENDER_TAIL_S, parsed.sampleRateHz, parsed.format);
+  const big = checkWorkSize(io, 'render', estimate, { yes: options.yes === true, picked: (options.only?.length ?? 0) > 0, where: root });
   const folder = outputFolder(root);
-  const progress = createProgress(io);
+  const progress = createProgress(io, undefined, { plainLines: big });
   const started = performance.now();
   const outcome = await renderGuitar(
     {
