@@ -3,6 +3,7 @@
  * figure (level, loudness, centroid, group), add its field to
  * `AnalyzedWiring` and one entry to `METRIC_COLUMNS`.
  */
+import { escapeMarkdown } from '../report/index.js';
 import { HUM_FLOOR_DB, type WiringCircuitMetrics } from '../circuit/index.js';
 import type { Wiring } from '../wiring/index.js';
 
@@ -237,7 +238,7 @@ export function renderCsv(rows: readonly AnalyzedWiring[], columns: readonly Met
 }
 
 function markdownCell(text: string): string {
-  return text.replace(/\|/gu, '\\|');
+  return escapeMarkdown(text);
 }
 
 /** A Markdown (GitHub-flavoured) table of the Markdown columns. */

@@ -40,6 +40,7 @@ import { guardOutputs } from '../guard-outputs.js';
 import { readInputText } from '../read-input-file.js';
 import { checkWorkSize, estimateRender } from '../estimate-work.js';
 import { COILBENCH_VERSION } from '../version.js';
+import { escapeMarkdown } from '../../report/index.js';
 
 /** Sample rates a file may be written at, Hz (common practice for audio files). */
 export const SAMPLE_RATES_HZ: readonly number[] = Object.freeze([44_100, 48_000, 88_200, 96_000]);
@@ -223,7 +224,7 @@ export async function runRender(file: string, guitar: Guitar, options: RenderOpt
     group: groupOf.get(row.wiring.id) ?? null,
   }));
   await writeFileAtomic(folder.wiringsCsv, renderCsv(tableRows));
-  const heading = `# ${guitar.name}\n\n${outcome.rows.length} wirings rendered from \`${file}\`: phrase ${parsed.phrase.name}, ${describeChain(parsed.chain)}.\n\n`;
+  const heading = `# ${escapeMarkdown(guitar.name)}\n\n${describeRenderedCount(outcome.rows.length, all.length)} from ${escapeMarkdown(file)}: phrase ${escapeMarkdown(parsed.phrase.name)}, ${describeChain(parsed.chain)}.\n\n`;
   const caution =
     '\nRenders are models of the circuit and strings: make the final choice by ear on the real instrument. Start playback at a low volume. ' +
     'When you solder, use an iron stand, ventilate and wash your hands afterwards, check continuity with a meter before closing up, and never open an amplifier (its capacitors can hold a lethal charge).\n';
@@ -232,6 +233,12 @@ export async function runRender(file: string, guitar: Guitar, options: RenderOpt
   progress.finish();
   const seconds = (performance.now() - started) / 1000;
   return { outcome, root, seconds };
+}
+
+/** "47 wirings rendered", or "5 wirings rendered of 47; groups over all 47" when only some were. */
+export function describeRenderedCount(rendered: number, all: number): string {
+  const noun = (count: number): string => `${count} wiring${count === 1 ? '' : 's'}`;
+  return rendered === all ? `${noun(rendered)} rendered` : `${noun(rendered)} rendered of ${all}; groups over all ${all}`;
 }
 
 /** The summary line and where to look. */
@@ -245,7 +252,7 @@ export function reportRender(io: Io, root: string, outcome: RenderOutcome, secon
       : `loudness matched at ${outcome.matchedLoudnessLufs?.toFixed(1) ?? '?'} LUFS`;
   const speed = outcome.written > 0 && seconds > 0 ? `, ${(outcome.audioSeconds / seconds).toFixed(0)}× real time` : '';
   io.stderr(
-    `coilbench: ${count} wirings in ${where}/wav: ${outcome.written} written, ${outcome.skipped} unchanged (${level}; ${seconds.toFixed(1)} s${speed})\n`,
+    `coilbench: ${describeRenderedCount(count, outcome.distinct.spectra.count)} in ${where}/wav: ${outcome.written} written, ${outcome.skipped} unchanged (${level}; ${seconds.toFixed(1)} s${speed})\n`,
   );
   io.stderr(`coilbench: ${groupHeadline(outcome.distinct.spectra.count, outcome.distinct)}; see "Which wirings sound alike" on the page and in report.md\n`);
   io.stdout(`${where}/index.html\n`);
