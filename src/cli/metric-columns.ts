@@ -244,7 +244,7 @@ function markdownCell(text: string): string {
 /** A Markdown (GitHub-flavoured) table of the Markdown columns. */
 export function renderMarkdownTable(rows: readonly AnalyzedWiring[], columns: readonly MetricColumn[] = METRIC_COLUMNS): string {
   const shown = columns.filter((column) => column.markdown);
-  const header = `| ${shown.map((column) => markdownCell(column.title)).join(' | ')} |`;
+  const header = `| ${shown.map((column) => column.title.replace(/\|/gu, '\\|')).join(' | ')} |`; // our own titles: only the cell separator escaped
   const rule = `|${shown.map((column) => (column.align === 'right' ? ' ---: ' : ' --- ')).join('|')}|`;
   const body = rows.map((row) => `| ${shown.map((column) => markdownCell(column.text(row))).join(' | ')} |`);
   return [header, rule, ...body].join('\n') + '\n';
