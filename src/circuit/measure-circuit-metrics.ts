@@ -9,10 +9,12 @@
  * with polarity"), and each pattern's hum is Σ_i p_i·m_i·h_i·T_i⁰(mains).
  * So the figures are solved once per network shape (837 shapes for the 9997
  * wirings of five coils) and the hum once more per wiring from those.
+ * Coupled coils keep their relative phase in the shape (phase-class.ts).
  */
 import type { Guitar } from '../guitar/index.js';
 import type { Coil } from '../guitar/index.js';
-import { type Network, coilPhases, shapeKey, withoutPhases } from '../wiring/index.js';
+import type { Network } from '../wiring/index.js';
+import { phaseClassKey, phaseClassNetwork, phaseClassSigns } from './phase-class.js';
 import { magnetSign } from './coil-signs.js';
 import type { CircuitLoad, CircuitOverrides } from './circuit-load.js';
 import { ANALYSIS_POINTS, analysisFrequencies } from './frequency-grid.js';
@@ -76,17 +78,17 @@ export function measureCircuitMetrics(
   const shapes = new Map<string, { resonance: ResonanceMetrics; mainsTransfers: Float64Array }>();
   const phases = new Float64Array(guitar.coils.length);
   const metrics = wirings.map(({ network }): WiringCircuitMetrics => {
-    const key = shapeKey(network);
+    const key = phaseClassKey(guitar, network);
     let shape = shapes.get(key);
     if (shape === undefined) {
-      const inPhase = withoutPhases(network);
+      const inPhase = phaseClassNetwork(guitar, network);
       solveTransfers(prepared, inPhase, transfers);
       const resonance = measureResonance(prepared, inPhase, transfers);
       const atMains = solveTransfers(mains, inPhase, probeTransfers(prepared));
       shape = { resonance, mainsTransfers: Float64Array.from(atMains.flatMap((transfer) => [transfer[0] as number, transfer[1] as number])) };
       shapes.set(key, shape);
     }
-    coilPhases(guitar.elements, network, phases);
+    phaseClassSigns(guitar, network, phases);
     // H = Σ_i m_i·h_i·T_i = Σ_i p_i·m_i·h_i·T_i⁰ (measure-hum.ts)
     let re = 0;
     let im = 0;

@@ -19,6 +19,7 @@ import {
   logSpacedFrequencies,
   measureCircuitMetrics,
   measureResponseDb,
+  phaseClassKey,
   prepareCircuit,
   renderNetlist,
   solveTransfers,
@@ -26,14 +27,14 @@ import {
   AUDIO_BAND_LOW_HZ,
 } from '../circuit/index.js';
 import { type AlikeThresholds, type Distinctness, measureDistinctness } from '../analysis/index.js';
+import { WorkError } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
 import {
   type ListeningReport,
+  pageAudioPath,
+  renderPageAudioScript,
   type ReportGroups,
   type ReportWiring,
-  pageAudioPath,
-  renderListeningPage,
-  renderPageAudioScript,
   reportGuitar,
 } from '../report/index.js';
 import type { Phrase } from '../string/index.js';
@@ -52,9 +53,9 @@ import { defaultThreadCount, runRenderPassOnThreads } from './run-render-pass.js
 import { type OutputFolder, netlistFileName, wavFileName } from './output-folder.js';
 import { gainToDb, planMatchedGains, planTrueLevelGain } from './plan-gains.js';
 import { MANIFEST_VERSION, type Manifest, hashOf, readManifest } from './render-manifest.js';
-import { shapeKey } from '../wiring/index.js';
 import { type WavFormat, encodeWav } from './wav-file.js';
 import { removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
+import { writeListeningPage } from './write-listening-page.js';
 
 /** Bump when the sound of a render changes for the same inputs (string model, pickup, chain), so old files are redone. */
 export const RENDER_MODEL_VERSION = 1;
@@ -85,6 +86,10 @@ export interface RenderRequest {
   readonly folder: OutputFolder;
   /** Name of the generator for report.json ("coilbench 0.1.0"). */
   readonly generator: string;
+  /** Also write `wav/<name>.wav.js` beside each WAV for the comparison page of `compare --render` (the listening page needs none). */
+  readonly pageAudioCopies?: boolean;
+  /** Write the WAV files (default true); false writes only the page, netlists and reports. */
+  readonly writeWav?: boolean;
   /** Threads for the first pass (default: the machine's cores, at most two). */
   readonly threads?: number;
   /** "Sounds alike" thresholds for the groups in the report (src/analysis defaults when absent). */
@@ -104,8 +109,8 @@ export interface RenderedWiring {
   readonly levelDb: number;
   readonly loudnessLufs: number;
   readonly centroidHz: number;
-  /** Path of the WAV relative to the folder. */
-  readonly wav: string;
+  /** Path of the WAV relative to the folder, or null with `writeWav: false`. */
+  readonly wav: string | null;
 }
 
 export interface RenderOutcome {
@@ -191,7 +196,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   // that the manifest does not already hold, spread over threads.
   const selectedIds = new Set(request.selected.map((wiring) => wiring.id));
   // Phase patterns of one network shape share their transfers: render them one after another.
-  const needed = groupByShape(request.all.filter((wiring) => wiring.elements.length === 1 || selectedIds.has(wiring.id)));
+  const needed = groupByShape(guitar, request.all.filter((wiring) => wiring.elements.length === 1 || selectedIds.has(wiring.id)));
   const raw = new Map<string, RawAudioMetrics>();
   const scratchFiles = new Map<string, string>();
   const items: PassItem[] = [];
@@ -205,8 +210,8 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     if (metricsCached && entry.metrics) raw.set(wiring.id, entry.metrics);
     const missingLoudness = request.level === 'matched' && entry.audio?.loudnessLufs === null;
     const audioCached = entry.audioHash === audioHash && entry.audio !== undefined && !missingLoudness;
-    const wantAudio = selectedIds.has(wiring.id) && !audioCached;
-    if (!metricsCached || wantAudio) items.push({ id: wiring.id, network: wiring.network, metrics: !metricsCached, audio: wantAudio });
+    const wantAudio = request.writeWav !== false && selectedIds.has(wiring.id) && !audioCached;
+    if (!metricsCached || wantAudio) items.push({ id: wiring.id, name: wiring.expression, network: wiring.network, metrics: !metricsCached, audio: wantAudio });
   }
   const expressionOf = new Map(needed.map((wiring) => [wiring.id, wiring.expression]));
   events.onStage?.('rendering', items.length);
@@ -230,9 +235,16 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   let renderer: WiringRenderer | undefined;
   const processedAudio = (wiring: Wiring): Promise<Float32Array> => {
     renderer ??= createWiringRenderer(settings);
-    return renderer.processed(wiring.network);
+    return renderer.processed(wiring.network, undefined, wiring.expression);
   };
   await saveManifest();
+  // A wiring whose chain failed twice: what the others made is kept in the manifest, so the same command finishes the work.
+  const failures = results.filter((result) => result.failure !== undefined).map((result) => result.failure as string);
+  if (failures.length > 0) {
+    rmSync(scratch, { recursive: true, force: true });
+    activeScratchFolders.delete(scratch);
+    throw new WorkError(`${failures.join('; ')}; nothing written was lost, and running the same command again finishes the render`);
+  }
   const audioMetrics = referLevels(request.all, raw);
 
   // Gains: one for all files, or one per file to a common loudness.
@@ -259,38 +271,45 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   events.onStage?.('writing', selected.length);
   let written = 0;
   let skipped = 0;
-  for (const [index, wiring] of selected.entries()) {
-    const entry = entries[wiring.expression] as Entry;
-    const gain = gains[index] ?? 1;
-    const name = wavFileName(wiring);
-    const path = join(folder.wavFolder, name);
-    const pageAudio = join(folder.root, pageAudioPath(relative(folder.root, path)));
-    const fileHash = hashOf({ audio: entry.audioHash, gain: gain.toPrecision(12), format: request.format, name });
-    if (entry.fileHash === fileHash && entry.file === name && existsSync(path) && existsSync(pageAudio)) {
-      skipped += 1;
-    } else {
-      const parked = scratchFiles.get(wiring.id);
-      const audio = parked ? readScratch(parked) : await processedAudio(wiring);
-      for (let n = 0; n < audio.length; n += 1) audio[n] = (audio[n] as number) * gain;
-      const bytes = encodeWav(audio, {
-        sampleRateHz: request.sampleRateHz,
-        format: request.format,
-        info: {
-          name: wiring.expression,
-          comment: `${wiring.description}; phrase ${request.phrase.name}; ${request.chain} chain; ${request.level === 'true' ? 'true relative level' : 'loudness matched'}`,
-          software: request.generator,
-        },
-      });
-      // Written in the background while the next wiring is prepared; the manifest records a file only once it is whole.
-      await writes.add(async () => {
-        await writeFileAtomic(path, bytes);
-        await writeFileAtomic(pageAudio, renderPageAudioScript(wiring.id, bytes));
-        Object.assign(entry, { fileHash, file: name });
-      });
-      await saveManifest(false);
-      written += 1;
+  try {
+    for (const [index, wiring] of selected.entries()) {
+      const entry = entries[wiring.expression] as Entry;
+      const gain = gains[index] ?? 1;
+      const name = wavFileName(wiring);
+      const path = join(folder.wavFolder, name);
+      const fileHash = hashOf({ audio: entry.audioHash, gain: gain.toPrecision(12), format: request.format, name });
+      const pageAudio = request.pageAudioCopies ? join(folder.root, pageAudioPath(relative(folder.root, path))) : null;
+      if (request.writeWav === false || (entry.fileHash === fileHash && entry.file === name && existsSync(path) && (pageAudio === null || existsSync(pageAudio)))) {
+        skipped += 1;
+      } else {
+        const parked = scratchFiles.get(wiring.id);
+        const audio = parked ? readScratch(parked) : await processedAudio(wiring);
+        for (let n = 0; n < audio.length; n += 1) audio[n] = (audio[n] as number) * gain;
+        const bytes = encodeWav(audio, {
+          sampleRateHz: request.sampleRateHz,
+          format: request.format,
+          info: {
+            name: wiring.expression,
+            comment: `${wiring.description}; phrase ${request.phrase.name}; ${request.chain} chain; ${request.level === 'true' ? 'true relative level' : 'loudness matched'}`,
+            software: request.generator,
+          },
+        });
+        // Written in the background while the next wiring is prepared; the manifest records a file only once it is whole.
+        await writes.add(async () => {
+          await writeFileAtomic(path, bytes);
+          if (pageAudio) await writeFileAtomic(pageAudio, renderPageAudioScript(wiring.id, bytes));
+          Object.assign(entry, { fileHash, file: name });
+        });
+        await saveManifest(false);
+        written += 1;
+      }
+      events.onStep?.(index + 1, selected.length);
     }
-    events.onStep?.(index + 1, selected.length);
+  } catch (error) {
+    // Keep the record of every file already whole, so a re-run skips them and finishes the rest.
+    await writes.drain().catch(() => undefined);
+    await saveManifest();
+    throw error;
   }
   await writes.drain();
   await saveManifest();
@@ -322,7 +341,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
       levelDb: audio?.levelDb ?? Number.NaN,
       loudnessLufs: audio?.loudnessLufs ?? Number.NaN,
       centroidHz: audio?.centroidHz ?? Number.NaN,
-      wav: relative(folder.root, join(folder.wavFolder, wavFileName(wiring))).split('\\').join('/'),
+      wav: request.writeWav === false ? null : relative(folder.root, join(folder.wavFolder, wavFileName(wiring))).split('\\').join('/'),
     };
   });
   const reportWirings: ReportWiring[] = rows.map((row) => {
@@ -373,7 +392,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     groups: reportGroups(request.all, distinct),
   };
   await writeFileAtomic(folder.reportJson, `${JSON.stringify(report, null, 2)}\n`);
-  await writeFileAtomic(folder.page, renderListeningPage(report));
+  await writeListeningPage(folder.page, report, request);
   return { report, rows, written, skipped, commonGainDb, matchedLoudnessLufs, audioSeconds, distinct };
 }
 
@@ -440,11 +459,11 @@ export function removeScratchFoldersSync(): void {
   activeScratchFolders.clear();
 }
 
-/** Wirings reordered so those sharing a network shape are adjacent (stable within a shape). */
-function groupByShape(wirings: readonly Wiring[]): Wiring[] {
+/** Wirings reordered so those sharing a network shape (a phase class, with coupled coils) are adjacent (stable within one). */
+function groupByShape(guitar: Guitar, wirings: readonly Wiring[]): Wiring[] {
   const groups = new Map<string, Wiring[]>();
   for (const wiring of wirings) {
-    const key = shapeKey(wiring.network);
+    const key = phaseClassKey(guitar, wiring.network);
     groups.set(key, [...(groups.get(key) ?? []), wiring]);
   }
   return [...groups.values()].flat();

@@ -7,13 +7,22 @@
  * Output samples are volts at the amplifier input: the coils' string EMF is
  * string velocity (m/s, from src/pickup) times COIL_VOLTS_PER_METRE_PER_SECOND.
  */
-import { type CircuitOverrides, type PreparedCircuit, magnetSign, prepareCircuit, solveTransfers } from '../circuit/index.js';
+import {
+  type CircuitOverrides,
+  type PreparedCircuit,
+  magnetSign,
+  phaseClassKey,
+  phaseClassNetwork,
+  phaseClassSigns,
+  prepareCircuit,
+  solveTransfers,
+} from '../circuit/index.js';
 import { InputError } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
 import { nextPowerOfTwo, realFft } from '../math/index.js';
 import { computeCoilSpectra, pickupDelaySamples } from '../pickup/index.js';
 import { type Phrase, type StringOptions, renderPhrase } from '../string/index.js';
-import { type Network, coilPhases, shapeKey, withoutPhases } from '../wiring/index.js';
+import type { Network } from '../wiring/index.js';
 
 /**
  * EMF a coil of relative sensitivity 1 gives per m/s of string velocity
@@ -52,33 +61,116 @@ export interface WiringSynthesis {
   synthesizeHum(network: Network, mainsHz: number, emfVolts: number, out?: Float32Array): Float32Array;
 }
 
-/** Render the strings and coil spectra once; return a function that renders any wiring. */
-export function prepareWiringSynthesis(guitar: Guitar, phrase: Phrase, options: SynthesisOptions): WiringSynthesis {
+/**
+ * Each coil's EMF for a performance as a time signal, the form the listening
+ * page carries: e_i(n) = IFFT(E_i)(n) for n < storedLength (the rest of the
+ * FFT frame is silence: the strings fade to zero at the end of the render and
+ * the pickup's centred response reaches at most 2·delay samples past it).
+ */
+export interface CoilSignals {
+  readonly sampleRateHz: number;
+  /** Samples in every wiring's output. */
+  readonly length: number;
+  /** Samples by which every coil signal is delayed so that each stays causal (`pickupDelaySamples`). */
+  readonly delay: number;
+  readonly fftSize: number;
+  /** One signal per coil (guitar.coils order), volts, `storedLength` samples each. */
+  readonly signals: readonly Float32Array[];
+}
+
+/** Render the strings and each coil's EMF spectrum (volts) for a phrase: the expensive part, done once. */
+export function renderCoilSpectra(
+  guitar: Guitar,
+  phrase: Phrase,
+  options: Pick<SynthesisOptions, 'sampleRateHz' | 'seed' | 'strings'>,
+): { spectra: Float64Array[]; length: number; delay: number; fftSize: number } {
   const strings = renderPhrase(guitar, phrase, { ...options.strings, sampleRateHz: options.sampleRateHz, seed: options.seed });
   const delay = pickupDelaySamples(guitar, strings);
   const fftSize = nextPowerOfTwo(strings.length + delay);
-  const fft = realFft(fftSize);
   const spectra = computeCoilSpectra(guitar, strings, fftSize);
   for (const spectrum of spectra) for (let k = 0; k < spectrum.length; k += 1) spectrum[k] = (spectrum[k] as number) * COIL_VOLTS_PER_METRE_PER_SECOND;
+  return { spectra, length: strings.length, delay, fftSize };
+}
 
+/** Samples of a coil signal worth keeping: the render, the delay before it and the pickup response's reach after it. */
+export function storedCoilSamples(length: number, delay: number, fftSize: number): number {
+  return Math.min(fftSize, length + 2 * delay);
+}
+
+/** The coil signals of a performance (for the listening page): the inverse FFT of each E_i, rounded to float32. */
+export function renderCoilSignals(guitar: Guitar, phrase: Phrase, options: Pick<SynthesisOptions, 'sampleRateHz' | 'seed' | 'strings'>): CoilSignals {
+  const { spectra, length, delay, fftSize } = renderCoilSpectra(guitar, phrase, options);
+  const fft = realFft(fftSize);
+  const time = new Float64Array(fftSize);
+  const stored = storedCoilSamples(length, delay, fftSize);
+  const signals = spectra.map((spectrum) => {
+    fft.inverse(spectrum, time);
+    return Float32Array.from(time.subarray(0, stored));
+  });
+  return { sampleRateHz: options.sampleRateHz, length, delay, fftSize, signals };
+}
+
+/** Each coil's spectrum E_i from its stored signal (zero-padded to the FFT frame): the page's way back to the synthesis. */
+export function coilSpectraOfSignals(coils: CoilSignals): Float64Array[] {
+  const fft = realFft(coils.fftSize);
+  const time = new Float64Array(coils.fftSize);
+  return coils.signals.map((signal) => {
+    time.fill(0);
+    for (let n = 0; n < signal.length && n < time.length; n += 1) time[n] = signal[n] as number;
+    return Float64Array.from(fft.forward(time));
+  });
+}
+
+/**
+ * Render the strings and coil spectra once; return a function that renders
+ * any wiring. The spectra are taken from the float32 coil signals the
+ * listening page carries (`renderCoilSignals`), so the command line and the
+ * page synthesise from the very same numbers: float32 rounding of a coil
+ * signal is −144 dB of it, but a wiring whose coils cancel deeply (out of
+ * phase) would expose it at about −76 dB of its own output, so both hosts
+ * use the rounded signals.
+ */
+export function prepareWiringSynthesis(guitar: Guitar, phrase: Phrase, options: SynthesisOptions): WiringSynthesis {
+  const coils = renderCoilSignals(guitar, phrase, options);
+  return createWiringSynthesis(guitar, { ...coils, spectra: coilSpectraOfSignals(coils) }, options.overrides);
+}
+
+/** The coil spectra a synthesis sums, and where its output sits in the FFT frame. */
+export interface CoilSpectra {
+  readonly spectra: readonly Float64Array[];
+  readonly length: number;
+  readonly delay: number;
+  readonly fftSize: number;
+  readonly sampleRateHz: number;
+}
+
+/**
+ * A synthesis from coil spectra already computed: the part the command line
+ * and the listening page share (the page computes the spectra from the coil
+ * signals it carries, `coilSpectraOfSignals`).
+ */
+export function createWiringSynthesis(guitar: Guitar, coils: CoilSpectra, overrides: CircuitOverrides): WiringSynthesis {
+  const { spectra, length, delay, fftSize, sampleRateHz } = coils;
+  const options = { sampleRateHz, overrides };
+  const fft = realFft(fftSize);
   const binsHz = new Float64Array(fft.bins);
   for (let k = 0; k < fft.bins; k += 1) binsHz[k] = (k * options.sampleRateHz) / fftSize;
   const circuit = prepareCircuit(guitar, binsHz, options.overrides);
   const transfers = guitar.coils.map(() => new Float64Array(2 * fft.bins));
   const output = new Float64Array(2 * fft.bins);
   const time = new Float64Array(fftSize);
-  const length = strings.length;
 
-  // A wiring's phases only flip the signs of its coils' transfers (T_i carries p_i), so the
-  // products T_i·E_i of the unsigned network are kept for the last shape rendered, and each
-  // phase pattern of that shape costs a signed sum and one inverse FFT.
+  // A wiring's phases only flip the signs of its coils' transfers (T_i carries p_i; coupled
+  // coils keep their relative phase, circuit/phase-class.ts), so the products T_i·E_i of the
+  // class representative are kept for the last class rendered, and each phase pattern of that
+  // class costs a signed sum and one inverse FFT.
   const products = guitar.coils.map(() => new Float64Array(2 * fft.bins));
   const used = new Uint8Array(guitar.coils.length);
   let cachedShape = '';
   const solveShape = (network: Network): void => {
-    const shape = shapeKey(network);
+    const shape = phaseClassKey(guitar, network);
     if (shape === cachedShape) return;
-    solveTransfers(circuit, withoutPhases(network), transfers);
+    solveTransfers(circuit, phaseClassNetwork(guitar, network), transfers);
     transfers.forEach((transfer, coil) => {
       const emf = spectra[coil] as Float64Array;
       const product = products[coil] as Float64Array;
@@ -101,7 +193,7 @@ export function prepareWiringSynthesis(guitar: Guitar, phrase: Phrase, options: 
 
   const synthesize = (network: Network, out = new Float32Array(length)): Float32Array => {
     solveShape(network);
-    coilPhases(guitar.elements, network, signs);
+    phaseClassSigns(guitar, network, signs);
     // Y(f) = Σ_i p_i·T_i(f)·E_i(f) with T_i of the unsigned network.
     output.fill(0);
     products.forEach((product, coil) => {
