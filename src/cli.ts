@@ -1,10 +1,7 @@
 #!/usr/bin/env node
 /** Entry point for the `coilbench` command. */
 import { main, processIo } from './cli/index.js';
-import { releaseFolderLocksSync, removePendingTempFilesSync, removeScratchFoldersSync } from './render/index.js';
-
-/** Exit status after an interrupt (128 + SIGINT's number 2, the shell convention). */
-const INTERRUPTED_STATUS = 130;
+import { installInterruptHandlers } from './cli/interrupt.js';
 
 // A reader that stops early (`coilbench wirings … | head`) is not an error.
 process.stdout.on('error', (error: NodeJS.ErrnoException) => {
@@ -12,17 +9,8 @@ process.stdout.on('error', (error: NodeJS.ErrnoException) => {
   throw error;
 });
 
-// Ctrl-C: finished files are whole (written under a temporary name, then renamed);
-// remove the temporary file being written, and let the next run complete the set.
-for (const signal of ['SIGINT', 'SIGTERM'] as const) {
-  process.on(signal, () => {
-    removePendingTempFilesSync();
-    removeScratchFoldersSync();
-    releaseFolderLocksSync();
-    process.stderr.write('\ncoilbench: interrupted; files already written are complete, and the next run finishes the rest\n');
-    process.exit(INTERRUPTED_STATUS);
-  });
-}
+// Ctrl-C and SIGTERM: no partial file, no scratch, a message saying how to resume (src/cli/interrupt.ts).
+installInterruptHandlers();
 
 const status = await main(process.argv.slice(2), processIo());
 process.exitCode = status;

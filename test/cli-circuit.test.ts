@@ -1,8 +1,8 @@
 import { spawnSync } from 'node:child_process';
-import { existsSync, mkdtempSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { existsSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { testFolder } from './support/temporary-folder.js';
 import { captureIo, main } from '../src/cli/index.js';
 import { prepareCircuit, solveTransfers } from '../src/circuit/index.js';
 import { parseGuitarText } from '../src/guitar/index.js';
@@ -87,7 +87,7 @@ describe('coilbench analyze', () => {
   });
 
   it('--csv writes the file whole (through a temporary name) with every column', async () => {
-    const folder = mkdtempSync(join(tmpdir(), 'coilbench-csv-'));
+    const folder = testFolder('csv');
     const { status, err } = await run(folder, 'analyze', join(samples, 'three-single-coil.json'), '--csv', 'wirings.csv');
     expect(status).toBe(0);
     expect(err).toContain('wrote wirings.csv (47 wirings)');
@@ -98,7 +98,7 @@ describe('coilbench analyze', () => {
   });
 
   it('bad overrides: one line each, exit 2, nothing written', async () => {
-    const folder = mkdtempSync(join(tmpdir(), 'coilbench-bad-'));
+    const folder = testFolder('bad');
     const { status, out, err } = await run(
       folder, 'analyze', join(samples, 'three-single-coil.json'),
       '--csv', 'out.csv', '--volume', '11', '--tone', 'bright', '--cable', '9', '--mains', '55', '--sort', 'sparkle',
@@ -116,7 +116,7 @@ describe('coilbench analyze', () => {
   });
 
   it('--tone on a guitar without a tone control is refused', async () => {
-    const folder = mkdtempSync(join(tmpdir(), 'coilbench-notone-'));
+    const folder = testFolder('notone');
     const guitar = JSON.parse(readFileSync(join(samples, 'two-lead-humbucker.json'), 'utf8')) as { controls: Record<string, unknown> };
     guitar.controls.tone = null;
     writeFileSync(join(folder, 'g.json'), JSON.stringify(guitar));
@@ -199,7 +199,7 @@ describe('netlists in plain ngspice (Debian ngspice, `ngspice -b`)', () => {
     const guitar = parseGuitarText(readFileSync(join(samples, 'humbucker-two-single-coil.json'), 'utf8'));
     const wiring = enumerateWirings(guitar.elements).find((candidate) => candidate.expression === 'neck + (~mid // bridge_screw)');
     expect(wiring).toBeDefined();
-    const folder = mkdtempSync(join(tmpdir(), 'coilbench-ngspice-'));
+    const folder = testFolder('ngspice');
     const { out } = await run(samples, 'netlist', 'humbucker-two-single-coil.json', wiring?.expression ?? '');
     writeFileSync(join(folder, 'w.cir'), out);
     const result = spawnSync('ngspice', ['-b', join(folder, 'w.cir')], { encoding: 'utf8' });

@@ -4,10 +4,10 @@
  * are checked in src/analysis (against exact per-bin sums, brute force and
  * hand-worked values); here the commands must carry them faithfully.
  */
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { testFolder } from './support/temporary-folder.js';
 import { captureIo, main } from '../src/cli/index.js';
 import { maxOf, minOf } from '../src/math/index.js';
 
@@ -76,7 +76,7 @@ describe('coilbench analyze: groups of alike wirings', () => {
 
 describe('render and demo: the groups in the folder', () => {
   it('report.json carries every rendered wiring\'s group and the groups; report.md and the page name them', async () => {
-    const folder = mkdtempSync(join(tmpdir(), 'coilbench-groups-'));
+    const folder = testFolder('groups');
     try {
       const { status, err } = await run('render', 'three-single-coil.json', '-o', folder, '--chain', 'direct', '--only', 'w11', '--only', 'w45', '--only', 'w5');
       expect(status, err).toBe(0);
@@ -145,7 +145,7 @@ describe('coilbench shortlist', () => {
   });
 
   it('--render renders just the chosen wirings into their own folder, with --json naming it', async () => {
-    const folder = mkdtempSync(join(tmpdir(), 'coilbench-shortlist-'));
+    const folder = testFolder('shortlist');
     try {
       const { status, out, err } = await run('shortlist', 'three-single-coil.json', '--count', '3', '--hum-cancelling', '--render', '-o', folder, '--chain', 'direct', '--json');
       expect(status, err).toBe(0);
@@ -218,7 +218,7 @@ describe('coilbench compare', () => {
   });
 
   it('the bundled candidate set and a longer cable, against the demo, biggest changes first', async () => {
-    const folder = mkdtempSync(join(tmpdir(), 'coilbench-compare-'));
+    const folder = testFolder('compare');
     const demo = JSON.parse(readFileSync(join(samples, 'three-single-coil.json'), 'utf8')) as Record<string, unknown>;
     writeFileSync(join(folder, 'cable.json'), JSON.stringify({ ...demo, name: 'Demo with a 1.2 nF cable (invented)', cable: { capacitance: '1200p' } }));
     const { status, out } = await run('compare', 'three-single-coil.json', 'three-single-coil-alt.json', join(folder, 'cable.json'), '--json');
@@ -236,7 +236,7 @@ describe('coilbench compare', () => {
   });
 
   it('--render writes each set in its own folder and the comparison page beside them; --json names the page', async () => {
-    const folder = mkdtempSync(join(tmpdir(), 'coilbench-compare-render-'));
+    const folder = testFolder('compare-render');
     try {
       const { status, out, err } = await run('compare', 'two-lead-humbucker.json', 'two-lead-humbucker.json', '--render', '-o', folder, '--chain', 'direct', '--json');
       expect(status, err).toBe(0);
@@ -267,7 +267,7 @@ describe('coilbench compare', () => {
   });
 
   it('--map renames coil ids; without it the message says to use it', async () => {
-    const folder = mkdtempSync(join(tmpdir(), 'coilbench-map-'));
+    const folder = testFolder('map');
     const demo = JSON.parse(readFileSync(join(samples, 'three-single-coil.json'), 'utf8')) as { coils: Array<Record<string, unknown>> };
     const renamed = { ...demo, coils: demo.coils.map((coil, index) => ({ ...coil, id: ['front', 'centre', 'back'][index] })) };
     writeFileSync(join(folder, 'renamed.json'), JSON.stringify(renamed));

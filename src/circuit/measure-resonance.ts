@@ -167,21 +167,38 @@ export function measureResonance(
   );
   const peakValue = Math.max(peak.value, bestValue);
   const target = peakValue * HALF_POWER_AMPLITUDE;
+  // The half-power crossings are searched outward from the refined peak itself: a sharp resonance can stand
+  // far above the grid points beside it, so that even the best grid point is already below half power, and a
+  // bracket starting there would have both ends below the target (no crossing, NaN).
+  const peakHz = peak.value >= bestValue ? peak.hz : (grid[best] as number);
+  const peakAt = peak.value >= bestValue ? peak.value : bestValue;
   let lowHz: number | null = null;
-  for (let k = best - 1; k >= first; k -= 1) {
+  let insideHz = peakHz;
+  let insideValue = peakAt;
+  for (let k = best; k >= first; k -= 1) {
+    const f = grid[k] as number;
+    if (f >= peakHz) continue;
     const value = powerSumAt(solved, k);
     if (value <= target) {
-      lowHz = refineCrossing(prepared, network, grid[k + 1] as number, powerSumAt(solved, k + 1), grid[k] as number, value, target);
+      lowHz = refineCrossing(prepared, network, insideHz, insideValue, f, value, target);
       break;
     }
+    insideHz = f;
+    insideValue = value;
   }
   let highHz: number | null = null;
-  for (let k = best + 1; k <= last; k += 1) {
+  insideHz = peakHz;
+  insideValue = peakAt;
+  for (let k = best; k <= last; k += 1) {
+    const f = grid[k] as number;
+    if (f <= peakHz) continue;
     const value = powerSumAt(solved, k);
     if (value <= target) {
-      highHz = refineCrossing(prepared, network, grid[k - 1] as number, powerSumAt(solved, k - 1), grid[k] as number, value, target);
+      highHz = refineCrossing(prepared, network, insideHz, insideValue, f, value, target);
       break;
     }
+    insideHz = f;
+    insideValue = value;
   }
   const resonanceQ = lowHz !== null && highHz !== null ? peak.hz / (highHz - lowHz) : null;
   return { resonanceHz: peak.hz, peakDb: toDb(peakValue), resonanceQ };

@@ -5,13 +5,12 @@
  * stack trace only with --verbose.
  */
 import { Command, CommanderError } from 'commander';
-import { InputError, WorkError, formatProblem } from '../errors/index.js';
 import type { Io } from './io.js';
 import { COILBENCH_VERSION } from './version.js';
+import { EXIT_BAD_INPUT, EXIT_OK, describeCommanderError, describeError } from './describe-error.js';
+import { removeLeftoversSync } from './interrupt.js';
 
-export const EXIT_OK = 0;
-export const EXIT_FAILURE = 1;
-export const EXIT_BAD_INPUT = 2;
+export { EXIT_BAD_INPUT, EXIT_FAILURE, EXIT_INTERRUPTED, EXIT_OK } from './describe-error.js';
 
 const VERSION = COILBENCH_VERSION;
 
@@ -49,20 +48,18 @@ function buildProgram(io: Io, registers: readonly Register[]): Command {
     .version(VERSION)
     .option('--verbose', 'show stack traces on errors')
     .exitOverride()
-    .showHelpAfterError('(run coilbench --help for usage)')
     .configureOutput({
       writeOut: (text) => io.stdout(text),
       writeErr: (text) => io.stderr(text),
-      outputError: (text, write) => write(`coilbench: ${text.replace(/^error: /u, '')}`),
+      outputError: () => undefined, // reported as one problem line by describeCommanderError
     });
   for (const register of registers) register(program, io);
   for (const command of program.commands) {
     command.exitOverride().configureOutput({
       writeOut: (text) => io.stdout(text),
       writeErr: (text) => io.stderr(text),
-      outputError: (text, write) => write(`coilbench: ${text.replace(/^error: /u, '')}`),
+      outputError: () => undefined, // reported as one problem line by describeCommanderError
     });
-    command.showHelpAfterError(`(run coilbench ${command.name()} --help for usage)`);
   }
   return program;
 }
@@ -75,29 +72,21 @@ export async function main(argv: readonly string[], io: Io): Promise<number> {
     await program.parseAsync([...argv], { from: 'user' });
     return EXIT_OK;
   } catch (error) {
-    return reportError(error, io, verbose);
+    return reportError(error, io, verbose, argv, program);
   }
 }
 
-function reportError(error: unknown, io: Io, verbose: boolean): number {
+function reportError(error: unknown, io: Io, verbose: boolean, argv: readonly string[], program: Command): number {
   if (error instanceof CommanderError) {
     if (error.code === 'commander.helpDisplayed' || error.code === 'commander.version' || error.code === 'commander.help') {
       return EXIT_OK;
     }
-    return EXIT_BAD_INPUT; // commander has already printed its message
-  }
-  if (error instanceof InputError) {
-    for (const problem of error.problems) io.stderr(`coilbench: ${formatProblem(problem)}\n`);
-    if (verbose) io.stderr(`${error.stack ?? ''}\n`);
+    const commandName = argv.find((word) => program.commands.some((command) => command.name() === word));
+    for (const line of describeCommanderError(error.code, error.message, commandName)) io.stderr(line);
     return EXIT_BAD_INPUT;
   }
-  if (error instanceof WorkError) {
-    io.stderr(`coilbench: ${error.message}\n`);
-    if (verbose) io.stderr(`${error.stack ?? ''}\n`);
-    return EXIT_FAILURE;
-  }
-  const message = error instanceof Error ? error.message : String(error);
-  io.stderr(`coilbench: internal error: ${message}${verbose ? '' : ' (run with --verbose for details)'}\n`);
-  if (verbose && error instanceof Error) io.stderr(`${error.stack ?? ''}\n`);
-  return EXIT_FAILURE;
+  removeLeftoversSync(); // a failed render leaves no scratch audio and no temporary file
+  const described = describeError(error, verbose);
+  for (const line of described.lines) io.stderr(line);
+  return described.status;
 }

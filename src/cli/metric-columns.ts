@@ -3,6 +3,7 @@
  * figure (level, loudness, centroid, group), add its field to
  * `AnalyzedWiring` and one entry to `METRIC_COLUMNS`.
  */
+import { escapeMarkdown } from '../report/index.js';
 import { HUM_FLOOR_DB, type WiringCircuitMetrics } from '../circuit/index.js';
 import type { Wiring } from '../wiring/index.js';
 
@@ -246,13 +247,13 @@ export function renderCsv(rows: readonly AnalyzedWiring[], columns: readonly Met
 }
 
 function markdownCell(text: string): string {
-  return text.replace(/\|/gu, '\\|');
+  return escapeMarkdown(text);
 }
 
 /** A Markdown (GitHub-flavoured) table of the Markdown columns. */
 export function renderMarkdownTable(rows: readonly AnalyzedWiring[], columns: readonly MetricColumn[] = METRIC_COLUMNS): string {
   const shown = columns.filter((column) => column.markdown);
-  const header = `| ${shown.map((column) => markdownCell(column.title)).join(' | ')} |`;
+  const header = `| ${shown.map((column) => column.title.replace(/\|/gu, '\\|')).join(' | ')} |`; // our own titles: only the cell separator escaped
   const rule = `|${shown.map((column) => (column.align === 'right' ? ' ---: ' : ' --- ')).join('|')}|`;
   const body = rows.map((row) => `| ${shown.map((column) => markdownCell(column.text(row))).join(' | ')} |`);
   return [header, rule, ...body].join('\n') + '\n';

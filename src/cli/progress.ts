@@ -15,20 +15,57 @@ export interface Progress {
   finish(): void;
 }
 
-export function createProgress(io: Io, now: () => number = () => performance.now()): Progress {
-  if (!io.stderrIsTerminal) return { stage() {}, step() {}, finish() {} };
+/** Fraction of the work between plain progress lines when standard error is not a terminal. */
+const PLAIN_LINE_FRACTION = 0.1;
+/** Least work done before time left is shown (earlier guesses swing too much). */
+const MIN_FRACTION_FOR_TIME_LEFT = 0.02;
+
+/** "3 min 20 s left", "12 s left". */
+function timeLeft(startedMs: number, nowMs: number, done: number, total: number): string {
+  if (total <= 0 || done / total < MIN_FRACTION_FOR_TIME_LEFT) return '';
+  const seconds = ((nowMs - startedMs) / 1000) * ((total - done) / done);
+  if (seconds >= 60) return ` ${Math.floor(seconds / 60)} min ${Math.round(seconds % 60)} s left`;
+  return ` ${Math.round(seconds)} s left`;
+}
+
+/**
+ * A bar with the time left on a terminal; with `plainLines` (big work), a
+ * plain line every tenth of the work when standard error is not a terminal.
+ */
+export function createProgress(io: Io, now: () => number = () => performance.now(), options: { plainLines?: boolean } = {}): Progress {
+  if (!io.stderrIsTerminal) {
+    if (!options.plainLines) return { stage() {}, step() {}, finish() {} };
+    let plainName = '';
+    let plainStarted = 0;
+    let nextLine = 0;
+    return {
+      stage(stageName, total) {
+        plainName = stageName;
+        plainStarted = now();
+        nextLine = Math.max(1, Math.ceil(total * PLAIN_LINE_FRACTION));
+      },
+      step(done, total) {
+        if (done < nextLine) return;
+        nextLine = done + Math.max(1, Math.ceil(total * PLAIN_LINE_FRACTION));
+        io.stderr(`coilbench: ${plainName} ${done}/${total}${timeLeft(plainStarted, now(), done, total)}\n`);
+      },
+      finish() {},
+    };
+  }
   let name = '';
   let last = Number.NEGATIVE_INFINITY;
+  let started = 0;
   let drawn = false;
   const draw = (done: number, total: number): void => {
     const filled = total > 0 ? Math.round((done / total) * BAR_WIDTH) : BAR_WIDTH;
-    io.stderr(`\r${name.padEnd(10)} [${'#'.repeat(filled)}${'.'.repeat(BAR_WIDTH - filled)}] ${done}/${total}`);
+    io.stderr(`\r\u001b[2K${name.padEnd(10)} [${'#'.repeat(filled)}${'.'.repeat(BAR_WIDTH - filled)}] ${done}/${total}${timeLeft(started, now(), done, total)}`);
     drawn = true;
   };
   return {
     stage(stageName, total) {
       name = stageName;
       last = now();
+      started = last;
       draw(0, total);
     },
     step(done, total) {

@@ -17,10 +17,16 @@ export interface InputProblem {
   readonly got: string;
 }
 
-/** Longest shown form of an offending value before it is cut short. */
-const MAX_SHOWN_CHARACTERS = 60;
+import { escapeForMessage } from './escape-text.js';
 
-/** Show a value from the input the way the user wrote it, cut short if long. */
+/** Longest shown form of an offending value before it is elided. */
+const MAX_SHOWN_CHARACTERS = 60;
+/** Longest shown path (a field path or a file name) before it is elided. */
+const MAX_SHOWN_PATH = 120;
+/** Longest shown expectation; ours are short, but they may quote a name from the file. */
+const MAX_SHOWN_EXPECTED = 400;
+
+/** Show a value from the input the way the user wrote it: hidden characters visible, elided with its length if long. */
 export function showValue(value: unknown): string {
   if (value === undefined) return 'nothing';
   let text: string;
@@ -29,12 +35,12 @@ export function showValue(value: unknown): string {
   } catch {
     text = String(value);
   }
-  return text.length > MAX_SHOWN_CHARACTERS ? `${text.slice(0, MAX_SHOWN_CHARACTERS - 1)}…` : text;
+  return escapeForMessage(text, MAX_SHOWN_CHARACTERS);
 }
 
-/** Render one problem as a line of text. */
+/** Render one problem as one line of text (names from the input escaped and shortened). */
 export function formatProblem(problem: InputProblem): string {
-  return `${problem.path}: expected ${problem.expected}, got ${problem.got}`;
+  return `${escapeForMessage(problem.path, MAX_SHOWN_PATH)}: expected ${escapeForMessage(problem.expected, MAX_SHOWN_EXPECTED)}, got ${escapeForMessage(problem.got, MAX_SHOWN_EXPECTED)}`;
 }
 
 /** Make a problem from a path, the expectation and the raw value found. */

@@ -25,6 +25,7 @@ function quantity(
   return { type: 'quantity', quantity: quantityKind, description, min, max, rangeText, zeroAllowed };
 }
 
+
 const knob = (what: string): FieldSpec => ({
   type: 'number',
   description: `${what} knob setting, 0 (fully down) to 10 (fully up).`,

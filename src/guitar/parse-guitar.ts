@@ -30,6 +30,32 @@ export const MAX_WIRING_ELEMENTS = 6;
 /** Capacitance per metre used when a cable gives a length but no capacitance per metre (common practice: 100–125 pF/m is usual). */
 export const DEFAULT_CABLE_CAPACITANCE_PER_METRE_F = 100e-12;
 
+/** Wiring numbers as commands accept them (`w1`, `w12`): no coil or pickup may be named so. */
+const WIRING_NUMBER_PATTERN = /^w\d+$/u;
+
+/**
+ * Series–parallel networks on k labelled elements, k = 1…8: OEIS A006351
+ * (1, 2, 8, 52, 472, 5504, 78416, 1320064).
+ */
+const SERIES_PARALLEL_NETWORKS = [1, 2, 8, 52, 472, 5504, 78416, 1320064];
+
+/**
+ * Distinct wirings of n elements, for messages about guitars too large to
+ * enumerate: Σ over k of C(n, k) · A006351(k) · 2^(k−1) (every subset of k
+ * elements, each of its networks, each phase pattern up to flipping them
+ * all). Gives 1, 6, 47, 572, 9997, 228386 for n = 1…6, the counts the
+ * enumeration produces.
+ */
+export function wiringCountFor(n: number): number {
+  let total = 0;
+  let choose = 1; // C(n, k), updated as k grows
+  for (let k = 1; k <= n; k += 1) {
+    choose = (choose * (n - k + 1)) / k;
+    total += choose * (SERIES_PARALLEL_NETWORKS[k - 1] ?? Number.NaN) * 2 ** (k - 1);
+  }
+  return total;
+}
+
 type Raw = Record<string, unknown>;
 
 const asRecord = (value: unknown): Raw => (typeof value === 'object' && value !== null ? (value as Raw) : {});
@@ -61,6 +87,16 @@ export function parseGuitar(raw: unknown): Guitar {
     if (earlier !== undefined) {
       problems.push(problemAt(`coils[${index}].id`, `a name not used by another coil (coils[${earlier}] is already "${id}")`, id));
     } else firstUse.set(id, index);
+  });
+
+  // No coil or pickup named like a wiring number ("w12" selects a wiring wherever a wiring is named).
+  coilsRaw.forEach((coil, index) => {
+    for (const field of ['id', 'pickup'] as const) {
+      const name = asString(asRecord(coil)[field]);
+      if (name !== undefined && WIRING_NUMBER_PATTERN.test(name)) {
+        problems.push(problemAt(`coils[${index}].${field}`, 'a name that is not a wiring number like "w1" (those select wirings)', name));
+      }
+    }
   });
 
   // Coils inside the scale.
@@ -152,8 +188,13 @@ export function parseGuitar(raw: unknown): Guitar {
   }
   const elements = buildElements(coils, pickups);
   if (elements.length > MAX_WIRING_ELEMENTS) {
+    const count = wiringCountFor(elements.length);
     throw new InputError([
-      problemAt('coils', `at most ${MAX_WIRING_ELEMENTS} wiring elements (coils on their own leads plus two-lead pickups)`, `${elements.length} elements`),
+      {
+        path: 'coils',
+        expected: `at most ${MAX_WIRING_ELEMENTS} wiring elements (coils on their own leads plus two-lead pickups; ${MAX_WIRING_ELEMENTS} give ${wiringCountFor(MAX_WIRING_ELEMENTS).toLocaleString('en-US')} wirings)`,
+        got: `${elements.length} elements, which would give ${count.toLocaleString('en-US')} wirings`,
+      },
     ]);
   }
 

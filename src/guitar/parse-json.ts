@@ -6,6 +6,36 @@
  */
 import { InputError } from '../errors/index.js';
 
+/**
+ * Deepest nesting of objects and lists accepted in an input file (judgement:
+ * a guitar file nests 4 deep, a phrase file 3; far deeper is a mistake or an
+ * attack, and would exhaust the call stack of recursive readers).
+ */
+export const MAX_JSON_DEPTH = 32;
+/**
+ * Largest input file accepted, characters (judgement: a guitar file is a few
+ * kB; a phrase file at its 20,000-note limit is about 1.6 MB).
+ */
+export const MAX_JSON_CHARACTERS = 4 * 1024 * 1024;
+
+/** Offset at which nesting first passes `limit` (brackets inside strings do not count), or undefined. */
+export function findTooDeep(text: string, limit: number = MAX_JSON_DEPTH): number | undefined {
+  let depth = 0;
+  let inString = false;
+  for (let i = 0; i < text.length; i += 1) {
+    const code = text.charCodeAt(i);
+    if (inString) {
+      if (code === 0x5c) i += 1; // backslash: skip the escaped character
+      else if (code === 0x22) inString = false;
+    } else if (code === 0x22) inString = true;
+    else if (code === 0x7b || code === 0x5b) {
+      depth += 1;
+      if (depth > limit) return i;
+    } else if (code === 0x7d || code === 0x5d) depth -= 1;
+  }
+  return undefined;
+}
+
 /** Line and column (both from 1) of a character offset in a text. */
 export function lineAndColumn(text: string, offset: number): { line: number; column: number } {
   let line = 1;
@@ -144,6 +174,16 @@ export function findJsonFault(text: string): SyntaxFault | undefined {
 /** Parse JSON text; on a syntax error throw an InputError naming `source` with line and column. */
 export function parseJsonText(text: string, source: string): unknown {
   const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text; // tolerate a UTF-8 byte-order mark
+  if (body.length > MAX_JSON_CHARACTERS) {
+    throw InputError.at(source, `a file of at most ${MAX_JSON_CHARACTERS / (1024 * 1024)} MB`, `${body.length} characters`);
+  }
+  const deep = findTooDeep(body);
+  if (deep !== undefined) {
+    const where = lineAndColumn(body, deep);
+    throw new InputError([
+      { path: `${source}:${where.line}:${where.column}`, expected: `objects and lists nested at most ${MAX_JSON_DEPTH} deep`, got: 'deeper nesting' },
+    ]);
+  }
   try {
     return JSON.parse(body);
   } catch (error) {

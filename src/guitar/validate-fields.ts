@@ -11,6 +11,9 @@ import type { FieldSpec, ObjectSpec, QuantitySpec } from './field-spec.js';
 export const PITCH_MIN_HZ = 20;
 export const PITCH_MAX_HZ = 2000;
 
+/** Control characters no text field may hold (C0 and C1 controls and DEL; line breaks and tabs are allowed, in notes). */
+const CONTROL_CHARACTER = /[\u0000-\u0008\u000B-\u001F\u007F-\u009F]/u;
+
 /** Normalised value: plain JSON with numbers in SI units. */
 export type Normalised = unknown;
 
@@ -103,6 +106,10 @@ export function validateField(
     case 'string': {
       if (typeof raw !== 'string' || raw.trim() === '' || raw.length > spec.maxLength) {
         problems.push(problemAt(path, `a non-empty text of at most ${spec.maxLength} characters`, raw));
+        return undefined;
+      }
+      if (CONTROL_CHARACTER.test(raw)) {
+        problems.push(problemAt(path, 'text without control characters (line breaks and tabs are allowed)', raw));
         return undefined;
       }
       if (spec.pattern && !spec.pattern.test(raw)) {

@@ -7,9 +7,16 @@ import { slugify } from '../guitar/index.js';
 import { FOLDER_MARKER } from './folder-claim.js';
 import { guitarFolderName } from './folder-name.js';
 import type { Wiring } from '../wiring/index.js';
+import { hashOf } from './render-manifest.js';
 
-/** Longest part of a WAV name taken from the wiring's description. */
-const MAX_DESCRIPTION_SLUG = 48;
+/**
+ * Longest part of a WAV name taken from the wiring's description, characters:
+ * with the number, "-", ".wav.js" (the page's copy) the name stays well
+ * under the 255-byte limit of common file systems (NAME_MAX).
+ */
+const MAX_DESCRIPTION_SLUG = 200;
+/** Hex characters of the hash that ends a cut name (32 bits: a clash between two cut names of one guitar is vanishingly unlikely). */
+const NAME_HASH_CHARACTERS = 8;
 
 export interface OutputFolder {
   readonly root: string;
@@ -47,10 +54,19 @@ export function outputFolder(root: string): OutputFolder {
   };
 }
 
-/** File name of a wiring's render: its number and a readable slug ("w9-neck-and-bridge-in-series-bridge-out-of-phase.wav"). */
+/**
+ * File name of a wiring's render: its number and its whole description as a
+ * slug ("w9-neck-and-bridge-in-series-bridge-out-of-phase.wav"), so names read
+ * differently wherever descriptions do. A description too long for a file
+ * name is cut and ends in a short hash of the whole description, so two cut
+ * names never read alike; the full expression is in the WAV's INFO and the
+ * reports.
+ */
 export function wavFileName(wiring: Pick<Wiring, 'id' | 'description'>): string {
-  const words = slugify(wiring.description, 'wiring').slice(0, MAX_DESCRIPTION_SLUG).replace(/-+$/u, '');
-  return `${wiring.id}-${words}.wav`;
+  const words = slugify(wiring.description, 'wiring', Number.POSITIVE_INFINITY);
+  if (words.length <= MAX_DESCRIPTION_SLUG) return `${wiring.id}-${words}.wav`;
+  const cut = words.slice(0, MAX_DESCRIPTION_SLUG - NAME_HASH_CHARACTERS - 1).replace(/-+$/u, '');
+  return `${wiring.id}-${cut}-${hashOf(wiring.description).slice(0, NAME_HASH_CHARACTERS)}.wav`;
 }
 
 /** File name of a wiring's SPICE netlist. */

@@ -18,7 +18,7 @@ import { randomBytes } from 'node:crypto';
 import { closeSync, fsyncSync, openSync, renameSync, rmSync, writeSync } from 'node:fs';
 import { type FileHandle, open, readdir, rename, rm, stat } from 'node:fs/promises';
 import { dirname, join } from 'node:path';
-import { WorkError } from '../errors/index.js';
+import { WorkError, describeFileSystemCode, fileSystemCodeOf } from '../errors/index.js';
 
 /** Every temporary file starts with this (hidden, and listed in .gitignore). */
 export const TEMP_FILE_PREFIX = '.coilbench-';
@@ -37,8 +37,9 @@ function temporaryPathFor(path: string): string {
 }
 
 function reason(error: unknown): string {
-  if (error instanceof Error) return 'code' in error && typeof error.code === 'string' ? `${error.code} (${error.message})` : error.message;
-  return String(error);
+  const code = fileSystemCodeOf(error);
+  if (code !== undefined) return describeFileSystemCode(code);
+  return error instanceof Error ? error.message : String(error);
 }
 
 function failure(path: string, error: unknown): WorkError {

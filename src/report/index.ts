@@ -15,3 +15,4 @@ export type { ComparisonDifference, ComparisonEntry, ComparisonReport, Compariso
 export { renderComparisonPage } from './render-comparison-page.js';
 export { planComparisonGains } from './plan-comparison-gains.js';
 export type { ComparisonGains } from './plan-comparison-gains.js';
+export { escapeMarkdown } from './escape-markdown.js';

@@ -106,7 +106,7 @@ export function checkPhraseFits(guitar: Pick<Guitar, 'scaleM' | 'strings'>, phra
 }
 
 /** Every note on a string the guitar has, plucked between the bridge and the fret. */
-function checkPhraseFitsGuitar(phrase: Phrase, guitar: Pick<Guitar, 'scaleM' | 'strings'>, defaultPluckM: number): void {
+export function checkPhraseFitsGuitar(phrase: Phrase, guitar: Pick<Guitar, 'scaleM' | 'strings'>, defaultPluckM: number): void {
   const problems: InputProblem[] = [];
   const count = guitar.strings.length;
   phrase.notes.forEach((note: PhraseNote, i) => {

@@ -1,4 +1,4 @@
-import { resolve } from 'node:path';
+import { dirname, resolve } from 'node:path';
 import type { Command } from 'commander';
 import {
   type CircuitLoad,
@@ -28,8 +28,11 @@ import {
 } from '../metric-columns.js';
 import { createProgress } from '../progress.js';
 import { readGuitarFile } from '../read-guitar.js';
+import { findOutputProblems } from '../guard-outputs.js';
+import { checkWorkSize, estimateAnalyze } from '../estimate-work.js';
+import { wiringCountFor } from '../../guitar/index.js';
 import { type AudioMetrics, REFERENCE_PHRASE, measureWiringAudio } from '../../render/index.js';
-import { writeFileAtomicSync } from '../../render/index.js';
+import { removeStaleTempFiles, writeFileAtomicSync } from '../../render/index.js';
 import { wiringRecord } from './wirings.js';
 
 interface AnalyzeOptions extends CircuitOptionText, AlikeOptionText {
@@ -39,6 +42,8 @@ interface AnalyzeOptions extends CircuitOptionText, AlikeOptionText {
   readonly csv?: string;
   readonly markdown?: boolean;
   readonly sort?: string;
+  /** Start work past the size limit without asking. */
+  readonly yes?: boolean;
 }
 
 const SILENT_NOTE = 'the volume at 0 shorts the output to ground: nothing reaches the amplifier, so every wiring is silent and has no figures';
@@ -105,8 +110,9 @@ export function registerAnalyze(program: Command, io: Io): void {
     .option('--csv <file>', 'also write the table as CSV to FILE')
     .option('--markdown', 'print a Markdown table')
     .option('--sort <column>', `order rows by ${sortNames().join('|')} (default id)`)
-    .option('--no-audio', 'skip level, loudness and brightness (they need each wiring rendered in memory)');
-  addAlikeOptions(addCircuitOptions(command)).action((file: string, options: AnalyzeOptions) => {
+    .option('--no-audio', 'skip level, loudness and brightness (they need each wiring rendered in memory)')
+    .option('--yes', 'start even when the analysis is estimated past 10 minutes');
+  addAlikeOptions(addCircuitOptions(command)).action(async (file: string, options: AnalyzeOptions) => {
     const guitar = readGuitarFile(file, io.cwd);
     const problems: InputProblem[] = [];
     const overrides = parseCircuitOptions(options, guitar, problems);
@@ -116,13 +122,16 @@ export function registerAnalyze(program: Command, io: Io): void {
     }
     if (options.json && options.markdown) problems.push(problemAt('--markdown', 'either --json or --markdown, not both', '--json --markdown'));
     if (options.csv !== undefined && options.csv.trim() === '') problems.push(problemAt('--csv', 'a file name', options.csv));
+    else if (options.csv !== undefined) problems.push(...findOutputProblems([file], [{ option: '--csv', path: options.csv, kind: 'file' }], io.cwd));
     if (problems.length > 0) throw new InputError(problems);
 
+    const estimate = estimateAnalyze(wiringCountFor(guitar.elements.length), options.audio !== false);
+    const big = checkWorkSize(io, options.audio === false ? 'analysis (no audio)' : 'analysis', estimate, { yes: options.yes === true, picked: false });
     const wirings = enumerateWirings(guitar.elements);
     const analysis = measureCircuitMetrics(guitar, wirings, overrides);
     let audio: ReadonlyMap<string, AudioMetrics> | undefined;
     if (options.audio !== false && !analysis.silent) {
-      const progress = createProgress(io);
+      const progress = createProgress(io, undefined, { plainLines: big });
       progress.stage('rendering', wirings.length);
       audio = measureWiringAudio(guitar, wirings, wirings, overrides, (done, total) => progress.step(done, total));
       progress.finish();
@@ -138,6 +147,7 @@ export function registerAnalyze(program: Command, io: Io): void {
 
     if (options.csv !== undefined) {
       const path = resolve(io.cwd, options.csv);
+      await removeStaleTempFiles(dirname(path)); // what a killed earlier run may have left
       writeFileAtomicSync(path, renderCsv(rows));
       io.stderr(`coilbench: wrote ${options.csv} (${rows.length} wirings)\n`);
     }

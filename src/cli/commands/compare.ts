@@ -17,7 +17,7 @@ import {
 import type { Wiring } from '../../wiring/index.js';
 import { createProgress } from '../progress.js';
 import { COILBENCH_VERSION } from '../version.js';
-import { listRenderedFiles, parseRenderOptions, shownPath } from './render.js';
+import { listRenderedFiles, parseRenderOptions, renderInputs, shownPath } from './render.js';
 import { InputError, type InputProblem, problemAt } from '../../errors/index.js';
 import type { Guitar } from '../../guitar/index.js';
 import { type AlikeOptionText, addAlikeOptions, describeThresholds, parseAlikeOptions } from '../alike-options.js';
@@ -27,6 +27,7 @@ import { collectOption } from '../collect-option.js';
 import type { Io } from '../io.js';
 import { readGuitarFile } from '../read-guitar.js';
 import { maxOf, appendAll } from '../../math/index.js';
+import { guardOutputs } from '../guard-outputs.js';
 
 interface CompareOptions extends CircuitOptionText, AlikeOptionText {
   readonly map: string[];
@@ -240,6 +241,8 @@ async function renderComparison(base: Guitar, comparisons: readonly GuitarCompar
       return { guitar: comparison.candidate.guitar, all: comparison.candidate.wirings, selected: [...selected].sort((a, b) => a.number - b.number) };
     }),
   ];
+  const entries = ['comparison.json', 'index.html', ...sets.map((_, index) => `${setFolder(index)}/`)];
+  guardOutputs([...renderInputs(files[0] ?? '', options.phrase), ...files.slice(1)], [{ option: options.output === undefined ? 'output folder' : '--output', path: root, kind: 'folder', entries }], io.cwd);
   // Every set's options are checked before the folder is claimed or anything is written.
   const parsedSets = sets.map((set) =>
     parseRenderOptions(

@@ -14,6 +14,7 @@ import {
   type WavFormat,
   REFERENCE_PHRASE,
   claimOutputFolder,
+  RENDER_TAIL_S,
   defaultOutputRoot,
   describeChain,
   outputFolder,
@@ -24,7 +25,16 @@ import {
 } from '../../render/index.js';
 import { resolveCircuitLoad } from '../../circuit/index.js';
 import { pageAudioPath } from '../../report/index.js';
-import { BUILT_IN_PHRASES, type BuiltInPhraseName, type Phrase, builtInPhrase, checkPhraseFits, parsePhrase } from '../../string/index.js';
+import {
+  BUILT_IN_PHRASES,
+  type BuiltInPhraseName,
+  DEFAULT_STRING_OPTIONS,
+  type Phrase,
+  builtInPhrase,
+  checkPhraseFits,
+  checkPhraseFitsGuitar,
+  parsePhrase,
+} from '../../string/index.js';
 import { QuantityError, parseQuantity } from '../../units/index.js';
 import { type Wiring, enumerateWirings, findWiring, vocabularyOf } from '../../wiring/index.js';
 import { type AlikeOptionText, addAlikeOptions, parseAlikeOptions } from '../alike-options.js';
@@ -35,8 +45,12 @@ import type { Io } from '../io.js';
 import { renderCsv, renderMarkdownTable } from '../metric-columns.js';
 import { createProgress } from '../progress.js';
 import { readGuitarFile } from '../read-guitar.js';
+import { guardOutputs } from '../guard-outputs.js';
+import { readInputText } from '../read-input-file.js';
+import { checkWorkSize, estimateRender } from '../estimate-work.js';
 import { COILBENCH_VERSION } from '../version.js';
 import { appendAll } from '../../math/index.js';
+import { escapeMarkdown } from '../../report/index.js';
 
 /** Sample rates a file may be written at, Hz (common practice for audio files). */
 export const SAMPLE_RATES_HZ: readonly number[] = Object.freeze([44_100, 48_000, 88_200, 96_000]);
@@ -61,6 +75,8 @@ export interface RenderOptionText extends CircuitOptionText, AlikeOptionText {
   readonly humLevel?: string;
   readonly seed?: string;
   readonly force?: boolean;
+  /** Start work past the size limit without asking (src/cli/estimate-work.ts). */
+  readonly yes?: boolean;
   /** False with --no-wav. */
   readonly wav?: boolean;
 }
@@ -79,7 +95,8 @@ export function addRenderOptions(command: Command): Command {
       .option('--hum-level <volts>', `peak hum EMF in a nominal coil with --hum, like "5mV" (default ${DEFAULT_HUM_EMF_V * 1000} mV)`)
       .option('--seed <n>', 'seed of the pluck noise (default 1)')
       .option('--force', 'write into a folder coilbench did not make, replacing only the files coilbench writes (index.html, report.*, wirings.csv, wav/, netlists/)')
-      .option('--no-wav', 'write only the listening page, netlists and reports (the page plays every wiring without the WAV files)'),
+      .option('--no-wav', 'write only the listening page, netlists and reports (the page plays every wiring without the WAV files)')
+      .option('--yes', 'start even when the render is estimated past 10 minutes or 5 GB'),
   ));
 }
 
@@ -105,7 +122,9 @@ function readPhrase(text: string | undefined, guitar: Guitar, io: Io, problems: 
     return undefined;
   }
   try {
-    return parsePhrase(readFileSync(path, 'utf8'), name, guitar.strings.length);
+    const phrase = parsePhrase(readInputText(name, io.cwd, 'phrase file (JSON)'), name, guitar.strings.length);
+    checkPhraseFitsGuitar(phrase, guitar, DEFAULT_STRING_OPTIONS.pluckM); // every pluck on its string, before anything is written
+    return phrase;
   } catch (error) {
     if (error instanceof InputError) {
       appendAll(problems, error.problems);
@@ -212,11 +231,20 @@ export function parseRenderOptions(options: RenderOptionText, guitar: Guitar, al
   };
 }
 
+/** The files a render reads: the guitar file, and the phrase file when the phrase is not a built-in one. */
+export function renderInputs(file: string, phrase: string | undefined): string[] {
+  return phrase === undefined || (BUILT_IN_PHRASES as readonly string[]).includes(phrase) ? [file] : [file, phrase];
+}
+
 /** Render a guitar file's wirings into a folder and write the reports; returns the outcome for the summary. */
 export async function runRender(file: string, guitar: Guitar, options: RenderOptionText, io: Io, defaultRoot?: string): Promise<{ outcome: RenderOutcome; root: string; seconds: number }> {
   const all = enumerateWirings(guitar.elements);
   const parsed = parseRenderOptions(options, guitar, all, io);
   const root = resolve(io.cwd, options.output ?? defaultRoot ?? defaultOutputRoot('.', guitar.name));
+  guardOutputs(renderInputs(file, options.phrase), [{ option: options.output === undefined ? 'output folder' : '--output', path: options.output ?? root, kind: 'folder' }], io.cwd);
+  const lastNoteS = parsed.phrase.notes.reduce((latest, note) => Math.max(latest, note.timeS), 0);
+  const estimate = estimateRender(parsed.selected.length, lastNoteS + RENDER_TAIL_S, parsed.sampleRateHz, parsed.format);
+  const big = checkWorkSize(io, 'render', estimate, { yes: options.yes === true, picked: (options.only?.length ?? 0) > 0, where: root });
   const folder = outputFolder(root);
   const claim = claimOutputFolder({
     root,
@@ -233,7 +261,7 @@ export async function runRender(file: string, guitar: Guitar, options: RenderOpt
     note: (line) => io.stderr(`coilbench: ${line}\n`),
   });
   try {
-    const result = await renderIntoFolder(file, guitar, parsed, folder, all, io, options.wav !== false);
+    const result = await renderIntoFolder(file, guitar, parsed, folder, all, io, options.wav !== false, big);
     claim.finish(listRenderedFiles(folder, result.outcome));
     return { ...result, root };
   } catch (error) {
@@ -285,8 +313,9 @@ async function renderIntoFolder(
   all: readonly Wiring[],
   io: Io,
   writeWav: boolean,
+  big: boolean,
 ): Promise<{ outcome: RenderOutcome; seconds: number }> {
-  const progress = createProgress(io);
+  const progress = createProgress(io, undefined, { plainLines: big });
   const started = performance.now();
   const outcome = await renderGuitar(
     {
@@ -316,7 +345,7 @@ async function renderIntoFolder(
     group: groupOf.get(row.wiring.id) ?? null,
   }));
   await writeFileAtomic(folder.wiringsCsv, renderCsv(tableRows));
-  const heading = `# ${guitar.name}\n\n${outcome.rows.length} wirings rendered from \`${file}\`: phrase ${parsed.phrase.name}, ${describeChain(parsed.chain)}.\n\n`;
+  const heading = `# ${escapeMarkdown(guitar.name)}\n\n${describeRenderedCount(outcome.rows.length, all.length)} from ${escapeMarkdown(file)}: phrase ${escapeMarkdown(parsed.phrase.name)}, ${describeChain(parsed.chain)}.\n\n`;
   const caution =
     '\nRenders are models of the circuit and strings: make the final choice by ear on the real instrument. Start playback at a low volume. ' +
     'When you solder, use an iron stand, ventilate and wash your hands afterwards, check continuity with a meter before closing up, and never open an amplifier (its capacitors can hold a lethal charge).\n';
@@ -325,6 +354,12 @@ async function renderIntoFolder(
   progress.finish();
   const seconds = (performance.now() - started) / 1000;
   return { outcome, seconds };
+}
+
+/** "47 wirings rendered", or "5 wirings rendered of 47; groups over all 47" when only some were. */
+export function describeRenderedCount(rendered: number, all: number): string {
+  const noun = (count: number): string => `${count} wiring${count === 1 ? '' : 's'}`;
+  return rendered === all ? `${noun(rendered)} rendered` : `${noun(rendered)} rendered of ${all}; groups over all ${all}`;
 }
 
 /** The summary line and where to look. */
@@ -337,7 +372,7 @@ export function reportRender(io: Io, root: string, outcome: RenderOutcome, secon
       : `loudness matched at ${outcome.matchedLoudnessLufs?.toFixed(1) ?? '?'} LUFS`;
   const speed = outcome.written > 0 && seconds > 0 ? `, ${(outcome.audioSeconds / seconds).toFixed(0)}× real time` : '';
   if (outcome.rows.every((row) => row.wav === null)) io.stderr(`coilbench: ${count} wirings on the listening page, no WAV files (--no-wav; ${seconds.toFixed(1)} s)\n`);
-  else io.stderr(`coilbench: ${count} wirings in ${where}/wav: ${outcome.written} written, ${outcome.skipped} unchanged (${level}; ${seconds.toFixed(1)} s${speed})\n`);
+  else io.stderr(`coilbench: ${describeRenderedCount(count, outcome.distinct.spectra.count)} in ${where}/wav: ${outcome.written} written, ${outcome.skipped} unchanged (${level}; ${seconds.toFixed(1)} s${speed})\n`);
   io.stderr(`coilbench: ${groupHeadline(outcome.distinct.spectra.count, outcome.distinct)}; see "Which wirings sound alike" on the page and in report.md\n`);
   io.stdout(`${where}/index.html\n`);
   io.stderr(`coilbench: open ${where}/index.html in a browser to listen; start at a low volume. Reports: report.md, wirings.csv, report.json; netlists in ${where}/netlists\n`);
