@@ -21,11 +21,12 @@ import {
   measureResponseDb,
   prepareCircuit,
   renderNetlist,
+  sampleCoilDrive,
   solveTransfers,
   AUDIO_BAND_HIGH_HZ,
   AUDIO_BAND_LOW_HZ,
 } from '../circuit/index.js';
-import { type AlikeThresholds, type Distinctness, measureDistinctness } from '../analysis/index.js';
+import { type AlikeThresholds, type Distinctness, measureCoilDrive, measureDistinctness, measureSpectralBasis } from '../analysis/index.js';
 import type { Guitar } from '../guitar/index.js';
 import {
   type ListeningReport,
@@ -52,12 +53,12 @@ import { defaultThreadCount, runRenderPassOnThreads } from './run-render-pass.js
 import { type OutputFolder, netlistFileName, wavFileName } from './output-folder.js';
 import { gainToDb, planMatchedGains, planTrueLevelGain } from './plan-gains.js';
 import { MANIFEST_VERSION, type Manifest, hashOf, readManifest } from './render-manifest.js';
-import { shapeKey } from '../wiring/index.js';
+import { shapeKey, withoutPhases } from '../wiring/index.js';
 import { type WavFormat, encodeWav } from './wav-file.js';
 import { removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
 
 /** Bump when the sound of a render changes for the same inputs (string model, pickup, chain), so old files are redone. */
-export const RENDER_MODEL_VERSION = 1;
+export const RENDER_MODEL_VERSION = 2;
 /** File writes allowed to run in the background at once (each holds one encoded file in memory). */
 const MAX_PENDING_WRITES = 4;
 /** Least time between manifest saves while writing files, ms: an interrupted run loses at most this much record (the files themselves are always whole). */
@@ -306,13 +307,16 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   await writes.drain();
 
   // Circuit metrics and response curves.
-  const circuit = measureCircuitMetrics(guitar, request.all, request.overrides);
+  const basis = measureSpectralBasis(guitar);
+  const drive = measureCoilDrive(basis);
+  const circuit = measureCircuitMetrics(guitar, request.all, request.overrides, { drive });
   const circuitById = new Map(request.all.map((wiring, index) => [wiring.id, circuit.wirings[index] as WiringCircuitMetrics]));
-  const distinct = measureDistinctness(guitar, request.all, { overrides: request.overrides, thresholds: request.thresholds });
+  const distinct = measureDistinctness(guitar, request.all, { overrides: request.overrides, thresholds: request.thresholds, reuseBasis: basis });
   const groupById = new Map(request.all.map((wiring, index) => [wiring.id, distinct.groups.groupOf[index] ?? null]));
   const responseGrid = logSpacedFrequencies(AUDIO_BAND_LOW_HZ, AUDIO_BAND_HIGH_HZ, RESPONSE_POINTS);
   const responseCircuit = prepareCircuit(guitar, responseGrid, request.overrides);
   const transfers = guitar.coils.map(() => new Float64Array(2 * RESPONSE_POINTS));
+  const responseDrive = sampleCoilDrive(drive, responseGrid);
 
   const rows: RenderedWiring[] = selected.map((wiring) => {
     const audio = audioMetrics.get(wiring.id);
@@ -326,8 +330,8 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     };
   });
   const reportWirings: ReportWiring[] = rows.map((row) => {
-    solveTransfers(responseCircuit, row.wiring.network, transfers);
-    const response = measureResponseDb(responseCircuit, row.wiring.network, transfers);
+    solveTransfers(responseCircuit, withoutPhases(row.wiring.network), transfers);
+    const response = measureResponseDb(responseCircuit, row.wiring.network, drive, { sampledDrive: responseDrive, inPhaseTransfers: transfers });
     return {
       id: row.wiring.id,
       number: row.wiring.number,
