@@ -40,39 +40,52 @@ export function incoherentCoilDrive(coilCount: number): CoilDrive {
 }
 
 /**
- * D at `frequencyHz`, written into `out` (2·pairCount numbers): linear
- * interpolation in ln f between the drive's frequencies, held at the ends.
+ * D at `frequencyHz`, written into `out` (2·pairCount numbers): a cubic
+ * Hermite spline in x = ln f through the drive's points, with the
+ * finite-difference tangents m_k = (D_{k+1} − D_{k−1})/(x_{k+1} − x_{k−1})
+ * (one-sided at the ends), held constant outside them. Smooth (C¹), so
+ * R(f) has no kinks at the drive's points for a peak search to lock onto.
+ *   D(x) = h00(t)·D_k + h10(t)·Δx·m_k + h01(t)·D_{k+1} + h11(t)·Δx·m_{k+1},
+ *   h00 = 2t³ − 3t² + 1, h10 = t³ − 2t² + t, h01 = −2t³ + 3t², h11 = t³ − t²
+ * (the cubic Hermite basis; Fritsch & Carlson 1980, SIAM J. Numer. Anal. 17(2)).
  */
 export function coilDriveAt(drive: CoilDrive, frequencyHz: number, out: Float64Array): Float64Array {
   const { frequenciesHz: grid, pairCount, cross } = drive;
   const width = 2 * pairCount;
   const last = grid.length - 1;
-  let from = 0;
-  let to = 0;
-  let t = 0;
-  if (frequencyHz <= (grid[0] as number) || last === 0) {
-    from = 0;
-    to = 0;
-  } else if (frequencyHz >= (grid[last] as number)) {
-    from = last;
-    to = last;
-  } else {
-    // binary search for grid[from] ≤ f < grid[from + 1]
-    let low = 0;
-    let high = last;
-    while (high - low > 1) {
-      const middle = (low + high) >> 1;
-      if ((grid[middle] as number) <= frequencyHz) low = middle;
-      else high = middle;
-    }
-    from = low;
-    to = low + 1;
-    const a = Math.log(grid[from] as number);
-    t = (Math.log(frequencyHz) - a) / (Math.log(grid[to] as number) - a);
+  const hold = (k: number): Float64Array => {
+    for (let p = 0; p < width; p += 1) out[p] = cross[k * width + p] as number;
+    return out;
+  };
+  if (last === 0 || frequencyHz <= (grid[0] as number)) return hold(0);
+  if (frequencyHz >= (grid[last] as number)) return hold(last);
+  // binary search for grid[from] ≤ f < grid[from + 1]
+  let low = 0;
+  let high = last;
+  while (high - low > 1) {
+    const middle = (low + high) >> 1;
+    if ((grid[middle] as number) <= frequencyHz) low = middle;
+    else high = middle;
   }
+  const x = (k: number): number => Math.log(grid[k] as number);
+  const x0 = x(low);
+  const x1 = x(low + 1);
+  const dx = x1 - x0;
+  const t = (Math.log(frequencyHz) - x0) / dx;
+  const t2 = t * t;
+  const t3 = t2 * t;
+  const h00 = 2 * t3 - 3 * t2 + 1;
+  const h10 = t3 - 2 * t2 + t;
+  const h01 = -2 * t3 + 3 * t2;
+  const h11 = t3 - t2;
+  const before = Math.max(0, low - 1);
+  const after = Math.min(last, low + 2);
   for (let p = 0; p < width; p += 1) {
-    const x = cross[from * width + p] as number;
-    out[p] = x + t * ((cross[to * width + p] as number) - x);
+    const d0 = cross[low * width + p] as number;
+    const d1 = cross[(low + 1) * width + p] as number;
+    const m0 = ((d1 - (cross[before * width + p] as number)) / (x1 - x(before))) * dx;
+    const m1 = (((cross[after * width + p] as number) - d0) / (x(after) - x0)) * dx;
+    out[p] = h00 * d0 + h10 * m0 + h01 * d1 + h11 * m1;
   }
   return out;
 }

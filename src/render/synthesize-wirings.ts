@@ -67,7 +67,10 @@ export function prepareWiringSynthesis(guitar: Guitar, phrase: Phrase, options: 
   const transfers = guitar.coils.map(() => new Float64Array(2 * fft.bins));
   const output = new Float64Array(2 * fft.bins);
   const time = new Float64Array(fftSize);
-  const length = strings.length;
+  // The centred pickup response (src/pickup/compute-coil-spectra.ts) of a note at t = 0 starts up to
+  // `delay` samples before it. Every render keeps those samples: it starts `delay` samples before the
+  // phrase's t = 0 (the same lead-in, D/fs ≈ 1–2 ms, for every wiring), so no attack is cut.
+  const length = strings.length + delay;
 
   // A wiring's phases only flip the signs of its coils' transfers (T_i carries p_i), so the
   // products T_i·E_i of the unsigned network are kept for the last shape rendered, and each
@@ -110,8 +113,8 @@ export function prepareWiringSynthesis(guitar: Guitar, phrase: Phrase, options: 
       for (let k = 0; k < output.length; k += 1) output[k] = (output[k] as number) + sign * (product[k] as number);
     });
     fft.inverse(output, time);
-    // The pickup spectra are delayed by `delay` samples so that every coil stays causal; undo it.
-    for (let n = 0; n < length; n += 1) out[n] = time[n + delay] as number;
+    // The pickup spectra are delayed by `delay` samples so that every coil stays causal; sample n is time (n − delay)/fs of the phrase.
+    for (let n = 0; n < length; n += 1) out[n] = time[n] as number;
     return out;
   };
 
