@@ -1,5 +1,5 @@
 /**
- * The numeric core does no I/O (CONVENTIONS.md): files under guitar/, wiring/,
+ * The numeric core does no I/O (DEVELOPERS.md, how code is written): files under guitar/, wiring/,
  * circuit/, string/, pickup/ and analysis/ (and the units, errors and math
  * they rest on) never import node:fs, process, the clock or the console. And
  * other folders import a folder only through its index.ts.

@@ -144,7 +144,7 @@ describe('coilbench netlist', () => {
   it('prints a plain ngspice netlist with one source per used coil, the load, a sweep and a print', async () => {
     const { status, out } = await run(samples, 'netlist', 'three-single-coil.json', 'neck + ~bridge');
     expect(status).toBe(0);
-    expect(out.split('\n')[0]).toBe('coilbench: Demo three single-coil guitar (invented values) - w9: neck + ~bridge');
+    expect(out.split('\n')[0]).toBe('coilbench: Tidewater bench guitar: three single coils (invented values) - w9: neck + ~bridge');
     expect(out.match(/^V(neck|mid|bridge) /gmu)).toEqual(['Vneck ', 'Vbridge ']);
     expect(out).toContain('.ac dec 20 20 20000');
     expect(out).toContain('.print ac vdb(out) vp(out)*180/pi');

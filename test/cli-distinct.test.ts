@@ -227,7 +227,7 @@ describe('coilbench compare', () => {
       if (wiring.resonanceHz.a !== null && wiring.resonanceHz.b !== null) expect(wiring.resonanceHz.b).toBeLessThan(wiring.resonanceHz.a);
     }
     const text = await run('compare', 'three-single-coil.json', 'three-single-coil-alt.json');
-    expect(text.out).toContain('B: Demo three single-coil guitar with a hotter candidate set');
+    expect(text.out).toContain('B: Tidewater with the hotter candidate coils');
     const distances = [...text.out.matchAll(/ (\d+\.\d\d)×(?: {2}yes)?$/gmu)].map((match) => Number(match[1]));
     expect(distances.length).toBe(47);
     expect(distances).toEqual([...distances].sort((a, b) => b - a));

@@ -57,8 +57,8 @@ describe('malformed guitar files, one mistake each', () => {
     const text = JSON.stringify({
       name: 'several',
       coils: [
-        { id: 'a', position: '700mm', resistance: '-1k', inductance: '2H' },
-        { id: 'a', position: '100mm', resistance: '6k', inductance: 'lots' },
+        { id: 'neck', position: '700mm', resistance: '-1k', inductance: '2H' },
+        { id: 'neck', position: '100mm', resistance: '6k', inductance: 'lots' },
       ],
       controls: { volume: { setting: 12 } },
     });

@@ -95,21 +95,21 @@ describe('groupAlikeWirings', () => {
       name: 'Test: two identical coils at one position (invented values)',
       scale: '648mm',
       coils: [
-        { id: 'a', position: '100mm', ...coil },
-        { id: 'b', position: '100mm', ...coil },
-        { id: 'c', position: '40mm', ...coil, resistance: '6.5k', inductance: '2.7H' },
+        { id: 'twin_one', position: '100mm', ...coil },
+        { id: 'twin_two', position: '100mm', ...coil },
+        { id: 'bridge', position: '40mm', ...coil, resistance: '6.5k', inductance: '2.7H' },
       ],
     });
     const { wirings, profiles } = profilesOf(guitar);
     const grouping = groupAlikeWirings(profiles, thresholds);
     const index = (expression: string): number => wirings.findIndex((wiring) => wiring.expression === expression);
     const swapped: Array<[string, string]> = [
-      ['a', 'b'],
-      ['a + c', 'b + c'],
-      ['a + ~c', 'b + ~c'],
-      ['a // c', 'b // c'],
-      ['(a // c) + b', 'a + (b // c)'],
-      ['(a + c) // b', 'a // (b + c)'],
+      ['twin_one', 'twin_two'],
+      ['twin_one + bridge', 'twin_two + bridge'],
+      ['twin_one + ~bridge', 'twin_two + ~bridge'],
+      ['twin_one // bridge', 'twin_two // bridge'],
+      ['(twin_one // bridge) + twin_two', 'twin_one + (twin_two // bridge)'],
+      ['(twin_one + bridge) // twin_two', 'twin_one // (twin_two + bridge)'],
     ];
     for (const [left, right] of swapped) {
       expect(index(left), left).toBeGreaterThanOrEqual(0);
@@ -118,9 +118,9 @@ describe('groupAlikeWirings', () => {
       expect(grouping.groupOf[index(left)], `${left} / ${right}`).toBe(grouping.groupOf[index(right)]);
     }
     // Two identical coils out of phase cancel completely: silent, and alike only to each other's silence.
-    expect(profiles.silent[index('a + ~b')]).toBe(1);
-    expect(grouping.groupOf[index('a + ~b')]).toBe(grouping.groupOf[index('a // ~b')]);
-    expect(grouping.groupOf[index('a + ~b')]).not.toBe(grouping.groupOf[index('a')]);
+    expect(profiles.silent[index('twin_one + ~twin_two')]).toBe(1);
+    expect(grouping.groupOf[index('twin_one + ~twin_two')]).toBe(grouping.groupOf[index('twin_one // ~twin_two')]);
+    expect(grouping.groupOf[index('twin_one + ~twin_two')]).not.toBe(grouping.groupOf[index('twin_one')]);
   });
 
   it('keeps an out-of-phase pair of adjacent coils apart from its in-phase twin', () => {

@@ -32,7 +32,7 @@ function strum(sampleRateHz: number, seed: number): Float32Array {
 }
 
 const cases: readonly Case[] = [
-  // TOOLING.md check value: a 1 kHz sine of amplitude 0.5 reads −9.02 LUFS in ebur128-wasm.
+  // ITU-R BS.1770-4: a full-scale 1 kHz sine reads −3.01 LKFS, so amplitude 0.5 reads −3.01 − 6.02 ≈ −9.03 (derived); ebur128-wasm reads −9.02.
   { name: '1 kHz sine, amplitude 0.5, mono 48 kHz', sampleRateHz: 48_000, channels: [sine(0.5, 1000, 48_000, 5 * 48_000)] },
   { name: 'plucked strum, mono 48 kHz', sampleRateHz: 48_000, channels: [strum(48_000, 1)] },
   { name: 'plucked strum, mono 44.1 kHz', sampleRateHz: 44_100, channels: [strum(44_100, 2)] },
@@ -58,7 +58,7 @@ describe('measureLoudness against ebur128-wasm (reference BS.1770 implementation
     reference = referenceLoudness(cases);
   });
 
-  it('reads the 1 kHz sine check value (−9.02 LUFS, TOOLING.md)', () => {
+  it('reads the 1 kHz sine check value (−9.02 LUFS, ITU-R BS.1770-4, derived)', () => {
     expect(reference[0]).toBeCloseTo(-9.02, 2);
   });
 

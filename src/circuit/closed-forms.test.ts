@@ -152,9 +152,9 @@ describe('DC gain RL/(R + RL) (docs/physics.md §1.1)', () => {
     const guitar = parseGuitar({
       name: 'DC check (invented values)',
       coils: [
-        { id: 'a', position: '150mm', resistance: '5.9k', inductance: '2.35H', winding: 'cw', magnet: 'north' },
-        { id: 'b', position: '100mm', resistance: '6.1k', inductance: '2.45H', winding: 'ccw', magnet: 'south' },
-        { id: 'c', position: '45mm', resistance: '6.4k', inductance: '2.6H' },
+        { id: 'neck', position: '150mm', resistance: '5.9k', inductance: '2.35H', winding: 'cw', magnet: 'north' },
+        { id: 'mid', position: '100mm', resistance: '6.1k', inductance: '2.45H', winding: 'ccw', magnet: 'south' },
+        { id: 'bridge', position: '45mm', resistance: '6.4k', inductance: '2.6H' },
       ],
       controls: { volume: { pot: '250k' }, tone: { pot: '250k', capacitor: '22n' } },
       amp: { resistance: '1M' },

@@ -1,6 +1,6 @@
 /**
  * What players and luthiers know from the trade (common practice, no single
- * published source; USER-NEEDS.md items 9–11, docs/physics.md §1.2 and §6).
+ * published source; docs/physics.md §1.2 and §6).
  */
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';

@@ -1,8 +1,8 @@
 /**
  * A wiring in words a person can solder from: which lead of each coil goes
  * to which point, which leads join, what goes to hot and to ground, what to
- * measure before closing up, and the cautions of the trade (USER-NEEDS.md
- * (d): iron and burns, fumes and washing hands, meter checks, covers tied to
+ * measure before closing up, and the cautions of the trade (common
+ * practice: iron and burns, fumes and washing hands, meter checks, covers tied to
  * a lead, never opening an amplifier).
  */
 import type { Guitar } from '../guitar/index.js';

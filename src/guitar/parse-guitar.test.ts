@@ -43,7 +43,7 @@ describe('parseGuitar', () => {
   it('fills documented defaults and says which it used', () => {
     const guitar = parseGuitar({
       name: 'bare',
-      coils: [{ id: 'a', position: '100mm', resistance: '6k', inductance: '2.5H' }],
+      coils: [{ id: 'neck', position: '100mm', resistance: '6k', inductance: '2.5H' }],
     });
     expect(guitar.scaleM).toBeCloseTo(0.6477, 12);
     expect(guitar.strings).toHaveLength(6);
@@ -66,7 +66,7 @@ describe('parseGuitar', () => {
   it('takes "tone": null as no tone control, and a cable given by length', () => {
     const guitar = parseGuitar({
       name: 'no tone',
-      coils: [{ id: 'a', position: '100mm', resistance: '6k', inductance: '2.5H' }],
+      coils: [{ id: 'neck', position: '100mm', resistance: '6k', inductance: '2.5H' }],
       controls: { tone: null },
       cable: { length: '4.5m', capacitancePerMetre: '120p' },
     });
@@ -101,7 +101,7 @@ describe('parseGuitar', () => {
     const guitar = parseGuitar({
       name: 'bass',
       tuning: ['E1', 'A1', 55 * 2 ** (5 / 12), '98Hz'],
-      coils: [{ id: 'a', position: '100mm', resistance: '6k', inductance: '2.5H' }],
+      coils: [{ id: 'neck', position: '100mm', resistance: '6k', inductance: '2.5H' }],
     });
     expect(guitar.strings.map((s) => s.name)).toEqual(['E1', 'A1', 'D2', 'G2']);
     expect(guitar.strings[3]?.openHz).toBe(98);

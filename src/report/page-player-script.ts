@@ -11,7 +11,7 @@
  * use the same crossfade. Requires the math script and a loader.
  */
 
-/** Crossfade length at a switch, seek or pause, s ("a short fade at each switch to hide clicks", USER-NEEDS.md §(c) 2; 25 ms is our choice). */
+/** Crossfade length at a switch, seek or pause, s (a short fade at each switch hides the click: common practice; 25 ms is our choice). */
 export const CROSSFADE_S = 0.025;
 /** Start new voices this far ahead of the audio clock so the start time is never in the past, s (our own margin; one render quantum at 48 kHz is 2.7 ms). */
 export const SCHEDULE_AHEAD_S = 0.02;

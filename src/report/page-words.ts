@@ -40,8 +40,8 @@ export const HUM_VERDICT_WORDS: Readonly<Record<HumVerdict, readonly [string, st
 /**
  * The character of a loaded resonant peak by its frequency. H. Lemme's scale
  * for a pickup with a normal cable: about 2 kHz warm, 3 kHz present, 4 kHz
- * piercing, 5 kHz and above brittle (seen quoted from
- * buildyourguitar.com/resources/lemme; USER-NEEDS.md §(b)). Each word covers
+ * piercing, 5 kHz and above brittle (his article
+ * "The Secrets of Electric Guitar Pickups", 2003). Each word covers
  * the band halfway to its neighbours; "dark" below the warm band is ours.
  */
 const PEAK_CHARACTER_BANDS: ReadonlyArray<readonly [number, string]> = Object.freeze([

@@ -30,7 +30,7 @@ import { PAGE_UI_SCRIPT } from './page-ui-script.js';
 import { HUM_CANCELLING_DB, HUM_PARTLY_CANCELLING_DB, formatDb } from './page-words.js';
 import { renderBrightnessLegend, renderWiringTable } from './wiring-table.js';
 
-/** Playback volume the page starts at, linear (−10.5 dB; start low, USER-NEEDS.md §(d)). */
+/** Playback volume the page starts at, linear (−10.5 dB; start low to protect hearing: common practice). */
 export const START_VOLUME = 0.3;
 
 const TOPOLOGY_OPTIONS: ReadonlyArray<readonly [string, string]> = [

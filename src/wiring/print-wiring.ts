@@ -1,6 +1,6 @@
 /**
- * Writes a network in coilbench's wiring notation: `a + b` series,
- * `a // b` parallel, `~a` out of phase, nested groups always in parentheses,
+ * Writes a network in coilbench's wiring notation: `neck + bridge` series,
+ * `neck // bridge` parallel, `~bridge` out of phase, nested groups always in parentheses,
  * none around the whole. Print the canonical form to get the canonical text.
  */
 import type { Network } from './network.js';

@@ -1,5 +1,5 @@
 /**
- * Debian's chromium driven by playwright-core, as TOOLING.md describes: the
+ * Debian's chromium driven by playwright-core, as DEVELOPERS.md describes: the
  * executable, the flags a bare container needs, and whether the browser tests
  * run here (locally they skip without chromium, with a message; in CI they
  * must run, so they fail instead).
@@ -8,7 +8,7 @@ import { existsSync } from 'node:fs';
 import type { Browser } from 'playwright-core';
 
 export const CHROMIUM = '/usr/bin/chromium';
-/** Flags from TOOLING.md: no sandbox as root, no GPU, no background network traffic, autoplay allowed. */
+/** Flags a bare container needs (DEVELOPERS.md): no sandbox as root, no GPU, no background network traffic, autoplay allowed. */
 export const CHROMIUM_ARGS: readonly string[] = Object.freeze([
   '--no-sandbox',
   '--disable-gpu',
