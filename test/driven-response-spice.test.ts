@@ -4,8 +4,8 @@
  *
  * For each wiring ngspice runs coilbench's own netlist once per coil, that
  * coil's EMF source at 1∠0° and the others at 0, over a dense sweep (400
- * points per decade) and at 100 Hz: that gives every T_i(f) from an outside
- * simulator. By superposition the output with all coils driven at once by
+ * points per decade, then 2000 points over the peak's −3 dB band) and at
+ * 100 Hz: that gives every T_i(f) from an outside simulator. By superposition the output with all coils driven at once by
  * the strings is Σ_i T_i·E_i, and its power per unit mean coil power for the
  * reference phrase is Σ_ij T_i·D_ij·conj(T_j) with D the same cross-spectra
  * coilbench uses (src/analysis/measure-coil-drive.ts): the coherent response
@@ -34,10 +34,13 @@ import {
   sampleCoilDrive,
 } from '../src/circuit/index.js';
 import { type Guitar, parseGuitarText } from '../src/guitar/index.js';
+import { readDensePeak } from './support/dense-peak.js';
 import { type Wiring, coilPhases, enumerateWirings, shapeKey } from '../src/wiring/index.js';
 
 const SAMPLES = join(import.meta.dirname, '..', 'samples');
 const POINTS_PER_DECADE = 400;
+/** Points of the second sweep over the peak's −3 dB band, so linear interpolation of the crossings errs far below 1 % of the bandwidth. */
+const FINE_POINTS = 2000;
 const FREQUENCY_TOLERANCE = 1e-3;
 const Q_TOLERANCE = 0.01;
 const SHAPE_STRIDE = process.env.COILBENCH_SPICE_ALL === '1' ? 1 : 10;
@@ -91,33 +94,8 @@ function coherentFigures(guitar: Guitar, wiring: Wiring, drive: CoilDrive, sweep
   const r = Float64Array.from(grid, (_, k) =>
     Math.sqrt(drivenPowerAt(sweep.transfers, k, used, sampled, k * width) / drivenPowerAt(reference.transfers, 0, used, sampled, k * width)),
   );
-  let best = -1;
-  for (let k = 1; k < grid.length - 1; k += 1) {
-    if ((r[k] as number) > (r[k - 1] as number) && (r[k] as number) >= (r[k + 1] as number) && (best < 0 || (r[k] as number) > (r[best] as number))) best = k;
-  }
-  if (best < 0) return { resonanceHz: null, resonanceQ: null };
-  // vertex of the parabola through the three points, on ln f
-  const [x0, x1, x2] = [best - 1, best, best + 1].map((k) => Math.log(grid[k] as number)) as [number, number, number];
-  const [y0, y1, y2] = [r[best - 1], r[best], r[best + 1]] as [number, number, number];
-  const n = (x1 - x0) ** 2 * (y1 - y2) - (x1 - x2) ** 2 * (y1 - y0);
-  const d = (x1 - x0) * (y1 - y2) - (x1 - x2) * (y1 - y0);
-  const peakHz = Math.exp(x1 - n / (2 * d));
-  const target = (r[best] as number) * Math.SQRT1_2;
-  const crossing = (step: 1 | -1): number | null => {
-    for (let k = best; k + step >= 0 && k + step < grid.length; k += step) {
-      const a = r[k] as number;
-      const b = r[k + step] as number;
-      if (b <= target) {
-        const la = Math.log(grid[k] as number);
-        const lb = Math.log(grid[k + step] as number);
-        return Math.exp(la + ((a - target) / (a - b)) * (lb - la));
-      }
-    }
-    return null;
-  };
-  const low = crossing(-1);
-  const high = crossing(1);
-  return { resonanceHz: peakHz, resonanceQ: low !== null && high !== null ? peakHz / (high - low) : null };
+  const figures = readDensePeak(grid, r);
+  return { resonanceHz: figures.peakHz, resonanceQ: figures.q };
 }
 
 describe('resonance as the strings drive it agrees with ngspice (eecircuit-engine)', () => {
@@ -135,9 +113,17 @@ describe('resonance as the strings drive it agrees with ngspice (eecircuit-engin
     for (const { wiring, index } of picked) {
       const metrics = ours[index];
       if (metrics === undefined || metrics.resonanceHzReason?.startsWith('the coils cancel')) continue;
-      const sweep = await spiceTransfers(guitar, wiring, 20, 20_000, POINTS_PER_DECADE);
       const reference = await spiceTransfers(guitar, wiring, REFERENCE_FREQUENCY_HZ, REFERENCE_FREQUENCY_HZ * REFERENCE_SPAN, 1); // first point: 100 Hz
-      const theirs = coherentFigures(guitar, wiring, drive, sweep, reference);
+      const coarse = coherentFigures(guitar, wiring, drive, await spiceTransfers(guitar, wiring, 20, 20_000, POINTS_PER_DECADE), reference);
+      let theirs = coarse;
+      if (coarse.resonanceHz !== null && coarse.resonanceQ !== null) {
+        // a second, finer sweep over the peak and its −3 dB band (±3 bandwidths), about FINE_POINTS points
+        const bandwidthHz = coarse.resonanceHz / coarse.resonanceQ;
+        const startHz = Math.max(20, coarse.resonanceHz - 3 * bandwidthHz);
+        const stopHz = Math.min(20_000, coarse.resonanceHz + 3 * bandwidthHz);
+        const perDecade = Math.ceil(FINE_POINTS / Math.log10(stopHz / startHz));
+        theirs = coherentFigures(guitar, wiring, drive, await spiceTransfers(guitar, wiring, startHz, stopHz, perDecade), reference);
+      }
       compared += 1;
       const label = `${wiring.id} ${wiring.expression}`;
       if ((metrics.resonanceHz === null) !== (theirs.resonanceHz === null)) {

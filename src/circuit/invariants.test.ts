@@ -6,6 +6,7 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { coilArbitrary } from '../../test/support/random-coils.js';
 import { type Guitar, parseGuitar } from '../guitar/index.js';
 import { enumerateWirings, invertAll, type Network } from '../wiring/index.js';
 import { analysisFrequencies, incoherentCoilDrive, measureResonance, prepareCircuit, solveDrivenResponse, solveTransfers } from './index.js';
@@ -13,14 +14,6 @@ import { analysisFrequencies, incoherentCoilDrive, measureResonance, prepareCirc
 const RELATIVE_TOLERANCE = 1e-11;
 const FREQUENCIES = analysisFrequencies(40);
 
-const coilArbitrary = fc.record({
-  resistance: fc.double({ min: 2e3, max: 16e3, noNaN: true }),
-  inductance: fc.double({ min: 1, max: 8, noNaN: true }),
-  capacitance: fc.double({ min: 60e-12, max: 250e-12, noNaN: true }),
-  winding: fc.constantFrom('cw', 'ccw'),
-  magnet: fc.constantFrom('north', 'south'),
-  humSensitivity: fc.double({ min: 0.5, max: 1.5, noNaN: true }),
-});
 
 const guitarArbitrary = fc
   .record({

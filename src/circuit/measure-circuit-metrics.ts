@@ -20,7 +20,7 @@ import type { CircuitLoad, CircuitOverrides } from './circuit-load.js';
 import { ANALYSIS_POINTS, analysisFrequencies } from './frequency-grid.js';
 import { humDecibels, isHumCancelling, measureHumReference } from './measure-hum.js';
 import { type CoilDrive, incoherentCoilDrive, sampleCoilDrive } from './coil-drive.js';
-import { SILENT_REASON, measureResonance } from './measure-resonance.js';
+import { SILENT_RESONANCE, measureResonance } from './measure-resonance.js';
 import { fixedProbeAt, prepareCircuit, probeTransfers } from './prepare-circuit.js';
 import { solveTransfers } from './solve-transfers.js';
 
@@ -63,12 +63,7 @@ export interface CircuitMetricsOptions {
 export const DEFAULT_CIRCUIT_METRICS_OPTIONS: Readonly<CircuitMetricsOptions> = Object.freeze({ points: ANALYSIS_POINTS, drive: undefined });
 
 const SILENT_METRICS: WiringCircuitMetrics = Object.freeze({
-  resonanceHz: null,
-  resonanceHzReason: SILENT_REASON,
-  peakDb: null,
-  peakDbReason: SILENT_REASON,
-  resonanceQ: null,
-  resonanceQReason: SILENT_REASON,
+  ...SILENT_RESONANCE,
   humDb: null,
   humCancelling: false,
 });

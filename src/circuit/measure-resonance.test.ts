@@ -3,15 +3,16 @@
  * over random valid guitars (fast-check), each wiring's figures against a
  * reference read off a dense grid of exact nodal solves (20 000 log-spaced
  * points over 20 Hz–20 kHz, spacing 0.035 %), with a random correlated
- * drive D = A·Aᴴ (positive semidefinite, as any cross-spectral matrix is):
- * the highest interior maximum of R, and its −3 dB points by linear
- * interpolation in ln f. Wherever the reference has a peak, the figure has
+ * drive D = A·Aᴴ (positive semidefinite, as any cross-spectral matrix is),
+ * read by test/support/dense-peak.ts. Wherever the reference has a peak, the figure has
  * one within 0.05 %; wherever it finds both −3 dB points, Q is a finite
  * number within 1 %; wherever it does not, Q is null with a reason. No
  * figure is ever Infinity or NaN.
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { type DensePeak, readDensePeak } from '../../test/support/dense-peak.js';
+import { coilArbitrary } from '../../test/support/random-coils.js';
 import { type Guitar, parseGuitar } from '../guitar/index.js';
 import { enumerateWirings, type Network } from '../wiring/index.js';
 import { type CoilDrive, drivePairIndex, logSpacedFrequencies, measureResonance, prepareCircuit, solveDrivenResponse } from './index.js';
@@ -23,13 +24,6 @@ const Q_TOLERANCE = 0.01;
 /** Random cases per run: 30 by default (about 8 s), more with COILBENCH_PROPERTY_RUNS. */
 const RUNS = Number(process.env.COILBENCH_PROPERTY_RUNS ?? 30);
 
-const coilArbitrary = fc.record({
-  resistance: fc.double({ min: 2e3, max: 16e3, noNaN: true }),
-  inductance: fc.double({ min: 1, max: 8, noNaN: true }),
-  capacitance: fc.double({ min: 60e-12, max: 250e-12, noNaN: true }),
-  winding: fc.constantFrom('cw', 'ccw'),
-  magnet: fc.constantFrom('north', 'south'),
-});
 
 const guitarArbitrary = fc
   .record({
@@ -96,32 +90,9 @@ const caseArbitrary = guitarArbitrary.chain((guitar) =>
   }),
 );
 
-/** The reference: R on the dense grid, its highest interior maximum and −3 dB points. */
-function denseReference(guitar: Guitar, network: Network, drive: CoilDrive): { peakHz: number | null; q: number | null } {
-  const response = solveDrivenResponse(prepareCircuit(guitar, DENSE), network, drive);
-  const r = response.values;
-  let best = -1;
-  for (let k = 1; k < DENSE_POINTS - 1; k += 1) {
-    if ((r[k] as number) > (r[k - 1] as number) && (r[k] as number) >= (r[k + 1] as number) && (best < 0 || (r[k] as number) > (r[best] as number))) best = k;
-  }
-  if (best < 0) return { peakHz: null, q: null };
-  const target = (r[best] as number) * Math.SQRT1_2;
-  const crossing = (step: 1 | -1): number | null => {
-    for (let k = best; k + step >= 0 && k + step < DENSE_POINTS; k += step) {
-      const a = r[k] as number;
-      const b = r[k + step] as number;
-      if (b <= target) {
-        const la = Math.log(DENSE[k] as number);
-        const lb = Math.log(DENSE[k + step] as number);
-        return Math.exp(la + ((a - target) / (a - b)) * (lb - la));
-      }
-    }
-    return null;
-  };
-  const low = crossing(-1);
-  const high = crossing(1);
-  const peakHz = DENSE[best] as number;
-  return { peakHz, q: low !== null && high !== null ? peakHz / (high - low) : null };
+/** The reference: R on the dense grid, read by test/support/dense-peak.ts. */
+function denseReference(guitar: Guitar, network: Network, drive: CoilDrive): DensePeak {
+  return readDensePeak(DENSE, solveDrivenResponse(prepareCircuit(guitar, DENSE), network, drive).values);
 }
 
 describe('resonance figures are finite or absent, and right (property test)', () => {

@@ -60,7 +60,7 @@ const REFERENCE_CANCELLED_REASON = 'the coils cancel at 100 Hz, the reference of
 const NO_LOW_REASON = 'the response does not fall 3 dB below the peak between 20 Hz and the peak';
 const NO_HIGH_REASON = 'the response does not fall 3 dB below the peak between the peak and 20 kHz';
 
-const SILENT: ResonanceMetrics = Object.freeze({
+export const SILENT_RESONANCE: ResonanceMetrics = Object.freeze({
   resonanceHz: null,
   resonanceHzReason: SILENT_REASON,
   peakDb: null,
@@ -185,7 +185,7 @@ export interface ResonanceInputs extends DrivenResponseInputs {
 
 /** Resonance metrics of `network` on `prepared`'s grid, refined between grid points. */
 export function measureResonance(prepared: PreparedCircuit, network: Network, inputs: ResonanceInputs = {}): ResonanceMetrics {
-  if (prepared.load.silent) return SILENT;
+  if (prepared.load.silent) return SILENT_RESONANCE;
   const grid = prepared.frequenciesHz;
   let first = -1;
   let last = -1;
