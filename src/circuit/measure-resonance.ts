@@ -100,7 +100,7 @@ interface Point {
  * golden-section step when the vertex leaves the bracket. Starts from a grid
  * maximum and its two neighbours.
  */
-function refinePeak(response: DrivenResponse, points: readonly [number, number, number], values: readonly [number, number, number]): Point {
+function refinePeak(response: Pick<DrivenResponse, 'at'>, points: readonly [number, number, number], values: readonly [number, number, number]): Point {
   let [x0, x1, x2] = points.map(Math.log) as [number, number, number];
   let [y0, y1, y2] = values;
   for (let step = 0; step < MAX_REFINEMENT_STEPS; step += 1) {
@@ -166,13 +166,29 @@ function refineCrossing(response: DrivenResponse, inside: Point, outside: Point,
 /**
  * The −3 dB point on one side of `peak`: walk the grid away from the peak
  * (`step` −1 or +1, starting at grid index `start`) until R falls to the
- * target, then refine between the last point above and the first at or below.
+ * target, then refine between the last point above and the first at or
+ * below. A dip between grid points (a local minimum of the grid still above
+ * the target: a notch of an out-of-phase wiring can be narrower than the
+ * grid) is refined too, and counts when its bottom falls below the target.
  */
 function halfPowerPoint(response: DrivenResponse, grid: Float64Array, peak: Point, start: number, end: number, step: 1 | -1, target: number): number | null {
   let inside = peak;
+  const values = response.values;
+  const negated = { at: (frequencyHz: number) => -response.at(frequencyHz) };
   for (let k = start; step < 0 ? k >= end : k <= end; k += step) {
-    const point = { hz: grid[k] as number, value: response.values[k] as number };
+    const point = { hz: grid[k] as number, value: values[k] as number };
     if (point.value <= target) return refineCrossing(response, inside, point, target);
+    const next = k + step;
+    if (next >= 0 && next < grid.length && point.value < inside.value && point.value <= (values[next] as number)) {
+      // a local minimum of the grid: refine it (a maximum of −R) and see whether it reaches the target
+      const around = step < 0 ? [next, k, k - step] : [k - step, k, next];
+      const hz = around.map((index) => (index === k - step ? inside.hz : (grid[index] as number))) as [number, number, number];
+      const at = around.map((index) => -(index === k - step ? inside.value : (values[index] as number))) as [number, number, number];
+      if (hz[0] < hz[1] && hz[1] < hz[2]) {
+        const bottom = refinePeak(negated, hz, at);
+        if (-bottom.value <= target) return refineCrossing(response, inside, { hz: bottom.hz, value: -bottom.value }, target);
+      }
+    }
     inside = point;
   }
   return null;
