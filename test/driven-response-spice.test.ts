@@ -17,7 +17,7 @@
  *
  * The four-coil sample at volume 5, where a peak search refining only the
  * best grid point disagreed with ngspice on 22 of 572 wirings. By default
- * every tenth network shape is run; COILBENCH_SPICE_ALL=1 runs
+ * every twentieth network shape is run; COILBENCH_SPICE_ALL=1 runs
  * all of them.
  */
 import { readFileSync } from 'node:fs';
@@ -43,7 +43,7 @@ const POINTS_PER_DECADE = 400;
 const FINE_POINTS = 2000;
 const FREQUENCY_TOLERANCE = 1e-3;
 const Q_TOLERANCE = 0.01;
-const SHAPE_STRIDE = process.env.COILBENCH_SPICE_ALL === '1' ? 1 : 10;
+const SHAPE_STRIDE = process.env.COILBENCH_SPICE_ALL === '1' ? 1 : 20;
 const VOLUME_SETTING = 5;
 /** The one-point sweep at 100 Hz: ngspice needs stop > start. */
 const REFERENCE_SPAN = 1.001;
@@ -141,7 +141,7 @@ describe('resonance as the strings drive it agrees with ngspice (eecircuit-engin
       } else if (metrics.resonanceQ !== null) failures.push(`${label}: Q ${metrics.resonanceQ} here, none in ngspice`);
     }
     expect(failures).toEqual([]);
-    expect(compared).toBeGreaterThan(40);
-    expect(withQ).toBeGreaterThan(10);
+    expect(compared).toBeGreaterThan(20);
+    expect(withQ).toBeGreaterThan(5);
   }, 600_000);
 });
