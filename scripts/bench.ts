@@ -18,6 +18,6 @@ benchStrings();
 await benchMeasures();
 await benchChain();
 await benchCircuit();
-benchListeningPage();
+await benchListeningPage();
 benchRender();
 benchDistinct();

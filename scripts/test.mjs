@@ -6,6 +6,13 @@ import { spawnSync } from 'node:child_process';
 import { mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 
+// The listening page's script bundle (dist/page.js) must match the sources the tests run.
+const bundle = spawnSync(process.execPath, ['scripts/build-page.mjs'], { stdio: 'inherit' });
+if (bundle.status !== 0) {
+  console.log('0 passed, 1 failed, 0 skipped');
+  process.exit(1);
+}
+
 const outputDir = 'test-output';
 mkdirSync(outputDir, { recursive: true });
 const report = join(outputDir, 'vitest-report.json');

@@ -60,14 +60,14 @@ describe('coilbench render: the whole folder', () => {
     report = readReport(folder);
   });
 
-  it('writes the listening page, reports, one WAV and page audio per wiring, and netlists', () => {
+  it('writes the listening page, reports, one WAV per wiring (no page copies), and netlists', () => {
     expect(firstRun.status).toBe(0);
     expect(resolve(samples, firstRun.out.trim())).toBe(join(folder, 'index.html'));
     expect(firstRun.err).toContain('47 written, 0 unchanged');
     for (const name of ['index.html', 'report.json', 'wirings.csv', 'report.md']) expect(existsSync(join(folder, name)), name).toBe(true);
     const wavs = readdirSync(join(folder, 'wav'));
     expect(wavs.filter((name) => name.endsWith('.wav'))).toHaveLength(47);
-    expect(wavs.filter((name) => name.endsWith('.wav.js'))).toHaveLength(47);
+    expect(wavs.filter((name) => name.endsWith('.wav.js'))).toHaveLength(0); // the page carries coil signals, not copies of the files
     expect(readdirSync(join(folder, 'netlists')).filter((name) => name.endsWith('.cir'))).toHaveLength(47);
     expect(readFileSync(join(folder, 'wirings.csv'), 'utf8').split('\r\n').filter((line) => line !== '')).toHaveLength(48);
     expect(report.wirings).toHaveLength(47);
@@ -245,3 +245,16 @@ describe('coilbench render: interruption', () => {
   });
 });
 
+describe('coilbench render --no-wav', () => {
+  it('writes the page (with every wiring and the coils\' signals), reports and netlists, and no WAV file', async () => {
+    const folder = join(scratchFolder(), 'page-only');
+    const result = await run(samples, 'render', GUITAR, '-o', folder, '--no-wav', '--only', 'w1', '--only', 'w5');
+    expect(result.status).toBe(0);
+    expect(result.err).toContain('no WAV files (--no-wav');
+    expect(readdirSync(join(folder, 'wav')).filter((name) => name.endsWith('.wav') || name.endsWith('.js'))).toEqual([]);
+    const html = readFileSync(join(folder, 'index.html'), 'utf8');
+    const data = JSON.parse(/<script type="application\/json" id="page-data">([\s\S]*?)<\/script>/u.exec(html)?.[1] ?? '{}') as { coils: { signals: string[] } };
+    expect(data.coils.signals).toHaveLength(3);
+    expect(readReport(folder).wirings.map((wiring) => wiring.wav)).toEqual([null, null]);
+  });
+});

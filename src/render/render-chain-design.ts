@@ -13,44 +13,8 @@
  * 128 frames. Zeros played by a source are not silence to it.
  */
 import { OfflineAudioContext } from 'node-web-audio-api';
-import { webAudioQ } from './biquad-design.js';
-import type { ChainDesign, ChainStage } from './chain-design.js';
-
-type Context = InstanceType<typeof OfflineAudioContext>;
-
-/** One Web Audio node for one stage. */
-function createStageNode(context: Context, stage: ChainStage): AudioNode {
-  switch (stage.kind) {
-    case 'gain': {
-      const node = context.createGain();
-      node.gain.value = stage.gain;
-      return node;
-    }
-    case 'biquad': {
-      const node = context.createBiquadFilter();
-      node.type = stage.filter.kind;
-      node.frequency.value = stage.filter.frequencyHz;
-      node.Q.value = webAudioQ(stage.filter);
-      node.gain.value = stage.filter.gainDb;
-      return node;
-    }
-    case 'shaper': {
-      const node = context.createWaveShaper();
-      node.curve = stage.curve;
-      node.oversample = stage.oversample;
-      return node;
-    }
-    case 'compressor': {
-      const node = context.createDynamicsCompressor();
-      node.threshold.value = stage.settings.thresholdDb;
-      node.knee.value = stage.settings.kneeDb;
-      node.ratio.value = stage.settings.ratio;
-      node.attack.value = stage.settings.attackS;
-      node.release.value = stage.settings.releaseS;
-      return node;
-    }
-  }
-}
+import type { ChainDesign } from './chain-design.js';
+import { type ChainContext, connectChainDesign } from './connect-chain-design.js';
 
 /** Render mono `samples` through `design` at its sample rate. The output has the input's length and timing. */
 export async function renderChainDesign(samples: Float32Array, design: ChainDesign): Promise<Float32Array> {
@@ -65,13 +29,8 @@ export async function renderChainDesign(samples: Float32Array, design: ChainDesi
   buffer.copyToChannel(padded, 0);
   const source = context.createBufferSource();
   source.buffer = buffer;
-  let last: AudioNode = source;
-  for (const stage of design.stages) {
-    const node = createStageNode(context, stage);
-    last.connect(node);
-    last = node;
-  }
-  last.connect(context.destination);
+  const last = connectChainDesign(context as unknown as ChainContext<AudioNode>, design, source as unknown as AudioNode);
+  last.connect(context.destination as unknown as AudioNode);
   source.start(0);
   const rendered = await context.startRendering();
   rendered.copyFromChannel(output, 0, latency);

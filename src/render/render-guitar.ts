@@ -30,11 +30,10 @@ import { type AlikeThresholds, type Distinctness, measureCoilDrive, measureDisti
 import type { Guitar } from '../guitar/index.js';
 import {
   type ListeningReport,
+  pageAudioPath,
+  renderPageAudioScript,
   type ReportGroups,
   type ReportWiring,
-  pageAudioPath,
-  renderListeningPage,
-  renderPageAudioScript,
   reportGuitar,
 } from '../report/index.js';
 import type { Phrase } from '../string/index.js';
@@ -56,6 +55,7 @@ import { MANIFEST_VERSION, type Manifest, hashOf, readManifest } from './render-
 import { shapeKey, withoutPhases } from '../wiring/index.js';
 import { type WavFormat, encodeWav } from './wav-file.js';
 import { removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
+import { writeListeningPage } from './write-listening-page.js';
 
 /** Bump when the sound of a render changes for the same inputs (string model, pickup, chain), so old files are redone. */
 export const RENDER_MODEL_VERSION = 2;
@@ -86,6 +86,10 @@ export interface RenderRequest {
   readonly folder: OutputFolder;
   /** Name of the generator for report.json ("coilbench 0.1.0"). */
   readonly generator: string;
+  /** Also write `wav/<name>.wav.js` beside each WAV for the comparison page of `compare --render` (the listening page needs none). */
+  readonly pageAudioCopies?: boolean;
+  /** Write the WAV files (default true); false writes only the page, netlists and reports. */
+  readonly writeWav?: boolean;
   /** Threads for the first pass (default: the machine's cores, at most two). */
   readonly threads?: number;
   /** "Sounds alike" thresholds for the groups in the report (src/analysis defaults when absent). */
@@ -105,8 +109,8 @@ export interface RenderedWiring {
   readonly levelDb: number;
   readonly loudnessLufs: number;
   readonly centroidHz: number;
-  /** Path of the WAV relative to the folder. */
-  readonly wav: string;
+  /** Path of the WAV relative to the folder, or null with `writeWav: false`. */
+  readonly wav: string | null;
 }
 
 export interface RenderOutcome {
@@ -206,7 +210,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     if (metricsCached && entry.metrics) raw.set(wiring.id, entry.metrics);
     const missingLoudness = request.level === 'matched' && entry.audio?.loudnessLufs === null;
     const audioCached = entry.audioHash === audioHash && entry.audio !== undefined && !missingLoudness;
-    const wantAudio = selectedIds.has(wiring.id) && !audioCached;
+    const wantAudio = request.writeWav !== false && selectedIds.has(wiring.id) && !audioCached;
     if (!metricsCached || wantAudio) items.push({ id: wiring.id, network: wiring.network, metrics: !metricsCached, audio: wantAudio });
   }
   const expressionOf = new Map(needed.map((wiring) => [wiring.id, wiring.expression]));
@@ -265,9 +269,9 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     const gain = gains[index] ?? 1;
     const name = wavFileName(wiring);
     const path = join(folder.wavFolder, name);
-    const pageAudio = join(folder.root, pageAudioPath(relative(folder.root, path)));
     const fileHash = hashOf({ audio: entry.audioHash, gain: gain.toPrecision(12), format: request.format, name });
-    if (entry.fileHash === fileHash && entry.file === name && existsSync(path) && existsSync(pageAudio)) {
+    const pageAudio = request.pageAudioCopies ? join(folder.root, pageAudioPath(relative(folder.root, path))) : null;
+    if (request.writeWav === false || (entry.fileHash === fileHash && entry.file === name && existsSync(path) && (pageAudio === null || existsSync(pageAudio)))) {
       skipped += 1;
     } else {
       const parked = scratchFiles.get(wiring.id);
@@ -285,7 +289,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
       // Written in the background while the next wiring is prepared; the manifest records a file only once it is whole.
       await writes.add(async () => {
         await writeFileAtomic(path, bytes);
-        await writeFileAtomic(pageAudio, renderPageAudioScript(wiring.id, bytes));
+        if (pageAudio) await writeFileAtomic(pageAudio, renderPageAudioScript(wiring.id, bytes));
         Object.assign(entry, { fileHash, file: name });
       });
       await saveManifest(false);
@@ -326,7 +330,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
       levelDb: audio?.levelDb ?? Number.NaN,
       loudnessLufs: audio?.loudnessLufs ?? Number.NaN,
       centroidHz: audio?.centroidHz ?? Number.NaN,
-      wav: relative(folder.root, join(folder.wavFolder, wavFileName(wiring))).split('\\').join('/'),
+      wav: request.writeWav === false ? null : relative(folder.root, join(folder.wavFolder, wavFileName(wiring))).split('\\').join('/'),
     };
   });
   const reportWirings: ReportWiring[] = rows.map((row) => {
@@ -377,7 +381,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     groups: reportGroups(request.all, distinct),
   };
   await writeFileAtomic(folder.reportJson, `${JSON.stringify(report, null, 2)}\n`);
-  await writeFileAtomic(folder.page, renderListeningPage(report));
+  await writeListeningPage(folder.page, report, request);
   return { report, rows, written, skipped, commonGainDb, matchedLoudnessLufs, audioSeconds, distinct };
 }
 

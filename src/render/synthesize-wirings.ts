@@ -52,25 +52,107 @@ export interface WiringSynthesis {
   synthesizeHum(network: Network, mainsHz: number, emfVolts: number, out?: Float32Array): Float32Array;
 }
 
-/** Render the strings and coil spectra once; return a function that renders any wiring. */
-export function prepareWiringSynthesis(guitar: Guitar, phrase: Phrase, options: SynthesisOptions): WiringSynthesis {
+/**
+ * Each coil's EMF for a performance as a time signal, the form the listening
+ * page carries: e_i(n) = IFFT(E_i)(n) for n < storedLength (the rest of the
+ * FFT frame is silence: the strings fade to zero at the end of the render and
+ * the pickup's centred response reaches at most 2·delay samples past it).
+ */
+export interface CoilSignals {
+  readonly sampleRateHz: number;
+  /** Samples in every wiring's output: the phrase plus `delay` samples of lead-in before its t = 0. */
+  readonly length: number;
+  /** Samples by which every coil signal is delayed so that each stays causal (`pickupDelaySamples`). */
+  readonly delay: number;
+  readonly fftSize: number;
+  /** One signal per coil (guitar.coils order), volts, `storedLength` samples each. */
+  readonly signals: readonly Float32Array[];
+}
+
+/** Render the strings and each coil's EMF spectrum (volts) for a phrase: the expensive part, done once. */
+export function renderCoilSpectra(
+  guitar: Guitar,
+  phrase: Phrase,
+  options: Pick<SynthesisOptions, 'sampleRateHz' | 'seed' | 'strings'>,
+): { spectra: Float64Array[]; length: number; delay: number; fftSize: number } {
   const strings = renderPhrase(guitar, phrase, { ...options.strings, sampleRateHz: options.sampleRateHz, seed: options.seed });
   const delay = pickupDelaySamples(guitar, strings);
   const fftSize = nextPowerOfTwo(strings.length + delay);
-  const fft = realFft(fftSize);
   const spectra = computeCoilSpectra(guitar, strings, fftSize);
   for (const spectrum of spectra) for (let k = 0; k < spectrum.length; k += 1) spectrum[k] = (spectrum[k] as number) * COIL_VOLTS_PER_METRE_PER_SECOND;
+  // The centred pickup response (src/pickup/compute-coil-spectra.ts) of a note at t = 0 starts up to
+  // `delay` samples before it. Every render keeps those samples: it starts `delay` samples before the
+  // phrase's t = 0 (the same lead-in, D/fs ≈ 1–2 ms, for every wiring), so no attack is cut.
+  return { spectra, length: strings.length + delay, delay, fftSize };
+}
 
+/** Samples of a coil signal worth keeping: the render (lead-in included) and the pickup response's reach after it. */
+export function storedCoilSamples(length: number, delay: number, fftSize: number): number {
+  return Math.min(fftSize, length + delay);
+}
+
+/** The coil signals of a performance (for the listening page): the inverse FFT of each E_i, rounded to float32. */
+export function renderCoilSignals(guitar: Guitar, phrase: Phrase, options: Pick<SynthesisOptions, 'sampleRateHz' | 'seed' | 'strings'>): CoilSignals {
+  const { spectra, length, delay, fftSize } = renderCoilSpectra(guitar, phrase, options);
+  const fft = realFft(fftSize);
+  const time = new Float64Array(fftSize);
+  const stored = storedCoilSamples(length, delay, fftSize);
+  const signals = spectra.map((spectrum) => {
+    fft.inverse(spectrum, time);
+    return Float32Array.from(time.subarray(0, stored));
+  });
+  return { sampleRateHz: options.sampleRateHz, length, delay, fftSize, signals };
+}
+
+/** Each coil's spectrum E_i from its stored signal (zero-padded to the FFT frame): the page's way back to the synthesis. */
+export function coilSpectraOfSignals(coils: CoilSignals): Float64Array[] {
+  const fft = realFft(coils.fftSize);
+  const time = new Float64Array(coils.fftSize);
+  return coils.signals.map((signal) => {
+    time.fill(0);
+    for (let n = 0; n < signal.length && n < time.length; n += 1) time[n] = signal[n] as number;
+    return Float64Array.from(fft.forward(time));
+  });
+}
+
+/**
+ * Render the strings and coil spectra once; return a function that renders
+ * any wiring. The spectra are taken from the float32 coil signals the
+ * listening page carries (`renderCoilSignals`), so the command line and the
+ * page synthesise from the very same numbers: float32 rounding of a coil
+ * signal is −144 dB of it, but a wiring whose coils cancel deeply (out of
+ * phase) would expose it at about −76 dB of its own output, so both hosts
+ * use the rounded signals.
+ */
+export function prepareWiringSynthesis(guitar: Guitar, phrase: Phrase, options: SynthesisOptions): WiringSynthesis {
+  const coils = renderCoilSignals(guitar, phrase, options);
+  return createWiringSynthesis(guitar, { ...coils, spectra: coilSpectraOfSignals(coils) }, options.overrides);
+}
+
+/** The coil spectra a synthesis sums, and where its output sits in the FFT frame. */
+export interface CoilSpectra {
+  readonly spectra: readonly Float64Array[];
+  readonly length: number;
+  readonly delay: number;
+  readonly fftSize: number;
+  readonly sampleRateHz: number;
+}
+
+/**
+ * A synthesis from coil spectra already computed: the part the command line
+ * and the listening page share (the page computes the spectra from the coil
+ * signals it carries, `coilSpectraOfSignals`).
+ */
+export function createWiringSynthesis(guitar: Guitar, coils: CoilSpectra, overrides: CircuitOverrides): WiringSynthesis {
+  const { spectra, length, delay, fftSize, sampleRateHz } = coils;
+  const options = { sampleRateHz, overrides };
+  const fft = realFft(fftSize);
   const binsHz = new Float64Array(fft.bins);
   for (let k = 0; k < fft.bins; k += 1) binsHz[k] = (k * options.sampleRateHz) / fftSize;
   const circuit = prepareCircuit(guitar, binsHz, options.overrides);
   const transfers = guitar.coils.map(() => new Float64Array(2 * fft.bins));
   const output = new Float64Array(2 * fft.bins);
   const time = new Float64Array(fftSize);
-  // The centred pickup response (src/pickup/compute-coil-spectra.ts) of a note at t = 0 starts up to
-  // `delay` samples before it. Every render keeps those samples: it starts `delay` samples before the
-  // phrase's t = 0 (the same lead-in, D/fs ≈ 1–2 ms, for every wiring), so no attack is cut.
-  const length = strings.length + delay;
 
   // A wiring's phases only flip the signs of its coils' transfers (T_i carries p_i), so the
   // products T_i·E_i of the unsigned network are kept for the last shape rendered, and each

@@ -36,10 +36,10 @@ function createBlindTest(options) {
     var result = score();
     var element = $('abx-score');
     if (result.trials === 0) { text(element, ''); return; }
-    var words = result.correct + ' of ' + result.trials + ' right. Chance of doing at least this well by guessing: ' + formatProbability(result.probability) + '. ';
-    if (result.trials < RECOMMENDED_TRIALS) words += 'Do at least ' + RECOMMENDED_TRIALS + ' trials before reading much into it.';
-    else if (result.probability < SIGNIFICANCE) words += 'Unlikely to be luck: you probably hear a difference.';
-    else words += 'This could well be guessing: the two may sound the same to you.';
+    var words = 'Tally: ' + result.correct + ' right in ' + result.trials + ' rounds. A coin would score this well or better ' + formatProbability(result.probability) + ' of the time. ';
+    if (result.trials < RECOMMENDED_TRIALS) words += 'Keep going to ' + RECOMMENDED_TRIALS + ' rounds before trusting it.';
+    else if (result.probability < SIGNIFICANCE) words += 'Luck is an unlikely explanation: you seem to hear a difference.';
+    else words += 'Luck explains this well: to your ears the two may be the same.';
     text(element, words);
     element.setAttribute('data-correct', String(result.correct));
     element.setAttribute('data-trials', String(result.trials));
@@ -48,13 +48,13 @@ function createBlindTest(options) {
 
   function nextTrial() {
     state.x = randomSide();
-    text($('abx-status'), 'Trial ' + (state.trials.length + 1) + ': listen to A, B and X, then say which one X is.');
+    text($('abx-status'), 'Round ' + (state.trials.length + 1) + ': which one is the mystery sound?');
   }
 
   function start() {
     var a = $('abx-a').value;
     var b = $('abx-b').value;
-    if (a === b) { text($('abx-score'), 'Choose two different wirings for A and B.'); return; }
+    if (a === b) { text($('abx-score'), 'Pick two different wirings.'); return; }
     if (!options.byId.get(a).wav || !options.byId.get(b).wav) { text($('abx-score'), 'Both wirings must have been rendered.'); return; }
     state = { running: true, a: a, b: b, x: null, label: null, trials: [] };
     options.preload(options.byId.get(a));
@@ -68,7 +68,7 @@ function createBlindTest(options) {
 
   function play(which) {
     if (!state.running) return;
-    state.label = which.toUpperCase();
+    state.label = which === 'x' ? 'the mystery sound' : which === 'a' ? 'the first wiring' : 'the second wiring';
     options.listen(options.byId.get(which === 'x' ? state[state.x] : state[which]));
     options.changed();
   }
@@ -88,8 +88,8 @@ function createBlindTest(options) {
     clearLog();
     state.trials.forEach(function (trial, index) {
       var item = document.createElement('li');
-      item.textContent = 'Trial ' + (index + 1) + ': X was ' + trial.x.toUpperCase() + ' (' + options.describe(options.byId.get(state[trial.x])) +
-        '); you said ' + trial.answer.toUpperCase() + (trial.correct ? ' \u2014 right.' : ' \u2014 wrong.');
+      item.textContent = 'Round ' + (index + 1) + ': the mystery was the ' + (trial.x === 'a' ? 'first' : 'second') + ' wiring (' + options.describe(options.byId.get(state[trial.x])) +
+        '); you named the ' + (trial.answer === 'a' ? 'first' : 'second') + (trial.correct ? ' \u2014 right.' : ' \u2014 not this time.');
       item.className = trial.correct ? 'right' : 'wrong';
       $('abx-log').appendChild(item);
     });

@@ -1,7 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { makeExampleReport } from '../../test/support/example-report.js';
 import { renderGroupsSection } from './page-groups.js';
-import { renderListeningPage } from './render-listening-page.js';
 
 describe('renderGroupsSection', () => {
   const base = makeExampleReport(['neck', 'bridge']);
@@ -23,7 +22,6 @@ describe('renderGroupsSection', () => {
     expect(html).toContain('<strong>6 wirings, 5 audibly distinct groups at these thresholds</strong>');
     expect(html).toContain('<li>group 2: w2 bridge, w5 &lt;b&gt;neck // bridge&lt;/b&gt;</li>');
     expect(html).not.toContain('group 1:');
-    expect(renderListeningPage(report)).toContain('<section id="groups"');
   });
 
   it('says so when every wiring stands alone', () => {

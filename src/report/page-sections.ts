@@ -80,18 +80,20 @@ export function renderHowSection(report: ListeningReport): string {
 }
 
 /** A short glossary for players who do not know the trade terms. */
-export function renderGlossarySection(): string {
+export function renderGlossarySection(coilIds: readonly string[] = ['neck', 'bridge']): string {
+  const first = coilIds[0] ?? 'neck';
+  const last = coilIds[coilIds.length - 1] ?? 'bridge';
   const terms: ReadonlyArray<readonly [string, string]> = [
     ['Coil', 'One winding of wire around magnets under the strings. A single-coil pickup has one; a humbucker has two.'],
-    ['Series', 'Coils joined end to end, written a + b: usually louder, fuller and darker.'],
-    ['Parallel', 'Coils joined side by side, written a // b: usually quieter, clearer and brighter than series.'],
+    ['Series', `Coils joined end to end, written ${first} + ${last}: usually louder, fuller and darker.`],
+    ['Parallel', `Coils joined side by side, written ${first} // ${last}: usually quieter, clearer and brighter than series.`],
     ['In phase', 'The coils push the signal the same way, so their sounds add.'],
-    ['Out of phase', 'One coil is connected the other way round, written ~a: the sounds partly cancel, leaving a thin, hollow, often quieter tone.'],
+    ['Out of phase', `One coil is connected the other way round, written ~${last}: the sounds partly cancel, leaving a thin, hollow, often quieter tone.`],
     ['Hum cancelling', 'Mains hum picked up by one coil is cancelled by another coil wound and magnetised the opposite way. Marked "quiet" in the table.'],
     ['Resonant peak', 'The frequency where the pickup, controls and cable together boost the sound most; higher peaks sound brighter and sharper. Shown in the plot as a dot on each curve.'],
     ['Brightness', 'Where the balance of the sound lies between bass and treble (spectral centroid), in hertz: a higher figure is a brighter sound.'],
     ['Level', 'How loud the wiring is compared with the average single coil, in decibels (dB); 6 dB is about twice the signal.'],
-    ['Blind test (ABX)', 'You hear A and B, then an unknown X that is one of them, and say which. Guessing scores about half; a high score over many trials means you really hear a difference.'],
+    ['Blind test', 'The page hides one of two wirings as a mystery sound; you hear both and the mystery, and name it. A coin scores about half; a high tally over many rounds means you really hear a difference (the ABX method).'],
   ];
   const items = terms.map(([term, meaning]) => `<dt>${escapeHtml(term)}</dt><dd>${escapeHtml(meaning)}</dd>`).join('');
   return `<section id="glossary" aria-labelledby="glossary-title"><h2 id="glossary-title">Words used here</h2><dl>${items}</dl></section>`;

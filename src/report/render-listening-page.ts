@@ -1,24 +1,20 @@
 /**
  * The listening page: one self-contained HTML document drawn from a
- * listening report. Pure: no I/O. Text from the guitar file is escaped; the
- * report rides along as JSON in a `<script type="application/json">` with
- * every `<` escaped; style and script are inline and pinned by hash in a
- * Content-Security-Policy that allows scripts only from the page itself and
- * its folder and no connections at all, so the page makes no request outside
- * its folder. Audio comes from `wav/<name>.wav.js` beside the page (see
- * page-audio-file.ts); plots are inline SVG drawn by the page script from the
- * report's numbers.
+ * listening report and the page data (the guitar, the knob settings and
+ * each coil's signal for the rendered phrase). Pure: no I/O. Text from the
+ * guitar file is escaped; the data rides along as JSON in a
+ * `<script type="application/json">` with every `<` escaped; the style and
+ * the one script (the bundle of src/page, passed in) are inline and pinned by
+ * hash in a Content-Security-Policy that allows no connections at all, so the
+ * page makes no request outside its folder and works from file://. The page
+ * synthesises any wiring itself, so its size grows with the number of coils,
+ * not of wirings.
  */
 import { renderPageHead } from './render-page-head.js';
 import { RECOMMENDED_ABX_TRIALS } from './abx-settings.js';
 import { escapeHtml, serializeJsonForScript } from './escape-html.js';
 import type { ListeningReport } from './listening-report.js';
-import { PAGE_BLIND_SCRIPT } from './page-blind-script.js';
 import { renderGroupsSection } from './page-groups.js';
-import { PAGE_LOADER_SCRIPT } from './page-loader-script.js';
-import { PAGE_MATH_SCRIPT } from './page-math-script.js';
-import { PAGE_PLAYER_SCRIPT } from './page-player-script.js';
-import { PAGE_PLOT_SCRIPT } from './page-plot-script.js';
 import {
   renderCautionsSection,
   renderGlossarySection,
@@ -26,9 +22,11 @@ import {
   renderHowSection,
 } from './page-sections.js';
 import { PAGE_STYLE } from './page-style.js';
-import { PAGE_UI_SCRIPT } from './page-ui-script.js';
-import { HUM_CANCELLING_DB, HUM_PARTLY_CANCELLING_DB, formatDb } from './page-words.js';
-import { renderBrightnessLegend, renderWiringTable } from './wiring-table.js';
+import { HUM_CANCELLING_DB, HUM_PARTLY_CANCELLING_DB, formatDb } from '../page/index.js';
+import { renderBrightnessLegend } from './wiring-table.js';
+import { PAGE_LIST_STYLE } from './page-list-style.js';
+import { SUGGESTED_ROUNDS, loopsByDefault } from '../page/index.js';
+import type { PageData } from '../page/index.js';
 
 /** Playback volume the page starts at, linear (−10.5 dB; start low to protect hearing: common practice). */
 export const START_VOLUME = 0.3;
@@ -40,48 +38,52 @@ const TOPOLOGY_OPTIONS: ReadonlyArray<readonly [string, string]> = [
   ['series-parallel', 'series and parallel'],
 ];
 
-/** Response curves ride along rounded to 0.01 dB: far finer than a plot shows, and a third of the size (our own choice). */
-const RESPONSE_DB_STEP = 0.01;
-
-/** The report as the page script reads it: the same data with response curves rounded. */
+/** The report as the page script reads it: without response curves (the page computes each curve from the circuit at the knobs' settings). */
 export function compactReportForPage(report: ListeningReport): ListeningReport {
-  const round = (db: number): number => (Number.isFinite(db) ? Math.round(db / RESPONSE_DB_STEP) * RESPONSE_DB_STEP : db);
-  return {
-    ...report,
-    wirings: report.wirings.map((wiring) => ({ ...wiring, responseDb: wiring.responseDb.map((db) => Number(round(db).toFixed(2))) })),
-  };
+  return { ...report, wirings: report.wirings.map((wiring) => ({ ...wiring, responseDb: [] })) };
 }
 
-/** Element ids in the order they first appear among the wirings (single coils come first, so declaration order). */
-function elementIds(report: ListeningReport): string[] {
-  const seen: string[] = [];
-  for (const wiring of report.wirings) for (const id of wiring.coils) if (!seen.includes(id)) seen.push(id);
-  return seen;
-}
+/** Tone capacitor field step, nF, and cable field step, pF (our choice: finer than parts are sold in). */
+const CAPACITOR_STEP_NF = 1;
+const CABLE_STEP_PF = 50;
+/** Range of the cable field, pF (the circuit's accepted 1 pF–20 nF). */
+const CABLE_MIN_PF = 1;
+const CABLE_MAX_PF = 20_000;
+const FARADS_PER_NF = 1e-9;
+const FARADS_PER_PF = 1e-12;
 
-function renderFilters(report: ListeningReport): string {
-  const ids = elementIds(report);
-  const coilSelects = ids
-    .map(
-      (id) =>
-        `<label class="coil-filter"><span>${escapeHtml(id)}</span><select data-filter-coil="${escapeHtml(id)}">` +
-        '<option value="any">either</option><option value="used">used</option><option value="unused">not used</option></select></label>',
-    )
-    .join('');
-  const counts = Array.from({ length: ids.length }, (_, index) => index + 1)
-    .map((count) => `<option value="${count}">${count}</option>`)
-    .join('');
-  const topologies = TOPOLOGY_OPTIONS.map(([value, words]) => `<option value="${value}">${escapeHtml(words)}</option>`).join('');
+/** The knobs: volume and tone positions, tone capacitor, cable and chain, each applied while playing. */
+function renderKnobs(data: PageData): string {
+  const { guitar, overrides } = data;
+  const volume = overrides.volumeSetting ?? guitar.controls.volume.setting;
+  const tone = guitar.controls.tone;
+  const cablePf = Math.round((overrides.cableCapacitanceF ?? guitar.cable.capacitanceF) / FARADS_PER_PF);
+  const toneFields = tone
+    ? `<label>Tone <input type="range" id="knob-tone" min="0" max="10" step="0.5" value="${overrides.toneSetting ?? tone.setting}"> <output id="knob-tone-value">${(overrides.toneSetting ?? tone.setting).toFixed(1)}</output></label>` +
+      `<label>Tone capacitor <input type="number" id="knob-tone-capacitor" min="1" max="1000" step="${CAPACITOR_STEP_NF}" value="${Number((tone.capacitorF / FARADS_PER_NF).toPrecision(4))}"> nF</label>`
+    : '';
   return (
-    '<form id="filters" class="filters" aria-label="Filter the wirings">' +
-    `<fieldset class="coils-used"><legend>Coils used</legend>${coilSelects}</fieldset>` +
-    `<label>How many coils <select id="filter-count"><option value="any">any</option>${counts}</select></label>` +
-    `<label>Joined <select id="filter-topology"><option value="any">any way</option>${topologies}</select></label>` +
-    '<label>Phase <select id="filter-phase"><option value="any">any</option><option value="in">all in phase</option><option value="out">some out of phase</option></select></label>' +
-    '<label class="check"><input type="checkbox" id="filter-quiet"> Quiet only (hum cancelling)</label>' +
-    '<button type="button" data-action="reset-filters">Show all</button>' +
-    `<output id="shown-count" aria-live="polite">Showing ${report.wirings.length} of ${report.wirings.length}</output>` +
+    '<form id="knobs" class="knobs" aria-label="Knobs and amplifier">' +
+    `<label>Volume <input type="range" id="knob-volume" min="0.5" max="10" step="0.5" value="${volume}"> <output id="knob-volume-value">${volume.toFixed(1)}</output></label>` +
+    toneFields +
+    `<label>Cable <input type="number" id="knob-cable" min="${CABLE_MIN_PF}" max="${CABLE_MAX_PF}" step="${CABLE_STEP_PF}" value="${cablePf}"> pF</label>` +
+    `<label>Amplifier <select id="knob-chain" data-chain="${escapeHtml(data.report.render.chain)}"></select></label>` +
     '</form>'
+  );
+}
+
+/** Search, and an expression to play. */
+function renderFinder(report: ListeningReport, data: PageData): string {
+  const ids = data.guitar.elements.map((element) => element.id);
+  const [first, second] = [ids[0] ?? 'neck', ids[ids.length - 1] ?? 'bridge'];
+  return (
+    '<div class="finder">' +
+    `<label class="search">Find <input type="search" id="search" placeholder="${escapeHtml(`${first}, parallel, quiet …`)}" autocomplete="off"></label>` +
+    `<output id="shown-count" aria-live="polite">Showing ${report.wirings.length}</output>` +
+    '<form id="expression-form" class="expression">' +
+    `<label>Play an expression <input type="text" id="expression-input" placeholder="${escapeHtml(`${first} + ~${second}`)}" autocomplete="off" spellcheck="false"></label>` +
+    '<button type="submit">Play it</button> <output id="expression-message" aria-live="polite"></output></form>' +
+    '</div>'
   );
 }
 
@@ -90,7 +92,7 @@ function renderFilters(report: ListeningReport): string {
  * position, time, then `extra` controls (the listening page's loop), the
  * level-match switch and the volume.
  */
-export function renderTransport(durationS: number, prompt: string, extra = ''): string {
+export function renderTransport(durationS: number, prompt: string, extra = '', withDownload = false): string {
   const duration = durationS.toFixed(2);
   return (
     '<div id="transport" class="transport" role="region" aria-label="Player">' +
@@ -102,6 +104,7 @@ export function renderTransport(durationS: number, prompt: string, extra = ''): 
     '<label class="check level-switch"><input type="checkbox" id="match-level" data-action="level-mode" checked> Level matched</label>' +
     `<label class="volume">Volume <input type="range" id="volume" min="0" max="1" step="0.01" value="${START_VOLUME}"></label>` +
     '<output id="level-note" class="level-note"></output>' +
+    (withDownload ? '<button type="button" id="download" title="Save the wiring playing, at these knob settings, as a WAV file">Download WAV</button>' : '') +
     '</div>'
   );
 }
@@ -109,9 +112,10 @@ export function renderTransport(durationS: number, prompt: string, extra = ''): 
 /** The loop controls of the listening page's player bar. */
 function renderLoopControls(durationS: number): string {
   const duration = durationS.toFixed(2);
+  const checked = loopsByDefault(durationS) ? ' checked' : '';
   return (
     '<fieldset class="loop"><legend class="visually-hidden">Loop a region</legend>' +
-    '<label class="check"><input type="checkbox" id="loop-on" data-action="loop"> Loop</label>' +
+    `<label class="check"><input type="checkbox" id="loop-on" data-action="loop"${checked}> Loop</label>` +
     `<label>from <input type="number" id="loop-start" min="0" max="${duration}" step="0.1" value="0"> s</label>` +
     `<label>to <input type="number" id="loop-end" min="0" max="${duration}" step="0.1" value="${duration}"> s</label>` +
     '<button type="button" data-action="loop-start-here" title="Loop from the current position">from here</button>' +
@@ -123,7 +127,7 @@ function renderLoopControls(durationS: number): string {
 function renderPlotSection(): string {
   return (
     '<section id="response" aria-labelledby="response-title"><h2 id="response-title">Frequency response</h2>' +
-    '<p>Tick <strong>Plot</strong> on any rows to overlay their responses: how strongly each wiring passes each frequency, from the coils to the amplifier input, relative to 100 Hz. The dot on each curve is its resonant peak. Point at the plot, or focus it and use the arrow keys, to read values.</p>' +
+    '<p>Tick <strong>plot</strong> on any rows to overlay their responses at the knobs\' settings: how strongly each wiring passes each frequency, from the coils to the amplifier input, relative to 100 Hz. The dot on each curve is its resonant peak. Point at the plot, or focus it and use the arrow keys, to read values.</p>' +
     '<div class="plot-wrap"><svg id="response-plot" viewBox="0 0 760 340" role="img" tabindex="0" aria-labelledby="response-title plot-readout"></svg></div>' +
     '<p id="plot-readout" class="readout" aria-live="polite">No wiring plotted yet.</p>' +
     '<ul id="plot-legend" class="legend"></ul>' +
@@ -132,10 +136,30 @@ function renderPlotSection(): string {
   );
 }
 
-function renderBlindSection(report: ListeningReport): string {
-  return renderBlindTestSection(
-    report.wirings.map((wiring) => ({ id: wiring.id, label: `${wiring.id} · ${wiring.description}` })),
-    'Choose two wirings. Each trial plays X, secretly one of A or B, at matched level; listen to A, B and X as often as you like, switching at the same point in the phrase, then say which one X is. ',
+/** The blind test of the listening page (src/page/blind-test.ts drives it). */
+function renderBlindSection(): string {
+  return (
+    '<section id="blind" aria-labelledby="blind-title"><h2 id="blind-title">Blind test: is the difference real to your ears?</h2>' +
+    '<p>Pick two wirings (the ones you plotted are offered, and every single coil). Each round, the page hides one of them as the <em>mystery sound</em>. Hear the first, the second and the mystery as often as you like, always at matched level and at the same place in the phrase, then say which one the mystery is. ' +
+    `The tally says how often a coin would do as well; give it <strong>${SUGGESTED_ROUNDS} rounds or more</strong>. (The method is the ABX test.)</p>` +
+    '<div class="blind-pick"><label>First wiring <select id="blind-first"></select></label>' +
+    '<label>Second wiring <select id="blind-second"></select></label>' +
+    '<button type="button" data-action="blind-start">Begin</button></div>' +
+    '<div id="blind-rounds" class="blind-rounds" hidden>' +
+    '<p id="blind-round" aria-live="polite"></p>' +
+    '<div class="blind-hear" role="group" aria-label="Hear">' +
+    '<button type="button" data-action="blind-hear-first">Hear the first</button>' +
+    '<button type="button" data-action="blind-hear-second">Hear the second</button>' +
+    '<button type="button" data-action="blind-hear-mystery">Hear the mystery</button>' +
+    '<button type="button" data-action="blind-silence">Silence</button></div>' +
+    '<div class="blind-name" role="group" aria-label="Name the mystery">' +
+    '<button type="button" data-action="blind-is-first">The mystery is the first</button>' +
+    '<button type="button" data-action="blind-is-second">The mystery is the second</button></div>' +
+    '<button type="button" data-action="blind-finish">Finish and reveal the answers</button>' +
+    '</div>' +
+    '<p id="blind-tally" class="score" aria-live="polite"></p>' +
+    '<ol id="blind-answers" class="blind-answers"></ol>' +
+    '</section>'
   );
 }
 
@@ -147,24 +171,24 @@ function renderBlindSection(report: ListeningReport): string {
 export function renderBlindTestSection(choices: ReadonlyArray<{ readonly id: string; readonly label: string }>, introText: string): string {
   const options = choices.map((choice) => `<option value="${escapeHtml(choice.id)}">${escapeHtml(choice.label)}</option>`).join('');
   return (
-    '<section id="blind" aria-labelledby="blind-title"><h2 id="blind-title">Blind test: can you really hear the difference?</h2>' +
+    '<section id="blind" aria-labelledby="blind-title"><h2 id="blind-title">Blind test: is the difference real to your ears?</h2>' +
     `<p>${escapeHtml(introText)}` +
-    `Do <strong>at least ${RECOMMENDED_ABX_TRIALS} trials</strong>: guessing gets about half right, and the page shows how likely your score would be by guessing alone.</p>` +
+    `Give it <strong>${RECOMMENDED_ABX_TRIALS} rounds or more</strong>: the tally says how often a coin would do as well. (The method is the ABX test.)</p>` +
     '<div class="abx-pick">' +
-    `<label>A <select id="abx-a">${options}</select></label>` +
-    `<label>B <select id="abx-b">${options}</select></label>` +
-    '<button type="button" data-action="abx-start">Start a blind test</button></div>' +
+    `<label>First wiring <select id="abx-a">${options}</select></label>` +
+    `<label>Second wiring <select id="abx-b">${options}</select></label>` +
+    '<button type="button" data-action="abx-start">Begin</button></div>' +
     '<div id="abx-trial" class="abx-trial" hidden>' +
     '<p id="abx-status" aria-live="polite"></p>' +
     '<div class="abx-listen" role="group" aria-label="Listen">' +
-    '<button type="button" data-action="abx-play-a">Play A</button>' +
-    '<button type="button" data-action="abx-play-b">Play B</button>' +
-    '<button type="button" data-action="abx-play-x">Play X</button>' +
-    '<button type="button" data-action="abx-stop">Stop</button></div>' +
+    '<button type="button" data-action="abx-play-a">Hear the first</button>' +
+    '<button type="button" data-action="abx-play-b">Hear the second</button>' +
+    '<button type="button" data-action="abx-play-x">Hear the mystery</button>' +
+    '<button type="button" data-action="abx-stop">Silence</button></div>' +
     '<div class="abx-answer" role="group" aria-label="Answer">' +
-    '<button type="button" data-action="abx-answer-a">X is A</button>' +
-    '<button type="button" data-action="abx-answer-b">X is B</button></div>' +
-    '<button type="button" data-action="abx-end">End the test and show the answers</button>' +
+    '<button type="button" data-action="abx-answer-a">The mystery is the first</button>' +
+    '<button type="button" data-action="abx-answer-b">The mystery is the second</button></div>' +
+    '<button type="button" data-action="abx-end">Finish and reveal the answers</button>' +
     '</div>' +
     '<p id="abx-score" class="score" aria-live="polite"></p>' +
     '<ol id="abx-log" class="abx-log"></ol>' +
@@ -176,59 +200,67 @@ function renderColumnHelp(report: ListeningReport): string {
   return (
     '<details class="help"><summary>What the columns mean</summary>' +
     '<dl>' +
-    '<dt>Level</dt><dd>How loud the wiring is at true level, compared with the average single coil (0 dB). Playback is level matched unless you untick <em>Level matched</em>, so you compare the sound, not the loudness.</dd>' +
+    '<dt>Level</dt><dd>How loud the wiring is at true level, compared with the average single coil (0 dB), at the render\'s settings. Playback is level matched unless you untick <em>Level matched</em>: each render is measured as it plays (knobs and amplifier included) and brought to one loudness, so you compare the sound, not the loudness.</dd>' +
     `<dt>Brightness</dt><dd>${renderBrightnessLegend(report)}</dd>` +
-    '<dt>Resonant peak</dt><dd>Where the circuit boosts most, and how much above 100 Hz. Words after H. Lemme: about 2 kHz warm, 3 kHz present, 4 kHz piercing, 5 kHz and above brittle.</dd>' +
+    '<dt>Resonant peak</dt><dd>Where the circuit boosts most, and how many dB above its response at 100 Hz. Where the wiring sits between dark and bright is said once, by the Brightness column.</dd>' +
     `<dt>Hum</dt><dd>Mains hum compared with the average single coil. <em>Quiet (hum cancelling)</em>: ${formatDb(HUM_CANCELLING_DB, 0)} or less; <em>less hum</em>: ${formatDb(HUM_PARTLY_CANCELLING_DB, 0)} or less; <em>noisy</em>: more.</dd>` +
     '</dl></details>'
   );
 }
 
-/** The listening page for a report, as one HTML document. */
-export function renderListeningPage(report: ListeningReport): string {
-  const script = ["'use strict';", PAGE_MATH_SCRIPT, PAGE_LOADER_SCRIPT, PAGE_PLAYER_SCRIPT, PAGE_PLOT_SCRIPT, PAGE_BLIND_SCRIPT, PAGE_UI_SCRIPT].join('\n');
-  const { guitar, render, wirings } = report;
+/** The listening page for a report, as one HTML document: `data` is what the page plays from, `script` the bundled page script (dist/page.js). */
+export function renderListeningPage(report: ListeningReport, data: Omit<PageData, 'report'>, script: string): string {
+  const { guitar, render } = report;
   const name = escapeHtml(guitar.name);
-  const quiet = wirings.filter((wiring) => wiring.humCancelling).length;
-  return `${renderPageHead({ title: `${guitar.name} · listen to every wiring`, script, style: PAGE_STYLE, generator: report.generator })}
+  const durationS = data.coils.length / data.coils.sampleRateHz;
+  const style = `${PAGE_STYLE}${PAGE_LIST_STYLE}`;
+  const pageData: PageData = { ...data, report: compactReportForPage(report) };
+  return `${renderPageHead({ title: `${guitar.name} · listen to every wiring`, script, style, generator: report.generator })}
 <a class="skip" href="#wirings">Skip to the wirings</a>
 <header class="masthead">
 <p class="kicker">coilbench listening page</p>
 <h1 id="guitar-name">${name}</h1>
-<p class="lede">${wirings.length} ways to connect this guitar's coils, each rendered from the same playing (${escapeHtml(render.phrase)}, ${escapeHtml(render.chain)} chain). ${quiet} of them cancel hum.</p>
+<p class="lede">Every way to connect this guitar's coils, played live from the same performance (${escapeHtml(render.phrase)}): choose any wiring, turn the knobs, change the amplifier, and hear it at once.</p>
 <p class="warn-volume">Turn your speakers or headphones down before you press play.</p>
 </header>
-<noscript><p class="noscript">Playing, sorting, filtering, the plot and the blind test need JavaScript; the table and notes below work without it.</p></noscript>
+<noscript><p class="noscript">This page makes its sound with JavaScript; the notes below work without it, and the WAV files beside it (when written) play anywhere.</p></noscript>
 <main>
 <section id="start" class="start" aria-labelledby="start-title">
 <h2 id="start-title">Start here</h2>
 <ol>
-<li><strong>Find the quiet ones.</strong> <button type="button" data-action="quiet-only">Show only quiet wirings</button> (they cancel mains hum).</li>
 <li><strong>Hear two back to back.</strong> Press ▶ on one row, then ▶ on another while it plays: the sound switches at the same point in the phrase, at the same loudness. Arrow keys ↑ ↓ step through the rows; Space plays and pauses.</li>
-<li><strong>See which is brighter.</strong> The <em>Brightness</em> column says it in words and as a bar: the longer bar is the brighter sound.</li>
+<li><strong>Turn the knobs.</strong> Volume, tone, tone capacitor, cable and amplifier change the sound while it plays.</li>
+<li><strong>Find one.</strong> Type words, a coil's name or an expression in <em>Find</em>, or type an expression such as <code>${escapeHtml(exampleExpression(data))}</code> and press <em>Play it</em>.</li>
 </ol>
 </section>
 <section id="wirings" aria-labelledby="wirings-title">
 <h2 id="wirings-title">Every wiring</h2>
-${renderFilters(report)}
+${renderKnobs({ ...data, report })}
+${renderFinder(report, { ...data, report })}
 ${renderColumnHelp(report)}
-<div class="scroll table-wrap">
-${renderWiringTable(report)}
-</div>
+<div class="list-head" aria-hidden="true"><span></span><span>No.</span><span>Wiring</span><span>In words</span><span>Level</span><span>Brightness</span><span>Resonant peak</span><span>Hum</span><span></span></div>
+<div id="wiring-list" class="wiring-list" role="list" aria-label="Wirings" tabindex="0"></div>
 </section>
 ${renderGroupsSection(report)}
 ${renderPlotSection()}
-${renderBlindSection(report)}
+${renderBlindSection()}
 ${renderGuitarSection(report)}
 ${renderHowSection(report)}
-${renderGlossarySection()}
+${renderGlossarySection(data.guitar.elements.map((element) => element.id))}
 ${renderCautionsSection()}
 </main>
 <footer class="footer"><p>Made with coilbench. Renders are models: make the final choice by ear on the real instrument.</p></footer>
-${renderTransport(report.render.durationS, 'Press ▶ on any row to listen', renderLoopControls(report.render.durationS))}
-<script type="application/json" id="report-data">${serializeJsonForScript(compactReportForPage(report))}</script>
+${renderTransport(durationS, 'Press ▶ on any row to listen', renderLoopControls(durationS), true)}
+<script type="application/json" id="page-data">${serializeJsonForScript(pageData)}</script>
 <script>${script}</script>
 </body>
 </html>
 `;
+}
+
+/** An expression in the guitar's own coil names for the examples ("neck + ~bridge"). */
+function exampleExpression(data: Omit<PageData, 'report'>): string {
+  const ids = data.guitar.elements.map((element) => element.id);
+  if (ids.length < 2) return ids[0] ?? '';
+  return `${ids[0]} + ~${ids[ids.length - 1]}`;
 }

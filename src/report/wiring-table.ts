@@ -13,9 +13,9 @@ import {
   formatDb,
   formatHz,
   humVerdict,
-  peakCharacter,
+  describePeak,
   topologyInWords,
-} from './page-words.js';
+} from '../page/index.js';
 
 /** Width of the brightness bar, SVG user units (px). */
 const BAR_WIDTH = 64;
@@ -54,7 +54,7 @@ function peakCell(wiring: ReportWiring): string {
   }
   return (
     `<td class="peak"><span class="figure">${escapeHtml(formatHz(wiring.resonanceHz))}</span>` +
-    `<span class="word">${escapeHtml(peakCharacter(wiring.resonanceHz))}, ${escapeHtml(formatDb(wiring.peakDb))}</span></td>`
+    `<span class="word">${escapeHtml(describePeak(wiring.resonanceHz, wiring.peakDb))}</span></td>`
   );
 }
 

@@ -263,6 +263,7 @@ async function renderComparison(base: Guitar, comparisons: readonly GuitarCompar
           folder: outputFolder(join(root, setFolder(index))),
           generator: `coilbench ${COILBENCH_VERSION}`,
           thresholds: first.thresholds,
+          pageAudioCopies: true,
         },
         { onStage: (stage, total) => progress.stage(stage, total), onStep: (done, total) => progress.step(done, total) },
       ),

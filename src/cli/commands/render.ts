@@ -52,6 +52,8 @@ export interface RenderOptionText extends CircuitOptionText, AlikeOptionText {
   readonly hum?: string;
   readonly humLevel?: string;
   readonly seed?: string;
+  /** False with --no-wav. */
+  readonly wav?: boolean;
 }
 
 export function addRenderOptions(command: Command): Command {
@@ -66,7 +68,8 @@ export function addRenderOptions(command: Command): Command {
       .option('--level <mode>', 'true: one common gain, levels as the circuit makes them (default); matched: every file at one loudness')
       .option('--hum <hz>', 'mix mains hum at 50 or 60 Hz into every file, through each wiring\'s own hum pickup')
       .option('--hum-level <volts>', `peak hum EMF in a nominal coil with --hum, like "5mV" (default ${DEFAULT_HUM_EMF_V * 1000} mV)`)
-      .option('--seed <n>', 'seed of the pluck noise (default 1)'),
+      .option('--seed <n>', 'seed of the pluck noise (default 1)')
+      .option('--no-wav', 'write only the listening page, netlists and reports (the page plays every wiring without the WAV files)'),
   ));
 }
 
@@ -187,6 +190,7 @@ export async function runRender(file: string, guitar: Guitar, options: RenderOpt
       folder,
       generator: `coilbench ${COILBENCH_VERSION}`,
       thresholds: parsed.thresholds,
+      writeWav: options.wav !== false,
     },
     { onStage: (stage, total) => progress.stage(stage, total), onStep: (done, total) => progress.step(done, total) },
   );
@@ -219,9 +223,8 @@ export function reportRender(io: Io, root: string, outcome: RenderOutcome, secon
       ? `true relative level, common gain ${outcome.commonGainDb >= 0 ? '+' : ''}${outcome.commonGainDb.toFixed(1)} dB`
       : `loudness matched at ${outcome.matchedLoudnessLufs?.toFixed(1) ?? '?'} LUFS`;
   const speed = outcome.written > 0 && seconds > 0 ? `, ${(outcome.audioSeconds / seconds).toFixed(0)}× real time` : '';
-  io.stderr(
-    `coilbench: ${count} wirings in ${where}/wav: ${outcome.written} written, ${outcome.skipped} unchanged (${level}; ${seconds.toFixed(1)} s${speed})\n`,
-  );
+  if (outcome.rows.every((row) => row.wav === null)) io.stderr(`coilbench: ${count} wirings on the listening page, no WAV files (--no-wav; ${seconds.toFixed(1)} s)\n`);
+  else io.stderr(`coilbench: ${count} wirings in ${where}/wav: ${outcome.written} written, ${outcome.skipped} unchanged (${level}; ${seconds.toFixed(1)} s${speed})\n`);
   io.stderr(`coilbench: ${groupHeadline(outcome.distinct.spectra.count, outcome.distinct)}; see "Which wirings sound alike" on the page and in report.md\n`);
   io.stdout(`${where}/index.html\n`);
   io.stderr(`coilbench: open ${where}/index.html in a browser to listen; start at a low volume. Reports: report.md, wirings.csv, report.json; netlists in ${where}/netlists\n`);

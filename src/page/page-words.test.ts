@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { brightnessScale, formatDb, formatHz, humVerdict, peakCharacter, topologyInWords } from './page-words.js';
+import { brightnessScale, formatDb, formatHz, humVerdict, describePeak, topologyInWords } from './page-words.js';
 
 describe('page words', () => {
   it('marks hum: quiet at or below −20 dB (docs/design.md humCancelling), partly to −6 dB, noisy above', () => {
@@ -11,13 +11,9 @@ describe('page words', () => {
     expect(humVerdict(null, false)).toBe('quiet'); // −∞ dB arrives as null in JSON: no hum at all
   });
 
-  it("names resonant peaks on Lemme's scale: about 2 kHz warm, 3 kHz present, 4 kHz piercing, 5 kHz and above brittle", () => {
-    expect(peakCharacter(2000)).toBe('warm');
-    expect(peakCharacter(3000)).toBe('present');
-    expect(peakCharacter(4000)).toBe('piercing');
-    expect(peakCharacter(5200)).toBe('brittle');
-    expect(peakCharacter(1200)).toBe('dark');
-    expect(peakCharacter(null)).toBe('no clear peak');
+  it('describes a peak by its frequency and height only', () => {
+    expect(describePeak(4100, 6.24)).toBe('peak at 4.10 kHz, +6.2 dB');
+    expect(describePeak(null, 0)).toBe('no peak in the audio band');
   });
 
   it('ties brightness words to octaves from the median centroid, and bars to a log scale', () => {

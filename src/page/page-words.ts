@@ -38,24 +38,15 @@ export const HUM_VERDICT_WORDS: Readonly<Record<HumVerdict, readonly [string, st
 });
 
 /**
- * The character of a loaded resonant peak by its frequency. H. Lemme's scale
- * for a pickup with a normal cable: about 2 kHz warm, 3 kHz present, 4 kHz
- * piercing, 5 kHz and above brittle (his article
- * "The Secrets of Electric Guitar Pickups", 2003). Each word covers
- * the band halfway to its neighbours; "dark" below the warm band is ours.
+ * A resonant peak in plain figures: where it is and how high it stands above
+ * the response at 100 Hz ("peak at 4.10 kHz, +6.2 dB"). The page gives the
+ * peak no character word of its own: where a wiring sits between dark and
+ * bright is said once, by the Brightness column (its spectral centroid), so
+ * a row never reads two ways at once.
  */
-const PEAK_CHARACTER_BANDS: ReadonlyArray<readonly [number, string]> = Object.freeze([
-  [1500, 'dark'], // Hz, below the warm band (our own word)
-  [2500, 'warm'], // Hz, around 2 kHz (Lemme)
-  [3500, 'present'], // Hz, around 3 kHz (Lemme)
-  [4500, 'piercing'], // Hz, around 4 kHz (Lemme)
-]);
-const PEAK_CHARACTER_TOP = 'brittle'; // 5 kHz and above (Lemme)
-
-export function peakCharacter(resonanceHz: number | null): string {
-  if (resonanceHz === null || !Number.isFinite(resonanceHz)) return 'no clear peak';
-  for (const [upperHz, word] of PEAK_CHARACTER_BANDS) if (resonanceHz < upperHz) return word;
-  return PEAK_CHARACTER_TOP;
+export function describePeak(resonanceHz: number | null, peakDb: number | null): string {
+  if (resonanceHz === null || !Number.isFinite(resonanceHz)) return 'no peak in the audio band';
+  return `peak at ${formatHz(resonanceHz)}, ${formatDb(peakDb)}`;
 }
 
 /**

@@ -1,0 +1,436 @@
+/**
+ * The listening page's script (the bundle's entry): reads the page data,
+ * lists every wiring of the guitar (the same enumerator as the command line),
+ * renders the chosen one on demand with the wiring engine at the knobs'
+ * settings, plays it through the player with level matching, and joins the
+ * plot, the blind test, the keyboard and the download. Every string from the
+ * guitar file reaches the document through textContent or attributes.
+ */
+import { measureCentroid } from '../analysis/index.js';
+import { type ChainName, CHAIN_NAMES, encodeWav } from '../render/portable/index.js';
+import { type Wiring, enumerateWirings, makeWiring, parseWiring, printNetwork, canonicalize, vocabularyOf } from '../wiring/index.js';
+import type { ReportWiring } from '../report/index.js';
+import { createBlindTest } from './blind-test.js';
+import { type PageData, encodeSignal } from './page-data.js';
+import { formatSeconds, loopsByDefault, matchesSearch, playbackGainDb, MATCHED_LOUDNESS_LUFS } from './page-math.js';
+import { brightnessScale, describePeak, formatDb, formatHz, humVerdict, HUM_VERDICT_WORDS } from './page-words.js';
+import { type Playable, createPlayer } from './player.js';
+import { createResponsePlot } from './response-plot.js';
+import { responseCurve } from './response-curve.js';
+import { type Knobs, type RenderedWiring, createWiringEngine, overridesOf, guitarWithKnobs, renderKey } from './wiring-engine.js';
+import { type ListRow, createWiringList } from './wiring-list.js';
+
+/** Renders kept ready to play (each a few MB of float32; our own bound). */
+const RENDERS_KEPT = 24;
+/** Interval of the position display, ms. */
+const TICK_MS = 50;
+/** Farads per nanofarad and picofarad (the knob fields' units). */
+const NANO = 1e-9;
+const PICO = 1e-12;
+
+function byId<T extends HTMLElement>(id: string): T {
+  const element = document.getElementById(id);
+  if (!element) throw new Error(`the page lacks #${id}`);
+  return element as T;
+}
+
+const data = JSON.parse(byId('page-data').textContent ?? '{}') as PageData;
+const { guitar, report } = data;
+performance.mark('coilbench-data');
+const engine = createWiringEngine(data);
+performance.mark('coilbench-engine');
+const wirings: Wiring[] = enumerateWirings(guitar.elements);
+const reported = new Map<string, ReportWiring>(report.wirings.map((wiring) => [wiring.id, wiring]));
+const byKey = new Map<string, Wiring>(wirings.map((wiring) => [wiring.id, wiring]));
+const ids = guitar.elements.map((element) => element.id);
+const vocabulary = vocabularyOf(guitar);
+const scale = brightnessScale(report.wirings.map((wiring) => wiring.centroidHz));
+const singleLoudness = report.wirings.filter((wiring) => wiring.coils.length === 1).map((wiring) => wiring.loudnessLufs).filter(Number.isFinite);
+/** True level: one common gain putting the mean single coil at the matched loudness. */
+const trueGainDb = singleLoudness.length ? MATCHED_LOUDNESS_LUFS - singleLoudness.reduce((a, b) => a + b, 0) / singleLoudness.length : 0;
+
+let knobs: Knobs = engine.renderKnobs;
+let matched = true;
+let currentWiring: Wiring | null = null;
+let previous: { wiring: Wiring; loudness: number } | null = null;
+const plotted: string[] = wirings.filter((wiring) => wiring.elements.length === 1).slice(0, 4).map((wiring) => wiring.id);
+const renders = new Map<string, Promise<RenderedWiring>>();
+const played = new Map<string, RenderedWiring>();
+
+const player = createPlayer({
+  sampleRateHz: engine.sampleRateHz,
+  volume: Number(byId<HTMLInputElement>('volume').value),
+  gainDb: (playable) => {
+    const render = played.get(playable.key);
+    return render ? playbackGainDb(render, matched || blind.isRunning(), trueGainDb) : 0;
+  },
+});
+
+function renderOf(wiring: Wiring, at: Knobs): Promise<RenderedWiring> {
+  const key = renderKey(wiring.expression, at);
+  let pending = renders.get(key);
+  if (pending) {
+    renders.delete(key);
+    renders.set(key, pending);
+    return pending;
+  }
+  pending = engine.render(wiring.expression, wiring.network, at);
+  renders.set(key, pending);
+  pending.then((render) => played.set(key, render)).catch(() => renders.delete(key));
+  while (renders.size > RENDERS_KEPT) {
+    const oldest = renders.keys().next().value as string;
+    renders.delete(oldest);
+    if (!player.soundingKeys().includes(oldest)) played.delete(oldest);
+  }
+  return pending;
+}
+
+function playableOf(render: RenderedWiring): Playable {
+  const context = player.context();
+  const buffer = context.createBuffer(1, render.samples.length, engine.sampleRateHz);
+  buffer.copyToChannel(render.samples as Float32Array<ArrayBuffer>, 0);
+  return { key: render.key, buffer, peak: render.peak };
+}
+
+let request = 0;
+/** Make `wiring` the one that sounds (now, if playing; `start` starts playback). */
+async function choose(wiring: Wiring, start: boolean): Promise<void> {
+  const mine = (request += 1);
+  if (currentWiring && currentWiring.id !== wiring.id) {
+    const before = played.get(renderKey(currentWiring.expression, knobs));
+    if (before) previous = { wiring: currentWiring, loudness: before.loudnessLufs };
+  }
+  currentWiring = wiring;
+  list.setCurrent(wiring.id, false);
+  byId('now-detail').textContent = 'rendering\u2026';
+  try {
+    const render = await renderOf(wiring, knobs);
+    if (mine !== request) return;
+    player.show(playableOf(render), start || player.isPlaying());
+    byId('now-detail').textContent = '';
+  } catch (error) {
+    byId('now-detail').textContent = `Could not render: ${error instanceof Error ? error.message : String(error)}.`;
+  }
+  updateLabels();
+}
+
+/* ---------- the list ---------- */
+
+function rowOf(wiring: Wiring): ListRow {
+  const metrics = reported.get(wiring.id);
+  const level = metrics ? formatDb(metrics.levelDb) : '\u2014';
+  const brightness = metrics ? `${scale.word(metrics.centroidHz)} (${formatHz(metrics.centroidHz)})` : '\u2014';
+  const peak = metrics ? describePeak(metrics.resonanceHz, metrics.peakDb) : '\u2014';
+  const hum = metrics ? HUM_VERDICT_WORDS[humVerdict(metrics.humDb, metrics.humCancelling)].join(' ').trim() : '\u2014';
+  return {
+    id: wiring.id,
+    number: wiring.number,
+    expression: wiring.expression,
+    cells: [wiring.description, level, brightness, peak, hum],
+    searchText: [wiring.id, wiring.expression, wiring.description, ...wiring.elementIds, brightness, hum].join(' '),
+  };
+}
+
+const list = createWiringList(byId('wiring-list'), wirings.map(rowOf), {
+  play: (id) => {
+    const wiring = byKey.get(id);
+    if (!wiring) return;
+    if (currentWiring?.id === id && player.isPlaying()) player.pause();
+    else void choose(wiring, true);
+  },
+  plot: (id, on) => {
+    const at = plotted.indexOf(id);
+    if (on && at < 0) plotted.push(id);
+    if (!on && at >= 0) plotted.splice(at, 1);
+    drawPlot();
+    fillBlindChoices();
+  },
+  plotted: (id) => plotted.includes(id),
+});
+
+function search(): void {
+  const shown = list.filter(byId<HTMLInputElement>('search').value);
+  byId('shown-count').textContent = `Showing ${shown} of ${wirings.length}`;
+}
+byId('search').addEventListener('input', search);
+
+performance.mark('coilbench-list');
+
+/* ---------- typing an expression ---------- */
+
+byId<HTMLFormElement>('expression-form').addEventListener('submit', (event) => {
+  event.preventDefault();
+  const text = byId<HTMLInputElement>('expression-input').value;
+  const message = byId('expression-message');
+  try {
+    const network = canonicalize(parseWiring(text, vocabulary, 'expression'));
+    const expression = printNetwork(network, ids);
+    const wiring = wirings.find((candidate) => candidate.expression === expression) ?? makeWiring(network, ids, 0);
+    message.textContent = `Playing ${wiring.expression} (${wiring.description}).`;
+    void choose(wiring, true);
+  } catch (error) {
+    message.textContent = error instanceof Error ? error.message : String(error);
+  }
+});
+
+/* ---------- knobs ---------- */
+
+function readKnobs(): Knobs {
+  const volume = Number(byId<HTMLInputElement>('knob-volume').value);
+  const tone = guitar.controls.tone ? Number(byId<HTMLInputElement>('knob-tone').value) : null;
+  const capacitor = guitar.controls.tone ? Number(byId<HTMLInputElement>('knob-tone-capacitor').value) * NANO : null;
+  const cable = Number(byId<HTMLInputElement>('knob-cable').value) * PICO;
+  const chain = byId<HTMLSelectElement>('knob-chain').value as ChainName;
+  return {
+    volumeSetting: volume,
+    toneSetting: tone,
+    toneCapacitorF: capacitor !== null && capacitor > 0 ? capacitor : knobs.toneCapacitorF,
+    cableCapacitanceF: cable > 0 ? cable : knobs.cableCapacitanceF,
+    chain: CHAIN_NAMES.includes(chain) ? chain : knobs.chain,
+  };
+}
+
+function knobsChanged(): void {
+  knobs = readKnobs();
+  byId('knob-volume-value').textContent = knobs.volumeSetting.toFixed(1);
+  if (guitar.controls.tone) byId('knob-tone-value').textContent = (knobs.toneSetting ?? 0).toFixed(1);
+  drawPlot();
+  if (currentWiring) void choose(currentWiring, false);
+}
+byId('knobs').addEventListener('input', knobsChanged);
+byId('knobs').addEventListener('submit', (event) => event.preventDefault());
+
+/* ---------- transport ---------- */
+
+function levelNote(): string {
+  if (blind.isRunning()) return 'Blind test: level matched, names hidden.';
+  const wiring = currentWiring;
+  const render = wiring ? played.get(renderKey(wiring.expression, knobs)) : undefined;
+  if (!wiring || !render) return matched ? 'Level matched.' : 'True level.';
+  let note = `${matched ? 'Level matched' : 'True level'}. This render: ${render.loudnessLufs.toFixed(1).replace('-', '\u2212')} LUFS before playback gain`;
+  if (previous && previous.wiring.id !== wiring.id && Number.isFinite(previous.loudness) && Number.isFinite(render.loudnessLufs)) {
+    const difference = render.loudnessLufs - previous.loudness;
+    note += `; at true level ${Math.abs(difference).toFixed(1)} dB ${difference >= 0 ? 'louder' : 'quieter'} than ${previous.wiring.expression}`;
+  }
+  const wanted = matched ? MATCHED_LOUDNESS_LUFS - render.loudnessLufs : trueGainDb;
+  const given = playbackGainDb(render, matched, trueGainDb);
+  if (given < wanted - 0.05) note += ` (raised only ${formatDb(given)} of ${formatDb(wanted)} to stay below full scale)`;
+  return `${note}.`;
+}
+
+function updateLabels(): void {
+  const label = blind.isRunning() ? blind.label() : null;
+  byId('now-label').textContent = label ? `Blind test \u00b7 playing ${label}` : currentWiring ? `${currentWiring.expression} \u00b7 ${currentWiring.description}` : 'Press \u25b6 on any row to listen';
+  byId('level-note').textContent = levelNote();
+  const play = byId('transport-play');
+  play.setAttribute('aria-label', player.isPlaying() ? 'Pause' : 'Play');
+  play.classList.toggle('is-playing', player.isPlaying());
+}
+
+function updateTime(): void {
+  player.tick();
+  const duration = engine.length / engine.sampleRateHz;
+  const position = player.position();
+  byId('time').textContent = `${formatSeconds(position)} / ${formatSeconds(duration)}`;
+  const scrub = byId<HTMLInputElement>('scrub');
+  if (document.activeElement !== scrub) scrub.value = String(position);
+}
+
+player.onChange(() => {
+  updateLabels();
+  updateTime();
+});
+
+function togglePlayback(): void {
+  if (player.isPlaying()) {
+    player.pause();
+    return;
+  }
+  const wiring = currentWiring ?? byKey.get(list.shown()[0] ?? '');
+  if (wiring) void choose(wiring, true);
+}
+byId('transport-play').addEventListener('click', togglePlayback);
+byId('scrub').addEventListener('input', () => player.seek(Number(byId<HTMLInputElement>('scrub').value)));
+
+function applyLoop(): void {
+  const on = byId<HTMLInputElement>('loop-on').checked;
+  const start = Number(byId<HTMLInputElement>('loop-start').value);
+  const end = Number(byId<HTMLInputElement>('loop-end').value);
+  player.setLoop(on && end > start ? { start, end } : null);
+}
+for (const id of ['loop-on', 'loop-start', 'loop-end']) byId(id).addEventListener('change', applyLoop);
+
+byId('match-level').addEventListener('change', () => {
+  matched = byId<HTMLInputElement>('match-level').checked;
+  player.refreshGains();
+  updateLabels();
+});
+byId('volume').addEventListener('input', () => player.setVolume(Number(byId<HTMLInputElement>('volume').value)));
+
+/* ---------- download ---------- */
+
+byId('download').addEventListener('click', () => {
+  const wiring = currentWiring;
+  if (!wiring) return;
+  void renderOf(wiring, knobs).then((render) => {
+    const gain = 10 ** (playbackGainDb(render, matched, trueGainDb) / 20);
+    const samples = render.samples.map((sample) => sample * gain);
+    const bytes = encodeWav(samples, {
+      sampleRateHz: engine.sampleRateHz,
+      format: 'pcm24',
+      info: { name: wiring.expression, comment: `${wiring.description}; ${knobs.chain} chain; volume ${knobs.volumeSetting}${knobs.toneSetting === null ? '' : `, tone ${knobs.toneSetting}`}`, software: report.generator },
+    });
+    const link = document.createElement('a');
+    link.href = URL.createObjectURL(new Blob([bytes as Uint8Array<ArrayBuffer>], { type: 'audio/wav' }));
+    link.download = `${wiring.id}-${knobs.chain}.wav`;
+    link.click();
+    setTimeout(() => URL.revokeObjectURL(link.href), TICK_MS * 100);
+  });
+});
+
+/* ---------- plot ---------- */
+
+const plot = createResponsePlot(byId('response-plot') as unknown as SVGSVGElement, byId('plot-legend'), byId('plot-readout'));
+function drawPlot(): void {
+  const circuitGuitar = guitarWithKnobs(guitar, knobs);
+  const overrides = overridesOf(knobs, data.overrides);
+  plot.draw(
+    plotted.flatMap((id) => {
+      const wiring = byKey.get(id);
+      return wiring ? [{ id, label: wiring.expression, ...responseCurve(circuitGuitar, overrides, wiring.network) }] : [];
+    }),
+  );
+}
+document.querySelector('[data-action="clear-plot"]')?.addEventListener('click', () => {
+  plotted.splice(0);
+  list.refresh();
+  drawPlot();
+});
+
+/* ---------- blind test ---------- */
+
+const blind = createBlindTest({
+  listen: (id) => {
+    const wiring = byKey.get(id);
+    if (wiring) void choose(wiring, true);
+  },
+  stop: () => player.pause(),
+  describe: (id) => {
+    const wiring = byKey.get(id);
+    return wiring ? `${wiring.expression}, ${wiring.description}` : id;
+  },
+  changed: () => {
+    player.refreshGains();
+    updateLabels();
+  },
+});
+
+function fillBlindChoices(): void {
+  const offered = [...new Set([...plotted, ...wirings.filter((wiring) => wiring.elements.length === 1).map((wiring) => wiring.id)])];
+  for (const [selectId, pick] of [['blind-first', 0], ['blind-second', 1]] as const) {
+    const select = byId<HTMLSelectElement>(selectId);
+    const keep = select.value;
+    select.replaceChildren(
+      ...offered.map((id) => {
+        const option = document.createElement('option');
+        option.value = id;
+        option.textContent = byKey.get(id)?.expression ?? id;
+        return option;
+      }),
+    );
+    select.value = offered.includes(keep) ? keep : (offered[pick] ?? '');
+  }
+}
+
+/* ---------- keyboard ---------- */
+
+function step(delta: number): void {
+  const shown = list.shown();
+  if (shown.length === 0) return;
+  const index = currentWiring ? shown.indexOf(currentWiring.id) : -1;
+  const next = byKey.get(shown[index < 0 ? 0 : Math.max(0, Math.min(shown.length - 1, index + delta))] ?? '');
+  if (!next) return;
+  void choose(next, false);
+  list.setCurrent(next.id, true);
+}
+
+document.addEventListener('keydown', (event) => {
+  if (event.altKey || event.ctrlKey || event.metaKey) return;
+  const target = event.target as HTMLElement;
+  if (target.closest('input:not([type="checkbox"]):not([type="range"]), select, textarea')) return;
+  if (event.key === ' ' && !target.closest('button')) {
+    event.preventDefault();
+    togglePlayback();
+  } else if (event.key === 'ArrowDown' && !blind.isRunning()) {
+    event.preventDefault();
+    step(1);
+  } else if (event.key === 'ArrowUp' && !blind.isRunning()) {
+    event.preventDefault();
+    step(-1);
+  }
+});
+
+/* ---------- start ---------- */
+
+const chainSelect = byId<HTMLSelectElement>('knob-chain');
+chainSelect.replaceChildren(
+  ...CHAIN_NAMES.map((name) => {
+    const option = document.createElement('option');
+    option.value = name;
+    option.textContent = name;
+    return option;
+  }),
+);
+chainSelect.value = knobs.chain;
+
+byId<HTMLInputElement>('loop-on').checked = loopsByDefault(engine.length / engine.sampleRateHz);
+applyLoop();
+search();
+drawPlot();
+fillBlindChoices();
+updateLabels();
+updateTime();
+setInterval(updateTime, TICK_MS);
+byId<HTMLButtonElement>('transport-play').disabled = false;
+performance.mark('coilbench-ready');
+
+/** Float32 samples as base64 (the page's own coil-signal codec), for tests that compare hosts. */
+function samplesToBase64(samples: Float32Array): string {
+  return encodeSignal(samples);
+}
+
+/** Read-only view and test hooks: the page's own rendering path, for the cross-host checks. */
+(window as unknown as { coilbenchPage: unknown }).coilbenchPage = Object.freeze({
+  position: () => player.position(),
+  isPlaying: () => player.isPlaying(),
+  currentExpression: () => currentWiring?.expression ?? null,
+  soundingKeys: () => player.soundingKeys(),
+  blindScore: () => blind.score(),
+  wiringCount: () => wirings.length,
+  knobs: () => knobs,
+  /** Render `expression` at the knobs (render knobs overridden by `changes`): processed samples (base64 float32), loudness, centroid, peak. */
+  async render(expression: string, changes: Partial<Knobs> = {}) {
+    const network = canonicalize(parseWiring(expression, vocabulary, 'expression'));
+    const at = { ...engine.renderKnobs, ...changes };
+    const rendered = await engine.render(printNetwork(network, ids), network, at);
+    return {
+      samples: samplesToBase64(rendered.samples),
+      loudnessLufs: rendered.loudnessLufs,
+      centroidHz: measureCentroid(rendered.samples, engine.sampleRateHz),
+      peak: rendered.peak,
+      matchedGainDb: playbackGainDb(rendered, true, trueGainDb),
+    };
+  },
+  /** The direct signal of `expression` at the render's knobs (base64 float32): the synthesis alone, for the cross-host checks. */
+  direct(expression: string): string {
+    const network = canonicalize(parseWiring(expression, vocabulary, 'expression'));
+    return samplesToBase64(engine.synthesize(network, engine.renderKnobs));
+  },
+  /** Playback gain the page gives the render of `expression` at the current knobs, dB (null before it is rendered). */
+  gainDb: (expression: string) => {
+    const render = played.get(renderKey(expression, knobs));
+    return render ? playbackGainDb(render, matched || blind.isRunning(), trueGainDb) : null;
+  },
+  loudnessOf: (expression: string) => played.get(renderKey(expression, knobs))?.loudnessLufs ?? null,
+  matchesSearch,
+});

@@ -1,0 +1,58 @@
+/**
+ * What the listening page carries, and the one way its coil signals are
+ * written and read. The render (Node) fills it; the page script (browser)
+ * reads it from `<script type="application/json" id="page-data">`. Its size
+ * grows with the number of coils, not of wirings: every wiring is
+ * synthesised in the page from the coils' signals.
+ */
+import type { CircuitOverrides } from '../circuit/index.js';
+import type { Guitar } from '../guitar/index.js';
+import type { ListeningReport } from '../report/index.js';
+
+/** Each coil's EMF for the rendered phrase, float32 little-endian, base64. */
+export interface PageCoilSignals {
+  readonly sampleRateHz: number;
+  /** Samples in every wiring's output. */
+  readonly length: number;
+  /** Samples every coil signal is delayed by. */
+  readonly delay: number;
+  readonly fftSize: number;
+  /** Base64 of each coil's float32 samples (guitar.coils order). */
+  readonly signals: readonly string[];
+}
+
+/** Mains hum mixed into every wiring, as in the render's files. */
+export interface PageHum {
+  readonly mainsHz: number;
+  readonly emfVolts: number;
+}
+
+export interface PageData {
+  readonly report: ListeningReport;
+  /** The parsed guitar (the page enumerates its wirings and solves its circuit). */
+  readonly guitar: Guitar;
+  /** Knob and cable settings the render used. */
+  readonly overrides: CircuitOverrides;
+  readonly hum: PageHum | null;
+  readonly coils: PageCoilSignals;
+}
+
+/** Bytes per float32 sample. */
+const FLOAT32_BYTES = 4;
+
+/** Samples → base64 of their float32 bytes (little-endian, as every supported host stores them). */
+export function encodeSignal(samples: Float32Array): string {
+  const bytes = new Uint8Array(samples.buffer, samples.byteOffset, samples.length * FLOAT32_BYTES);
+  const CHUNK = 0x8000; // characters per String.fromCharCode call (stays under argument limits)
+  let binary = '';
+  for (let i = 0; i < bytes.length; i += CHUNK) binary += String.fromCharCode(...bytes.subarray(i, i + CHUNK));
+  return btoa(binary);
+}
+
+/** base64 of float32 bytes → samples. */
+export function decodeSignal(base64: string): Float32Array {
+  const binary = atob(base64);
+  const bytes = new Uint8Array(binary.length);
+  for (let i = 0; i < binary.length; i += 1) bytes[i] = binary.charCodeAt(i);
+  return new Float32Array(bytes.buffer, 0, Math.floor(bytes.length / FLOAT32_BYTES));
+}

@@ -1,0 +1,164 @@
+/**
+ * The page's sound engine: the same synthesis the command line runs
+ * (src/render/synthesize-wirings.ts, Y(f) = Σ T_i(f)·E_i(f) with the circuit
+ * of src/circuit), fed with the coil signals the page carries, then the same
+ * chain design (src/render/chain-design.ts) in the browser's own Web Audio
+ * graph (src/render/connect-chain-design.ts), rendered offline into a buffer
+ * and measured with the same loudness meter (src/analysis, ITU-R BS.1770).
+ *
+ * Knobs change the circuit (volume, tone, tone capacitor, cable) or the
+ * chain; each setting gets its own synthesis, made on first need.
+ */
+import { measureLoudness } from '../analysis/index.js';
+import type { CircuitOverrides } from '../circuit/index.js';
+import type { Guitar } from '../guitar/index.js';
+import {
+  type ChainContext,
+  type ChainName,
+  type WiringSynthesis,
+  coilSpectraOfSignals,
+  connectChainDesign,
+  createWiringSynthesis,
+  designEffectsChain,
+  resolveChainOptions,
+} from '../render/portable/index.js';
+import type { Network } from '../wiring/index.js';
+import { type PageData, decodeSignal } from './page-data.js';
+
+/** The knobs a listener can turn. */
+export interface Knobs {
+  /** Volume position 0–10. */
+  readonly volumeSetting: number;
+  /** Tone position 0–10, or null when the guitar has no tone control. */
+  readonly toneSetting: number | null;
+  /** Tone capacitor, farads, or null without a tone control. */
+  readonly toneCapacitorF: number | null;
+  readonly cableCapacitanceF: number;
+  readonly chain: ChainName;
+}
+
+/** One wiring rendered at one setting of the knobs. */
+export interface RenderedWiring {
+  readonly key: string;
+  /** Processed samples (chain applied), before any playback gain. */
+  readonly samples: Float32Array;
+  readonly peak: number;
+  /** ITU-R BS.1770 integrated loudness of `samples`, LUFS. */
+  readonly loudnessLufs: number;
+}
+
+/** The guitar with the knobs' tone capacitor (the circuit reads it from the guitar). */
+export function guitarWithKnobs(guitar: Guitar, knobs: Knobs): Guitar {
+  const tone = guitar.controls.tone;
+  if (!tone || knobs.toneCapacitorF === null || knobs.toneCapacitorF === tone.capacitorF) return guitar;
+  return { ...guitar, controls: { ...guitar.controls, tone: { ...tone, capacitorF: knobs.toneCapacitorF } } };
+}
+
+/** The circuit overrides for the knobs. */
+export function overridesOf(knobs: Knobs, base: CircuitOverrides): CircuitOverrides {
+  return {
+    ...base,
+    volumeSetting: knobs.volumeSetting,
+    ...(knobs.toneSetting === null ? {} : { toneSetting: knobs.toneSetting }),
+    cableCapacitanceF: knobs.cableCapacitanceF,
+  };
+}
+
+/** A key naming the circuit part of the knobs. */
+function circuitKey(knobs: Knobs): string {
+  return [knobs.volumeSetting, knobs.toneSetting, knobs.toneCapacitorF, knobs.cableCapacitanceF].join('|');
+}
+
+/** A key naming a wiring at the knobs. */
+export function renderKey(expression: string, knobs: Knobs): string {
+  return `${expression}@${circuitKey(knobs)}|${knobs.chain}`;
+}
+
+/** Syntheses kept for recent knob settings (each holds a few FFT-sized buffers per coil; our own bound). */
+const SYNTHESES_KEPT = 3;
+
+export interface WiringEngine {
+  readonly sampleRateHz: number;
+  readonly length: number;
+  /** The knobs the render used. */
+  readonly renderKnobs: Knobs;
+  /** The direct signal of a wiring at the knobs (volts at the amplifier input). */
+  synthesize(network: Network, knobs: Knobs): Float32Array;
+  /** The processed signal through the knobs' chain, with its peak and loudness. */
+  render(expression: string, network: Network, knobs: Knobs): Promise<RenderedWiring>;
+}
+
+export function createWiringEngine(data: PageData): WiringEngine {
+  const { guitar, coils } = data;
+  const signals = coils.signals.map(decodeSignal);
+  const spectra = coilSpectraOfSignals({ ...coils, signals });
+  const syntheses = new Map<string, WiringSynthesis>();
+  const synthesisFor = (knobs: Knobs): WiringSynthesis => {
+    const key = circuitKey(knobs);
+    let synthesis = syntheses.get(key);
+    if (synthesis) {
+      syntheses.delete(key);
+      syntheses.set(key, synthesis);
+      return synthesis;
+    }
+    synthesis = createWiringSynthesis(guitarWithKnobs(guitar, knobs), { ...coils, spectra }, overridesOf(knobs, data.overrides));
+    syntheses.set(key, synthesis);
+    while (syntheses.size > SYNTHESES_KEPT) syntheses.delete(syntheses.keys().next().value as string);
+    return synthesis;
+  };
+  const tone = guitar.controls.tone;
+  const renderKnobs: Knobs = {
+    volumeSetting: data.overrides.volumeSetting ?? guitar.controls.volume.setting,
+    toneSetting: tone ? (data.overrides.toneSetting ?? tone.setting) : null,
+    toneCapacitorF: tone ? tone.capacitorF : null,
+    cableCapacitanceF: data.overrides.cableCapacitanceF ?? guitar.cable.capacitanceF,
+    chain: data.report.render.chain as ChainName,
+  };
+
+  const synthesize = (network: Network, knobs: Knobs): Float32Array => {
+    const synthesis = synthesisFor(knobs);
+    const audio = synthesis.synthesize(network);
+    if (data.hum) {
+      const hum = synthesis.synthesizeHum(network, data.hum.mainsHz, data.hum.emfVolts);
+      for (let n = 0; n < audio.length; n += 1) audio[n] = (audio[n] as number) + (hum[n] as number);
+    }
+    return audio;
+  };
+
+  return {
+    sampleRateHz: coils.sampleRateHz,
+    length: coils.length,
+    renderKnobs,
+    synthesize,
+    async render(expression, network, knobs) {
+      const direct = synthesize(network, knobs);
+      const samples = knobs.chain === 'direct' ? direct : await renderChainInBrowser(direct, coils.sampleRateHz, knobs.chain);
+      let peak = 0;
+      for (let n = 0; n < samples.length; n += 1) peak = Math.max(peak, Math.abs(samples[n] as number));
+      return { key: renderKey(expression, knobs), samples, peak, loudnessLufs: measureLoudness([samples], coils.sampleRateHz) };
+    },
+  };
+}
+
+/**
+ * Run `samples` through a chain in an OfflineAudioContext, the node render's
+ * way (render-chain-design.ts): the input is followed by the design's
+ * latency in zeros and the first `latencyFrames` of the output are dropped.
+ */
+export async function renderChainInBrowser(samples: Float32Array, sampleRateHz: number, chain: ChainName): Promise<Float32Array> {
+  const design = designEffectsChain(chain, resolveChainOptions({}), sampleRateHz);
+  const frames = samples.length;
+  const latency = design.latencyFrames;
+  const context = new OfflineAudioContext({ numberOfChannels: 1, length: frames + latency, sampleRate: sampleRateHz });
+  const buffer = context.createBuffer(1, frames + latency, sampleRateHz);
+  buffer.copyToChannel(samples as Float32Array<ArrayBuffer>, 0);
+  const source = context.createBufferSource();
+  source.buffer = buffer;
+  const last = connectChainDesign(context as unknown as ChainContext<AudioNode>, design, source as AudioNode);
+  last.connect(context.destination);
+  source.start(0);
+  const rendered = await context.startRendering();
+  const output = new Float32Array(frames);
+  rendered.copyFromChannel(output, 0, latency);
+  return output;
+}

@@ -1,0 +1,45 @@
+/**
+ * Writes a render folder's listening page: the report, the guitar, the knob
+ * settings and each coil's signal for the rendered phrase (the page
+ * synthesises every wiring from them), with the bundled page script.
+ */
+import type { CircuitOverrides } from '../circuit/index.js';
+import type { Guitar } from '../guitar/index.js';
+import { encodeSignal } from '../page/index.js';
+import { type ListeningReport, renderListeningPage } from '../report/index.js';
+import type { Phrase } from '../string/index.js';
+import { RENDER_TAIL_S } from './measure-wiring-audio.js';
+import { readPageScript } from './page-script.js';
+import type { HumMix } from './render-pass.js';
+import { renderCoilSignals } from './synthesize-wirings.js';
+import { writeFileAtomic } from './write-file-atomic.js';
+
+export interface PageSettings {
+  readonly guitar: Guitar;
+  readonly phrase: Phrase;
+  readonly sampleRateHz: number;
+  readonly seed: number;
+  readonly overrides: CircuitOverrides;
+  readonly hum: HumMix | null;
+  /** Ring-out after the last note, s (default: the files' RENDER_TAIL_S). */
+  readonly tailS?: number;
+}
+
+/** The page's HTML for a report: the same performance as the files (phrase, rate, seed, tail). */
+export function renderPageFor(report: ListeningReport, settings: PageSettings): string {
+  const coils = renderCoilSignals(settings.guitar, settings.phrase, { sampleRateHz: settings.sampleRateHz, seed: settings.seed, strings: { tailS: settings.tailS ?? RENDER_TAIL_S } });
+  return renderListeningPage(
+    report,
+    {
+      guitar: settings.guitar,
+      overrides: settings.overrides,
+      hum: settings.hum,
+      coils: { sampleRateHz: coils.sampleRateHz, length: coils.length, delay: coils.delay, fftSize: coils.fftSize, signals: coils.signals.map(encodeSignal) },
+    },
+    readPageScript(),
+  );
+}
+
+export async function writeListeningPage(path: string, report: ListeningReport, settings: PageSettings): Promise<void> {
+  await writeFileAtomic(path, renderPageFor(report, settings));
+}
