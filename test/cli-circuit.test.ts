@@ -161,6 +161,17 @@ describe('coilbench netlist', () => {
     expect(out).toMatch(/^Ramp out 0 1000000$/mu);
   });
 
+  it('accepts a connection list: the same circuit as its notation gives the same elements and load', async () => {
+    const notation = await run(samples, 'netlist', 'three-single-coil.json', 'neck + ~bridge');
+    const joints = await run(samples, 'netlist', 'three-single-coil.json', 'neck.finish = hot, neck.start = bridge.start, bridge.finish = ground');
+    expect(joints.status).toBe(0);
+    const elements = (text: string): string[] => text.split('\n').filter((line) => /^[VLRC]/u.test(line)).map((line) => line.replace(/\b(j1|n2)\b/gu, 'joint'));
+    expect(elements(joints.out)).toEqual(elements(notation.out));
+    const bad = await run(samples, 'netlist', 'three-single-coil.json', 'neck.finish = hot', '--build-sheet');
+    expect(bad.status).toBe(2);
+    expect(bad.err).toMatch(/^coilbench: --build-sheet: expected a wiring in \+, \/\/ and ~ notation/u);
+  });
+
   it('accepts a wiring number and any spelling of the same wiring', async () => {
     const a = await run(samples, 'netlist', 'three-single-coil.json', 'w9');
     const b = await run(samples, 'netlist', 'three-single-coil.json', '~bridge+neck');

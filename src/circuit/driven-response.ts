@@ -21,7 +21,8 @@
  * (equal, uncorrelated coils) R is the power sum √(Σ_i |T_i(f)|²) over its
  * value at 100 Hz.
  */
-import { type Network, coilPhases, withoutPhases } from '../wiring/index.js';
+import type { Network } from '../wiring/index.js';
+import { phaseClassNetwork, phaseClassSigns } from './phase-class.js';
 import { type CoilDrive, coilDriveAt, drivenPowerAt, sampleCoilDrive } from './coil-drive.js';
 import { REFERENCE_FREQUENCY_HZ } from './frequency-grid.js';
 import { type PreparedCircuit, fixedProbeAt, probeAt, probeTransfers } from './prepare-circuit.js';
@@ -50,7 +51,7 @@ export interface DrivenResponse {
 export interface DrivenResponseInputs {
   /** D sampled on the prepared grid (sampleCoilDrive), when already made for many wirings. */
   readonly sampledDrive?: Float64Array;
-  /** The in-phase network's transfers on the grid (solveTransfers of withoutPhases(network)), when already solved. */
+  /** The phase-class representative's transfers on the grid (solveTransfers of phaseClassNetwork(guitar, network)), when already solved. */
   readonly inPhaseTransfers?: readonly Float64Array[];
 }
 
@@ -66,8 +67,9 @@ export function solveDrivenResponse(
 ): DrivenResponse {
   const coilCount = prepared.guitar.coils.length;
   if (drive.coilCount !== coilCount) throw new RangeError(`solveDrivenResponse: the drive has ${drive.coilCount} coils, the guitar ${coilCount}`);
-  const inPhase = withoutPhases(network);
-  const phases = coilPhases(prepared.guitar.elements, network, new Float64Array(coilCount));
+  // T_i = s_i·T_i of the phase-class representative (phase-class.ts; without coupling s_i = p_i and the representative is all in phase)
+  const inPhase = phaseClassNetwork(prepared.guitar, network);
+  const phases = phaseClassSigns(prepared.guitar, network, new Float64Array(coilCount));
   const used = Float64Array.from(phases, Math.abs);
   const grid = prepared.frequenciesHz;
   const sampled = inputs.sampledDrive ?? sampleCoilDrive(drive, grid);

@@ -10,11 +10,13 @@
  * with it resonance, peak and Q, and its hum Σ_i p_i·m_i·h_i·T_i⁰(mains),
  * follow from those. The poles do not move with polarity, but how strongly
  * the strings excite each of them does: an out-of-phase pattern can hide a
- * peak the in-phase one shows, and the reverse.
+ * peak the in-phase one shows, and the reverse. Coupled coils keep their
+ * relative phase in the shape (phase-class.ts).
  */
 import type { Guitar } from '../guitar/index.js';
 import type { Coil } from '../guitar/index.js';
-import { type Network, coilPhases, shapeKey, withoutPhases } from '../wiring/index.js';
+import type { Network } from '../wiring/index.js';
+import { phaseClassKey, phaseClassNetwork, phaseClassSigns } from './phase-class.js';
 import { magnetSign } from './coil-signs.js';
 import type { CircuitLoad, CircuitOverrides } from './circuit-load.js';
 import { ANALYSIS_POINTS, analysisFrequencies } from './frequency-grid.js';
@@ -91,7 +93,7 @@ export function measureCircuitMetrics(
   // wirings grouped by network shape, shapes in order of first appearance
   const byShape = new Map<string, number[]>();
   wirings.forEach(({ network }, index) => {
-    const key = shapeKey(network);
+    const key = phaseClassKey(guitar, network);
     const members = byShape.get(key);
     if (members === undefined) byShape.set(key, [index]);
     else members.push(index);
@@ -99,14 +101,14 @@ export function measureCircuitMetrics(
   const phases = new Float64Array(guitar.coils.length);
   const metrics = new Array<WiringCircuitMetrics>(wirings.length);
   for (const members of byShape.values()) {
-    const inPhase = withoutPhases((wirings[members[0] as number] as { network: Network }).network);
+    const inPhase = phaseClassNetwork(guitar, (wirings[members[0] as number] as { network: Network }).network);
     solveTransfers(prepared, inPhase, transfers);
     const atMains = solveTransfers(mains, inPhase, probeTransfers(prepared));
     const mainsTransfers = Float64Array.from(atMains.flatMap((transfer) => [transfer[0] as number, transfer[1] as number]));
     for (const index of members) {
       const network = (wirings[index] as { network: Network }).network;
       const resonance = measureResonance(prepared, network, { drive, sampledDrive, inPhaseTransfers: transfers });
-      coilPhases(guitar.elements, network, phases);
+      phaseClassSigns(guitar, network, phases);
       // H = Σ_i m_i·h_i·T_i = Σ_i p_i·m_i·h_i·T_i⁰ (measure-hum.ts)
       let re = 0;
       let im = 0;

@@ -8,6 +8,9 @@
 import type { Guitar } from '../guitar/index.js';
 import { formatEngineering } from '../units/index.js';
 import type { Network, Wiring } from '../wiring/index.js';
+import { graphOfNetwork } from './circuit-graph.js';
+import { prepareCircuit } from './prepare-circuit.js';
+import { solveCoilsImpedance } from './solve-nodal.js';
 import { type CoilPlacement, GROUND_NODE, HOT_NODE, type Lead, layoutWiring, networkResistanceOhms } from './layout-wiring.js';
 
 const POINT_WORDS: Readonly<Record<string, string>> = Object.freeze({
@@ -45,6 +48,19 @@ function leadsByPoint(placements: readonly CoilPlacement[]): Map<string, string[
 /** Parallel of resistances (Ohm's law): 1/R = Σ 1/R_k. */
 function parallelOhms(...values: number[]): number {
   return 1 / values.reduce((sum, value) => sum + 1 / value, 0);
+}
+
+/** Test frequency of the inductance reading (common practice: LCR meters test at 100 Hz, 120 Hz or 1 kHz; the lowest keeps the self-capacitance out of the reading). */
+const METER_TEST_HZ = 120;
+
+/**
+ * What an inductance meter in series mode reads across the coils alone:
+ * L = Im(Z)/ω of their impedance between hot and ground (nodal analysis,
+ * coupled coils included: a humbucker in series reads L1 + L2 + 2M).
+ */
+function meterInductanceH(guitar: Guitar, network: Network): number {
+  const impedance = solveCoilsImpedance(prepareCircuit(guitar, Float64Array.of(METER_TEST_HZ)), graphOfNetwork(guitar, network));
+  return (impedance[1] as number) / (2 * Math.PI * METER_TEST_HZ);
 }
 
 /** The build sheet of a wiring of `guitar`, as plain text. */
@@ -128,6 +144,8 @@ export function renderBuildSheet(
     '    (the DC resistances as wired; a reading near 0 is a short, an open reading a broken joint).',
     `  - Everything connected, volume on 10, jack tip to sleeve: about ${formatEngineering(parallelOhms(coilsOhms, volumeOhms), 'Ω')}`,
     '    (the coils in parallel with the volume pot).',
+    `  - Coils alone, hot to ground, inductance meter (series mode, ${METER_TEST_HZ} Hz): about ${formatEngineering(meterInductanceH(guitar, network), 'H')}`,
+    '    (the coils\' inductances as wired, with the coupling between coils that share a pickup).',
     '  - Every joint: continuity to the leads it should join, and none to ground unless it is ground.',
     '  - Tap each pole piece gently with a steel tool with the guitar plugged in at low volume: every',
     '    coil in the wiring should sound.',

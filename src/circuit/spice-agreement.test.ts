@@ -95,9 +95,12 @@ function genericPhasors(guitar: Guitar): SourcePhasor[] {
   return guitar.coils.map((_, c) => ({ magnitude: 1 + 0.37 * c, phaseDeg: -23 + 41 * c }));
 }
 
+// The humbucker's coils are coupled (the default coupling), so those netlists carry K lines and
+// the solver takes its nodal path for wirings holding both coils.
 describe.each([
   ['three-single-coil.json', 47],
   ['humbucker-two-single-coil.json', 572],
+  ['two-lead-humbucker.json', 6],
 ])('ngspice (eecircuit-engine) agrees with the solver for every wiring of %s', (file, count) => {
   const guitar = loadSample(file);
   const wirings = enumerateWirings(guitar.elements);
@@ -123,6 +126,7 @@ describe.each([
     expect(worst.db).toBeLessThan(MAGNITUDE_TOLERANCE_DB);
     // Only the sample's two identical coils out of phase cancel (series and parallel), and only there.
     expect(cancelledWirings).toBe(file === 'humbucker-two-single-coil.json' ? 2 : 0);
+    if (file !== 'three-single-coil.json') expect(wirings.some((wiring) => renderNetlist(guitar, wiring).includes('\nK'))).toBe(true);
   });
 
   it('with a different string signal in every coil: within 0.01 dB and 0.1°', async () => {

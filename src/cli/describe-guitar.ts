@@ -32,6 +32,15 @@ export function describeGuitar(guitar: Guitar): string[] {
     const names = pickup.coilIndices.map((index) => guitar.coils[index]?.id ?? '?');
     lines.push(`  two-lead pickup ${pickup.name}: ${names.join(' and ')} joined in series inside, wired as one element`);
   }
+  for (const pickup of guitar.pickups) {
+    if (pickup.coilIndices.length < 2) continue;
+    const names = pickup.coilIndices.map((index) => guitar.coils[index]?.id ?? '?');
+    lines.push(
+      pickup.coupling === 0
+        ? `  pickup ${pickup.name}: ${names.join(' and ')} not magnetically coupled (coupling 0)`
+        : `  pickup ${pickup.name}: ${names.join(' and ')} magnetically coupled, k = ${pickup.coupling}`,
+    );
+  }
   const { volume, tone, trebleBleed } = guitar.controls;
   lines.push(`  volume: ${formatPot(volume)}`);
   lines.push(tone ? `  tone: ${formatPot(tone)}, capacitor ${formatEngineering(tone.capacitorF, 'F')}` : '  tone: none');

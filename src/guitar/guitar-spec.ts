@@ -120,10 +120,30 @@ const coil: ObjectSpec = {
   },
 };
 
+/**
+ * Coupling coefficient k between the coils of one pickup when the file gives
+ * none (from memory: the side-by-side coils of a humbucker share a small part
+ * of their flux, so their series inductance exceeds the sum of the two by a
+ * few tenths of a henry; measure yours with k = (L_series − L1 − L2)/(2·√(L1·L2))).
+ */
+export const DEFAULT_PICKUP_COUPLING = 0.1;
+
 const pickup: ObjectSpec = {
   type: 'object',
   description: 'A pickup housing two or more coils.',
   fields: {
+    coupling: {
+      spec: {
+        type: 'number',
+        description:
+          'Magnetic coupling coefficient k between its coils: mutual inductance M = k·√(L1·L2). Positive for coils side by side (one coil\'s flux returns through the other), negative for coils stacked on one axis.',
+        min: -0.99,
+        max: 0.99,
+        noun: 'a coupling coefficient between -0.99 and 0.99',
+      },
+      default: DEFAULT_PICKUP_COUPLING,
+      defaultSource: 'from memory (side-by-side humbucker coils share a small part of their flux)',
+    },
     leads: {
       spec: { type: 'enum', description: '2: the coils are joined in series inside the cover and wired as one element; 4: every coil on its own leads.', values: [2, 4] },
       default: 4,

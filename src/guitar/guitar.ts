@@ -42,6 +42,11 @@ export interface Pickup {
   readonly leads: 2 | 4;
   /** Coil indices in declaration order. */
   readonly coilIndices: readonly number[];
+  /**
+   * Magnetic coupling coefficient k between its coils (mutual inductance
+   * M = k·√(L_a·L_b), sign from the windings; circuit/coil-coupling.ts).
+   */
+  readonly coupling: number;
 }
 
 /**

@@ -19,7 +19,7 @@ import type {
   TrebleBleed,
   WiringElement,
 } from './guitar.js';
-import { DEFAULT_CABLE_CAPACITANCE, GUITAR_SPEC } from './guitar-spec.js';
+import { DEFAULT_CABLE_CAPACITANCE, DEFAULT_PICKUP_COUPLING, GUITAR_SPEC } from './guitar-spec.js';
 import { parseJsonText } from './parse-json.js';
 import { validateField } from './validate-fields.js';
 
@@ -126,7 +126,13 @@ export function parseGuitar(raw: unknown): Guitar {
     name,
     leads: asRecord(pickupsRaw[name]).leads === 2 ? 2 : 4,
     coilIndices,
+    coupling: asNumber(asRecord(pickupsRaw[name]).coupling) ?? DEFAULT_PICKUP_COUPLING,
   }));
+  // A pickup with no entry of its own still couples its coils by the default k: say so.
+  for (const pickup of pickups) {
+    const path = `pickups.${pickup.name}.coupling`;
+    if (pickup.coilIndices.length > 1 && pickupsRaw[pickup.name] === undefined && !assumed.includes(path)) assumed.push(path);
+  }
   const elements = buildElements(coils, pickups);
   if (elements.length > MAX_WIRING_ELEMENTS) {
     throw new InputError([

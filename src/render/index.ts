@@ -34,6 +34,6 @@ export { prepareWiringSynthesis, assertAudible, COIL_VOLTS_PER_METRE_PER_SECOND,
 export type { SynthesisOptions, WiringSynthesis } from './synthesize-wirings.js';
 export { planTrueLevelGain, planMatchedGains, PEAK_CEILING_DB } from './plan-gains.js';
 export { hashOf, readManifest, MANIFEST_VERSION } from './render-manifest.js';
-export { runRenderPassOnThreads, defaultThreadCount, splitByShape, MIN_ITEMS_PER_THREAD } from './run-render-pass.js';
+export { runRenderPassOnThreads, defaultThreadCount, splitByShape, startWorkerModule, MIN_ITEMS_PER_THREAD } from './run-render-pass.js';
 export { createWiringRenderer, runRenderPass, peakOf } from './render-pass.js';
 export type { AudioSettings, PassItem, PassResult, WiringRenderer } from './render-pass.js';

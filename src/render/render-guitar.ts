@@ -19,6 +19,8 @@ import {
   logSpacedFrequencies,
   measureCircuitMetrics,
   measureResponseDb,
+  phaseClassKey,
+  phaseClassNetwork,
   prepareCircuit,
   renderNetlist,
   sampleCoilDrive,
@@ -27,6 +29,7 @@ import {
   AUDIO_BAND_LOW_HZ,
 } from '../circuit/index.js';
 import { type AlikeThresholds, type Distinctness, measureCoilDrive, measureDistinctness, measureSpectralBasis } from '../analysis/index.js';
+import { WorkError } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
 import {
   type ListeningReport,
@@ -52,7 +55,6 @@ import { defaultThreadCount, runRenderPassOnThreads } from './run-render-pass.js
 import { type OutputFolder, netlistFileName, wavFileName } from './output-folder.js';
 import { gainToDb, planMatchedGains, planTrueLevelGain } from './plan-gains.js';
 import { MANIFEST_VERSION, type Manifest, hashOf, readManifest } from './render-manifest.js';
-import { shapeKey, withoutPhases } from '../wiring/index.js';
 import { type WavFormat, encodeWav } from './wav-file.js';
 import { removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
 import { writeListeningPage } from './write-listening-page.js';
@@ -196,7 +198,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   // that the manifest does not already hold, spread over threads.
   const selectedIds = new Set(request.selected.map((wiring) => wiring.id));
   // Phase patterns of one network shape share their transfers: render them one after another.
-  const needed = groupByShape(request.all.filter((wiring) => wiring.elements.length === 1 || selectedIds.has(wiring.id)));
+  const needed = groupByShape(guitar, request.all.filter((wiring) => wiring.elements.length === 1 || selectedIds.has(wiring.id)));
   const raw = new Map<string, RawAudioMetrics>();
   const scratchFiles = new Map<string, string>();
   const items: PassItem[] = [];
@@ -211,7 +213,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     const missingLoudness = request.level === 'matched' && entry.audio?.loudnessLufs === null;
     const audioCached = entry.audioHash === audioHash && entry.audio !== undefined && !missingLoudness;
     const wantAudio = request.writeWav !== false && selectedIds.has(wiring.id) && !audioCached;
-    if (!metricsCached || wantAudio) items.push({ id: wiring.id, network: wiring.network, metrics: !metricsCached, audio: wantAudio });
+    if (!metricsCached || wantAudio) items.push({ id: wiring.id, name: wiring.expression, network: wiring.network, metrics: !metricsCached, audio: wantAudio });
   }
   const expressionOf = new Map(needed.map((wiring) => [wiring.id, wiring.expression]));
   events.onStage?.('rendering', items.length);
@@ -235,9 +237,16 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   let renderer: WiringRenderer | undefined;
   const processedAudio = (wiring: Wiring): Promise<Float32Array> => {
     renderer ??= createWiringRenderer(settings);
-    return renderer.processed(wiring.network);
+    return renderer.processed(wiring.network, undefined, wiring.expression);
   };
   await saveManifest();
+  // A wiring whose chain failed twice: what the others made is kept in the manifest, so the same command finishes the work.
+  const failures = results.filter((result) => result.failure !== undefined).map((result) => result.failure as string);
+  if (failures.length > 0) {
+    rmSync(scratch, { recursive: true, force: true });
+    activeScratchFolders.delete(scratch);
+    throw new WorkError(`${failures.join('; ')}; nothing written was lost, and running the same command again finishes the render`);
+  }
   const audioMetrics = referLevels(request.all, raw);
 
   // Gains: one for all files, or one per file to a common loudness.
@@ -264,38 +273,45 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   events.onStage?.('writing', selected.length);
   let written = 0;
   let skipped = 0;
-  for (const [index, wiring] of selected.entries()) {
-    const entry = entries[wiring.expression] as Entry;
-    const gain = gains[index] ?? 1;
-    const name = wavFileName(wiring);
-    const path = join(folder.wavFolder, name);
-    const fileHash = hashOf({ audio: entry.audioHash, gain: gain.toPrecision(12), format: request.format, name });
-    const pageAudio = request.pageAudioCopies ? join(folder.root, pageAudioPath(relative(folder.root, path))) : null;
-    if (request.writeWav === false || (entry.fileHash === fileHash && entry.file === name && existsSync(path) && (pageAudio === null || existsSync(pageAudio)))) {
-      skipped += 1;
-    } else {
-      const parked = scratchFiles.get(wiring.id);
-      const audio = parked ? readScratch(parked) : await processedAudio(wiring);
-      for (let n = 0; n < audio.length; n += 1) audio[n] = (audio[n] as number) * gain;
-      const bytes = encodeWav(audio, {
-        sampleRateHz: request.sampleRateHz,
-        format: request.format,
-        info: {
-          name: wiring.expression,
-          comment: `${wiring.description}; phrase ${request.phrase.name}; ${request.chain} chain; ${request.level === 'true' ? 'true relative level' : 'loudness matched'}`,
-          software: request.generator,
-        },
-      });
-      // Written in the background while the next wiring is prepared; the manifest records a file only once it is whole.
-      await writes.add(async () => {
-        await writeFileAtomic(path, bytes);
-        if (pageAudio) await writeFileAtomic(pageAudio, renderPageAudioScript(wiring.id, bytes));
-        Object.assign(entry, { fileHash, file: name });
-      });
-      await saveManifest(false);
-      written += 1;
+  try {
+    for (const [index, wiring] of selected.entries()) {
+      const entry = entries[wiring.expression] as Entry;
+      const gain = gains[index] ?? 1;
+      const name = wavFileName(wiring);
+      const path = join(folder.wavFolder, name);
+      const fileHash = hashOf({ audio: entry.audioHash, gain: gain.toPrecision(12), format: request.format, name });
+      const pageAudio = request.pageAudioCopies ? join(folder.root, pageAudioPath(relative(folder.root, path))) : null;
+      if (request.writeWav === false || (entry.fileHash === fileHash && entry.file === name && existsSync(path) && (pageAudio === null || existsSync(pageAudio)))) {
+        skipped += 1;
+      } else {
+        const parked = scratchFiles.get(wiring.id);
+        const audio = parked ? readScratch(parked) : await processedAudio(wiring);
+        for (let n = 0; n < audio.length; n += 1) audio[n] = (audio[n] as number) * gain;
+        const bytes = encodeWav(audio, {
+          sampleRateHz: request.sampleRateHz,
+          format: request.format,
+          info: {
+            name: wiring.expression,
+            comment: `${wiring.description}; phrase ${request.phrase.name}; ${request.chain} chain; ${request.level === 'true' ? 'true relative level' : 'loudness matched'}`,
+            software: request.generator,
+          },
+        });
+        // Written in the background while the next wiring is prepared; the manifest records a file only once it is whole.
+        await writes.add(async () => {
+          await writeFileAtomic(path, bytes);
+          if (pageAudio) await writeFileAtomic(pageAudio, renderPageAudioScript(wiring.id, bytes));
+          Object.assign(entry, { fileHash, file: name });
+        });
+        await saveManifest(false);
+        written += 1;
+      }
+      events.onStep?.(index + 1, selected.length);
     }
-    events.onStep?.(index + 1, selected.length);
+  } catch (error) {
+    // Keep the record of every file already whole, so a re-run skips them and finishes the rest.
+    await writes.drain().catch(() => undefined);
+    await saveManifest();
+    throw error;
   }
   await writes.drain();
   await saveManifest();
@@ -334,7 +350,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     };
   });
   const reportWirings: ReportWiring[] = rows.map((row) => {
-    solveTransfers(responseCircuit, withoutPhases(row.wiring.network), transfers);
+    solveTransfers(responseCircuit, phaseClassNetwork(guitar, row.wiring.network), transfers);
     const response = measureResponseDb(responseCircuit, row.wiring.network, drive, { sampledDrive: responseDrive, inPhaseTransfers: transfers });
     return {
       id: row.wiring.id,
@@ -438,11 +454,11 @@ export function removeScratchFoldersSync(): void {
   activeScratchFolders.clear();
 }
 
-/** Wirings reordered so those sharing a network shape are adjacent (stable within a shape). */
-function groupByShape(wirings: readonly Wiring[]): Wiring[] {
+/** Wirings reordered so those sharing a network shape (a phase class, with coupled coils) are adjacent (stable within one). */
+function groupByShape(guitar: Guitar, wirings: readonly Wiring[]): Wiring[] {
   const groups = new Map<string, Wiring[]>();
   for (const wiring of wirings) {
-    const key = shapeKey(wiring.network);
+    const key = phaseClassKey(guitar, wiring.network);
     groups.set(key, [...(groups.get(key) ?? []), wiring]);
   }
   return [...groups.values()].flat();

@@ -7,13 +7,22 @@
  * Output samples are volts at the amplifier input: the coils' string EMF is
  * string velocity (m/s, from src/pickup) times COIL_VOLTS_PER_METRE_PER_SECOND.
  */
-import { type CircuitOverrides, type PreparedCircuit, magnetSign, prepareCircuit, solveTransfers } from '../circuit/index.js';
+import {
+  type CircuitOverrides,
+  type PreparedCircuit,
+  magnetSign,
+  phaseClassKey,
+  phaseClassNetwork,
+  phaseClassSigns,
+  prepareCircuit,
+  solveTransfers,
+} from '../circuit/index.js';
 import { InputError } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
 import { nextPowerOfTwo, realFft } from '../math/index.js';
 import { computeCoilSpectra, pickupDelaySamples } from '../pickup/index.js';
 import { type Phrase, type StringOptions, renderPhrase } from '../string/index.js';
-import { type Network, coilPhases, shapeKey, withoutPhases } from '../wiring/index.js';
+import type { Network } from '../wiring/index.js';
 
 /**
  * EMF a coil of relative sensitivity 1 gives per m/s of string velocity
@@ -154,16 +163,17 @@ export function createWiringSynthesis(guitar: Guitar, coils: CoilSpectra, overri
   const output = new Float64Array(2 * fft.bins);
   const time = new Float64Array(fftSize);
 
-  // A wiring's phases only flip the signs of its coils' transfers (T_i carries p_i), so the
-  // products T_i·E_i of the unsigned network are kept for the last shape rendered, and each
-  // phase pattern of that shape costs a signed sum and one inverse FFT.
+  // A wiring's phases only flip the signs of its coils' transfers (T_i carries p_i; coupled
+  // coils keep their relative phase, circuit/phase-class.ts), so the products T_i·E_i of the
+  // class representative are kept for the last class rendered, and each phase pattern of that
+  // class costs a signed sum and one inverse FFT.
   const products = guitar.coils.map(() => new Float64Array(2 * fft.bins));
   const used = new Uint8Array(guitar.coils.length);
   let cachedShape = '';
   const solveShape = (network: Network): void => {
-    const shape = shapeKey(network);
+    const shape = phaseClassKey(guitar, network);
     if (shape === cachedShape) return;
-    solveTransfers(circuit, withoutPhases(network), transfers);
+    solveTransfers(circuit, phaseClassNetwork(guitar, network), transfers);
     transfers.forEach((transfer, coil) => {
       const emf = spectra[coil] as Float64Array;
       const product = products[coil] as Float64Array;
@@ -186,7 +196,7 @@ export function createWiringSynthesis(guitar: Guitar, coils: CoilSpectra, overri
 
   const synthesize = (network: Network, out = new Float32Array(length)): Float32Array => {
     solveShape(network);
-    coilPhases(guitar.elements, network, signs);
+    phaseClassSigns(guitar, network, signs);
     // Y(f) = Σ_i p_i·T_i(f)·E_i(f) with T_i of the unsigned network.
     output.fill(0);
     products.forEach((product, coil) => {

@@ -205,6 +205,7 @@ export function registerCompare(program: Command, io: Io): void {
     });
     io.stdout(
       'distance: the largest of the level, spectrum and brightness differences over its threshold (1× = just noticeable). ' +
+        'brightness %: the change of the power-weighted band centroid that decides "alike" (docs/distinctness.md), not of the centroid Hz that analyze prints. ' +
         'Figures come from models of the pickups, not measurements: a candidate set is worth trying by ear before you buy and fit it.\n',
     );
     if (options.render) {

@@ -18,7 +18,7 @@ import { formatTable } from '../format-table.js';
 import { collectOption } from '../collect-option.js';
 import type { Io } from '../io.js';
 import { readGuitarFile } from '../read-guitar.js';
-import { defaultOutputRoot } from '../../render/index.js';
+import { defaultOutputRoot, measureWiringAudio } from '../../render/index.js';
 import { reportRender, runRender } from './render.js';
 import { wiringRecord } from './wirings.js';
 
@@ -199,13 +199,17 @@ export function registerShortlist(program: Command, io: Io): void {
     const shortlist = solvePlannedShortlist(guitar, wirings, circuit.wirings, distinct, plan);
     const pair = closestPair(shortlist, distinct);
     const { profiles } = distinct;
+    // Brightness is the one figure analyze, reports and the page give: the centroid of the strum render
+    // (docs/design.md, centroidHz), measured for the chosen wirings only (and the single coils levels refer to).
+    const chosen = shortlist.members.map((index) => wirings[index] as Wiring);
+    const audio = measureWiringAudio(guitar, wirings, chosen, overrides);
     const rowOf = (index: number) => {
       const wiring = wirings[index] as Wiring;
       const figures = circuit.wirings[index] as WiringCircuitMetrics;
       return {
         wiring,
         levelDb: profiles.levelsDb[index] as number,
-        brightnessHz: profiles.brightnessHz[index] as number,
+        centroidHz: audio.get(wiring.id)?.centroidHz ?? Number.NaN,
         figures,
         group: distinct.groups.groupOf[index] ?? 0,
       };
@@ -232,7 +236,7 @@ export function registerShortlist(program: Command, io: Io): void {
         wirings: rows.map((row) => ({
           ...wiringRecord(row.wiring),
           levelDb: row.levelDb,
-          brightnessHz: row.brightnessHz,
+          centroidHz: row.centroidHz,
           ...row.figures,
           group: row.group,
         })),
@@ -257,7 +261,7 @@ export function registerShortlist(program: Command, io: Io): void {
         { title: '#', value: (row) => row.wiring.id, align: 'right' },
         { title: 'wiring', value: (row) => row.wiring.expression },
         { title: 'level dB', value: (row) => signed(row.levelDb, 1), align: 'right' },
-        { title: 'brightness Hz', value: (row) => row.brightnessHz.toFixed(0), align: 'right' },
+        { title: 'centroid Hz', value: (row) => row.centroidHz.toFixed(0), align: 'right' },
         { title: 'resonance Hz', value: (row) => (row.figures.resonanceHz === null ? '-' : row.figures.resonanceHz.toFixed(0)), align: 'right' },
         { title: 'hum dB', value: (row) => (row.figures.humDb === null ? '-' : signed(row.figures.humDb, 1)), align: 'right' },
         { title: 'hum cancelling', value: (row) => (row.figures.humCancelling ? 'yes' : '') },
@@ -280,7 +284,7 @@ export function registerShortlist(program: Command, io: Io): void {
     if (shortlist.minDistance < 1) {
       io.stdout(`\nNote: some of these sound alike at these thresholds; fewer than ${plan.count} audibly different wirings meet the constraints.\n`);
     }
-    io.stdout(`\nlevel: relative to the mean single coil; brightness: power-weighted spectral centroid of the strum; group: as in \`coilbench analyze\`.\n${CAUTION}\n`);
+    io.stdout(`\nlevel: relative to the mean single coil; centroid: the spectral centroid of the strum, as in \`coilbench analyze\` (higher is brighter); group: as in \`coilbench analyze\`.\n${CAUTION}\n`);
     if (options.render) {
       const rendered = await renderShortlist(file, guitar, options, rows.map((row) => row.wiring.id), io);
       reportRender(io, rendered.root, rendered.outcome, rendered.seconds);
