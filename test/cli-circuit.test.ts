@@ -38,13 +38,22 @@ describe('coilbench analyze', () => {
     for (const wiring of document.wirings) {
       expect(Object.keys(wiring)).toEqual([
         'id', 'expression', 'coils', 'topology', 'outOfPhase', 'description',
-        'resonanceHz', 'peakDb', 'resonanceQ', 'humDb', 'humCategory', 'humCancelling', 'levelDb', 'loudnessLufs', 'centroidHz', 'group',
+        'resonanceHz', 'resonanceHzReason', 'peakDb', 'peakDbReason', 'resonanceQ', 'resonanceQReason',
+        'humDb', 'humCategory', 'humCancelling', 'levelDb', 'loudnessLufs', 'centroidHz', 'group',
       ]);
       expect(Number.isInteger(wiring.group)).toBe(true);
-      const finite = ['resonanceHz', 'peakDb', 'humDb', ...(withAudio ? ['levelDb', 'loudnessLufs', 'centroidHz'] : [])];
+      const finite = ['humDb', ...(withAudio ? ['levelDb', 'loudnessLufs', 'centroidHz'] : [])];
       for (const key of finite) expect(Number.isFinite(wiring[key]), `${wiring.expression} ${key}`).toBe(true);
       if (!withAudio) expect(wiring.levelDb).toBeNull();
-      expect(wiring.resonanceQ === null || Number.isFinite(wiring.resonanceQ)).toBe(true);
+      // a resonance figure is a finite number, or null with its reason beside it (e.g. no −3 dB point inside the band)
+      for (const key of ['resonanceHz', 'peakDb', 'resonanceQ']) {
+        const reason = wiring[`${key}Reason`];
+        if (wiring[key] === null) expect(typeof reason === 'string' && reason.length > 0, `${wiring.expression} ${key}`).toBe(true);
+        else {
+          expect(Number.isFinite(wiring[key]), `${wiring.expression} ${key}`).toBe(true);
+          expect(reason).toBeNull();
+        }
+      }
       expect(typeof wiring.humCancelling).toBe('boolean');
     }
   });

@@ -17,6 +17,7 @@ import type { Guitar } from '../guitar/index.js';
 import { type Wiring, enumerateWirings } from '../wiring/index.js';
 import { type AlikeThresholds, resolveAlikeThresholds } from './alike-thresholds.js';
 import { type WiringComparison, measureComparison } from './measure-comparison.js';
+import { measureCoilDrive } from './measure-coil-drive.js';
 import { type SpectralBasisOptions, measureSpectralBasis } from './measure-spectral-basis.js';
 import { type SpectralProfiles, measureSpectralProfiles } from './measure-spectral-profiles.js';
 import { matchElements, matchWirings } from './match-wirings.js';
@@ -55,8 +56,9 @@ export interface GuitarComparison {
 
 function studyGuitar(guitar: Guitar, options: Partial<GuitarComparisonOptions>) {
   const wirings = enumerateWirings(guitar.elements);
-  const circuit = measureCircuitMetrics(guitar, wirings, options.overrides).wirings;
-  const spectra = solveWiringSpectra(guitar, measureSpectralBasis(guitar, options.basis), wirings, options.overrides);
+  const basis = measureSpectralBasis(guitar, options.basis);
+  const circuit = measureCircuitMetrics(guitar, wirings, options.overrides, { drive: measureCoilDrive(basis) }).wirings;
+  const spectra = solveWiringSpectra(guitar, basis, wirings, options.overrides);
   const humReference = measureHumReference(prepareCircuit(guitar, Float64Array.of(REFERENCE_FREQUENCY_HZ), options.overrides));
   return { wirings, circuit, spectra, humReference };
 }

@@ -16,7 +16,10 @@ export { coilImpedanceAt, coilModelOf, coilSeriesImpedance, createCoilPhasors, e
 export type { PreparedCircuit } from './prepare-circuit.js';
 export { prepareCircuit } from './prepare-circuit.js';
 export { solveTransfers } from './solve-transfers.js';
-export { powerSumAt, solvePowerSum, solvePowerSumAt } from './power-sum.js';
+export type { CoilDrive } from './coil-drive.js';
+export { coilDriveAt, drivePairIndex, drivenPowerAt, incoherentCoilDrive, sampleCoilDrive } from './coil-drive.js';
+export type { DrivenResponse, DrivenResponseInputs } from './driven-response.js';
+export { solveDrivenResponse } from './driven-response.js';
 export {
   analysisFrequencies,
   logSpacedFrequencies,
@@ -25,8 +28,8 @@ export {
   AUDIO_BAND_LOW_HZ,
   REFERENCE_FREQUENCY_HZ,
 } from './frequency-grid.js';
-export type { ResonanceMetrics } from './measure-resonance.js';
-export { measureResonance } from './measure-resonance.js';
+export type { ResonanceInputs, ResonanceMetrics } from './measure-resonance.js';
+export { measureResonance, CANCELLED_FRACTION, CANCELLED_REASON, SILENT_REASON } from './measure-resonance.js';
 export type { HumCategory } from './measure-hum.js';
 export {
   humCategory,
@@ -40,7 +43,7 @@ export {
   HUM_FLOOR_DB,
   HUM_REDUCING_DB,
 } from './measure-hum.js';
-export { measureResponseDb } from './measure-response.js';
+export { measureResponseDb, RESPONSE_FLOOR_DB } from './measure-response.js';
 export type { CircuitAnalysis, CircuitMetricsOptions, WiringCircuitMetrics } from './measure-circuit-metrics.js';
 export { measureCircuitMetrics, DEFAULT_CIRCUIT_METRICS_OPTIONS } from './measure-circuit-metrics.js';
 export { amplitudeDb } from './decibels.js';

@@ -4,12 +4,14 @@
  *
  * Phases only flip signs: the solver applies p_i at the leaves and every
  * later step is linear, so T_i(wiring) = p_i·T_i(same network all in phase)
- * exactly. The power sum, and with it resonance, peak and Q, is therefore
- * shared by all 2^(k−1) phase patterns of a network ("the poles do not move
- * with polarity"), and each pattern's hum is Σ_i p_i·m_i·h_i·B(x_i)·T_i⁰(mains).
- * So the figures are solved once per network shape (837 shapes for the 9997
- * wirings of five coils) and the hum once more per wiring from those.
- * Coupled coils keep their relative phase in the shape (phase-class.ts).
+ * exactly. The transfers are therefore solved once per network shape (837
+ * shapes for the 9997 wirings of five coils); each phase pattern's driven
+ * response R² = Σ_ij p_i·p_j·T⁰_i·D_ij·conj(T⁰_j) (driven-response.ts), and
+ * with it resonance, peak and Q, and its hum Σ_i p_i·m_i·h_i·B(x_i)·T_i⁰(mains),
+ * follow from those. The poles do not move with polarity, but how strongly
+ * the strings excite each of them does: an out-of-phase pattern can hide a
+ * peak the in-phase one shows, and the reverse. Coupled coils keep their
+ * relative phase in the shape (phase-class.ts).
  */
 import type { Guitar } from '../guitar/index.js';
 import type { Network } from '../wiring/index.js';
@@ -17,16 +19,21 @@ import { phaseClassKey, phaseClassNetwork, phaseClassSigns } from './phase-class
 import type { CircuitLoad, CircuitOverrides } from './circuit-load.js';
 import { ANALYSIS_POINTS, analysisFrequencies } from './frequency-grid.js';
 import { type HumCategory, humCategory, humDecibels, humFieldWeights, measureHumReference } from './measure-hum.js';
-import { type ResonanceMetrics, measureResonance } from './measure-resonance.js';
+import { type CoilDrive, incoherentCoilDrive, sampleCoilDrive } from './coil-drive.js';
+import { SILENT_RESONANCE, measureResonance } from './measure-resonance.js';
 import { fixedProbeAt, prepareCircuit, probeTransfers } from './prepare-circuit.js';
 import { solveTransfers } from './solve-transfers.js';
 
 export interface WiringCircuitMetrics {
   /** Null at an end of the band, and when nothing reaches the output. */
   readonly resonanceHz: number | null;
-  /** Null only when nothing reaches the output (volume at 0). */
+  /** Why resonanceHz is null (null when it is a number); the same for the other figures. */
+  readonly resonanceHzReason: string | null;
+  /** Null when nothing reaches the output (volume at 0) or the coils cancel at 100 Hz. */
   readonly peakDb: number | null;
+  readonly peakDbReason: string | null;
   readonly resonanceQ: number | null;
+  readonly resonanceQReason: string | null;
   /** Null only when nothing reaches the output. Floored at HUM_FLOOR_DB (measure-hum.ts). */
   readonly humDb: number | null;
   /** Plain category of humDb: cancels (≤ −20 dB), reduces (≤ −6 dB), noisy; null when nothing reaches the output. */
@@ -47,14 +54,19 @@ export interface CircuitAnalysis {
 export interface CircuitMetricsOptions {
   /** Log-spaced grid points over 20 Hz–20 kHz used to locate peaks (refined between points). Default 200. */
   readonly points: number;
+  /**
+   * How the strings drive the coils (coil-drive.ts): the reference phrase's
+   * normalised cross-spectra, from src/analysis/measure-coil-drive.ts. Every
+   * command passes it; the default D = I (the power sum, equal uncorrelated
+   * coils) is for closed-form checks of the circuit alone.
+   */
+  readonly drive: CoilDrive | undefined;
 }
 
-export const DEFAULT_CIRCUIT_METRICS_OPTIONS: Readonly<CircuitMetricsOptions> = Object.freeze({ points: ANALYSIS_POINTS });
+export const DEFAULT_CIRCUIT_METRICS_OPTIONS: Readonly<CircuitMetricsOptions> = Object.freeze({ points: ANALYSIS_POINTS, drive: undefined });
 
 const SILENT_METRICS: WiringCircuitMetrics = Object.freeze({
-  resonanceHz: null,
-  peakDb: null,
-  resonanceQ: null,
+  ...SILENT_RESONANCE,
   humDb: null,
   humCategory: null,
   humCancelling: false,
@@ -73,36 +85,45 @@ export function measureCircuitMetrics(
   if (prepared.load.silent) {
     return { load: prepared.load, silent: true, points, wirings: wirings.map(() => SILENT_METRICS) };
   }
+  const drive = options.drive ?? incoherentCoilDrive(guitar.coils.length);
+  if (drive.coilCount !== guitar.coils.length) throw new RangeError(`measureCircuitMetrics: the drive has ${drive.coilCount} coils, the guitar ${guitar.coils.length}`);
+  const sampledDrive = sampleCoilDrive(drive, prepared.frequenciesHz);
   const transfers = guitar.coils.map(() => new Float64Array(2 * points));
   const reference = measureHumReference(prepared);
   const mains = fixedProbeAt(prepared, prepared.load.mainsHz);
   const humWeights = humFieldWeights(guitar, prepared.load);
-  const shapes = new Map<string, { resonance: ResonanceMetrics; mainsTransfers: Float64Array }>();
-  const phases = new Float64Array(guitar.coils.length);
-  const metrics = wirings.map(({ network }): WiringCircuitMetrics => {
+  // wirings grouped by network shape, shapes in order of first appearance
+  const byShape = new Map<string, number[]>();
+  wirings.forEach(({ network }, index) => {
     const key = phaseClassKey(guitar, network);
-    let shape = shapes.get(key);
-    if (shape === undefined) {
-      const inPhase = phaseClassNetwork(guitar, network);
-      solveTransfers(prepared, inPhase, transfers);
-      const resonance = measureResonance(prepared, inPhase, transfers);
-      const atMains = solveTransfers(mains, inPhase, probeTransfers(prepared));
-      shape = { resonance, mainsTransfers: Float64Array.from(atMains.flatMap((transfer) => [transfer[0] as number, transfer[1] as number])) };
-      shapes.set(key, shape);
-    }
-    phaseClassSigns(guitar, network, phases);
-    // H = Σ_i m_i·h_i·T_i = Σ_i p_i·m_i·h_i·T_i⁰ (measure-hum.ts)
-    let re = 0;
-    let im = 0;
-    for (let c = 0; c < phases.length; c += 1) {
-      const weight = (phases[c] as number) * (humWeights[c] as number);
-      re += weight * (shape.mainsTransfers[2 * c] as number);
-      im += weight * (shape.mainsTransfers[2 * c + 1] as number);
-    }
-    const humDb = humDecibels(Math.hypot(re, im), reference);
-    const category = humCategory(humDb);
-    return { ...shape.resonance, humDb, humCategory: category, humCancelling: category === 'cancels' };
+    const members = byShape.get(key);
+    if (members === undefined) byShape.set(key, [index]);
+    else members.push(index);
   });
+  const phases = new Float64Array(guitar.coils.length);
+  const metrics = new Array<WiringCircuitMetrics>(wirings.length);
+  for (const members of byShape.values()) {
+    const inPhase = phaseClassNetwork(guitar, (wirings[members[0] as number] as { network: Network }).network);
+    solveTransfers(prepared, inPhase, transfers);
+    const atMains = solveTransfers(mains, inPhase, probeTransfers(prepared));
+    const mainsTransfers = Float64Array.from(atMains.flatMap((transfer) => [transfer[0] as number, transfer[1] as number]));
+    for (const index of members) {
+      const network = (wirings[index] as { network: Network }).network;
+      const resonance = measureResonance(prepared, network, { drive, sampledDrive, inPhaseTransfers: transfers });
+      phaseClassSigns(guitar, network, phases);
+      // H = Σ_i m_i·h_i·B(x_i)·T_i = Σ_i p_i·m_i·h_i·B(x_i)·T_i⁰ (measure-hum.ts)
+      let re = 0;
+      let im = 0;
+      for (let c = 0; c < phases.length; c += 1) {
+        const weight = (phases[c] as number) * (humWeights[c] as number);
+        re += weight * (mainsTransfers[2 * c] as number);
+        im += weight * (mainsTransfers[2 * c + 1] as number);
+      }
+      const humDb = humDecibels(Math.hypot(re, im), reference);
+      const category = humCategory(humDb);
+      metrics[index] = { ...resonance, humDb, humCategory: category, humCancelling: category === 'cancels' };
+    }
+  }
   return { load: prepared.load, silent: false, points, wirings: metrics };
 }
 

@@ -45,7 +45,7 @@ const NONE = '-';
 const SILENT = 'silent';
 
 function fixed(value: number | null, digits: number, signed = false): string {
-  if (value === null) return NONE;
+  if (value === null || !Number.isFinite(value)) return NONE;
   const rounded = Number(value.toFixed(digits));
   const text = (rounded === 0 ? 0 : rounded).toFixed(digits); // never "-0.0"
   return signed && rounded >= 0 ? `+${text}` : text;
@@ -234,7 +234,8 @@ export function sortRows(rows: readonly AnalyzedWiring[], name: string, columns:
 
 /** One CSV field (RFC 4180: quote fields holding a comma, quote or line break; double the quotes). */
 function csvField(value: CellValue): string {
-  if (value === null) return '';
+  // a figure that does not exist is an empty cell; no Infinity or NaN ever reaches a file
+  if (value === null || (typeof value === 'number' && !Number.isFinite(value))) return '';
   const text = String(value);
   return /[",\r\n]/u.test(text) ? `"${text.replace(/"/gu, '""')}"` : text;
 }

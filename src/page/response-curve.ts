@@ -1,11 +1,14 @@
 /**
  * The curve the page plots for a wiring: whatever src/circuit exports as a
- * wiring's response (today the power-sum response relative to 100 Hz,
- * `measureResponseDb`, with the resonant peak of `measureResonance`),
- * computed here with the knobs' circuit. The one place to change what the
- * plot shows.
+ * wiring's response (the response as the strings drive it, R(f) relative
+ * to 100 Hz, `measureResponseDb`, with the resonant peak of
+ * `measureResonance` read from the same curve), computed here with the
+ * knobs' circuit. `drive` is the reference phrase's coil drive
+ * (`measureCoilDrive` in src/analysis, plain numbers that can travel in the
+ * page's data); without it the curve is the power sum (D = I). The one place
+ * to change what the plot shows.
  */
-import { type CircuitOverrides, logSpacedFrequencies, measureResonance, measureResponseDb, prepareCircuit, AUDIO_BAND_HIGH_HZ, AUDIO_BAND_LOW_HZ } from '../circuit/index.js';
+import { type CircuitOverrides, type CoilDrive, logSpacedFrequencies, measureResonance, measureResponseDb, prepareCircuit, AUDIO_BAND_HIGH_HZ, AUDIO_BAND_LOW_HZ } from '../circuit/index.js';
 import type { Guitar } from '../guitar/index.js';
 import type { Network } from '../wiring/index.js';
 
@@ -19,11 +22,11 @@ export interface ResponseCurve {
   readonly peakDb: number | null;
 }
 
-export function responseCurve(guitar: Guitar, overrides: CircuitOverrides, network: Network): ResponseCurve {
+export function responseCurve(guitar: Guitar, overrides: CircuitOverrides, network: Network, drive?: CoilDrive): ResponseCurve {
   const grid = logSpacedFrequencies(AUDIO_BAND_LOW_HZ, AUDIO_BAND_HIGH_HZ, CURVE_POINTS);
   const circuit = prepareCircuit(guitar, grid, overrides);
-  const response = measureResponseDb(circuit, network);
-  const resonance = measureResonance(circuit, network);
+  const response = measureResponseDb(circuit, network, drive);
+  const resonance = measureResonance(circuit, network, drive === undefined ? {} : { drive });
   return {
     frequenciesHz: Array.from(grid),
     responseDb: response ? Array.from(response) : [],

@@ -20,13 +20,15 @@ import {
   measureCircuitMetrics,
   measureResponseDb,
   phaseClassKey,
+  phaseClassNetwork,
   prepareCircuit,
   renderNetlist,
+  sampleCoilDrive,
   solveTransfers,
   AUDIO_BAND_HIGH_HZ,
   AUDIO_BAND_LOW_HZ,
 } from '../circuit/index.js';
-import { type AlikeThresholds, type Distinctness, measureDistinctness } from '../analysis/index.js';
+import { type AlikeThresholds, type Distinctness, measureCoilDrive, measureDistinctness, measureSpectralBasis } from '../analysis/index.js';
 import { WorkError } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
 import {
@@ -336,17 +338,20 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   }
   await writes.drain();
 
-  // Circuit metrics for the rendered wirings; groups for every wiring, or (when only some of more than
-  // MAX_WIRINGS_GROUPED_FOR_SOME are asked for) among the chosen ones and the single elements, so that
-  // one wiring of a six-element guitar costs one wiring, not 228,386.
+  // Circuit metrics (read from the response as the strings drive it) for the rendered wirings; groups for
+  // every wiring, or (when only some of more than MAX_WIRINGS_GROUPED_FOR_SOME are asked for) among the
+  // chosen ones and the single elements, so that one wiring of a six-element guitar costs one wiring, not 228,386.
   const scope = distinctScope(request.all, request.selected);
-  const circuit = measureCircuitMetrics(guitar, selected, request.overrides);
+  const basis = measureSpectralBasis(guitar);
+  const drive = measureCoilDrive(basis);
+  const circuit = measureCircuitMetrics(guitar, selected, request.overrides, { drive });
   const circuitById = new Map(selected.map((wiring, index) => [wiring.id, circuit.wirings[index] as WiringCircuitMetrics]));
-  const distinct = measureDistinctness(guitar, scope, { overrides: request.overrides, thresholds: request.thresholds });
+  const distinct = measureDistinctness(guitar, scope, { overrides: request.overrides, thresholds: request.thresholds, reuseBasis: basis });
   const groupById = new Map(scope.map((wiring, index) => [wiring.id, distinct.groups.groupOf[index] ?? null]));
   const responseGrid = logSpacedFrequencies(AUDIO_BAND_LOW_HZ, AUDIO_BAND_HIGH_HZ, RESPONSE_POINTS);
   const responseCircuit = prepareCircuit(guitar, responseGrid, request.overrides);
   const transfers = guitar.coils.map(() => new Float64Array(2 * RESPONSE_POINTS));
+  const responseDrive = sampleCoilDrive(drive, responseGrid);
 
   const rows: RenderedWiring[] = selected.map((wiring) => {
     const audio = audioMetrics.get(wiring.id);
@@ -360,8 +365,8 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     };
   });
   const reportWirings: ReportWiring[] = rows.map((row) => {
-    solveTransfers(responseCircuit, row.wiring.network, transfers);
-    const response = measureResponseDb(responseCircuit, row.wiring.network, transfers);
+    solveTransfers(responseCircuit, phaseClassNetwork(guitar, row.wiring.network), transfers);
+    const response = measureResponseDb(responseCircuit, row.wiring.network, drive, { sampledDrive: responseDrive, inPhaseTransfers: transfers });
     return {
       id: row.wiring.id,
       number: row.wiring.number,

@@ -69,7 +69,7 @@ export interface WiringSynthesis {
  */
 export interface CoilSignals {
   readonly sampleRateHz: number;
-  /** Samples in every wiring's output. */
+  /** Samples in every wiring's output: the phrase plus `delay` samples of lead-in before its t = 0. */
   readonly length: number;
   /** Samples by which every coil signal is delayed so that each stays causal (`pickupDelaySamples`). */
   readonly delay: number;
@@ -89,12 +89,15 @@ export function renderCoilSpectra(
   const fftSize = nextPowerOfTwo(strings.length + delay);
   const spectra = computeCoilSpectra(guitar, strings, fftSize);
   for (const spectrum of spectra) for (let k = 0; k < spectrum.length; k += 1) spectrum[k] = (spectrum[k] as number) * COIL_VOLTS_PER_METRE_PER_SECOND;
-  return { spectra, length: strings.length, delay, fftSize };
+  // The centred pickup response (src/pickup/compute-coil-spectra.ts) of a note at t = 0 starts up to
+  // `delay` samples before it. Every render keeps those samples: it starts `delay` samples before the
+  // phrase's t = 0 (the same lead-in, D/fs ≈ 1–2 ms, for every wiring), so no attack is cut.
+  return { spectra, length: strings.length + delay, delay, fftSize };
 }
 
-/** Samples of a coil signal worth keeping: the render, the delay before it and the pickup response's reach after it. */
+/** Samples of a coil signal worth keeping: the render (lead-in included) and the pickup response's reach after it. */
 export function storedCoilSamples(length: number, delay: number, fftSize: number): number {
-  return Math.min(fftSize, length + 2 * delay);
+  return Math.min(fftSize, length + delay);
 }
 
 /** The coil signals of a performance (for the listening page): the inverse FFT of each E_i, rounded to float32. */
@@ -202,8 +205,8 @@ export function createWiringSynthesis(guitar: Guitar, coils: CoilSpectra, overri
       for (let k = 0; k < output.length; k += 1) output[k] = (output[k] as number) + sign * (product[k] as number);
     });
     fft.inverse(output, time);
-    // The pickup spectra are delayed by `delay` samples so that every coil stays causal; undo it.
-    for (let n = 0; n < length; n += 1) out[n] = time[n + delay] as number;
+    // The pickup spectra are delayed by `delay` samples so that every coil stays causal; sample n is time (n − delay)/fs of the phrase.
+    for (let n = 0; n < length; n += 1) out[n] = time[n] as number;
     return out;
   };
 

@@ -9,7 +9,7 @@ import {
   HUM_REDUCING_DB,
   measureCircuitMetrics,
 } from '../../circuit/index.js';
-import { measureDistinctness } from '../../analysis/index.js';
+import { measureCoilDrive, measureDistinctness, measureSpectralBasis } from '../../analysis/index.js';
 import { InputError, type InputProblem, problemAt } from '../../errors/index.js';
 import { formatEngineering } from '../../units/index.js';
 import { enumerateWirings } from '../../wiring/index.js';
@@ -128,7 +128,8 @@ export function registerAnalyze(program: Command, io: Io): void {
     const estimate = estimateAnalyze(wiringCountFor(guitar.elements.length), options.audio !== false);
     const big = checkWorkSize(io, options.audio === false ? 'analysis (no audio)' : 'analysis', estimate, { yes: options.yes === true, picked: false });
     const wirings = enumerateWirings(guitar.elements);
-    const analysis = measureCircuitMetrics(guitar, wirings, overrides);
+    const basis = measureSpectralBasis(guitar);
+    const analysis = measureCircuitMetrics(guitar, wirings, overrides, { drive: measureCoilDrive(basis) });
     let audio: ReadonlyMap<string, AudioMetrics> | undefined;
     if (options.audio !== false && !analysis.silent) {
       const progress = createProgress(io, undefined, { plainLines: big });
@@ -136,7 +137,7 @@ export function registerAnalyze(program: Command, io: Io): void {
       audio = measureWiringAudio(guitar, wirings, wirings, overrides, (done, total) => progress.step(done, total));
       progress.finish();
     }
-    const distinct = measureDistinctness(guitar, wirings, { overrides, thresholds });
+    const distinct = measureDistinctness(guitar, wirings, { overrides, thresholds, reuseBasis: basis });
     const unsorted: AnalyzedWiring[] = wirings.map((wiring, index) => ({
       wiring,
       circuit: analysis.wirings[index] as AnalyzedWiring['circuit'],

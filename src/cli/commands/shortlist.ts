@@ -2,7 +2,9 @@ import type { Command } from 'commander';
 import {
   type Distinctness,
   type Shortlist,
+  measureCoilDrive,
   measureDistinctness,
+  measureSpectralBasis,
   measureWiringDistance,
   solveShortlist,
 } from '../../analysis/index.js';
@@ -201,8 +203,9 @@ export function registerShortlist(program: Command, io: Io): void {
     }
     if (problems.length > 0) throw new InputError(problems);
 
-    const circuit = measureCircuitMetrics(guitar, wirings, overrides);
-    const distinct = measureDistinctness(guitar, wirings, { overrides, thresholds });
+    const basis = measureSpectralBasis(guitar);
+    const circuit = measureCircuitMetrics(guitar, wirings, overrides, { drive: measureCoilDrive(basis) });
+    const distinct = measureDistinctness(guitar, wirings, { overrides, thresholds, reuseBasis: basis });
     const shortlist = solvePlannedShortlist(guitar, wirings, circuit.wirings, distinct, plan);
     const pair = closestPair(shortlist, distinct);
     const { profiles } = distinct;
