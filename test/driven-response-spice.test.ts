@@ -15,10 +15,18 @@
  * compared with `analyze`'s figures: no wiring may show a peak the coherent
  * response lacks, or miss one it has; frequencies within 0.1 %, Q within 1 %.
  *
- * The four-coil sample at volume 5, where a peak search refining only the
- * best grid point disagreed with ngspice on 22 of 572 wirings. By default
- * every twentieth network shape is run; COILBENCH_SPICE_ALL=1 runs
- * all of them.
+ * Both readings count only maxima with MIN_PEAK_PROMINENCE_DB of
+ * prominence (measure-resonance.ts). Where a peak's top is flatter than the
+ * drive's interpolation ripple, its frequency is defined no better than that
+ * top: a frequency outside 0.1 % still agrees when ngspice's R there lies
+ * within PEAK_FLATNESS_DB of ngspice's peak.
+ *
+ * The four-coil sample at volume 5 (a humbucker's coils magnetically
+ * coupled), where a peak search refining only the best grid point disagreed
+ * with ngspice on 22 of 572 wirings, and where wirings holding both coupled
+ * coils have nearly flat responses. By default every twentieth network shape
+ * is run, and every second of its wirings that hold both coupled coils;
+ * COILBENCH_SPICE_ALL=1 runs all of them.
  */
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
@@ -27,6 +35,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { measureCoilDrive, measureSpectralBasis } from '../src/analysis/index.js';
 import {
   type CoilDrive,
+  MIN_PEAK_PROMINENCE_DB,
   REFERENCE_FREQUENCY_HZ,
   drivenPowerAt,
   measureCircuitMetrics,
@@ -45,6 +54,10 @@ const FINE_POINTS = 2000;
 const FREQUENCY_TOLERANCE = 1e-3;
 const Q_TOLERANCE = 0.01;
 const SHAPE_STRIDE = process.env.COILBENCH_SPICE_ALL === '1' ? 1 : 20;
+/** Of the sampled wirings holding both coils of a coupled pair (solved by nodal analysis), every second by default. */
+const COUPLED_STRIDE = process.env.COILBENCH_SPICE_ALL === '1' ? 1 : 2;
+/** A peak's top within this of its maximum counts as the same peak (ten times smaller than MIN_PEAK_PROMINENCE_DB). */
+const PEAK_FLATNESS_DB = MIN_PEAK_PROMINENCE_DB / 10;
 const VOLUME_SETTING = 5;
 /** The one-point sweep at 100 Hz: ngspice needs stop > start. */
 const REFERENCE_SPAN = 1.001;
@@ -82,6 +95,23 @@ async function spiceTransfers(guitar: Guitar, wiring: Wiring, startHz: number, s
 interface CoherentFigures {
   readonly resonanceHz: number | null;
   readonly resonanceQ: number | null;
+  /** R on the sweep, for reading it at our peak. */
+  readonly frequenciesHz: Float64Array;
+  readonly values: Float64Array;
+}
+
+/** R of a sweep at `frequencyHz`, linear in ln f between sweep points; null outside the sweep. */
+function valueAt(figures: CoherentFigures, frequencyHz: number): number | null {
+  const grid = figures.frequenciesHz;
+  for (let k = 1; k < grid.length; k += 1) {
+    const high = grid[k] as number;
+    if (high < frequencyHz) continue;
+    const low = grid[k - 1] as number;
+    if (low > frequencyHz) return null;
+    const t = Math.log(frequencyHz / low) / Math.log(high / low);
+    return (figures.values[k - 1] as number) * (1 - t) + (figures.values[k] as number) * t;
+  }
+  return null;
 }
 
 /** R(f) composed from ngspice's transfers, and its highest interior maximum and −3 dB bandwidth. */
@@ -96,7 +126,7 @@ function coherentFigures(guitar: Guitar, wiring: Wiring, drive: CoilDrive, sweep
     Math.sqrt(drivenPowerAt(sweep.transfers, k, used, sampled, k * width) / drivenPowerAt(reference.transfers, 0, used, sampled, k * width)),
   );
   const figures = readDensePeak(grid, r);
-  return { resonanceHz: figures.peakHz, resonanceQ: figures.q };
+  return { resonanceHz: figures.peakHz, resonanceQ: figures.q, frequenciesHz: grid, values: r };
 }
 
 describe('resonance as the strings drive it agrees with ngspice (eecircuit-engine)', () => {
@@ -105,15 +135,15 @@ describe('resonance as the strings drive it agrees with ngspice (eecircuit-engin
   const drive = measureCoilDrive(measureSpectralBasis(guitar));
   const ours = measureCircuitMetrics(guitar, wirings, { volumeSetting: VOLUME_SETTING }, { drive }).wirings;
   const shapes = [...new Set(wirings.map((wiring) => shapeKey(wiring.network)))].filter((_, index) => index % SHAPE_STRIDE === 0);
-  // Open: wirings using both coils of a coupled pair (mutual inductance, phase classes with a '|') disagree on 2 of 25 since coupling
-  // arrived; they are left out here until that is understood (see DEVELOPERS.md).
-  const picked = wirings
-    .map((wiring, index) => ({ wiring, index }))
-    .filter(({ wiring }) => shapes.includes(shapeKey(wiring.network)) && !phaseClassKey(guitar, wiring.network).includes('|'));
+  const sampled = wirings.map((wiring, index) => ({ wiring, index })).filter(({ wiring }) => shapes.includes(shapeKey(wiring.network)));
+  // wirings holding both coils of a coupled pair: their phase class carries the coupled coils' relative phase after a '|' (phase-class.ts)
+  const coupled = sampled.filter(({ wiring }) => phaseClassKey(guitar, wiring.network).includes('|'));
+  const picked = [...sampled.filter((entry) => !coupled.includes(entry)), ...coupled.filter((_, k) => k % COUPLED_STRIDE === 0)];
 
   it(`the same peaks, within 0.1 % in frequency and 1 % in Q, on ${picked.length} of ${wirings.length} wirings at volume ${VOLUME_SETTING}`, async () => {
     const failures: string[] = [];
     let compared = 0;
+    let comparedCoupled = 0;
     let withQ = 0;
     for (const { wiring, index } of picked) {
       const metrics = ours[index];
@@ -135,8 +165,15 @@ describe('resonance as the strings drive it agrees with ngspice (eecircuit-engin
         failures.push(`${label}: resonance ${metrics.resonanceHz} here, ${theirs.resonanceHz} in ngspice`);
         continue;
       }
+      if (coupled.some((entry) => entry.index === index)) comparedCoupled += 1;
       if (metrics.resonanceHz !== null && theirs.resonanceHz !== null && Math.abs(metrics.resonanceHz / theirs.resonanceHz - 1) > FREQUENCY_TOLERANCE) {
-        failures.push(`${label}: resonance ${metrics.resonanceHz.toFixed(1)} Hz here, ${theirs.resonanceHz.toFixed(1)} Hz in ngspice`);
+        // the same flat top? ngspice's R at our frequency against ngspice's peak
+        const there = valueAt(theirs, metrics.resonanceHz);
+        const top = valueAt(theirs, theirs.resonanceHz);
+        const offDb = there !== null && top !== null && there > 0 ? 20 * Math.log10(top / there) : Number.POSITIVE_INFINITY;
+        if (!(offDb <= PEAK_FLATNESS_DB)) {
+          failures.push(`${label}: resonance ${metrics.resonanceHz.toFixed(1)} Hz here, ${theirs.resonanceHz.toFixed(1)} Hz in ngspice (${offDb.toFixed(4)} dB below its peak there)`);
+        }
       }
       if (theirs.resonanceQ !== null) {
         withQ += 1;
@@ -147,6 +184,7 @@ describe('resonance as the strings drive it agrees with ngspice (eecircuit-engin
     }
     expect(failures).toEqual([]);
     expect(compared).toBeGreaterThan(10);
+    expect(comparedCoupled).toBeGreaterThan(3);
     expect(withQ).toBeGreaterThan(3);
   }, 600_000);
 });

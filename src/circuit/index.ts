@@ -29,7 +29,7 @@ export {
   REFERENCE_FREQUENCY_HZ,
 } from './frequency-grid.js';
 export type { ResonanceInputs, ResonanceMetrics } from './measure-resonance.js';
-export { measureResonance, CANCELLED_FRACTION, CANCELLED_REASON, SILENT_REASON } from './measure-resonance.js';
+export { measureResonance, CANCELLED_FRACTION, CANCELLED_REASON, MIN_PEAK_PROMINENCE, MIN_PEAK_PROMINENCE_DB, SILENT_REASON } from './measure-resonance.js';
 export type { HumCategory } from './measure-hum.js';
 export {
   humCategory,

@@ -4,7 +4,12 @@
  * - resonanceHz: the highest local maximum of R inside 20 Hz–20 kHz, every
  *   local maximum of the grid refined by exact solves before they are
  *   compared; null when R has no maximum inside the band (it only falls or
- *   only rises: the largest value sits at an end);
+ *   only rises: the largest value sits at an end). A maximum counts only when
+ *   it stands MIN_PEAK_PROMINENCE_DB above the higher of the lowest points on
+ *   either side before R rises above it again (its topographic prominence):
+ *   where the coils' contributions partly cancel, R is nearly flat and the
+ *   drive's interpolation between its ERB-spaced points (coil-drive.ts)
+ *   leaves ripples of a few thousandths of a dB, which are no resonance;
  * - peakDb: 20·log10(R(peak) / R(100 Hz)) (R(100 Hz) = 1 by construction),
  *   the peak being the resonance, or the larger end of the band when there
  *   is none;
@@ -52,6 +57,32 @@ const MAX_REFINEMENT_STEPS = 100;
  * so 1e-9 is far above rounding and far below any real signal.
  */
 export const CANCELLED_FRACTION = 1e-9;
+/**
+ * Smallest prominence of a maximum of R that counts as a peak, dB: ten times
+ * the drive's interpolation ripple (~0.01 dB at most on the samples) and well
+ * below the ~1 dB just-noticeable level difference (from memory).
+ */
+export const MIN_PEAK_PROMINENCE_DB = 0.1;
+/** The same as an amplitude ratio. */
+export const MIN_PEAK_PROMINENCE = 10 ** (MIN_PEAK_PROMINENCE_DB / 20);
+
+/**
+ * Prominence of a maximum of `value` at grid index k, as a ratio: the value
+ * over the higher of the lowest grid values on each side before R rises above
+ * the value again (or the band ends, `first`/`last`).
+ */
+function gridProminence(values: Float64Array, k: number, value: number, first: number, last: number): number {
+  const side = (step: 1 | -1): number => {
+    let lowest = value;
+    for (let j = k + step; j >= first && j <= last; j += step) {
+      const here = values[j] as number;
+      if (here > value) break;
+      if (here < lowest) lowest = here;
+    }
+    return lowest;
+  };
+  return value / Math.max(side(-1), side(1));
+}
 
 export const SILENT_REASON = 'the volume at 0 shorts the output: nothing reaches the amplifier';
 export const CANCELLED_REASON = 'the coils cancel: their signals are equal and opposite at the output';
@@ -227,7 +258,7 @@ export function measureResonance(prepared: PreparedCircuit, network: Network, in
     if (k > first && k < last && value > (values[k - 1] as number) && value >= (values[k + 1] as number)) {
       const peak = refinePeak(response, [grid[k - 1] as number, grid[k] as number, grid[k + 1] as number], [values[k - 1] as number, value, values[k + 1] as number]);
       const refined = peak.value >= value ? peak : { hz: grid[k] as number, value };
-      if (best === null || refined.value > best.value) {
+      if ((best === null || refined.value > best.value) && gridProminence(values, k, refined.value, first, last) >= MIN_PEAK_PROMINENCE) {
         best = refined;
         bestIndex = k;
       }

@@ -1,3 +1,4 @@
+import { MIN_PEAK_PROMINENCE } from '../../src/circuit/index.js';
 /**
  * The reference reading of a sampled response for the resonance checks: its
  * highest interior local maximum, the vertex of the parabola through it and
@@ -11,12 +12,14 @@ export interface DensePeak {
   readonly q: number | null;
 }
 
-export function readDensePeak(frequenciesHz: Float64Array, values: Float64Array): DensePeak {
+export function readDensePeak(frequenciesHz: Float64Array, values: Float64Array, minimumProminence = MIN_PEAK_PROMINENCE): DensePeak {
   const count = frequenciesHz.length;
   let best = -1;
   for (let k = 1; k < count - 1; k += 1) {
     const value = values[k] as number;
-    if (value > (values[k - 1] as number) && value >= (values[k + 1] as number) && (best < 0 || value > (values[best] as number))) best = k;
+    if (value > (values[k - 1] as number) && value >= (values[k + 1] as number) && (best < 0 || value > (values[best] as number))) {
+      if (prominence(values, k) >= minimumProminence) best = k;
+    }
   }
   if (best < 0) return { peakHz: null, q: null };
   const [x0, x1, x2] = [best - 1, best, best + 1].map((k) => Math.log(frequenciesHz[k] as number)) as [number, number, number];
@@ -40,4 +43,23 @@ export function readDensePeak(frequenciesHz: Float64Array, values: Float64Array)
   const low = crossing(-1);
   const high = crossing(1);
   return { peakHz, q: low !== null && high !== null ? peakHz / (high - low) : null };
+}
+
+/**
+ * Topographic prominence of the maximum at k, as a ratio: its value over the
+ * higher of the lowest values on each side before R rises above it again (or
+ * the band ends).
+ */
+export function prominence(values: ArrayLike<number>, k: number): number {
+  const peak = values[k] as number;
+  const side = (step: 1 | -1): number => {
+    let lowest = peak;
+    for (let j = k + step; j >= 0 && j < values.length; j += step) {
+      const value = values[j] as number;
+      if (value > peak) break;
+      lowest = Math.min(lowest, value);
+    }
+    return lowest;
+  };
+  return peak / Math.max(side(-1), side(1));
 }
