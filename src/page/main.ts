@@ -37,7 +37,7 @@ function byId<T extends HTMLElement>(id: string): T {
 const data = JSON.parse(byId('page-data').textContent ?? '{}') as PageData;
 const { guitar, report } = data;
 performance.mark('coilbench-data');
-const engine = createWiringEngine(data);
+const engine = createWiringEngine({ ...data, chain: report.render.chain });
 performance.mark('coilbench-engine');
 const wirings: Wiring[] = enumerateWirings(guitar.elements);
 const reported = new Map<string, ReportWiring>(report.wirings.map((wiring) => [wiring.id, wiring]));

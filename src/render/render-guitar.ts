@@ -29,8 +29,6 @@ import { type AlikeThresholds, type Distinctness, measureDistinctness } from '..
 import type { Guitar } from '../guitar/index.js';
 import {
   type ListeningReport,
-  pageAudioPath,
-  renderPageAudioScript,
   type ReportGroups,
   type ReportWiring,
   reportGuitar,
@@ -85,8 +83,6 @@ export interface RenderRequest {
   readonly folder: OutputFolder;
   /** Name of the generator for report.json ("coilbench 0.1.0"). */
   readonly generator: string;
-  /** Also write `wav/<name>.wav.js` beside each WAV for the comparison page of `compare --render` (the listening page needs none). */
-  readonly pageAudioCopies?: boolean;
   /** Write the WAV files (default true); false writes only the page, netlists and reports. */
   readonly writeWav?: boolean;
   /** Threads for the first pass (default: the machine's cores, at most two). */
@@ -269,8 +265,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     const name = wavFileName(wiring);
     const path = join(folder.wavFolder, name);
     const fileHash = hashOf({ audio: entry.audioHash, gain: gain.toPrecision(12), format: request.format, name });
-    const pageAudio = request.pageAudioCopies ? join(folder.root, pageAudioPath(relative(folder.root, path))) : null;
-    if (request.writeWav === false || (entry.fileHash === fileHash && entry.file === name && existsSync(path) && (pageAudio === null || existsSync(pageAudio)))) {
+    if (request.writeWav === false || (entry.fileHash === fileHash && entry.file === name && existsSync(path))) {
       skipped += 1;
     } else {
       const parked = scratchFiles.get(wiring.id);
@@ -288,7 +283,6 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
       // Written in the background while the next wiring is prepared; the manifest records a file only once it is whole.
       await writes.add(async () => {
         await writeFileAtomic(path, bytes);
-        if (pageAudio) await writeFileAtomic(pageAudio, renderPageAudioScript(wiring.id, bytes));
         Object.assign(entry, { fileHash, file: name });
       });
       await saveManifest(false);
