@@ -72,7 +72,7 @@ function renderOf(id: string): Promise<RenderedWiring> {
   const engine = entry ? engines[entry.set] : undefined;
   const wiring = entry ? wiringsOfSet[entry.set]?.get(entry.wiringId) : undefined;
   if (!entry || !engine || !wiring) return Promise.reject(new Error(`no wiring ${id} on this page`));
-  pending = engine.render(id, wiring.network, engine.renderKnobs);
+  pending = engine.render(id, wiring.network, engine.renderKnobs).then((render) => ({ ...render, key: id }));
   renders.set(id, pending);
   pending.then((render) => played.set(id, render)).catch(() => renders.delete(id));
   return pending;
