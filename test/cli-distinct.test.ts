@@ -4,7 +4,7 @@
  * are checked in src/analysis (against exact per-bin sums, brute force and
  * hand-worked values); here the commands must carry them faithfully.
  */
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -247,7 +247,14 @@ describe('coilbench compare', () => {
       };
       expect(report.sets.map((set) => [set.label, set.folder])).toEqual([['A', 'a'], ['B', 'b']]);
       expect(report.rows).toHaveLength(6);
-      for (const entry of report.entries) expect(readFileSync(join(folder, `${entry.wav}.js`), 'utf8')).toMatch(/^coilbenchAudio\("w\d+", "/u);
+      for (const entry of report.entries) {
+        expect(readFileSync(join(folder, entry.wav)).subarray(0, 4).toString('latin1')).toBe('RIFF'); // each set's WAV files, for players outside the page
+        expect(existsSync(join(folder, `${entry.wav}.js`))).toBe(false); // the page carries coil signals, not copies of the files
+      }
+      // the page carries each set's coil signals (one per coil of the guitar: four here)
+      const page = readFileSync(join(folder, 'index.html'), 'utf8');
+      const data = JSON.parse(/<script type="application\/json" id="comparison-data">([\s\S]*?)<\/script>/u.exec(page)?.[1] ?? '{}') as { sets: Array<{ coils: { signals: string[] } }> };
+      expect(data.sets.map((set) => set.coils.signals.length)).toEqual([4, 4]);
       // the same guitar twice: the same levels and no difference anywhere
       const level = new Map(report.entries.map((entry) => [entry.id, entry.levelDb]));
       for (const row of report.rows) {

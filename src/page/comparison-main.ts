@@ -13,19 +13,12 @@ import type { ComparisonEntry, ComparisonRow } from '../report/index.js';
 import { type Wiring, enumerateWirings } from '../wiring/index.js';
 import { createBlindTest } from './blind-test.js';
 import { type ComparisonPageData, encodeSignal } from './page-data.js';
-import { formatSeconds, loopsByDefault, playbackGainDb, MATCHED_LOUDNESS_LUFS } from './page-math.js';
+import { loopsByDefault, playbackGainDb, MATCHED_LOUDNESS_LUFS } from './page-math.js';
 import { formatDb } from './page-words.js';
 import { type Playable, createPlayer } from './player.js';
+import { byId, connectTransport } from './transport-bar.js';
 import { type RenderedWiring, type WiringEngine, createWiringEngine } from './wiring-engine.js';
 
-/** Interval of the position display, ms. */
-const TICK_MS = 50;
-
-function byId<T extends HTMLElement>(id: string): T {
-  const element = document.getElementById(id);
-  if (!element) throw new Error(`the page lacks #${id}`);
-  return element as T;
-}
 
 const data = JSON.parse(byId('comparison-data').textContent ?? '{}') as ComparisonPageData;
 const { report } = data;
@@ -153,20 +146,6 @@ function updateLabels(): void {
   }
 }
 
-function updateTime(): void {
-  player.tick();
-  const duration = first.length / first.sampleRateHz;
-  const position = player.position();
-  byId('time').textContent = `${formatSeconds(position)} / ${formatSeconds(duration)}`;
-  const scrub = byId<HTMLInputElement>('scrub');
-  if (document.activeElement !== scrub) scrub.value = String(position);
-}
-
-player.onChange(() => {
-  updateLabels();
-  updateTime();
-});
-
 /* ---------- switching sets ---------- */
 
 /** Sound `key`'s wiring on `set`: at the same place in the phrase if something plays; the row's other sets are rendered ahead. */
@@ -203,14 +182,15 @@ function togglePlayback(): void {
   if (player.isPlaying()) player.pause();
   else if (ui.row !== null) sound(ui.row, ui.set, true);
 }
-byId('transport-play').addEventListener('click', togglePlayback);
-byId('scrub').addEventListener('input', () => player.seek(Number(byId<HTMLInputElement>('scrub').value)));
-byId('match-level').addEventListener('change', () => {
-  matched = byId<HTMLInputElement>('match-level').checked;
-  player.refreshGains();
-  updateLabels();
+connectTransport({
+  player,
+  durationS: first.length / first.sampleRateHz,
+  toggle: togglePlayback,
+  levelMode: (on) => {
+    matched = on;
+  },
+  changed: () => updateLabels(),
 });
-byId('volume').addEventListener('input', () => player.setVolume(Number(byId<HTMLInputElement>('volume').value)));
 
 /* ---------- blind test ---------- */
 
@@ -260,8 +240,6 @@ if (firstRow) {
   byId<HTMLSelectElement>('blind-second').value = firstRow.entries[Math.min(1, firstRow.entries.length - 1)] ?? '';
 }
 updateLabels();
-updateTime();
-setInterval(updateTime, TICK_MS);
 byId<HTMLButtonElement>('transport-play').disabled = false;
 
 /** Read-only view and test hooks. */
