@@ -1,7 +1,7 @@
 #!/usr/bin/env node
 /** Entry point for the `coilbench` command. */
 import { main, processIo } from './cli/index.js';
-import { removePendingTempFilesSync, removeScratchFoldersSync } from './render/index.js';
+import { releaseFolderLocksSync, removePendingTempFilesSync, removeScratchFoldersSync } from './render/index.js';
 
 /** Exit status after an interrupt (128 + SIGINT's number 2, the shell convention). */
 const INTERRUPTED_STATUS = 130;
@@ -18,6 +18,7 @@ for (const signal of ['SIGINT', 'SIGTERM'] as const) {
   process.on(signal, () => {
     removePendingTempFilesSync();
     removeScratchFoldersSync();
+    releaseFolderLocksSync();
     process.stderr.write('\ncoilbench: interrupted; files already written are complete, and the next run finishes the rest\n');
     process.exit(INTERRUPTED_STATUS);
   });

@@ -9,7 +9,7 @@ import { join, relative } from 'node:path';
 import { describe, expect, it } from 'vitest';
 
 const src = join(import.meta.dirname, '..', 'src');
-const CORE = ['units', 'errors', 'math', 'guitar', 'wiring', 'circuit', 'string', 'pickup', 'analysis'];
+const CORE = ['units', 'errors', 'math', 'guitar', 'wiring', 'circuit', 'string', 'pickup', 'analysis', 'switching'];
 const FORBIDDEN = [
   /from ['"]node:/u,
   /from ['"](fs|path|os|child_process|worker_threads)['"]/u,

@@ -38,7 +38,7 @@ describe('coilbench analyze', () => {
     for (const wiring of document.wirings) {
       expect(Object.keys(wiring)).toEqual([
         'id', 'expression', 'coils', 'topology', 'outOfPhase', 'description',
-        'resonanceHz', 'peakDb', 'resonanceQ', 'humDb', 'humCancelling', 'levelDb', 'loudnessLufs', 'centroidHz', 'group',
+        'resonanceHz', 'peakDb', 'resonanceQ', 'humDb', 'humCategory', 'humCancelling', 'levelDb', 'loudnessLufs', 'centroidHz', 'group',
       ]);
       expect(Number.isInteger(wiring.group)).toBe(true);
       const finite = ['resonanceHz', 'peakDb', 'humDb', ...(withAudio ? ['levelDb', 'loudnessLufs', 'centroidHz'] : [])];
@@ -79,10 +79,10 @@ describe('coilbench analyze', () => {
   it('prints a table and a Markdown table from the same columns', async () => {
     const table = await run(samples, 'analyze', 'three-single-coil.json');
     expect(table.status).toBe(0);
-    expect(table.out).toMatch(/resonance Hz\s+peak dB\s+Q\s+hum dB\s+hum cancelling\s+level dB\s+centroid Hz\s+group\s+in words/u);
-    expect(table.out).toMatch(/w6\s+neck \/\/ mid\s+\d+\s+\+\d+\.\d\s+\d\.\d\d\s+-\d+\.\d\s+yes/u);
+    expect(table.out).toMatch(/resonance Hz\s+peak dB\s+Q\s+hum dB\s+hum\s+level dB\s+centroid Hz\s+group\s+in words/u);
+    expect(table.out).toMatch(/w6\s+neck \/\/ mid\s+\d+\s+\+\d+\.\d\s+\d\.\d\d\s+-\d+\s+(?:reduces|cancels)/u);
     const markdown = await run(samples, 'analyze', 'three-single-coil.json', '--markdown');
-    expect(markdown.out).toContain('| # | wiring | resonance Hz | peak dB | Q | hum dB | hum cancelling | level dB | LUFS | centroid Hz | group | in words |');
+    expect(markdown.out).toContain('| # | wiring | resonance Hz | peak dB | Q | hum dB | hum | level dB | LUFS | centroid Hz | group | in words |');
     expect(markdown.out.split('\n').filter((line) => line.startsWith('| w'))).toHaveLength(47);
   });
 
@@ -92,7 +92,7 @@ describe('coilbench analyze', () => {
     expect(status).toBe(0);
     expect(err).toContain('wrote wirings.csv (47 wirings)');
     const lines = readFileSync(join(folder, 'wirings.csv'), 'utf8').split('\r\n');
-    expect(lines[0]).toBe('id,expression,coils,topology,outOfPhase,resonanceHz,peakDb,resonanceQ,humDb,humCancelling,levelDb,loudnessLufs,centroidHz,group,description');
+    expect(lines[0]).toBe('id,expression,coils,topology,outOfPhase,resonanceHz,peakDb,resonanceQ,humDb,humCategory,humCancelling,levelDb,loudnessLufs,centroidHz,group,description');
     expect(lines).toHaveLength(49); // header, 47 rows, final empty line
     expect(readdirSync(folder)).toEqual(['wirings.csv']);
   });
@@ -150,6 +150,17 @@ describe('coilbench netlist', () => {
     expect(out).toContain('.print ac vdb(out) vp(out)*180/pi');
     expect(out.trimEnd().endsWith('.end')).toBe(true);
     expect(out).toMatch(/^Ramp out 0 1000000$/mu);
+  });
+
+  it('accepts a connection list: the same circuit as its notation gives the same elements and load', async () => {
+    const notation = await run(samples, 'netlist', 'three-single-coil.json', 'neck + ~bridge');
+    const joints = await run(samples, 'netlist', 'three-single-coil.json', 'neck.finish = hot, neck.start = bridge.start, bridge.finish = ground');
+    expect(joints.status).toBe(0);
+    const elements = (text: string): string[] => text.split('\n').filter((line) => /^[VLRC]/u.test(line)).map((line) => line.replace(/\b(j1|n2)\b/gu, 'joint'));
+    expect(elements(joints.out)).toEqual(elements(notation.out));
+    const bad = await run(samples, 'netlist', 'three-single-coil.json', 'neck.finish = hot', '--build-sheet');
+    expect(bad.status).toBe(2);
+    expect(bad.err).toMatch(/^coilbench: --build-sheet: expected a wiring in \+, \/\/ and ~ notation/u);
   });
 
   it('accepts a wiring number and any spelling of the same wiring', async () => {

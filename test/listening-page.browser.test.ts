@@ -34,6 +34,7 @@ import { enumerateWirings } from '../src/wiring/index.js';
 import { CHROMIUM, INSTALL_HINT, RUN_BROWSER_TESTS, type WatchedPage, launchChromium, openFolderPage } from './support/browser.js';
 import { makeExampleReport } from './support/example-report.js';
 import { referenceLoudness } from './support/ebur128-reference.js';
+import { maxOf, minOf } from '../src/math/index.js';
 
 const SAMPLE_RATE_HZ = 22050;
 const TAIL_S = 0.6;
@@ -142,8 +143,8 @@ describe.skipIf(!RUN_BROWSER_TESTS)('the listening page in chromium: one engine,
     const rendered = await renderInPage(three, expressions);
     const node = nodeDirect(guitar);
     const residuals = expressions.map((expression, index) => residualDb(node(expression), decodeSignal((rendered[index] as PageRender).samples)));
-    console.info(`direct, 47 wirings: worst residual ${Math.max(...residuals).toFixed(1)} dB`);
-    expect(Math.max(...residuals)).toBeLessThan(DIRECT_RESIDUAL_DB);
+    console.info(`direct, 47 wirings: worst residual ${maxOf(residuals).toFixed(1)} dB`);
+    expect(maxOf(residuals)).toBeLessThan(DIRECT_RESIDUAL_DB);
   });
 
   it('clean below −40 dB; drive and compressed within 0.5 LU and 2 % centroid, every wiring', async () => {
@@ -184,8 +185,8 @@ describe.skipIf(!RUN_BROWSER_TESTS)('the listening page in chromium: one engine,
     const rendered = await renderInPage(three, expressions, changes);
     const node = nodeDirect(guitar, changes);
     const residuals = expressions.map((expression, index) => residualDb(node(expression), decodeSignal((rendered[index] as PageRender).samples)));
-    console.info(`knobs changed, direct: worst residual ${Math.max(...residuals).toFixed(1)} dB`);
-    expect(Math.max(...residuals)).toBeLessThan(DIRECT_RESIDUAL_DB);
+    console.info(`knobs changed, direct: worst residual ${maxOf(residuals).toFixed(1)} dB`);
+    expect(maxOf(residuals)).toBeLessThan(DIRECT_RESIDUAL_DB);
     // The knobs really change the sound (the test could fail): tone at 3 with 47 nF is darker than the render's settings.
     const plain = await renderInPage(three, [expressions[0] as string]);
     expect((rendered[0] as PageRender).centroidHz).toBeLessThan((plain[0] as PageRender).centroidHz);
@@ -202,7 +203,7 @@ describe.skipIf(!RUN_BROWSER_TESTS)('the listening page in chromium: one engine,
       }
     }
     const loudness = referenceLoudness(cases);
-    const spread = Math.max(...loudness) - Math.min(...loudness);
+    const spread = maxOf(loudness) - minOf(loudness);
     console.info(`level matched, ${loudness.length} renders over three chains: spread ${spread.toFixed(3)} LU (ebur128-wasm)`);
     expect(spread).toBeLessThan(LOUDNESS_LU);
   });

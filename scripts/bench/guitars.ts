@@ -9,10 +9,15 @@ export function sample(file: string): Guitar {
   return parseGuitarText(readFileSync(join(SAMPLES, file), 'utf8'), file);
 }
 
-/** Five coils: the four-coil sample plus a single coil between mid and bridge (invented values). */
-export function fiveCoilGuitar(): Guitar {
+/** Five coils: the four-coil sample plus a single coil between mid and bridge (invented values), as guitar-file text. */
+export function fiveCoilGuitarJson(): string {
   const raw = JSON.parse(readFileSync(join(SAMPLES, 'humbucker-two-single-coil.json'), 'utf8')) as { name: string; coils: unknown[] };
   raw.name = 'Bench five-coil guitar (invented values)';
   raw.coils.push({ id: 'extra', position: '70mm', resistance: '6.3k', inductance: '2.55H', capacitance: '120p', winding: 'cw', magnet: 'north' });
-  return parseGuitar(raw);
+  return JSON.stringify(raw, null, 2);
+}
+
+/** The five-coil guitar, parsed. */
+export function fiveCoilGuitar(): Guitar {
+  return parseGuitar(JSON.parse(fiveCoilGuitarJson()));
 }

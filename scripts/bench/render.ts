@@ -26,8 +26,9 @@ function renderInChild(guitar: string, chain: string, threads: number, repeat: '
 }
 
 export function benchRender(): void {
-  heading('Rendering every wiring to files (strum, 48 kHz, 24-bit, reports and page; one process per case)');
-  console.log('  first render in a fresh process (as `coilbench render` runs), then a second render in the same process');
+  heading('In-process renders (renderGuitar from dist/ inside a tsx process; one process per case)');
+  console.log('  first render after loading, then a second render in the same process; start-up and loading are not timed,');
+  console.log('  and the peak memory includes the TypeScript loader (the fresh-process figures above are what users wait for)');
   const threads = defaultThreadCount();
   const cases: Array<[string, string, number, 'cold' | 'warm']> = [
     ['samples/three-single-coil.json', 'direct', threads, 'warm'],

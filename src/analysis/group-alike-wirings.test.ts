@@ -74,7 +74,11 @@ describe('measureWiringDifference', () => {
   it('puts a louder copy of the guitar exactly its gain above, with the same spectrum', () => {
     const raw = readSample('three-single-coil.json');
     const base = parseGuitar(raw);
-    const hotter = parseGuitar({ ...raw, coils: (raw.coils as Array<Record<string, unknown>>).map((coil) => ({ ...coil, sensitivity: 10 ** (2 / 20) })) });
+    // Every coil's sensitivity (derived from its turns) raised by 2 dB.
+    const hotter = parseGuitar({
+      ...raw,
+      coils: (raw.coils as Array<Record<string, unknown>>).map((coil, index) => ({ ...coil, sensitivity: (base.coils[index]?.sensitivity as number) * 10 ** (2 / 20) })),
+    });
     const a = profilesOf(base);
     const b = solveWiringSpectra(hotter, measureSpectralBasis(hotter), a.wirings);
     const onScaleOfA = measureSpectralProfiles(b, a.spectra.referenceEnergy);

@@ -70,6 +70,8 @@ function hannWindow(length: number, kind: HannWindowKind): Float64Array {
   return values;
 }
 
+let spectrumBuffer = new Float64Array(0);
+
 /** Spectral centroid of `samples` at `sampleRateHz`, Hz; see the file comment. */
 export function measureCentroid(samples: ArrayLike<number>, sampleRateHz: number, options: Partial<CentroidOptions> = {}): number {
   const { lowHz, highHz, window } = resolveOptions(options);
@@ -79,9 +81,9 @@ export function measureCentroid(samples: ArrayLike<number>, sampleRateHz: number
   const size = nextPowerOfTwo(length);
   const fft = realFft(size);
   const taper = hannWindow(length, window);
-  const windowed = new Float64Array(length);
-  for (let n = 0; n < length; n += 1) windowed[n] = (samples[n] as number) * (taper[n] as number);
-  const spectrum = fft.forward(windowed);
+  // One complex FFT of N/2 points into a kept buffer (every render of a run has one length).
+  if (spectrumBuffer.length !== 2 * fft.bins) spectrumBuffer = new Float64Array(2 * fft.bins);
+  const spectrum = fft.forwardPacked(samples, spectrumBuffer, taper);
 
   const binHz = sampleRateHz / size;
   const firstBin = Math.ceil(lowHz / binHz);

@@ -28,6 +28,7 @@
  * swaps that raise the smallest distance until none does. It reports itself
  * as such.
  */
+import { minOf } from '../math/index.js';
 
 export interface MaxMinSubsetProblem {
   /** Candidate items (any integers, e.g. wiring indices), in the order that breaks ties: earlier first. */
@@ -268,7 +269,7 @@ function solveHeuristic(problem: MaxMinSubsetProblem, need: number, starts: numb
   /** Farthest-point insertion from `seed`; null when the constraint leaves no candidate to add. */
   const greedy = (seed: readonly number[]): number[] | null => {
     const chosen = [...seed];
-    const nearest = candidates.map((item) => (chosen.length === 0 ? Number.POSITIVE_INFINITY : Math.min(...chosen.map((other) => distance(item, other)))));
+    const nearest = candidates.map((item) => (chosen.length === 0 ? Number.POSITIVE_INFINITY : minOf(chosen.map((other) => distance(item, other)))));
     const taken = new Set(chosen);
     while (chosen.length < include.length + need) {
       let bestIndex = -1;

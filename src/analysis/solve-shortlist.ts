@@ -26,6 +26,7 @@ import {
   type MaxMinSubsetResult,
   solveMaxMinSubset,
 } from './solve-max-min-subset.js';
+import { maxOf, minOf } from '../math/index.js';
 
 export interface ShortlistWiring {
   /** Place in the stable order (breaks ties: earlier first). */
@@ -142,8 +143,8 @@ export function solveShortlist(
   const window = request.levelWindowDb;
   const level = (index: number): number => (wirings[index] as ShortlistWiring).levelDb;
   const includeLevels = orderedInclude.map(level);
-  const includeLow = Math.min(...includeLevels);
-  const includeHigh = Math.max(...includeLevels);
+  const includeLow = minOf(includeLevels);
+  const includeHigh = maxOf(includeLevels);
   if (includeLevels.length > 0 && includeHigh - includeLow > window) {
     throw InputError.at(
       'levelWindowDb',
@@ -174,7 +175,7 @@ export function solveShortlist(
     const result = solveMaxMinSubset({ candidates, include: orderedInclude, size: request.count, distance, admissible: spread, seeds: [...new Set(seeds)] }, settings);
     if (result !== null) {
       const chosenLevels = result.members.map(level);
-      return finish(result, [Math.min(...chosenLevels), Math.min(...chosenLevels) + window]);
+      return finish(result, [minOf(chosenLevels), minOf(chosenLevels) + window]);
     }
   }
   const startsFrom = includeLevels.length > 0 ? includeHigh - window : Number.NEGATIVE_INFINITY;
@@ -253,8 +254,8 @@ function upperBound(levels: readonly number[], value: number): number {
 
 /** Smallest level span of a set holding every included level and `need` candidates (levels sorted). */
 function smallestSpan(levels: readonly number[], includeLevels: readonly number[], need: number): number {
-  const low = includeLevels.length > 0 ? Math.min(...includeLevels) : Number.POSITIVE_INFINITY;
-  const high = includeLevels.length > 0 ? Math.max(...includeLevels) : Number.NEGATIVE_INFINITY;
+  const low = includeLevels.length > 0 ? minOf(includeLevels) : Number.POSITIVE_INFINITY;
+  const high = includeLevels.length > 0 ? maxOf(includeLevels) : Number.NEGATIVE_INFINITY;
   if (need === 0) return high - low;
   let best = Number.POSITIVE_INFINITY;
   for (let i = 0; i + need <= levels.length; i += 1) {

@@ -8,6 +8,7 @@ import { type Wiring, enumerateWirings } from '../wiring/index.js';
 import { measureCentroid } from './measure-centroid.js';
 import { measureSpectralBasis } from './measure-spectral-basis.js';
 import { type WiringSpectra, solveWiringSpectra } from './solve-wiring-spectra.js';
+import { maxOf } from '../math/index.js';
 
 const samples = join(import.meta.dirname, '..', '..', 'samples');
 const sample = (file: string): Guitar => parseGuitarText(readFileSync(join(samples, file), 'utf8'), file);
@@ -85,6 +86,6 @@ describe('solveWiringSpectra with two-lead pickups and knobs turned down', () =>
     expect(spectra.silent).toBe(true);
     expect([...spectra.energies]).toEqual([0, 0, 0, 0, 0]);
     expect([...spectra.brightnessHz]).toEqual([0, 0, 0, 0, 0]);
-    expect(Math.max(...spectra.levelsDb)).toBe(-150);
+    expect(maxOf(spectra.levelsDb)).toBe(-150);
   });
 });

@@ -21,9 +21,9 @@
  *   see docs/distinctness.md for the measured relation, checked in
  *   solve-wiring-spectra.test.ts.
  */
-import { type CircuitOverrides, prepareCircuit, solveTransfers } from '../circuit/index.js';
+import { type CircuitOverrides, phaseClassKey, phaseClassNetwork, phaseClassSigns, prepareCircuit, solveTransfers } from '../circuit/index.js';
 import type { Guitar } from '../guitar/index.js';
-import { type Network, coilPhases, leaf, shapeKey, withoutPhases } from '../wiring/index.js';
+import { type Network, leaf } from '../wiring/index.js';
 import { designExcitationSpread } from './design-excitation-spread.js';
 import { LEVEL_FLOOR_DB } from './measure-energy.js';
 import type { SpectralBasis } from './measure-spectral-basis.js';
@@ -86,10 +86,10 @@ export function solveWiringSpectra(
   const shapes = new Map<string, Float64Array>();
 
   const tableFor = (network: Network): Float64Array => {
-    const key = shapeKey(network);
+    const key = phaseClassKey(guitar, network);
     const known = shapes.get(key);
     if (known !== undefined) return known;
-    solveTransfers(prepared, withoutPhases(network), transfers);
+    solveTransfers(prepared, phaseClassNetwork(guitar, network), transfers);
     const table = new Float64Array(rows * pairCount);
     for (let s = 0; s < segmentCount; s += 1) {
       const band = (segments[s] as { band: number }).band;
@@ -135,7 +135,7 @@ export function solveWiringSpectra(
   /** Fills `row` with the wiring's band energies, outer energy and moment. */
   const solve = (network: Network): Float64Array => {
     const table = tableFor(network);
-    coilPhases(guitar.elements, network, phases);
+    phaseClassSigns(guitar, network, phases);
     let pair = 0;
     for (let i = 0; i < coilCount; i += 1) {
       for (let j = i; j < coilCount; j += 1) {

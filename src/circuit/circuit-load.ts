@@ -14,7 +14,7 @@
  * resistor of r_t·Rt, so setting 10 is its full resistance.
  */
 import { InputError } from '../errors/index.js';
-import type { Guitar, Taper, TrebleBleed } from '../guitar/index.js';
+import { CABLE_CAPACITANCE_MAX_F, CABLE_CAPACITANCE_MIN_F, type Guitar, type Taper, type TrebleBleed } from '../guitar/index.js';
 import { KNOB_FULL_SCALE, wiperFraction } from './pot-taper.js';
 
 /** Mains frequencies hum is evaluated at. */
@@ -23,9 +23,21 @@ export type MainsHz = 50 | 60;
 /** Default mains frequency (docs/design.md: 60 Hz unless `--mains 50`). */
 export const DEFAULT_MAINS_HZ: MainsHz = 60;
 
-/** Plausible total cable capacitance, the range the guitar file accepts (1 pF to 20 nF). */
-export const CABLE_CAPACITANCE_MIN_F = 1e-12;
-export const CABLE_CAPACITANCE_MAX_F = 20e-9;
+/**
+ * Dipole estimate of the hum field's gradient (docs/physics.md §6.1): a
+ * dipole-like source at distance r gives B ∝ 1/r³, so d ln B/dx = 3/r. The
+ * default takes the source (an amplifier's transformer, a lamp) 1 m away
+ * (from memory: a player standing about a metre from the amplifier): 3 /m,
+ * i.e. 3 % per centimetre along the strings.
+ */
+export const DIPOLE_FIELD_EXPONENT = 3;
+export const DEFAULT_HUM_SOURCE_DISTANCE_M = 1;
+export const DEFAULT_HUM_GRADIENT_PER_M = DIPOLE_FIELD_EXPONENT / DEFAULT_HUM_SOURCE_DISTANCE_M;
+/** Steepest gradient accepted: a source 0.15 m away (closer than any practical hum source, our own bound). */
+export const HUM_GRADIENT_MAX_PER_M = 20;
+
+/** Plausible total cable capacitance: the range the guitar file accepts (1 pF to 20 nF, src/guitar/guitar-spec.ts). */
+export { CABLE_CAPACITANCE_MIN_F, CABLE_CAPACITANCE_MAX_F };
 
 /** What-if settings that replace the guitar file's values; validated once by `resolveCircuitLoad`. */
 export interface CircuitOverrides {
@@ -37,6 +49,12 @@ export interface CircuitOverrides {
   readonly cableCapacitanceF?: number;
   /** Mains frequency for hum, 50 or 60 Hz. Default 60. */
   readonly mainsHz?: MainsHz;
+  /**
+   * Gradient of the hum field along the strings, relative change per metre
+   * (d ln B/dx; 0.03 per cm = 3 /m), 0 to HUM_GRADIENT_MAX_PER_M. Default
+   * DEFAULT_HUM_GRADIENT_PER_M (measure-hum.ts, docs/physics.md §6.1).
+   */
+  readonly humGradientPerM?: number;
 }
 
 export interface VolumeLoad {
@@ -71,6 +89,8 @@ export interface CircuitLoad {
   readonly ampResistanceOhms: number;
   readonly ampCapacitanceF: number;
   readonly mainsHz: MainsHz;
+  /** Relative change of the hum field per metre along the strings (docs/physics.md §6.1). */
+  readonly humGradientPerM: number;
   /** True when nothing reaches the amplifier (volume at 0 shorts the output to ground). */
   readonly silent: boolean;
 }
@@ -91,10 +111,15 @@ export function resolveCircuitLoad(guitar: Guitar, overrides: CircuitOverrides =
   }
   const cable = overrides.cableCapacitanceF ?? guitar.cable.capacitanceF;
   if (!Number.isFinite(cable) || cable < CABLE_CAPACITANCE_MIN_F || cable > CABLE_CAPACITANCE_MAX_F) {
-    throw InputError.at('cableCapacitanceF', 'a cable capacitance between 1 pF and 20 nF', cable);
+    // The guitar validator and the option parser refuse such a cable first, each with the user's own path.
+    throw InputError.at(overrides.cableCapacitanceF === undefined ? 'cable' : 'overrides.cableCapacitanceF', 'a total cable capacitance between 1 pF and 20 nF', cable);
   }
   const mainsHz = overrides.mainsHz ?? DEFAULT_MAINS_HZ;
   if (mainsHz !== 50 && mainsHz !== 60) throw InputError.at('mainsHz', '50 or 60', mainsHz);
+  const humGradientPerM = overrides.humGradientPerM ?? DEFAULT_HUM_GRADIENT_PER_M;
+  if (!Number.isFinite(humGradientPerM) || humGradientPerM < 0 || humGradientPerM > HUM_GRADIENT_MAX_PER_M) {
+    throw InputError.at('humGradientPerM', `a hum-field gradient from 0 to ${HUM_GRADIENT_MAX_PER_M} per metre`, humGradientPerM);
+  }
 
   const fraction = wiperFraction(volume, volumeSetting);
   const volumeLoad: VolumeLoad = Object.freeze({
@@ -127,6 +152,7 @@ export function resolveCircuitLoad(guitar: Guitar, overrides: CircuitOverrides =
     ampResistanceOhms: guitar.amp.resistanceOhms,
     ampCapacitanceF: guitar.amp.capacitanceF,
     mainsHz,
+    humGradientPerM,
     silent: volumeLoad.bottomOhms === 0,
   });
 }

@@ -33,7 +33,10 @@ const CASES: readonly Case[] = [
 /** Volume pot fixed at 10 MΩ; the amplifier's resistance makes up the rest of the load, so volume ∥ amp = the case's load. */
 const VOLUME_OHMS = 10e6;
 
-function singleCoilGuitar(c: Pick<Case, 'resistanceOhms' | 'inductanceH' | 'coilCapacitanceF' | 'cableCapacitanceF' | 'loadOhms'>, coils = 1): Guitar {
+function singleCoilGuitar(
+  c: Pick<Case, 'resistanceOhms' | 'inductanceH' | 'coilCapacitanceF' | 'cableCapacitanceF' | 'loadOhms'> & { readonly lossResistanceOhms?: number },
+  coils = 1,
+): Guitar {
   return parseGuitar({
     name: 'closed-form check (invented values)',
     coils: Array.from({ length: coils }, (_, index) => ({
@@ -42,6 +45,9 @@ function singleCoilGuitar(c: Pick<Case, 'resistanceOhms' | 'inductanceH' | 'coil
       resistance: c.resistanceOhms,
       inductance: c.inductanceH,
       capacitance: c.coilCapacitanceF,
+      // The closed forms are for the lossless R-L-C coil of §1.1.
+      eddyShare: 0,
+      ...(c.lossResistanceOhms === undefined ? {} : { lossResistance: c.lossResistanceOhms }),
     })),
     controls: { volume: { pot: VOLUME_OHMS, setting: 10 }, tone: null },
     cable: { capacitance: c.cableCapacitanceF },
@@ -104,7 +110,7 @@ describe('single loaded coil against the second-order closed forms (docs/physics
   it('tone branch 250 kΩ + 22 nF included exactly: peak ≈ 3684 Hz, gain ≈ 1.547, bass gain 0.952 (§1.4, fourth row)', () => {
     const guitar = parseGuitar({
       name: 'closed-form check with tone (invented values)',
-      coils: [{ id: 'coil', position: '100mm', resistance: '6k', inductance: '2.5H', capacitance: '120p' }],
+      coils: [{ id: 'coil', position: '100mm', resistance: '6k', inductance: '2.5H', capacitance: '120p', eddyShare: 0 }],
       controls: { volume: { pot: '250k', setting: 10 }, tone: { pot: '250k', capacitor: '22n', setting: 10 } },
       cable: { capacitance: '500p' },
       amp: { resistance: '1M', capacitance: 0 },

@@ -9,6 +9,7 @@ import { type Guitar, parseGuitar, parseGuitarText } from '../guitar/index.js';
 import { enumerateWirings, leaf, parallel, series, type Network } from '../wiring/index.js';
 import {
   analysisFrequencies,
+  HUM_FLOOR_DB,
   measureCircuitMetrics,
   measureResonance,
   prepareCircuit,
@@ -91,21 +92,27 @@ describe('turning the volume down without a treble bleed darkens the sound (comm
 });
 
 describe('hum (common practice; docs/physics.md §6)', () => {
-  it('the in-between wirings with a reverse-wound, reverse-polarity middle coil cancel hum by more than 20 dB', () => {
+  it('the in-between wirings with a reverse-wound, reverse-polarity middle coil cancel hum by more than 20 dB in a uniform field', () => {
     const wirings = enumerateWirings(guitar.elements);
-    const analysis = measureCircuitMetrics(guitar, wirings);
+    const uniform = measureCircuitMetrics(guitar, wirings, { humGradientPerM: 0 });
+    const graded = measureCircuitMetrics(guitar, wirings);
     for (const expression of ['neck // mid', 'mid // bridge']) {
       const index = wirings.findIndex((wiring) => wiring.expression === expression);
-      const metrics = analysis.wirings[index];
+      const metrics = uniform.wirings[index];
       expect(metrics?.humDb, expression).toBeLessThan(-20);
       expect(metrics?.humCancelling).toBe(true);
+      // In the default field's gradient (docs/physics.md §6.1) coils 50–60 mm apart still reduce hum, but less.
+      const withGradient = graded.wirings[index];
+      expect(withGradient?.humDb as number, expression).toBeLessThan(-6);
+      expect(withGradient?.humDb as number, expression).toBeGreaterThan(metrics?.humDb as number);
     }
     // Neck and bridge are wound and magnetised alike: in parallel and in phase they add hum.
-    const neckBridge = analysis.wirings[wirings.findIndex((wiring) => wiring.expression === 'neck // bridge')];
+    const neckBridge = graded.wirings[wirings.findIndex((wiring) => wiring.expression === 'neck // bridge')];
     expect(neckBridge?.humCancelling).toBe(false);
+    expect(neckBridge?.humCategory).toBe('noisy');
   });
 
-  it('perfectly matched coils cancel completely: the figure sits at the floor, not at -Infinity', () => {
+  it('perfectly matched coils in a uniform field cancel completely: the figure sits at the floor, not at -Infinity', () => {
     const coil = { resistance: '6k', inductance: '2.4H', capacitance: '110p' };
     const matched = parseGuitar({
       name: 'matched coils (invented values)',
@@ -115,9 +122,10 @@ describe('hum (common practice; docs/physics.md §6)', () => {
       ],
     });
     const wirings = enumerateWirings(matched.elements);
-    const analysis = measureCircuitMetrics(matched, wirings);
+    const analysis = measureCircuitMetrics(matched, wirings, { humGradientPerM: 0 });
     const index = wirings.findIndex((wiring) => wiring.expression === 'neck // mid');
-    expect(analysis.wirings[index]?.humDb).toBe(-120);
+    expect(analysis.wirings[index]?.humDb).toBe(HUM_FLOOR_DB);
+    expect(analysis.wirings[index]?.humCategory).toBe('cancels');
     for (const metrics of analysis.wirings) expect(Number.isFinite(metrics.humDb)).toBe(true);
   });
 

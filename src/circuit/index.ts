@@ -2,7 +2,17 @@ export type { Sign } from './coil-signs.js';
 export { connectionSign, humSign, magnetSign, phaseSign, windingSign } from './coil-signs.js';
 export { audioTaperBase, wiperFraction, KNOB_FULL_SCALE } from './pot-taper.js';
 export type { CircuitLoad, CircuitOverrides, MainsHz, ToneLoad, VolumeLoad } from './circuit-load.js';
-export { resolveCircuitLoad, DEFAULT_MAINS_HZ, CABLE_CAPACITANCE_MIN_F, CABLE_CAPACITANCE_MAX_F } from './circuit-load.js';
+export {
+  resolveCircuitLoad,
+  DEFAULT_MAINS_HZ,
+  CABLE_CAPACITANCE_MIN_F,
+  CABLE_CAPACITANCE_MAX_F,
+  DEFAULT_HUM_GRADIENT_PER_M,
+  DEFAULT_HUM_SOURCE_DISTANCE_M,
+  HUM_GRADIENT_MAX_PER_M,
+} from './circuit-load.js';
+export type { CoilModel, CoilPhasors } from './coil-model.js';
+export { coilImpedanceAt, coilModelOf, coilSeriesImpedance, createCoilPhasors, evaluateCoil } from './coil-model.js';
 export type { PreparedCircuit } from './prepare-circuit.js';
 export { prepareCircuit } from './prepare-circuit.js';
 export { solveTransfers } from './solve-transfers.js';
@@ -17,14 +27,18 @@ export {
 } from './frequency-grid.js';
 export type { ResonanceMetrics } from './measure-resonance.js';
 export { measureResonance } from './measure-resonance.js';
+export type { HumCategory } from './measure-hum.js';
 export {
+  humCategory,
   humDecibels,
+  humFieldWeights,
   humMagnitudeAt,
   isHumCancelling,
   measureHum,
   measureHumReference,
   HUM_CANCELLING_DB,
   HUM_FLOOR_DB,
+  HUM_REDUCING_DB,
 } from './measure-hum.js';
 export { measureResponseDb } from './measure-response.js';
 export type { CircuitAnalysis, CircuitMetricsOptions, WiringCircuitMetrics } from './measure-circuit-metrics.js';
@@ -33,5 +47,18 @@ export { amplitudeDb } from './decibels.js';
 export type { CoilPlacement, Lead, WiringLayout } from './layout-wiring.js';
 export { layoutWiring, networkResistanceOhms, HOT_NODE, GROUND_NODE } from './layout-wiring.js';
 export type { NetlistOptions, SourcePhasor } from './render-netlist.js';
-export { renderNetlist, DEFAULT_NETLIST_OPTIONS } from './render-netlist.js';
-export { renderBuildSheet } from './render-build-sheet.js';
+export { renderGraphNetlist, renderNetlist, DEFAULT_NETLIST_OPTIONS } from './render-netlist.js';
+export { renderBuildSheet, WORKSHOP_CAUTIONS } from './render-build-sheet.js';
+export type { CircuitGraph, GraphCoil } from './circuit-graph.js';
+export { graphOfNetwork } from './circuit-graph.js';
+export { solveCoilsImpedance, solveNodalTransfers } from './solve-nodal.js';
+export type { CoilCoupling } from './coil-coupling.js';
+export { coilCouplings, mutualInductanceH } from './coil-coupling.js';
+export { phaseClassKey, phaseClassNetwork, phaseClassSigns } from './phase-class.js';
+export { usesCoupledCoils } from './coil-coupling.js';
+export { parseConnections } from './parse-connections.js';
+export type { ImpedancePoint } from './parse-impedance-sweep.js';
+export { parseImpedanceSweep, MIN_SWEEP_POINTS } from './parse-impedance-sweep.js';
+export type { CoilLossModel, FittedCoil, PeakMeasurement, SweepFitOptions } from './fit-coil.js';
+export { fitCoilToPeak, fitCoilToSweep, measureUnloadedPeak, DEFAULT_SWEEP_FIT_OPTIONS } from './fit-coil.js';
+export { renderSampleSweep, SAMPLE_SWEEP_COIL, SAMPLE_SWEEP_POINTS } from './sample-coil-sweep.js';

@@ -9,6 +9,7 @@ import { describe, expect, it } from 'vitest';
 import { type Guitar, parseGuitar } from '../guitar/index.js';
 import { enumerateWirings, invertAll, type Network } from '../wiring/index.js';
 import { analysisFrequencies, measureResonance, prepareCircuit, solvePowerSum, solveTransfers } from './index.js';
+import { maxOf } from '../math/index.js';
 
 const RELATIVE_TOLERANCE = 1e-11;
 const FREQUENCIES = analysisFrequencies(40);
@@ -50,7 +51,7 @@ function close(a: Float64Array, b: Float64Array, scale: number): boolean {
 }
 
 function largest(arrays: readonly Float64Array[]): number {
-  return Math.max(...arrays.flatMap((array) => Array.from(array, Math.abs)));
+  return maxOf(arrays.flatMap((array) => Array.from(array, Math.abs)));
 }
 
 /** The same network with every group's parts in reverse order and the top group wrapped in a redundant group. */
@@ -99,7 +100,7 @@ describe('circuit invariants (property tests)', () => {
         const flipped = withPhases(network, mask);
         const a = solvePowerSum(solveTransfers(prepared, network), FREQUENCIES.length);
         const b = solvePowerSum(solveTransfers(prepared, flipped), FREQUENCIES.length);
-        if (!close(a, b, Math.max(...a))) return false;
+        if (!close(a, b, maxOf(a))) return false;
         const ra = measureResonance(prepared, network).resonanceHz;
         const rb = measureResonance(prepared, flipped).resonanceHz;
         return ra === rb || (ra !== null && rb !== null && Math.abs(ra / rb - 1) < 1e-9);

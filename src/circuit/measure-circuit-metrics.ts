@@ -6,17 +6,17 @@
  * later step is linear, so T_i(wiring) = p_i·T_i(same network all in phase)
  * exactly. The power sum, and with it resonance, peak and Q, is therefore
  * shared by all 2^(k−1) phase patterns of a network ("the poles do not move
- * with polarity"), and each pattern's hum is Σ_i p_i·m_i·h_i·T_i⁰(mains).
+ * with polarity"), and each pattern's hum is Σ_i p_i·m_i·h_i·B(x_i)·T_i⁰(mains).
  * So the figures are solved once per network shape (837 shapes for the 9997
  * wirings of five coils) and the hum once more per wiring from those.
+ * Coupled coils keep their relative phase in the shape (phase-class.ts).
  */
 import type { Guitar } from '../guitar/index.js';
-import type { Coil } from '../guitar/index.js';
-import { type Network, coilPhases, shapeKey, withoutPhases } from '../wiring/index.js';
-import { magnetSign } from './coil-signs.js';
+import type { Network } from '../wiring/index.js';
+import { phaseClassKey, phaseClassNetwork, phaseClassSigns } from './phase-class.js';
 import type { CircuitLoad, CircuitOverrides } from './circuit-load.js';
 import { ANALYSIS_POINTS, analysisFrequencies } from './frequency-grid.js';
-import { humDecibels, isHumCancelling, measureHumReference } from './measure-hum.js';
+import { type HumCategory, humCategory, humDecibels, humFieldWeights, measureHumReference } from './measure-hum.js';
 import { type ResonanceMetrics, measureResonance } from './measure-resonance.js';
 import { fixedProbeAt, prepareCircuit, probeTransfers } from './prepare-circuit.js';
 import { solveTransfers } from './solve-transfers.js';
@@ -27,8 +27,11 @@ export interface WiringCircuitMetrics {
   /** Null only when nothing reaches the output (volume at 0). */
   readonly peakDb: number | null;
   readonly resonanceQ: number | null;
-  /** Null only when nothing reaches the output. */
+  /** Null only when nothing reaches the output. Floored at HUM_FLOOR_DB (measure-hum.ts). */
   readonly humDb: number | null;
+  /** Plain category of humDb: cancels (≤ −20 dB), reduces (≤ −6 dB), noisy; null when nothing reaches the output. */
+  readonly humCategory: HumCategory | null;
+  /** humCategory is "cancels". */
   readonly humCancelling: boolean;
 }
 
@@ -53,6 +56,7 @@ const SILENT_METRICS: WiringCircuitMetrics = Object.freeze({
   peakDb: null,
   resonanceQ: null,
   humDb: null,
+  humCategory: null,
   humCancelling: false,
 });
 
@@ -72,21 +76,21 @@ export function measureCircuitMetrics(
   const transfers = guitar.coils.map(() => new Float64Array(2 * points));
   const reference = measureHumReference(prepared);
   const mains = fixedProbeAt(prepared, prepared.load.mainsHz);
-  const humWeights = guitar.coils.map((coil: Coil) => magnetSign(coil.magnet) * coil.humSensitivity);
+  const humWeights = humFieldWeights(guitar, prepared.load);
   const shapes = new Map<string, { resonance: ResonanceMetrics; mainsTransfers: Float64Array }>();
   const phases = new Float64Array(guitar.coils.length);
   const metrics = wirings.map(({ network }): WiringCircuitMetrics => {
-    const key = shapeKey(network);
+    const key = phaseClassKey(guitar, network);
     let shape = shapes.get(key);
     if (shape === undefined) {
-      const inPhase = withoutPhases(network);
+      const inPhase = phaseClassNetwork(guitar, network);
       solveTransfers(prepared, inPhase, transfers);
       const resonance = measureResonance(prepared, inPhase, transfers);
       const atMains = solveTransfers(mains, inPhase, probeTransfers(prepared));
       shape = { resonance, mainsTransfers: Float64Array.from(atMains.flatMap((transfer) => [transfer[0] as number, transfer[1] as number])) };
       shapes.set(key, shape);
     }
-    coilPhases(guitar.elements, network, phases);
+    phaseClassSigns(guitar, network, phases);
     // H = Σ_i m_i·h_i·T_i = Σ_i p_i·m_i·h_i·T_i⁰ (measure-hum.ts)
     let re = 0;
     let im = 0;
@@ -96,7 +100,8 @@ export function measureCircuitMetrics(
       im += weight * (shape.mainsTransfers[2 * c + 1] as number);
     }
     const humDb = humDecibels(Math.hypot(re, im), reference);
-    return { ...shape.resonance, humDb, humCancelling: isHumCancelling(humDb) };
+    const category = humCategory(humDb);
+    return { ...shape.resonance, humDb, humCategory: category, humCancelling: category === 'cancels' };
   });
   return { load: prepared.load, silent: false, points, wirings: metrics };
 }

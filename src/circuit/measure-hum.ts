@@ -1,35 +1,64 @@
 /**
- * Hum from a uniform mains field (docs/design.md, metrics; docs/physics.md §6).
- * Each coil picks up an EMF h_i·(field) from start to finish with the sign of
- * its winding; connected with c_i = p_i·w_i·m_i it enters the network with
- * sign c_i·w_i = p_i·m_i. Since T_i already carries p_i, the hum at the
- * output is H(f) = Σ_i m_i·h_i·T_i(f) per unit field.
+ * Hum from a mains field with a gradient (docs/design.md, metrics;
+ * docs/physics.md §6 and §6.1).
  *
- * humDb = 20·log10(|H(mains)| / mean over the single-element wirings of |H|),
- * floored at HUM_FLOOR_DB so that perfect cancellation reads as a number, not
- * −Infinity.
+ * Each coil picks up an EMF h_i·B(x_i) from start to finish with the sign of
+ * its winding: h_i ∝ turns × area (the coil's humSensitivity) and B(x) the
+ * field at its centre x_i along the strings, B(x) = exp(γ·(x − x̄)) with γ
+ * the field's relative gradient (load.humGradientPerM) and x̄ the mean coil
+ * position (so the field averages 1 over the guitar). Connected with
+ * c_i = p_i·w_i·m_i the coil's hum enters the network with sign
+ * c_i·w_i = p_i·m_i. Since T_i already carries p_i, the hum at the output is
+ * H(f) = Σ_i m_i·h_i·B(x_i)·T_i(f) per unit field.
+ *
+ * humDb = 20·log10(|H(mains)| / reference), the reference being the mean |H|
+ * of the single elements that do not cancel hum by themselves (a two-lead
+ * humbucker must not lower it), floored at HUM_FLOOR_DB: the model cannot
+ * honestly claim more rejection than that (turns matched to about 1 %, from
+ * memory; §6: 1 % → 40 dB).
  */
-import type { Coil } from '../guitar/index.js';
+import { type Coil, type Guitar } from '../guitar/index.js';
 import type { Network } from '../wiring/index.js';
 import { amplitudeDb } from './decibels.js';
 import { leaf } from '../wiring/index.js';
+import type { CircuitLoad } from './circuit-load.js';
 import { magnetSign } from './coil-signs.js';
 import { type PreparedCircuit, fixedProbeAt, probeTransfers } from './prepare-circuit.js';
 import { solveTransfers } from './solve-transfers.js';
 
-/** Lowest humDb reported: −120 dB stands for "cancelled as far as the model can tell" (our floor, well below any audible residue). */
-export const HUM_FLOOR_DB = -120;
-/** A wiring is hum cancelling when humDb ≤ −20 (docs/design.md). */
+/**
+ * Lowest humDb reported, dB: about what a 1 % turns mismatch leaves (§6), the
+ * best match a winder holds (from memory). Deeper figures are printed as
+ * "≤ −40", never as a number the model cannot stand behind.
+ */
+export const HUM_FLOOR_DB = -40;
+/** A wiring cancels hum when humDb ≤ −20 (docs/design.md). */
 export const HUM_CANCELLING_DB = -20;
+/** A wiring reduces hum when humDb ≤ −6, half the hum amplitude or less (our own threshold). */
+export const HUM_REDUCING_DB = -6;
+/** An element counts as not cancelling hum by itself when it keeps more than this share of its coils' summed hum (half: −6 dB, as HUM_REDUCING_DB). */
+const OWN_HUM_SHARE = 0.5;
 
-/** |H| at grid index `index` of solved transfers. */
-export function humMagnitudeAt(prepared: PreparedCircuit, transfers: readonly Float64Array[], index: number): number {
+/** Plain category of a hum figure. */
+export type HumCategory = 'cancels' | 'reduces' | 'noisy';
+
+/**
+ * Each coil's hum weight m_i·h_i·B(x_i) for the load's field gradient:
+ * B(x) = exp(γ·(x − x̄)), x_i the coil's centre (mean of its bass and treble
+ * positions), x̄ the mean over the guitar's coils.
+ */
+export function humFieldWeights(guitar: Guitar, load: Pick<CircuitLoad, 'humGradientPerM'>): Float64Array {
+  const centres = guitar.coils.map((coil: Coil) => (coil.positionBassM + coil.positionTrebleM) / 2);
+  const mean = centres.reduce((sum, x) => sum + x, 0) / Math.max(1, centres.length);
+  return Float64Array.from(guitar.coils, (coil, c) => magnetSign(coil.magnet) * coil.humSensitivity * Math.exp(load.humGradientPerM * ((centres[c] as number) - mean)));
+}
+
+/** |H| at grid index `index` of solved transfers, for hum weights from `humFieldWeights`. */
+export function humMagnitudeAt(weights: Float64Array, transfers: readonly Float64Array[], index: number): number {
   let re = 0;
   let im = 0;
-  const coils = prepared.guitar.coils;
-  for (let c = 0; c < coils.length; c += 1) {
-    const coil = coils[c] as Coil;
-    const weight = magnetSign(coil.magnet) * coil.humSensitivity;
+  for (let c = 0; c < weights.length; c += 1) {
+    const weight = weights[c] as number;
     const transfer = transfers[c] as Float64Array;
     re += weight * (transfer[2 * index] as number);
     im += weight * (transfer[2 * index + 1] as number);
@@ -37,18 +66,48 @@ export function humMagnitudeAt(prepared: PreparedCircuit, transfers: readonly Fl
   return Math.hypot(re, im);
 }
 
+/** Σ_i |w_i·T_i|: the hum the coils would give if none cancelled another. */
+function summedHumAt(weights: Float64Array, transfers: readonly Float64Array[], index: number): number {
+  let sum = 0;
+  for (let c = 0; c < weights.length; c += 1) {
+    const transfer = transfers[c] as Float64Array;
+    sum += Math.abs(weights[c] as number) * Math.hypot(transfer[2 * index] as number, transfer[2 * index + 1] as number);
+  }
+  return sum;
+}
+
 /** |H(mains)| of a wiring per unit field (the load's mains frequency), solved exactly at that frequency. */
 export function measureHum(prepared: PreparedCircuit, network: Network): number {
   const probe = fixedProbeAt(prepared, prepared.load.mainsHz);
-  return humMagnitudeAt(probe, solveTransfers(probe, network, probeTransfers(prepared)), 0);
+  return humMagnitudeAt(humFieldWeights(prepared.guitar, prepared.load), solveTransfers(probe, network, probeTransfers(prepared)), 0);
 }
 
-/** The reference: mean |H(mains)| over the single-element wirings (each element alone, in phase). */
+/**
+ * The reference: mean |H(mains)| over the single elements that do not cancel
+ * hum by themselves (every coil on its own leads; a two-lead pickup only when
+ * it keeps more than half its coils' summed hum). When every element cancels
+ * (a guitar of two-lead humbuckers only), one coil's worth of hum through each
+ * element: Σ_i |w_i·T_i| / (coils in it), averaged.
+ */
 export function measureHumReference(prepared: PreparedCircuit): number {
-  const elements = prepared.guitar.elements;
+  const probe = fixedProbeAt(prepared, prepared.load.mainsHz);
+  const weights = humFieldWeights(prepared.guitar, prepared.load);
+  const buffers = probeTransfers(prepared);
   let sum = 0;
-  for (const element of elements) sum += measureHum(prepared, leaf(element.index));
-  return sum / elements.length;
+  let count = 0;
+  let fallback = 0;
+  for (const element of prepared.guitar.elements) {
+    const transfers = solveTransfers(probe, leaf(element.index), buffers);
+    const hum = humMagnitudeAt(weights, transfers, 0);
+    const summed = summedHumAt(weights, transfers, 0);
+    fallback += summed / element.coilIndices.length;
+    if (element.kind === 'coil' || hum > OWN_HUM_SHARE * summed) {
+      sum += hum;
+      count += 1;
+    }
+  }
+  const elements = prepared.guitar.elements.length;
+  return count > 0 ? sum / count : fallback / Math.max(1, elements);
 }
 
 /** humDb from |H| and the reference, floored; a zero reference (no coil picks up hum) reads as the floor. */
@@ -57,6 +116,11 @@ export function humDecibels(hum: number, reference: number): number {
   return Math.max(HUM_FLOOR_DB, amplitudeDb(hum / reference));
 }
 
+export function humCategory(humDb: number): HumCategory {
+  if (humDb <= HUM_CANCELLING_DB) return 'cancels';
+  return humDb <= HUM_REDUCING_DB ? 'reduces' : 'noisy';
+}
+
 export function isHumCancelling(humDb: number): boolean {
-  return humDb <= HUM_CANCELLING_DB;
+  return humCategory(humDb) === 'cancels';
 }

@@ -9,6 +9,7 @@
  */
 import type { Coil, Guitar } from '../guitar/index.js';
 import { type CircuitLoad, type CircuitOverrides, resolveCircuitLoad } from './circuit-load.js';
+import { createCoilPhasors, evaluateCoil } from './coil-model.js';
 
 const TWO_PI = 2 * Math.PI;
 
@@ -36,12 +37,12 @@ export interface PreparedCircuit {
   readonly frequenciesHz: Float64Array;
   /**
    * Per coil, the factor k taking its EMF to its open-circuit terminal
-   * voltage: the EMF drives R + jωL into the self-capacitance C across the
-   * terminals, so k = (1/jωC)/(R + jωL + 1/jωC) = 1/(1 + jωC·(R + jωL))
-   * (voltage divider; coil model of docs/physics.md §1.1).
+   * voltage: the EMF drives the series branch Z_s into the shunt Y_p across
+   * the terminals, so k = 1/(1 + Z_s·Y_p) (voltage divider; coil model in
+   * coil-model.ts, docs/physics.md §1.1 and §1.6).
    */
   readonly coilSource: readonly Float64Array[];
-  /** Per coil, the Thevenin impedance Z = (R + jωL) ∥ 1/(jωC) = (R + jωL)·k. */
+  /** Per coil, the Thevenin impedance Z = Z_s ∥ 1/Y_p = Z_s·k. */
   readonly coilImpedance: readonly Float64Array[];
   /** Admittance from hot to ground: the tone branch, Y = 1/(Rt + 1/(jωCt)) = jωCt/(1 + jωCt·Rt); zero without one. */
   readonly hotAdmittance: Float64Array;
@@ -60,27 +61,21 @@ function fillGrid(target: PreparedCircuit, frequenciesHz: ArrayLike<number>): vo
   const outConductance = (load.volume.bottomOhms > 0 ? 1 / load.volume.bottomOhms : 0) + 1 / load.ampResistanceOhms;
   const outCapacitance = load.cableCapacitanceF + load.ampCapacitanceF;
   const topConductance = load.volume.topOhms > 0 ? 1 / load.volume.topOhms : 0;
+  const phasors = createCoilPhasors();
   for (let f = 0; f < frequenciesHz.length; f += 1) {
     const omega = TWO_PI * (frequenciesHz[f] as number);
     const re = 2 * f;
     const im = re + 1;
     for (let c = 0; c < guitar.coils.length; c += 1) {
       const coil = guitar.coils[c] as Coil;
-      // denominator 1 + jωC(R + jωL) = (1 − ω²LC) + jωRC
-      const dr = 1 - omega * omega * coil.inductanceH * coil.capacitanceF;
-      const di = omega * coil.resistanceOhms * coil.capacitanceF;
-      const norm = dr * dr + di * di;
-      const kr = dr / norm;
-      const ki = -di / norm;
+      // k = 1/(1 + Z_s·Y_p), Z = Z_s·k (coil-model.ts)
+      evaluateCoil(coil, omega, phasors);
       const source = target.coilSource[c] as Float64Array;
-      source[re] = kr;
-      source[im] = ki;
-      // Z = (R + jωL)·k
-      const sr = coil.resistanceOhms;
-      const si = omega * coil.inductanceH;
+      source[re] = phasors.sourceRe;
+      source[im] = phasors.sourceIm;
       const impedance = target.coilImpedance[c] as Float64Array;
-      impedance[re] = sr * kr - si * ki;
-      impedance[im] = sr * ki + si * kr;
+      impedance[re] = phasors.impedanceRe;
+      impedance[im] = phasors.impedanceIm;
     }
     if (tone) {
       // jωC/(1 + jωC·R)

@@ -8,7 +8,11 @@
 import type { Guitar } from '../guitar/index.js';
 import { formatEngineering } from '../units/index.js';
 import type { Network, Wiring } from '../wiring/index.js';
+import { graphOfNetwork } from './circuit-graph.js';
+import { prepareCircuit } from './prepare-circuit.js';
+import { solveCoilsImpedance } from './solve-nodal.js';
 import { type CoilPlacement, GROUND_NODE, HOT_NODE, type Lead, layoutWiring, networkResistanceOhms } from './layout-wiring.js';
+import { appendAll } from '../math/index.js';
 
 const POINT_WORDS: Readonly<Record<string, string>> = Object.freeze({
   [HOT_NODE]: 'hot',
@@ -47,6 +51,28 @@ function parallelOhms(...values: number[]): number {
   return 1 / values.reduce((sum, value) => sum + 1 / value, 0);
 }
 
+/** The workshop cautions every build sheet starts with (amplifier, iron, fumes), as indented lines. */
+export const WORKSHOP_CAUTIONS: readonly string[] = Object.freeze([
+  '  - Unplug the guitar from the amplifier before you open it. Never open an amplifier: its',
+  '    capacitors can hold a lethal charge long after it is unplugged; leave that to a technician.',
+  '  - Keep the soldering iron in its stand when you are not using it and keep flammables off the',
+  '    bench; burns are the most common injury. Wear eye protection.',
+  '  - Work with ventilation or a fume extractor, keep food and drink off the bench, and wash your',
+  '    hands after handling solder.',
+]);
+/** Test frequency of the inductance reading (common practice: LCR meters test at 100 Hz, 120 Hz or 1 kHz; the lowest keeps the self-capacitance out of the reading). */
+const METER_TEST_HZ = 120;
+
+/**
+ * What an inductance meter in series mode reads across the coils alone:
+ * L = Im(Z)/ω of their impedance between hot and ground (nodal analysis,
+ * coupled coils included: a humbucker in series reads L1 + L2 + 2M).
+ */
+function meterInductanceH(guitar: Guitar, network: Network): number {
+  const impedance = solveCoilsImpedance(prepareCircuit(guitar, Float64Array.of(METER_TEST_HZ)), graphOfNetwork(guitar, network));
+  return (impedance[1] as number) / (2 * Math.PI * METER_TEST_HZ);
+}
+
 /** The build sheet of a wiring of `guitar`, as plain text. */
 export function renderBuildSheet(
   guitar: Guitar,
@@ -60,12 +86,7 @@ export function renderBuildSheet(
 
   lines.push(
     'Read this first',
-    '  - Unplug the guitar from the amplifier before you open it. Never open an amplifier: its',
-    '    capacitors can hold a lethal charge long after it is unplugged; leave that to a technician.',
-    '  - Keep the soldering iron in its stand when you are not using it and keep flammables off the',
-    '    bench; burns are the most common injury. Wear eye protection.',
-    '  - Work with ventilation or a fume extractor, keep food and drink off the bench, and wash your',
-    '    hands after handling solder.',
+    ...WORKSHOP_CAUTIONS,
     '  - This sheet comes from a model of your guitar file. Check every lead against your pickups,',
     '    and make the final choice by ear on the real instrument.',
     '',
@@ -128,6 +149,8 @@ export function renderBuildSheet(
     '    (the DC resistances as wired; a reading near 0 is a short, an open reading a broken joint).',
     `  - Everything connected, volume on 10, jack tip to sleeve: about ${formatEngineering(parallelOhms(coilsOhms, volumeOhms), 'Ω')}`,
     '    (the coils in parallel with the volume pot).',
+    `  - Coils alone, hot to ground, inductance meter (series mode, ${METER_TEST_HZ} Hz): about ${formatEngineering(meterInductanceH(guitar, network), 'H')}`,
+    '    (the coils\' inductances as wired, with the coupling between coils that share a pickup).',
     '  - Every joint: continuity to the leads it should join, and none to ground unless it is ground.',
     '  - Tap each pole piece gently with a steel tool with the guitar plugged in at low volume: every',
     '    coil in the wiring should sound.',
@@ -152,6 +175,8 @@ export function renderBuildSheet(
   for (const id of seenPickups) {
     cautions.push(`  - ${id}: if its cover is tied to the lead that now goes to hot or a joint, separate it and ground the cover on its own.`);
   }
-  lines.push('', 'Covers tied to a lead', ...cautions, '');
+  lines.push('', 'Covers tied to a lead');
+  appendAll(lines, cautions);
+  lines.push('');
   return lines.join('\n');
 }

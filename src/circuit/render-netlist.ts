@@ -13,12 +13,20 @@
  * source's value is the string EMF from start to finish, so its sign is w·m
  * (coil-signs.ts): "AC 1 0" or "AC 1 180". The wiring's connection then puts
  * the finish or the start lead towards hot, which turns it into p.
+ *
+ * Coupled coils (coil-coupling.ts) get a `K` line naming their inductors,
+ * with coefficient sign·k: each L is written from the start side to the
+ * finish side, so SPICE's dot convention (mutual M = K·√(L1·L2) with both
+ * currents entering the first node) reads start to finish as the solver does.
  */
 import type { Coil, Guitar } from '../guitar/index.js';
 import type { Network, Wiring } from '../wiring/index.js';
 import { magnetSign, windingSign } from './coil-signs.js';
-import { type CircuitOverrides, resolveCircuitLoad } from './circuit-load.js';
+import { type CircuitLoad, type CircuitOverrides, resolveCircuitLoad } from './circuit-load.js';
+import type { CoilModel } from './coil-model.js';
 import { AUDIO_BAND_HIGH_HZ, AUDIO_BAND_LOW_HZ } from './frequency-grid.js';
+import type { CircuitGraph } from './circuit-graph.js';
+import { type CoilCoupling, coilCouplings, mutualInductanceH } from './coil-coupling.js';
 import { GROUND_NODE, HOT_NODE, layoutWiring } from './layout-wiring.js';
 
 /** A source's AC value: magnitude and phase in degrees. */
@@ -82,6 +90,63 @@ function spiceNames(coils: readonly Coil[]): string[] {
   });
 }
 
+/** Comment text for a coil's losses. */
+function lossText(coil: CoilModel): string {
+  const parts: string[] = [];
+  if (coil.eddyShare > 0) parts.push(`eddy branch ${spiceNumber(coil.eddyShare)} of L with ${spiceNumber(coil.eddyResistanceOhms)} ohm`);
+  if (coil.lossResistanceOhms !== null) parts.push(`loss resistance ${spiceNumber(coil.lossResistanceOhms)} ohm`);
+  return parts.length > 0 ? `, ${parts.join(', ')}` : '';
+}
+
+/**
+ * The coil's elements after its EMF source (node `${name}_emf`), as in
+ * coil-model.ts: L·(1−κ), then κ·L ∥ Re (the eddy branch), then R to the
+ * finish lead; C and the loss resistance Rp from start to finish.
+ */
+export function coilElementLines(coil: CoilModel, name: string, startNode: string, finishNode: string): string[] {
+  const lines: string[] = [];
+  const kappa = coil.eddyShare;
+  lines.push(`L${name} ${name}_emf ${name}_l ${spiceNumber(coil.inductanceH * (1 - kappa))}`);
+  let resistorStart = `${name}_l`;
+  if (kappa > 0) {
+    lines.push(
+      `L${name}__eddy ${name}_l ${name}_e ${spiceNumber(coil.inductanceH * kappa)}`,
+      `R${name}__eddy ${name}_l ${name}_e ${spiceNumber(coil.eddyResistanceOhms)}`,
+    );
+    resistorStart = `${name}_e`;
+  }
+  lines.push(
+    `R${name} ${resistorStart} ${finishNode} ${spiceNumber(coil.resistanceOhms)}`,
+    `C${name} ${startNode} ${finishNode} ${spiceNumber(coil.capacitanceF)}`,
+  );
+  if (coil.lossResistanceOhms !== null) lines.push(`R${name}__loss ${startNode} ${finishNode} ${spiceNumber(coil.lossResistanceOhms)}`);
+  return lines;
+}
+
+/** One coil as the netlist places it: its nodes (SPICE names) and a comment line. */
+interface NetlistCoil {
+  readonly coil: Coil;
+  readonly startNode: string;
+  readonly finishNode: string;
+  readonly comment: string;
+}
+
+function checkNetlistOptions(settings: NetlistOptions): void {
+  if (!Number.isInteger(settings.pointsPerDecade) || settings.pointsPerDecade < 1) {
+    throw new RangeError(`renderNetlist: pointsPerDecade must be a positive integer, got ${settings.pointsPerDecade}`);
+  }
+  if (!(settings.startHz > 0) || !(settings.stopHz > settings.startHz)) {
+    throw new RangeError(`renderNetlist: need 0 < startHz < stopHz, got ${settings.startHz}, ${settings.stopHz}`);
+  }
+}
+
+/** A node name as SPICE reads it: hot stays, ground is 0, anything else letters, digits and "_". */
+function spiceNode(name: string): string {
+  if (name === HOT_NODE) return HOT_NODE;
+  if (name === GROUND_NODE) return SPICE_GROUND;
+  return name.replace(/[^A-Za-z0-9_]/gu, '_');
+}
+
 /**
  * The netlist text of a wiring of `guitar`, with the load after `overrides`.
  * Throws InputError for a bad override.
@@ -93,58 +158,142 @@ export function renderNetlist(
   options: Partial<NetlistOptions> = {},
 ): string {
   const settings = { ...DEFAULT_NETLIST_OPTIONS, ...options };
-  if (!Number.isInteger(settings.pointsPerDecade) || settings.pointsPerDecade < 1) {
-    throw new RangeError(`renderNetlist: pointsPerDecade must be a positive integer, got ${settings.pointsPerDecade}`);
-  }
-  if (!(settings.startHz > 0) || !(settings.stopHz > settings.startHz)) {
-    throw new RangeError(`renderNetlist: need 0 < startHz < stopHz, got ${settings.startHz}, ${settings.stopHz}`);
-  }
+  checkNetlistOptions(settings);
   const load = resolveCircuitLoad(guitar, overrides);
   const network: Network = wiring.network;
   const layout = layoutWiring(guitar, network);
-  const names = spiceNames(guitar.coils);
-  const node = (name: string): string => {
-    if (name === HOT_NODE) return HOT_NODE;
-    if (name === GROUND_NODE) return SPICE_GROUND;
-    return name.replace(/[^A-Za-z0-9_]/gu, '_');
-  };
-  const lines: string[] = [];
   const label = wiring.id ? `${wiring.id}: ${wiring.expression}` : wiring.expression;
+  const coils = layout.placements.map((placement): NetlistCoil => {
+    const { coil } = placement;
+    const inside = placement.element.kind === 'two-lead pickup' ? ` (inside two-lead pickup ${placement.element.id})` : '';
+    return {
+      coil,
+      startNode: spiceNode(placement.plusLead === 'start' ? placement.plusNode : placement.minusNode),
+      finishNode: spiceNode(placement.plusLead === 'finish' ? placement.plusNode : placement.minusNode),
+      comment:
+        `* coil ${coil.id}${inside}: ${spiceNumber(coil.resistanceOhms)} ohm, ${spiceNumber(coil.inductanceH)} H, ` +
+        `${spiceNumber(coil.capacitanceF)} F${lossText(coil)}; winding ${coil.winding}, ${coil.magnet} up; ` +
+        `${placement.phase === 1 ? 'in phase' : 'out of phase'}: ${placement.plusLead} lead at ${spiceNode(placement.plusNode)}, ` +
+        `${placement.minusLead} lead at ${spiceNode(placement.minusNode)}`,
+    };
+  });
+  return netlistText(guitar, label, wiring.description, coils, layout.unused, load, settings);
+}
+
+/**
+ * The netlist text of any connection of coil leads (a `CircuitGraph`): the
+ * same elements, load and sweep as `renderNetlist`. Nodes are named by
+ * `graph.nodeNames` (else n1, n2, …); hot is "hot", ground "0". Coils with a
+ * floating lead are listed as not connected.
+ */
+export function renderGraphNetlist(
+  guitar: Guitar,
+  graph: CircuitGraph,
+  label: string,
+  overrides?: CircuitOverrides,
+  options: Partial<NetlistOptions> = {},
+): string {
+  const settings = { ...DEFAULT_NETLIST_OPTIONS, ...options };
+  checkNetlistOptions(settings);
+  const load = resolveCircuitLoad(guitar, overrides);
+  const used = new Set<number>();
+  const names = new Map<number, string>();
+  const taken = new Set<string>([HOT_NODE, SPICE_GROUND, OUTPUT_NODE]);
+  const nodeName = (index: number): string => {
+    if (index === graph.ground) return SPICE_GROUND;
+    if (index === graph.hot) return HOT_NODE;
+    const known = names.get(index);
+    if (known !== undefined) return known;
+    let name = spiceNode(graph.nodeNames?.[index] ?? `n${index}`);
+    if (name === '' || taken.has(name.toLowerCase())) name = `n${index}_${name}`;
+    taken.add(name.toLowerCase());
+    names.set(index, name);
+    return name;
+  };
+  const coils: NetlistCoil[] = [];
+  for (const placed of graph.coils) {
+    if (placed.start === null || placed.finish === null) continue;
+    const coil = guitar.coils[placed.coil];
+    if (coil === undefined) throw new RangeError(`renderGraphNetlist: no coil ${placed.coil} in this guitar`);
+    used.add(coil.index);
+    const startNode = nodeName(placed.start);
+    const finishNode = nodeName(placed.finish);
+    coils.push({
+      coil,
+      startNode,
+      finishNode,
+      comment:
+        `* coil ${coil.id}: ${spiceNumber(coil.resistanceOhms)} ohm, ${spiceNumber(coil.inductanceH)} H, ` +
+        `${spiceNumber(coil.capacitanceF)} F${lossText(coil)}; winding ${coil.winding}, ${coil.magnet} up; start lead at ${startNode}, finish lead at ${finishNode}`,
+    });
+  }
+  const unused = guitar.coils.filter((coil) => !used.has(coil.index));
+  const description = graph.hot === graph.ground ? 'Hot is grounded: nothing reaches the amplifier.' : 'A connection of coil leads.';
+  return netlistText(guitar, label, description, coils, unused, load, settings);
+}
+
+/**
+ * The K value SPICE needs: M = K·√(L1'·L2') over the inductors the netlist
+ * names, which hold L·(1−κ) of each coil (the rest is the eddy branch,
+ * coil-model.ts), so K = M/√(L1'·L2') with M = sign·k·√(L1·L2) as the
+ * solver uses it (coil-coupling.ts).
+ */
+function spiceCouplingCoefficient(guitar: Guitar, pair: CoilCoupling): number {
+  const first = guitar.coils[pair.first] as Coil;
+  const second = guitar.coils[pair.second] as Coil;
+  const named = Math.sqrt(first.inductanceH * (1 - first.eddyShare) * second.inductanceH * (1 - second.eddyShare));
+  return mutualInductanceH(guitar, pair) / named;
+}
+
+function netlistText(
+  guitar: Guitar,
+  label: string,
+  description: string,
+  coils: readonly NetlistCoil[],
+  unusedCoils: readonly Coil[],
+  load: CircuitLoad,
+  settings: NetlistOptions,
+): string {
+  const names = spiceNames(guitar.coils);
+  const lines: string[] = [];
   // The first line of a SPICE netlist is its title.
   lines.push(asciiText(`coilbench: ${guitar.name} - ${label}`));
   lines.push(
-    asciiText(`* ${wiring.description}`),
-    '* Written by coilbench. A model, not a measurement: real pickups also lose treble to eddy currents.',
+    asciiText(`* ${description}`),
+    '* Written by coilbench. A model, not a measurement.',
     '* Each coil: its string EMF (the AC source; 1 = equal string signals for every coil) in series with',
-    '* its inductance and resistance, its self-capacitance across its leads. The AC value is the EMF seen',
+    '* its inductance, an eddy-current branch (part of the inductance in parallel with a resistor) and its',
+    '* resistance; its self-capacitance (and any loss resistance) across its leads. The AC value is the EMF seen',
     '* from the start lead to the finish lead: its sign is winding x magnet (cw = +1, north up = +1).',
     '* Nodes: hot = volume pot input, out = amplifier input, 0 = ground, j* = joints between coils.',
     '',
   );
-  for (const placement of layout.placements) {
-    const { coil } = placement;
+  for (const { coil, startNode, finishNode, comment } of coils) {
     const name = names[coil.index] as string;
-    const startNode = node(placement.plusLead === 'start' ? placement.plusNode : placement.minusNode);
-    const finishNode = node(placement.plusLead === 'finish' ? placement.plusNode : placement.minusNode);
     const phasor = settings.sourcePhasors?.[coil.index] ?? { magnitude: 1, phaseDeg: 0 };
     const stringSign = windingSign(coil.winding) * magnetSign(coil.magnet);
     const phaseDeg = phasor.phaseDeg + (stringSign < 0 ? HALF_TURN_DEG : 0);
-    const inside = placement.element.kind === 'two-lead pickup' ? ` (inside two-lead pickup ${placement.element.id})` : '';
     lines.push(
-      asciiText(
-        `* coil ${coil.id}${inside}: ${spiceNumber(coil.resistanceOhms)} ohm, ${spiceNumber(coil.inductanceH)} H, ` +
-          `${spiceNumber(coil.capacitanceF)} F; winding ${coil.winding}, ${coil.magnet} up; ` +
-          `${placement.phase === 1 ? 'in phase' : 'out of phase'}: ${placement.plusLead} lead at ${node(placement.plusNode)}, ` +
-          `${placement.minusLead} lead at ${node(placement.minusNode)}`,
-      ),
+      asciiText(comment),
       `V${name} ${name}_emf ${startNode} DC 0 AC ${spiceNumber(phasor.magnitude)} ${spiceNumber(phaseDeg)}`,
-      `L${name} ${name}_emf ${name}_l ${spiceNumber(coil.inductanceH)}`,
-      `R${name} ${name}_l ${finishNode} ${spiceNumber(coil.resistanceOhms)}`,
-      `C${name} ${startNode} ${finishNode} ${spiceNumber(coil.capacitanceF)}`,
+      ...coilElementLines(coil, name, startNode, finishNode),
     );
   }
-  if (layout.unused.length > 0) {
-    lines.push(asciiText(`* not used, disconnected: ${layout.unused.map((coil) => coil.id).join(', ')}`));
+  const present = new Set(coils.map(({ coil }) => coil.index));
+  for (const pair of coilCouplings(guitar)) {
+    if (!present.has(pair.first) || !present.has(pair.second)) continue;
+    const first = names[pair.first] as string;
+    const second = names[pair.second] as string;
+    lines.push(
+      asciiText(
+        `* coils ${guitar.coils[pair.first]?.id} and ${guitar.coils[pair.second]?.id} share flux: coupling ${spiceNumber(pair.coefficient)}, ` +
+          `mutual inductance ${spiceNumber(mutualInductanceH(guitar, pair))} H with both inductors read from start to finish`,
+      ),
+      `K${first}_${second} L${first} L${second} ${spiceNumber(spiceCouplingCoefficient(guitar, pair))}`,
+    );
+  }
+  if (unusedCoils.length > 0) {
+    lines.push(asciiText(`* not used, disconnected: ${unusedCoils.map((coil) => coil.id).join(', ')}`));
   }
   const { volume, tone, trebleBleed } = load;
   lines.push(

@@ -18,8 +18,23 @@
  *    (Cramer's rule), and with the volume fully up (v_o = v_h)
  *      v_o/V = Y_s / (Y_s + Y_h + Y_o).
  */
+import type { Guitar } from '../guitar/index.js';
 import type { Network } from '../wiring/index.js';
+import { type CircuitGraph, graphOfNetwork } from './circuit-graph.js';
+import { usesCoupledCoils } from './coil-coupling.js';
 import type { PreparedCircuit, Workspace } from './prepare-circuit.js';
+import { solveNodalTransfers } from './solve-nodal.js';
+
+/** Graphs of networks already laid out, so repeated solves (probes between grid points) reuse them. */
+const graphs = new WeakMap<Network, { readonly guitar: Guitar; readonly graph: CircuitGraph }>();
+
+function graphFor(guitar: Guitar, network: Network): CircuitGraph {
+  const known = graphs.get(network);
+  if (known !== undefined && known.guitar === guitar) return known.graph;
+  const graph = graphOfNetwork(guitar, network);
+  graphs.set(network, { guitar, graph });
+  return graph;
+}
 
 function acquire(workspace: Workspace, length: number): Float64Array {
   const buffer = workspace.buffers[workspace.top] ?? new Float64Array(length);
@@ -142,8 +157,15 @@ function multiplyInPlace(target: Float64Array, factor: Float64Array, length: num
  * +1) to the amplifier input, including the coil's phase p_i. All zeros for
  * coils the wiring does not use, and for every coil when the volume is at 0.
  * Writes into `out` when given (no allocation per call once warmed up).
+ *
+ * A wiring that holds both coils of a coupled pair (coil-coupling.ts) has no
+ * series–parallel reduction: it is solved by nodal analysis of its layout
+ * (solve-nodal.ts), with the same conventions.
  */
 export function solveTransfers(prepared: PreparedCircuit, network: Network, out?: Float64Array[]): Float64Array[] {
+  if (usesCoupledCoils(prepared.guitar, network)) {
+    return solveNodalTransfers(prepared, graphFor(prepared.guitar, network), out);
+  }
   const length = 2 * prepared.frequenciesHz.length;
   const coils = prepared.guitar.coils.length;
   const result = out ?? Array.from({ length: coils }, () => new Float64Array(length));

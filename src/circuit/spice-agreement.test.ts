@@ -95,9 +95,12 @@ function genericPhasors(guitar: Guitar): SourcePhasor[] {
   return guitar.coils.map((_, c) => ({ magnitude: 1 + 0.37 * c, phaseDeg: -23 + 41 * c }));
 }
 
+// The humbucker's coils are coupled (the default coupling), so those netlists carry K lines and
+// the solver takes its nodal path for wirings holding both coils.
 describe.each([
   ['three-single-coil.json', 47],
   ['humbucker-two-single-coil.json', 572],
+  ['two-lead-humbucker.json', 6],
 ])('ngspice (eecircuit-engine) agrees with the solver for every wiring of %s', (file, count) => {
   const guitar = loadSample(file);
   const wirings = enumerateWirings(guitar.elements);
@@ -123,6 +126,7 @@ describe.each([
     expect(worst.db).toBeLessThan(MAGNITUDE_TOLERANCE_DB);
     // Only the sample's two identical coils out of phase cancel (series and parallel), and only there.
     expect(cancelledWirings).toBe(file === 'humbucker-two-single-coil.json' ? 2 : 0);
+    if (file !== 'three-single-coil.json') expect(wirings.some((wiring) => renderNetlist(guitar, wiring).includes('\nK'))).toBe(true);
   });
 
   it('with a different string signal in every coil: within 0.01 dB and 0.1°', async () => {
@@ -149,6 +153,26 @@ describe('ngspice (eecircuit-engine) with every part of the load in play', () =>
   ];
   it.each(variants)('%s', async (_, controls) => {
     const guitar = parseGuitarText(JSON.stringify({ ...base, controls }), 'variant');
+    const phasors = genericPhasors(guitar);
+    for (const wiring of enumerateWirings(guitar.elements)) {
+      const deviation = await compare(guitar, wiring, phasors);
+      expect(deviation.db, wiring.expression).toBeLessThan(MAGNITUDE_TOLERANCE_DB);
+      expect(deviation.deg, wiring.expression).toBeLessThan(PHASE_TOLERANCE_DEG);
+    }
+  });
+});
+
+describe('ngspice (eecircuit-engine) with every loss element of the coil model (docs/physics.md §1.6)', () => {
+  // Invented losses: a parallel loss resistance on every coil, different eddy branches, one coil without any.
+  const base = JSON.parse(readFileSync(join(SAMPLES, 'three-single-coil.json'), 'utf8')) as { coils: Array<Record<string, unknown>> };
+  const losses: Array<Record<string, unknown>> = [
+    { lossResistance: '450k', eddyShare: 0.3, eddyCorner: '4k' },
+    { lossResistance: '1.2M', eddyShare: 0 },
+    { lossResistance: '700k', eddyShare: 0.6, eddyCorner: '900' },
+  ];
+  it('every wiring within 0.01 dB and 0.1°, with a different string signal in every coil', async () => {
+    const guitar = parseGuitarText(JSON.stringify({ ...base, coils: base.coils.map((coil, index) => ({ ...coil, ...losses[index] })) }), 'lossy variant');
+    expect(renderNetlist(guitar, enumerateWirings(guitar.elements)[0] as Wiring)).toMatch(/^Rneck__loss /mu);
     const phasors = genericPhasors(guitar);
     for (const wiring of enumerateWirings(guitar.elements)) {
       const deviation = await compare(guitar, wiring, phasors);

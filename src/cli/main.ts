@@ -6,14 +6,6 @@
  */
 import { Command, CommanderError } from 'commander';
 import { InputError, WorkError, formatProblem } from '../errors/index.js';
-import { registerCheck } from './commands/check.js';
-import { registerDemo } from './commands/demo.js';
-import { registerWirings } from './commands/wirings.js';
-import { registerAnalyze } from './commands/analyze.js';
-import { registerNetlist } from './commands/netlist.js';
-import { registerRender } from './commands/render.js';
-import { registerShortlist } from './commands/shortlist.js';
-import { registerCompare } from './commands/compare.js';
 import type { Io } from './io.js';
 import { COILBENCH_VERSION } from './version.js';
 
@@ -23,7 +15,34 @@ export const EXIT_BAD_INPUT = 2;
 
 const VERSION = COILBENCH_VERSION;
 
-function buildProgram(io: Io): Command {
+type Register = (program: Command, io: Io) => void;
+
+/**
+ * Each command's module, loaded only when needed (start-up): a command line
+ * naming one command loads that command alone; help, a mistyped command or
+ * none loads them all. Listed in the order help shows them.
+ */
+const COMMANDS: ReadonlyArray<readonly [string, () => Promise<Register>]> = [
+  ['demo', async () => (await import('./commands/demo.js')).registerDemo],
+  ['check', async () => (await import('./commands/check.js')).registerCheck],
+  ['wirings', async () => (await import('./commands/wirings.js')).registerWirings],
+  ['analyze', async () => (await import('./commands/analyze.js')).registerAnalyze],
+  ['netlist', async () => (await import('./commands/netlist.js')).registerNetlist],
+  ['render', async () => (await import('./commands/render.js')).registerRender],
+  ['shortlist', async () => (await import('./commands/shortlist.js')).registerShortlist],
+  ['compare', async () => (await import('./commands/compare.js')).registerCompare],
+  ['fit-coil', async () => (await import('./commands/fit-coil.js')).registerFitCoil],
+  ['switch', async () => (await import('./commands/switch.js')).registerSwitch],
+];
+
+/** The registration functions the command line needs: the named command's, or every one. */
+async function loadCommands(argv: readonly string[]): Promise<Register[]> {
+  const named = argv.find((argument) => !argument.startsWith('-'));
+  const wanted = COMMANDS.filter(([name]) => name === named);
+  return Promise.all((wanted.length === 1 ? wanted : COMMANDS).map(([, load]) => load()));
+}
+
+function buildProgram(io: Io, registers: readonly Register[]): Command {
   const program = new Command('coilbench');
   program
     .description('Hear every way a guitar\'s pickup coils can be wired, before soldering anything.')
@@ -36,14 +55,7 @@ function buildProgram(io: Io): Command {
       writeErr: (text) => io.stderr(text),
       outputError: (text, write) => write(`coilbench: ${text.replace(/^error: /u, '')}`),
     });
-  registerDemo(program, io);
-  registerCheck(program, io);
-  registerWirings(program, io);
-  registerAnalyze(program, io);
-  registerNetlist(program, io);
-  registerRender(program, io);
-  registerShortlist(program, io);
-  registerCompare(program, io);
+  for (const register of registers) register(program, io);
   for (const command of program.commands) {
     command.exitOverride().configureOutput({
       writeOut: (text) => io.stdout(text),
@@ -58,7 +70,7 @@ function buildProgram(io: Io): Command {
 /** Run coilbench with user arguments (no node or script path). Resolves to the exit status. */
 export async function main(argv: readonly string[], io: Io): Promise<number> {
   const verbose = argv.includes('--verbose');
-  const program = buildProgram(io);
+  const program = buildProgram(io, await loadCommands(argv));
   try {
     await program.parseAsync([...argv], { from: 'user' });
     return EXIT_OK;

@@ -137,7 +137,7 @@ export const METRIC_COLUMNS: readonly MetricColumn[] = Object.freeze([
     text: (row) => {
       if (silent(row)) return SILENT;
       const hum = row.circuit.humDb;
-      return hum !== null && hum <= HUM_FLOOR_DB ? `<=${HUM_FLOOR_DB}` : fixed(hum, 1, true);
+      return hum !== null && hum <= HUM_FLOOR_DB ? `<=${HUM_FLOOR_DB}` : fixed(hum, 0, true);
     },
     value: (row) => row.circuit.humDb,
     table: true,
@@ -145,13 +145,22 @@ export const METRIC_COLUMNS: readonly MetricColumn[] = Object.freeze([
     sort: { name: 'hum', descending: false, key: (row) => row.circuit.humDb },
   },
   {
+    key: 'humCategory',
+    title: 'hum',
+    align: 'left',
+    text: (row) => (silent(row) ? SILENT : (row.circuit.humCategory ?? NONE)),
+    value: (row) => row.circuit.humCategory,
+    table: true,
+    markdown: true,
+  },
+  {
     key: 'humCancelling',
     title: 'hum cancelling',
     align: 'left',
     text: (row) => (row.circuit.humCancelling ? 'yes' : ''),
     value: (row) => row.circuit.humCancelling,
-    table: true,
-    markdown: true,
+    table: false,
+    markdown: false,
   },
   {
     key: 'levelDb',

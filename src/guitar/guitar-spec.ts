@@ -64,6 +64,9 @@ const position: FieldSpec = {
   },
 };
 
+/** Least relative sensitivity accepted: 1/1000 of nominal, 60 dB down (a plausibility bound; far smaller values underflow the rendered energies to zero). */
+export const MIN_RELATIVE_SENSITIVITY = 0.001;
+
 const coil: ObjectSpec = {
   type: 'object',
   description: 'One winding: a single-coil pickup, or one coil of a humbucker.',
@@ -101,17 +104,31 @@ const coil: ObjectSpec = {
       default: 'north',
       defaultSource: 'assumed; say it when known, since phase depends on it',
     },
+    construction: {
+      spec: {
+        type: 'enum',
+        description:
+          'How the coil is built: "rod magnets" (winding round magnet rods, the usual single coil) or "steel poles" (winding round steel poles over a bar magnet, a humbucker\'s coil). Sets the defaults for turns and losses.',
+        values: ['rod magnets', 'steel poles'],
+      },
+    },
+    turns: {
+      spec: { type: 'number', description: 'Turns of wire. When missing, derived from the inductance (N ∝ √L for coils of one construction).', min: 100, max: 100000, integer: true, noun: 'a number of turns' },
+    },
+    lossResistance: {
+      spec: quantity('resistance', 'Parallel loss resistance across the leads (core losses), as fitted to a measured impedance; absent for none.', 10e3, 10e9, '10 kΩ and 10 GΩ'),
+    },
+    eddyShare: {
+      spec: { type: 'number', description: 'Share of the inductance that eddy currents take away at high frequency (0 for none).', min: 0, max: 0.95, noun: 'a share between 0 and 0.95' },
+    },
+    eddyCorner: {
+      spec: quantity('frequency', 'Corner frequency of the eddy-current loss branch: above it the inductance falls by the eddy share.', 10, 1e6, '10 Hz and 1 MHz'),
+    },
     sensitivity: {
-      spec: { type: 'number', description: 'Relative string-signal sensitivity (1 = nominal).', min: 0, max: 100, minExclusive: true, noun: 'a relative sensitivity' },
-      default: 1,
-      defaultSource: 'neutral value',
-      quietDefault: true,
+      spec: { type: 'number', description: 'Relative string-signal sensitivity, e.g. a measured output relative to a nominal coil. When missing: turns / nominal turns of the construction.', min: MIN_RELATIVE_SENSITIVITY, max: 100, noun: 'a relative sensitivity' },
     },
     humSensitivity: {
-      spec: { type: 'number', description: 'Relative sensitivity to a uniform mains field (turns × area; 1 = nominal).', min: 0, max: 100, noun: 'a relative hum sensitivity' },
-      default: 1,
-      defaultSource: 'neutral value',
-      quietDefault: true,
+      spec: { type: 'number', description: 'Relative sensitivity to a mains field (turns × area; 1 = nominal coil). When missing: turns / nominal turns of the construction.', min: 0, max: 100, noun: 'a relative hum sensitivity' },
     },
     pickup: {
       spec: { type: 'string', description: 'Name of the pickup housing this coil (shared by the coils of a humbucker).', pattern: ID_PATTERN, patternText: ID_PATTERN_TEXT, maxLength: 32 },
@@ -120,10 +137,30 @@ const coil: ObjectSpec = {
   },
 };
 
+/**
+ * Coupling coefficient k between the coils of one pickup when the file gives
+ * none (from memory: the side-by-side coils of a humbucker share a small part
+ * of their flux, so their series inductance exceeds the sum of the two by a
+ * few tenths of a henry; measure yours with k = (L_series − L1 − L2)/(2·√(L1·L2))).
+ */
+export const DEFAULT_PICKUP_COUPLING = 0.1;
+
 const pickup: ObjectSpec = {
   type: 'object',
   description: 'A pickup housing two or more coils.',
   fields: {
+    coupling: {
+      spec: {
+        type: 'number',
+        description:
+          'Magnetic coupling coefficient k between its coils: mutual inductance M = k·√(L1·L2). Positive for coils side by side (one coil\'s flux returns through the other), negative for coils stacked on one axis.',
+        min: -0.99,
+        max: 0.99,
+        noun: 'a coupling coefficient between -0.99 and 0.99',
+      },
+      default: DEFAULT_PICKUP_COUPLING,
+      defaultSource: 'from memory (side-by-side humbucker coils share a small part of their flux)',
+    },
     leads: {
       spec: { type: 'enum', description: '2: the coils are joined in series inside the cover and wired as one element; 4: every coil on its own leads.', values: [2, 4] },
       default: 4,
@@ -186,11 +223,15 @@ const controls: ObjectSpec = {
   },
 };
 
+/** Total cable capacitance the guitar file accepts, farads (a plausibility range: a few centimetres of lead to a hundred metres of ordinary lead). */
+export const CABLE_CAPACITANCE_MIN_F = 1e-12;
+export const CABLE_CAPACITANCE_MAX_F = 20e-9;
+
 const cable: ObjectSpec = {
   type: 'object',
   description: 'The lead from guitar to amplifier: give its total capacitance, or its length and capacitance per metre.',
   fields: {
-    capacitance: { spec: quantity('capacitance', 'Total capacitance of the lead.', 1e-12, 20e-9, '1 pF and 20 nF') },
+    capacitance: { spec: quantity('capacitance', 'Total capacitance of the lead.', CABLE_CAPACITANCE_MIN_F, CABLE_CAPACITANCE_MAX_F, '1 pF and 20 nF') },
     length: { spec: quantity('length', 'Length of the lead.', 0.1, 100, '10 cm and 100 m') },
     capacitancePerMetre: {
       spec: quantity('capacitance', 'Capacitance per metre of lead.', 10e-12, 1e-9, '10 pF and 1 nF per metre'),
@@ -204,6 +245,45 @@ const amp: ObjectSpec = {
   fields: {
     resistance: { spec: quantity('resistance', 'Input resistance.', 1e3, 100e6, '1 kΩ and 100 MΩ'), default: '1M', defaultSource: 'common practice' },
     capacitance: { spec: quantity('capacitance', 'Input capacitance.', 0, 10e-9, '0 and 10 nF', true), default: '50p', defaultSource: 'from memory (a few tens of pF)' },
+  },
+};
+
+/**
+ * Switch hardware for `coilbench switch` (src/switching/): each switch a
+ * preset named by its geometry or written out. The planner checks what the
+ * shape cannot (lug numbers within the pole, at least two positions).
+ */
+const SWITCH_PRESET_PATTERN = /^(lever-5-position|lever-3-position|rotary-\d{1,2}-position|toggle-2-position|toggle-3-position|push-pull)-\d-pole$/u;
+const switchDefinition: ObjectSpec = {
+  type: 'object',
+  description:
+    'One switch: { "preset": "lever-5-position-2-pole" } (also lever-3-position, rotary-N-position, toggle-2-position, toggle-3-position, push-pull, each -P-pole), or written out with poles, lugs and positions.',
+  fields: {
+    name: { spec: { type: 'string', description: 'A name for the switch in reports.', maxLength: 40 } },
+    preset: {
+      spec: { type: 'string', description: 'A switch named by its geometry, like "lever-5-position-2-pole".', pattern: SWITCH_PRESET_PATTERN, patternText: 'a preset like "lever-5-position-2-pole", "toggle-2-position-2-pole", "push-pull-2-pole" or "rotary-6-position-2-pole"', maxLength: 40 },
+    },
+    poles: { spec: { type: 'number', description: 'Poles: identical sets of a common lug and its contact lugs, moving together.', min: 1, max: 6, integer: true, noun: 'a number of poles' } },
+    lugs: { spec: { type: 'number', description: 'Contact lugs per pole (the common lug not counted).', min: 1, max: 12, integer: true, noun: 'a number of lugs' } },
+    positions: {
+      spec: {
+        type: 'array',
+        description: 'For each position, the contact lugs (numbered from 1) the common touches: [[1], [1, 2], [2], [2, 3], [3]] for a lever whose in-between positions touch two lugs; [] for a centre-off.',
+        items: { type: 'array', description: 'Lugs the common touches in this position.', items: { type: 'number', description: 'A lug number, from 1.', min: 1, max: 12, integer: true, noun: 'a lug number' }, minItems: 0, maxItems: 12 },
+        minItems: 2,
+        maxItems: 12,
+      },
+    },
+    notes: { spec: { type: 'string', description: 'Free text.', maxLength: 2000 } },
+  },
+};
+
+const switching: ObjectSpec = {
+  type: 'object',
+  description: 'The switch hardware `coilbench switch` plans lug wiring for: the kit\'s positions are every combination of its switches\' positions, the first switch changing fastest.',
+  fields: {
+    switches: { spec: { type: 'array', description: 'The switches, in order.', items: switchDefinition, minItems: 1, maxItems: 4 }, required: true },
+    notes: { spec: { type: 'string', description: 'Free text.', maxLength: 2000 } },
   },
 };
 
@@ -256,6 +336,7 @@ export const GUITAR_SPEC: ObjectSpec = {
     controls: { spec: controls, default: {}, defaultSource: 'common practice' },
     cable: { spec: cable, default: { capacitance: DEFAULT_CABLE_CAPACITANCE }, defaultSource: 'common practice' },
     amp: { spec: amp, default: {}, defaultSource: 'common practice' },
+    switching: { spec: switching },
   },
 };
 
@@ -266,7 +347,7 @@ export function listDefaults(spec: ObjectSpec = GUITAR_SPEC, prefix = ''): Array
     const path = prefix === '' ? name : `${prefix}.${name}`;
     if (entry.default !== undefined && entry.spec.type !== 'object') found.push({ path, entry });
     const inner = entry.spec.type === 'array' ? entry.spec.items : entry.spec;
-    if (inner.type === 'object') found.push(...listDefaults(inner, inner === entry.spec ? path : `${path}[]`));
+    if (inner.type === 'object') for (const item of listDefaults(inner, inner === entry.spec ? path : `${path}[]`)) found.push(item);
   }
   return found;
 }

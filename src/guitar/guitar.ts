@@ -10,6 +10,15 @@ export type Winding = 'cw' | 'ccw';
 export type MagnetPole = 'north' | 'south';
 /** Pot taper. */
 export type Taper = 'audio' | 'linear';
+/**
+ * How a coil is built, which sets the defaults for its turns and losses
+ * (docs/physics.md §1.6): "rod magnets" — the winding round magnet rods that
+ * are the pole pieces (the usual single coil); "steel poles" — the winding
+ * round steel pole pieces over a bar magnet (a humbucker's coil).
+ */
+export type CoilConstruction = 'rod magnets' | 'steel poles';
+/** Where a coil's turns count came from: the file, or N ∝ √L from its inductance. */
+export type TurnsSource = 'file' | 'inductance';
 
 export interface Coil {
   readonly id: string;
@@ -27,10 +36,25 @@ export interface Coil {
   readonly apertureM: number;
   readonly winding: Winding;
   readonly magnet: MagnetPole;
-  /** Relative string-signal sensitivity. */
+  readonly construction: CoilConstruction;
+  /** Turns of the winding: from the file, or derived from the inductance (`turnsSource`). */
+  readonly turns: number;
+  readonly turnsSource: TurnsSource;
+  /**
+   * Parallel loss resistance across the leads (core losses), ohms; null for
+   * none (docs/physics.md §1.6).
+   */
+  readonly lossResistanceOhms: number | null;
+  /** Share κ of the inductance that eddy currents take away at high frequency, 0 ≤ κ < 1 (§1.6). */
+  readonly eddyShare: number;
+  /** Resistance of the eddy-current branch, ohms: Re = 2π·f_e·κ·L for the corner frequency f_e (§1.6). */
+  readonly eddyResistanceOhms: number;
+  /** Relative string-signal sensitivity: the file's value, or turns / nominal turns of its construction. */
   readonly sensitivity: number;
-  /** Relative sensitivity to a uniform mains field. */
+  /** Relative sensitivity to a mains field (turns × area): the file's value, or turns / nominal turns. */
   readonly humSensitivity: number;
+  /** True when `sensitivity` came from the file (a measured output), not from the turns. */
+  readonly sensitivityGiven: boolean;
   /** Name of the pickup housing this coil, if any. */
   readonly pickup: string | undefined;
   readonly notes: string | undefined;
@@ -42,6 +66,11 @@ export interface Pickup {
   readonly leads: 2 | 4;
   /** Coil indices in declaration order. */
   readonly coilIndices: readonly number[];
+  /**
+   * Magnetic coupling coefficient k between its coils (mutual inductance
+   * M = k·√(L_a·L_b), sign from the windings; circuit/coil-coupling.ts).
+   */
+  readonly coupling: number;
 }
 
 /**

@@ -6,10 +6,12 @@
  */
 import { InputError, type InputProblem, problemAt } from '../errors/index.js';
 import { formatEngineering, hzToMidi, noteName, parseNoteName, parseQuantity } from '../units/index.js';
+import { CONSTRUCTION_DEFAULTS, eddyResistanceFromCorner, turnsFromInductance } from './coil-construction.js';
 import type {
   Amp,
   Cable,
   Coil,
+  CoilConstruction,
   Controls,
   Guitar,
   OpenString,
@@ -19,7 +21,7 @@ import type {
   TrebleBleed,
   WiringElement,
 } from './guitar.js';
-import { DEFAULT_CABLE_CAPACITANCE, GUITAR_SPEC } from './guitar-spec.js';
+import { CABLE_CAPACITANCE_MAX_F, CABLE_CAPACITANCE_MIN_F, DEFAULT_CABLE_CAPACITANCE, DEFAULT_PICKUP_COUPLING, GUITAR_SPEC } from './guitar-spec.js';
 import { parseJsonText } from './parse-json.js';
 import { validateField } from './validate-fields.js';
 
@@ -112,6 +114,21 @@ export function parseGuitar(raw: unknown): Guitar {
   if (cableInput.capacitancePerMetre !== undefined && cableInput.length === undefined) {
     problems.push(problemAt('cable.length', 'a length to go with "capacitancePerMetre"', undefined));
   }
+  const cableLengthM = asNumber(cableRaw.length);
+  if (cableLengthM !== undefined && cableInput.capacitance === undefined) {
+    // Total = length × capacitance per metre must stay in the range a total capacitance is accepted in.
+    const perMetreF = asNumber(cableRaw.capacitancePerMetre) ?? DEFAULT_CABLE_CAPACITANCE_PER_METRE_F;
+    const totalF = cableLengthM * perMetreF;
+    if (!(totalF >= CABLE_CAPACITANCE_MIN_F && totalF <= CABLE_CAPACITANCE_MAX_F)) {
+      problems.push(
+        problemAt(
+          'cable.length',
+          `a lead whose total capacitance (length × capacitancePerMetre) is between 1 pF and 20 nF`,
+          `${String(cableInput.length)} × ${String(cableInput.capacitancePerMetre ?? `${formatEngineering(perMetreF, 'F')}/m`)} = ${formatEngineering(totalF, 'F')}`,
+        ),
+      );
+    }
+  }
 
   // Treble bleed: a series arrangement needs its resistor.
   const bleedRaw = asRecord(normalised.controls).trebleBleed;
@@ -121,12 +138,18 @@ export function parseGuitar(raw: unknown): Guitar {
 
   if (problems.length > 0) throw new InputError(problems);
 
-  const coils = coilsRaw.map((entry, index) => buildCoil(asRecord(entry), index));
+  const coils = coilsRaw.map((entry, index) => buildCoil(asRecord(entry), index, assumed));
   const pickups: Pickup[] = [...members.entries()].map(([name, coilIndices]) => ({
     name,
     leads: asRecord(pickupsRaw[name]).leads === 2 ? 2 : 4,
     coilIndices,
+    coupling: asNumber(asRecord(pickupsRaw[name]).coupling) ?? DEFAULT_PICKUP_COUPLING,
   }));
+  // A pickup with no entry of its own still couples its coils by the default k: say so.
+  for (const pickup of pickups) {
+    const path = `pickups.${pickup.name}.coupling`;
+    if (pickup.coilIndices.length > 1 && pickupsRaw[pickup.name] === undefined && !assumed.includes(path)) assumed.push(path);
+  }
   const elements = buildElements(coils, pickups);
   if (elements.length > MAX_WIRING_ELEMENTS) {
     throw new InputError([
@@ -160,24 +183,52 @@ export function parseGuitar(raw: unknown): Guitar {
   });
 }
 
-function buildCoil(entry: Raw, index: number): Coil {
+/**
+ * A coil with its derived figures: construction (steel poles inside a pickup
+ * housing, rod magnets otherwise), turns (N = N0·√(L/L0) when missing),
+ * sensitivities (turns / nominal turns when missing) and the eddy branch
+ * (docs/physics.md §1.6).
+ */
+function buildCoil(entry: Raw, index: number, assumed: string[]): Coil {
   const position = entry.position;
   const bass = typeof position === 'number' ? position : (asNumber(asRecord(position).bass) ?? 0);
   const treble = typeof position === 'number' ? position : (asNumber(asRecord(position).treble) ?? 0);
+  const inductanceH = entry.inductance as number;
+  const pickupName = asString(entry.pickup);
+  let construction: CoilConstruction;
+  if (entry.construction === 'rod magnets' || entry.construction === 'steel poles') construction = entry.construction;
+  else {
+    construction = pickupName === undefined ? 'rod magnets' : 'steel poles';
+    assumed.push(`coils[${index}].construction`);
+  }
+  const defaults = CONSTRUCTION_DEFAULTS[construction];
+  const givenTurns = asNumber(entry.turns);
+  const turns = givenTurns ?? turnsFromInductance(inductanceH, construction);
+  const relativeTurns = turns / defaults.nominalTurns;
+  const givenSensitivity = asNumber(entry.sensitivity);
+  const eddyShare = asNumber(entry.eddyShare) ?? defaults.eddyShare;
+  const eddyCornerHz = asNumber(entry.eddyCorner) ?? defaults.eddyCornerHz;
   return Object.freeze({
     id: asString(entry.id) ?? '',
     index,
     positionBassM: bass,
     positionTrebleM: treble,
     resistanceOhms: entry.resistance as number,
-    inductanceH: entry.inductance as number,
+    inductanceH,
     capacitanceF: entry.capacitance as number,
     apertureM: entry.aperture as number,
     winding: entry.winding === 'ccw' ? 'ccw' : 'cw',
     magnet: entry.magnet === 'south' ? 'south' : 'north',
-    sensitivity: entry.sensitivity as number,
-    humSensitivity: entry.humSensitivity as number,
-    pickup: asString(entry.pickup),
+    construction,
+    turns,
+    turnsSource: givenTurns === undefined ? 'inductance' : 'file',
+    lossResistanceOhms: asNumber(entry.lossResistance) ?? null,
+    eddyShare,
+    eddyResistanceOhms: eddyResistanceFromCorner(eddyCornerHz, eddyShare, inductanceH),
+    sensitivity: givenSensitivity ?? relativeTurns,
+    humSensitivity: asNumber(entry.humSensitivity) ?? relativeTurns,
+    sensitivityGiven: givenSensitivity !== undefined,
+    pickup: pickupName,
     notes: asString(entry.notes),
   });
 }

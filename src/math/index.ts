@@ -2,3 +2,4 @@ export { realFft, nextPowerOfTwo, binFrequencyHz } from './real-fft.js';
 export type { RealFft } from './real-fft.js';
 export { createRandom, seedFromText } from './random.js';
 export type { Random } from './random.js';
+export { maxOf, minOf, appendAll } from './extremes.js';

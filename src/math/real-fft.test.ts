@@ -31,6 +31,26 @@ describe('realFft', () => {
     }
   });
 
+  it('forwardPacked (one N/2-point complex FFT) matches the direct DFT, windowed and zero padded', () => {
+    const random = createRandom(11);
+    for (const size of [4, 16, 256]) {
+      const length = size - 3;
+      const x = Array.from({ length }, () => random() * 2 - 1);
+      const window = Array.from({ length }, () => random());
+      const fft = realFft(size);
+      const out = new Float64Array(2 * fft.bins);
+      fft.forwardPacked(x, out, window);
+      const windowed = [...x.map((value, n) => value * (window[n] ?? 0)), 0, 0, 0];
+      for (let k = 0; k <= size / 2; k += 1) {
+        const [re, im] = dft(windowed, k);
+        expect(out[2 * k]).toBeCloseTo(re, 9);
+        expect(out[2 * k + 1]).toBeCloseTo(im, 9);
+      }
+      fft.forwardPacked(x.slice(0, 2), out);
+      for (let k = 0; k <= size / 2; k += 1) expect(out[2 * k]).toBeCloseTo(dft([x[0] ?? 0, x[1] ?? 0, ...new Array(size - 2).fill(0)], k)[0], 12);
+    }
+  });
+
   it('zero pads short input and refuses sizes that are not powers of two', () => {
     const spectrum = realFft(8).forward([1]);
     for (let k = 0; k <= 4; k += 1) expect(spectrum[2 * k]).toBeCloseTo(1, 12);

@@ -66,6 +66,7 @@ export function encodeSignal(samples: Float32Array): string {
   const bytes = new Uint8Array(samples.buffer, samples.byteOffset, samples.length * FLOAT32_BYTES);
   const CHUNK = 0x8000; // characters per String.fromCharCode call (stays under argument limits)
   let binary = '';
+  // bounded spread: at most CHUNK values at a time.
   for (let i = 0; i < bytes.length; i += CHUNK) binary += String.fromCharCode(...bytes.subarray(i, i + CHUNK));
   return btoa(binary);
 }

@@ -4,6 +4,7 @@
  * table: "quiet (hum cancelling)", "brighter", "present".
  */
 import type { Topology } from '../wiring/index.js';
+import { maxOf, minOf } from '../math/index.js';
 
 const TOPOLOGY_WORDS: Readonly<Record<Topology, string>> = Object.freeze({
   single: 'alone',
@@ -85,8 +86,8 @@ function median(values: readonly number[]): number {
 export function brightnessScale(centroidsHz: readonly number[]): BrightnessScale {
   const usable = centroidsHz.filter((hz) => Number.isFinite(hz) && hz > 0);
   const medianHz = usable.length > 0 ? median(usable) : 1;
-  const minHz = usable.length > 0 ? Math.min(...usable) : 1;
-  const maxHz = usable.length > 0 ? Math.max(...usable) : 1;
+  const minHz = usable.length > 0 ? minOf(usable) : 1;
+  const maxHz = usable.length > 0 ? maxOf(usable) : 1;
   const word = (centroidHz: number): string => {
     if (!Number.isFinite(centroidHz) || centroidHz <= 0) return 'silent';
     const octaves = Math.log2(centroidHz / medianHz);

@@ -77,8 +77,8 @@ export function createResponsePlot(plot: SVGSVGElement, legend: HTMLElement, rea
     plot.replaceChildren();
     legend.replaceChildren();
     const all = curves.flatMap((curve) => curve.responseDb.filter((db) => Number.isFinite(db)));
-    const top = all.length ? Math.ceil((Math.max(...all) + 1) / DB_STEP) * DB_STEP : 12;
-    const bottom = all.length ? Math.floor(Math.min(...all) / DB_STEP) * DB_STEP : -36;
+    const top = all.length ? Math.ceil((all.reduce((high, value) => Math.max(high, value), Number.NEGATIVE_INFINITY) + 1) / DB_STEP) * DB_STEP : 12;
+    const bottom = all.length ? Math.floor(all.reduce((low, value) => Math.min(low, value), Number.POSITIVE_INFINITY) / DB_STEP) * DB_STEP : -36;
     range = { top, bottom: Math.max(bottom, top - DB_RANGE_MAX) };
     const grid = svg('g', { class: 'grid' }, plot);
     for (const hz of FREQUENCY_TICKS) {

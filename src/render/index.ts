@@ -25,6 +25,9 @@ export {
   STALE_TEMP_FILE_AGE_MS,
 } from './write-file-atomic.js';
 export { defaultOutputRoot, outputFolder, wavFileName, netlistFileName } from './output-folder.js';
+export { claimOutputFolder, ownNamesOf, releaseFolderLocksSync, FOLDER_MARKER, FOLDER_LOCK } from './folder-claim.js';
+export type { ClaimRequest, FolderClaim, FolderPurpose } from './folder-claim.js';
+export { guitarFolderName } from './folder-name.js';
 export type { OutputFolder } from './output-folder.js';
 export { renderGuitar, removeScratchFoldersSync, RENDER_MODEL_VERSION, RESPONSE_POINTS } from './render-guitar.js';
 export type { HumMix, RenderEvents, RenderOutcome, RenderRequest, RenderedWiring } from './render-guitar.js';
@@ -34,7 +37,7 @@ export { prepareWiringSynthesis, assertAudible, COIL_VOLTS_PER_METRE_PER_SECOND,
 export type { SynthesisOptions, WiringSynthesis } from './synthesize-wirings.js';
 export { planTrueLevelGain, planMatchedGains, PEAK_CEILING_DB } from './plan-gains.js';
 export { hashOf, readManifest, MANIFEST_VERSION } from './render-manifest.js';
-export { runRenderPassOnThreads, defaultThreadCount, splitByShape, MIN_ITEMS_PER_THREAD } from './run-render-pass.js';
+export { runRenderPassOnThreads, defaultThreadCount, splitByShape, startWorkerModule, MIN_ITEMS_PER_THREAD } from './run-render-pass.js';
 export { createWiringRenderer, runRenderPass, peakOf } from './render-pass.js';
 export type { AudioSettings, PassItem, PassResult, WiringRenderer } from './render-pass.js';
 export { writeComparisonPage } from './write-comparison-page.js';

@@ -7,13 +7,12 @@
  * reference render always uses the `strum` phrase at 48 kHz with one seed,
  * whatever phrase, rate or chain the audio files use.
  */
-import { type CircuitOverrides } from '../circuit/index.js';
+import { type CircuitOverrides, phaseClassKey } from '../circuit/index.js';
 import { measureCentroid, measureEnergy, measureLevelDb, measureLoudness } from '../analysis/index.js';
 import type { Guitar } from '../guitar/index.js';
 import { builtInPhrase } from '../string/index.js';
 import type { Wiring } from '../wiring/index.js';
 import { type WiringSynthesis, prepareWiringSynthesis } from './synthesize-wirings.js';
-import { shapeKey } from '../wiring/index.js';
 
 /** The reference performance for metrics (docs/design.md, phrases). */
 export const REFERENCE_PHRASE = 'strum';
@@ -92,8 +91,9 @@ export function measureWiringAudio(
   const todo = new Map<string, Wiring>();
   for (const wiring of all) if (wiring.elements.length === 1) todo.set(wiring.id, wiring);
   for (const wiring of wanted) todo.set(wiring.id, wiring);
-  // Phase patterns of one shape share their transfers (see synthesize-wirings.ts): take them together.
-  const ordered = [...todo.values()].sort((a, b) => (shapeKey(a.network) < shapeKey(b.network) ? -1 : shapeKey(a.network) > shapeKey(b.network) ? 1 : 0));
+  // Phase patterns of one shape share their transfers (see synthesize-wirings.ts; coupled coils: one phase class): take them together.
+  const keyOf = (wiring: Wiring): string => phaseClassKey(guitar, wiring.network);
+  const ordered = [...todo.values()].sort((a, b) => (keyOf(a) < keyOf(b) ? -1 : keyOf(a) > keyOf(b) ? 1 : 0));
   const raw = new Map<string, RawAudioMetrics>();
   const buffer = new Float32Array(synthesis.length);
   let done = 0;

@@ -4,6 +4,8 @@
  */
 import { join } from 'node:path';
 import { slugify } from '../guitar/index.js';
+import { FOLDER_MARKER } from './folder-claim.js';
+import { guitarFolderName } from './folder-name.js';
 import type { Wiring } from '../wiring/index.js';
 
 /** Longest part of a WAV name taken from the wiring's description. */
@@ -19,11 +21,15 @@ export interface OutputFolder {
   readonly page: string;
   /** Hidden file recording what each output was made from, so a re-run skips what is complete and unchanged. */
   readonly manifest: string;
+  /** Hidden folder of parked audio between the two passes (removed when the run ends). */
+  readonly scratch: string;
+  /** Hidden file saying coilbench made this folder, for which guitar and settings (src/render/folder-claim.ts). */
+  readonly marker: string;
 }
 
-/** The default folder for a guitar: renders/<slug of its name> under `base`. */
+/** The default folder for a guitar: renders/<folder name of the guitar> under `base` (src/render/folder-name.ts). */
 export function defaultOutputRoot(base: string, guitarName: string): string {
-  return join(base, 'renders', slugify(guitarName));
+  return join(base, 'renders', guitarFolderName(guitarName));
 }
 
 export function outputFolder(root: string): OutputFolder {
@@ -36,6 +42,8 @@ export function outputFolder(root: string): OutputFolder {
     reportMarkdown: join(root, 'report.md'),
     page: join(root, 'index.html'),
     manifest: join(root, '.coilbench-manifest.json'),
+    scratch: join(root, '.scratch'),
+    marker: join(root, FOLDER_MARKER),
   };
 }
 

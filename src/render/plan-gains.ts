@@ -5,6 +5,7 @@
  * one common loudness, the highest that lets every file stay under the
  * ceiling (so nothing clips and nothing is limited).
  */
+import { maxOf } from '../math/index.js';
 
 /** Peak ceiling below digital full scale for written files, dB (common practice: leave about 1 dB for inter-sample peaks). */
 export const PEAK_CEILING_DB = -1;
@@ -14,7 +15,7 @@ const gainToDb = (gain: number): number => 20 * Math.log10(gain);
 
 /** One gain for all files: ceiling / largest peak. Peaks are linear sample magnitudes. */
 export function planTrueLevelGain(peaks: readonly number[], ceilingDb = PEAK_CEILING_DB): number {
-  const loudest = Math.max(...peaks.filter((peak) => Number.isFinite(peak)), 0);
+  const loudest = Math.max(maxOf(peaks.filter((peak) => Number.isFinite(peak))), 0);
   return loudest > 0 ? dbToGain(ceilingDb) / loudest : 1;
 }
 

@@ -11,16 +11,37 @@
  * stops at once when its input goes silent (no source playing) and drops the
  * frames still inside its oversampler, which would lose the input's last
  * 128 frames. Zeros played by a source are not silence to it.
+ *
+ * The buffer is taken from the promise or, when the library's promise loses
+ * its race and gives null, from the context's `complete` event
+ * (await-rendered-buffer.ts).
+ *
+ * The library (a native module) is loaded on the first chain render only:
+ * commands and direct renders that need no chain do not pay for loading it.
  */
-import { OfflineAudioContext } from 'node-web-audio-api';
+import type { OfflineAudioContext } from 'node-web-audio-api';
 import type { ChainDesign } from './chain-design.js';
 import { type ChainContext, connectChainDesign } from './connect-chain-design.js';
+import { type BufferSource, type RenderingContext, awaitRenderedBuffer } from './await-rendered-buffer.js';
 
-/** Render mono `samples` through `design` at its sample rate. The output has the input's length and timing. */
-export async function renderChainDesign(samples: Float32Array, design: ChainDesign): Promise<Float32Array> {
+type Context = InstanceType<typeof OfflineAudioContext>;
+type ContextClass = typeof OfflineAudioContext;
+
+let contextClass: Promise<ContextClass> | undefined;
+/** node-web-audio-api's OfflineAudioContext, imported once on first need. */
+function loadContextClass(): Promise<ContextClass> {
+  contextClass ??= import('node-web-audio-api').then((library) => library.OfflineAudioContext);
+  return contextClass;
+}
+
+/**
+ * A context wired to render mono `samples` through `design`: the input,
+ * then `latencyFrames` zeros (see above), through every stage. The first
+ * `latencyFrames` frames of its result are the chain's fixed delay.
+ */
+export async function prepareChainContext(samples: Float32Array, design: ChainDesign): Promise<Context> {
+  const OfflineAudioContext = await loadContextClass();
   const frames = samples.length;
-  const output = new Float32Array(frames);
-  if (frames === 0) return output;
   const latency = design.latencyFrames;
   const context = new OfflineAudioContext({ numberOfChannels: 1, length: frames + latency, sampleRate: design.sampleRateHz });
   const padded = new Float32Array(frames + latency); // input, then zeros through the latency (see above)
@@ -32,7 +53,24 @@ export async function renderChainDesign(samples: Float32Array, design: ChainDesi
   const last = connectChainDesign(context as unknown as ChainContext<AudioNode>, design, source as unknown as AudioNode);
   last.connect(context.destination as unknown as AudioNode);
   source.start(0);
-  const rendered = await context.startRendering();
-  rendered.copyFromChannel(output, 0, latency);
+  return context;
+}
+
+/**
+ * Render mono `samples` through `design` at its sample rate. The output has
+ * the input's length and timing. `onBufferSource` is told where the result
+ * came from (the stress test counts the races).
+ */
+export async function renderChainDesign(
+  samples: Float32Array,
+  design: ChainDesign,
+  onBufferSource?: (source: BufferSource) => void,
+): Promise<Float32Array> {
+  const output = new Float32Array(samples.length);
+  if (samples.length === 0) return output;
+  const context = await prepareChainContext(samples, design);
+  const { buffer: rendered, source: from } = await awaitRenderedBuffer(context as unknown as RenderingContext);
+  onBufferSource?.(from);
+  rendered.copyFromChannel(output, 0, design.latencyFrames);
   return output;
 }

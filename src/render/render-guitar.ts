@@ -19,6 +19,7 @@ import {
   logSpacedFrequencies,
   measureCircuitMetrics,
   measureResponseDb,
+  phaseClassKey,
   prepareCircuit,
   renderNetlist,
   solveTransfers,
@@ -26,6 +27,7 @@ import {
   AUDIO_BAND_LOW_HZ,
 } from '../circuit/index.js';
 import { type AlikeThresholds, type Distinctness, measureDistinctness } from '../analysis/index.js';
+import { WorkError } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
 import {
   type ListeningReport,
@@ -49,13 +51,14 @@ import { defaultThreadCount, runRenderPassOnThreads } from './run-render-pass.js
 import { type OutputFolder, netlistFileName, wavFileName } from './output-folder.js';
 import { gainToDb, planMatchedGains, planTrueLevelGain } from './plan-gains.js';
 import { MANIFEST_VERSION, type Manifest, hashOf, readManifest } from './render-manifest.js';
-import { shapeKey } from '../wiring/index.js';
 import { type WavFormat, encodeWav } from './wav-file.js';
 import { removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
+import { type FileRecord, fileMatches, recordOf } from './file-record.js';
+import { maxOf } from '../math/index.js';
 import { writeListeningPage } from './write-listening-page.js';
 
 /** Bump when the sound of a render changes for the same inputs (string model, pickup, chain), so old files are redone. */
-export const RENDER_MODEL_VERSION = 1;
+export const RENDER_MODEL_VERSION = 2;
 /** File writes allowed to run in the background at once (each holds one encoded file in memory). */
 const MAX_PENDING_WRITES = 4;
 /** Least time between manifest saves while writing files, ms: an interrupted run loses at most this much record (the files themselves are always whole). */
@@ -118,8 +121,10 @@ export interface RenderOutcome {
   /** Loudness every matched file reaches, LUFS; null for true-level files. */
   readonly matchedLoudnessLufs: number | null;
   readonly audioSeconds: number;
-  /** Which of all the guitar's wirings sound alike (request.all order). */
+  /** Which wirings of `scope` sound alike (in `scope` order). */
   readonly distinct: Distinctness;
+  /** The wirings `distinct` covers: every wiring, or for `--only` on a guitar of more than 1000 wirings the rendered ones and the single elements. */
+  readonly scope: readonly Wiring[];
 }
 
 /** What the manifest keeps per wiring, keyed by canonical expression. */
@@ -131,6 +136,8 @@ interface Entry {
   audio?: { peak: number; loudnessLufs: number | null; frames: number };
   fileHash?: string;
   file?: string;
+  /** Size and SHA-256 of the WAV as written: a re-run keeps it only if it still matches. */
+  written?: { wav: FileRecord };
 }
 
 /** The parts of a guitar that shape its sound (names and notes do not). */
@@ -145,7 +152,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     mkdirSync(path, { recursive: true });
     removeStaleTempFiles(path);
   }
-  const scratch = join(folder.root, '.scratch');
+  const scratch = folder.scratch;
   rmSync(scratch, { recursive: true, force: true });
   mkdirSync(scratch, { recursive: true });
   activeScratchFolders.add(scratch);
@@ -191,7 +198,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   // that the manifest does not already hold, spread over threads.
   const selectedIds = new Set(request.selected.map((wiring) => wiring.id));
   // Phase patterns of one network shape share their transfers: render them one after another.
-  const needed = groupByShape(request.all.filter((wiring) => wiring.elements.length === 1 || selectedIds.has(wiring.id)));
+  const needed = groupByShape(guitar, request.all.filter((wiring) => wiring.elements.length === 1 || selectedIds.has(wiring.id)));
   const raw = new Map<string, RawAudioMetrics>();
   const scratchFiles = new Map<string, string>();
   const items: PassItem[] = [];
@@ -206,7 +213,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     const missingLoudness = request.level === 'matched' && entry.audio?.loudnessLufs === null;
     const audioCached = entry.audioHash === audioHash && entry.audio !== undefined && !missingLoudness;
     const wantAudio = request.writeWav !== false && selectedIds.has(wiring.id) && !audioCached;
-    if (!metricsCached || wantAudio) items.push({ id: wiring.id, network: wiring.network, metrics: !metricsCached, audio: wantAudio });
+    if (!metricsCached || wantAudio) items.push({ id: wiring.id, name: wiring.expression, network: wiring.network, metrics: !metricsCached, audio: wantAudio });
   }
   const expressionOf = new Map(needed.map((wiring) => [wiring.id, wiring.expression]));
   events.onStage?.('rendering', items.length);
@@ -224,15 +231,22 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     }
     if (result.audio && result.scratch && hash) {
       scratchFiles.set(result.id, result.scratch);
-      Object.assign(entry, { audioHash: hash.audioHash, audio: result.audio, fileHash: undefined });
+      Object.assign(entry, { audioHash: hash.audioHash, audio: result.audio, fileHash: undefined, written: undefined });
     }
   }
   let renderer: WiringRenderer | undefined;
   const processedAudio = (wiring: Wiring): Promise<Float32Array> => {
     renderer ??= createWiringRenderer(settings);
-    return renderer.processed(wiring.network);
+    return renderer.processed(wiring.network, undefined, wiring.expression);
   };
   await saveManifest();
+  // A wiring whose chain failed twice: what the others made is kept in the manifest, so the same command finishes the work.
+  const failures = results.filter((result) => result.failure !== undefined).map((result) => result.failure as string);
+  if (failures.length > 0) {
+    rmSync(scratch, { recursive: true, force: true });
+    activeScratchFolders.delete(scratch);
+    throw new WorkError(`${failures.join('; ')}; nothing written was lost, and running the same command again finishes the render`);
+  }
   const audioMetrics = referLevels(request.all, raw);
 
   // Gains: one for all files, or one per file to a common loudness.
@@ -259,36 +273,45 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   events.onStage?.('writing', selected.length);
   let written = 0;
   let skipped = 0;
-  for (const [index, wiring] of selected.entries()) {
-    const entry = entries[wiring.expression] as Entry;
-    const gain = gains[index] ?? 1;
-    const name = wavFileName(wiring);
-    const path = join(folder.wavFolder, name);
-    const fileHash = hashOf({ audio: entry.audioHash, gain: gain.toPrecision(12), format: request.format, name });
-    if (request.writeWav === false || (entry.fileHash === fileHash && entry.file === name && existsSync(path))) {
-      skipped += 1;
-    } else {
-      const parked = scratchFiles.get(wiring.id);
-      const audio = parked ? readScratch(parked) : await processedAudio(wiring);
-      for (let n = 0; n < audio.length; n += 1) audio[n] = (audio[n] as number) * gain;
-      const bytes = encodeWav(audio, {
-        sampleRateHz: request.sampleRateHz,
-        format: request.format,
-        info: {
-          name: wiring.expression,
-          comment: `${wiring.description}; phrase ${request.phrase.name}; ${request.chain} chain; ${request.level === 'true' ? 'true relative level' : 'loudness matched'}`,
-          software: request.generator,
-        },
-      });
-      // Written in the background while the next wiring is prepared; the manifest records a file only once it is whole.
-      await writes.add(async () => {
-        await writeFileAtomic(path, bytes);
-        Object.assign(entry, { fileHash, file: name });
-      });
-      await saveManifest(false);
-      written += 1;
+  try {
+    for (const [index, wiring] of selected.entries()) {
+      const entry = entries[wiring.expression] as Entry;
+      const gain = gains[index] ?? 1;
+      const name = wavFileName(wiring);
+      const path = join(folder.wavFolder, name);
+      const fileHash = hashOf({ audio: entry.audioHash, gain: gain.toPrecision(12), format: request.format, name });
+      // Kept only if the file still matches the size and SHA-256 recorded when it was written.
+      const intact = entry.written !== undefined && fileMatches(path, entry.written.wav);
+      if (request.writeWav === false || (entry.fileHash === fileHash && entry.file === name && intact)) {
+        skipped += 1;
+      } else {
+        const parked = scratchFiles.get(wiring.id);
+        const audio = parked ? readScratch(parked) : await processedAudio(wiring);
+        for (let n = 0; n < audio.length; n += 1) audio[n] = (audio[n] as number) * gain;
+        const bytes = encodeWav(audio, {
+          sampleRateHz: request.sampleRateHz,
+          format: request.format,
+          info: {
+            name: wiring.expression,
+            comment: `${wiring.description}; phrase ${request.phrase.name}; ${request.chain} chain; ${request.level === 'true' ? 'true relative level' : 'loudness matched'}`,
+            software: request.generator,
+          },
+        });
+        // Written in the background while the next wiring is prepared; the manifest records a file only once it is whole.
+        await writes.add(async () => {
+          await writeFileAtomic(path, bytes);
+          Object.assign(entry, { fileHash, file: name, written: { wav: recordOf(bytes) } });
+        });
+        await saveManifest(false);
+        written += 1;
+      }
+      events.onStep?.(index + 1, selected.length);
     }
-    events.onStep?.(index + 1, selected.length);
+  } catch (error) {
+    // Keep the record of every file already whole, so a re-run skips them and finishes the rest.
+    await writes.drain().catch(() => undefined);
+    await saveManifest();
+    throw error;
   }
   await writes.drain();
   await saveManifest();
@@ -303,11 +326,14 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   }
   await writes.drain();
 
-  // Circuit metrics and response curves.
-  const circuit = measureCircuitMetrics(guitar, request.all, request.overrides);
-  const circuitById = new Map(request.all.map((wiring, index) => [wiring.id, circuit.wirings[index] as WiringCircuitMetrics]));
-  const distinct = measureDistinctness(guitar, request.all, { overrides: request.overrides, thresholds: request.thresholds });
-  const groupById = new Map(request.all.map((wiring, index) => [wiring.id, distinct.groups.groupOf[index] ?? null]));
+  // Circuit metrics for the rendered wirings; groups for every wiring, or (when only some of more than
+  // MAX_WIRINGS_GROUPED_FOR_SOME are asked for) among the chosen ones and the single elements, so that
+  // one wiring of a six-element guitar costs one wiring, not 228,386.
+  const scope = distinctScope(request.all, request.selected);
+  const circuit = measureCircuitMetrics(guitar, selected, request.overrides);
+  const circuitById = new Map(selected.map((wiring, index) => [wiring.id, circuit.wirings[index] as WiringCircuitMetrics]));
+  const distinct = measureDistinctness(guitar, scope, { overrides: request.overrides, thresholds: request.thresholds });
+  const groupById = new Map(scope.map((wiring, index) => [wiring.id, distinct.groups.groupOf[index] ?? null]));
   const responseGrid = logSpacedFrequencies(AUDIO_BAND_LOW_HZ, AUDIO_BAND_HIGH_HZ, RESPONSE_POINTS);
   const responseCircuit = prepareCircuit(guitar, responseGrid, request.overrides);
   const transfers = guitar.coils.map(() => new Float64Array(2 * RESPONSE_POINTS));
@@ -343,13 +369,14 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
       resonanceQ: row.circuit.resonanceQ,
       humDb: row.circuit.humDb ?? 0,
       humCancelling: row.circuit.humCancelling,
+      humCategory: row.circuit.humCategory,
       responseDb: response ? Array.from(response) : [],
       group: groupById.get(row.wiring.id) ?? null,
     };
   });
 
   const frames = selected.map((wiring) => entries[wiring.expression]?.audio?.frames ?? 0);
-  const durationS = Math.max(0, ...frames) / request.sampleRateHz;
+  const durationS = Math.max(0, maxOf(frames)) / request.sampleRateHz;
   // Audio made in this run (cached files cost nothing).
   const audioSeconds = (results.filter((result) => result.audio).length * durationS);
   const report: ListeningReport = {
@@ -368,11 +395,25 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     },
     responseFrequenciesHz: Array.from(responseGrid),
     wirings: reportWirings,
-    groups: reportGroups(request.all, distinct),
+    groups: reportGroups(scope, distinct),
   };
   await writeFileAtomic(folder.reportJson, `${JSON.stringify(report, null, 2)}\n`);
   await writeListeningPage(folder.page, report, request);
-  return { report, rows, written, skipped, commonGainDb, matchedLoudnessLufs, audioSeconds, distinct };
+  return { report, rows, written, skipped, commonGainDb, matchedLoudnessLufs, audioSeconds, distinct, scope };
+}
+
+/**
+ * Most wirings a guitar may have for `--only` renders to still group all of them (four elements: 572,
+ * a second or two), so that their group numbers are those of `analyze`; beyond it (9,997 and 228,386
+ * wirings) the groups are among the chosen wirings and the single elements.
+ */
+const MAX_WIRINGS_GROUPED_FOR_SOME = 1000;
+
+/** The wirings whose groups a render reports: all of them, or the chosen ones and the single elements (in numbering order). */
+function distinctScope(all: readonly Wiring[], selected: readonly Wiring[]): readonly Wiring[] {
+  if (selected.length === all.length || all.length <= MAX_WIRINGS_GROUPED_FOR_SOME) return all;
+  const chosen = new Set(selected.map((wiring) => wiring.id));
+  return all.filter((wiring) => wiring.elements.length === 1 || chosen.has(wiring.id));
 }
 
 /** The report's record of the groups of alike wirings. */
@@ -428,11 +469,11 @@ export function removeScratchFoldersSync(): void {
   activeScratchFolders.clear();
 }
 
-/** Wirings reordered so those sharing a network shape are adjacent (stable within a shape). */
-function groupByShape(wirings: readonly Wiring[]): Wiring[] {
+/** Wirings reordered so those sharing a network shape (a phase class, with coupled coils) are adjacent (stable within one). */
+function groupByShape(guitar: Guitar, wirings: readonly Wiring[]): Wiring[] {
   const groups = new Map<string, Wiring[]>();
   for (const wiring of wirings) {
-    const key = shapeKey(wiring.network);
+    const key = phaseClassKey(guitar, wiring.network);
     groups.set(key, [...(groups.get(key) ?? []), wiring]);
   }
   return [...groups.values()].flat();

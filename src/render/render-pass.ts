@@ -8,6 +8,7 @@
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { measureLoudness } from '../analysis/index.js';
+import { InputError, WorkError } from '../errors/index.js';
 import type { CircuitOverrides } from '../circuit/index.js';
 import type { Guitar } from '../guitar/index.js';
 import type { Phrase } from '../string/index.js';
@@ -23,6 +24,7 @@ import {
   measureRawAudio,
   prepareReferenceSynthesis,
 } from './measure-wiring-audio.js';
+import { PEAK_CEILING_DB } from './plan-gains.js';
 import { type WiringSynthesis, assertAudible, prepareWiringSynthesis } from './synthesize-wirings.js';
 
 export interface HumMix {
@@ -46,6 +48,8 @@ export interface AudioSettings {
 
 export interface PassItem {
   readonly id: string;
+  /** The wiring's name (canonical expression), for messages. */
+  readonly name?: string;
   readonly network: Network;
   /** Measure the reference render (levels, loudness, centroid)? */
   readonly metrics: boolean;
@@ -59,13 +63,19 @@ export interface PassResult {
   readonly audio?: { readonly peak: number; readonly loudnessLufs: number | null; readonly frames: number };
   /** Scratch file holding the processed audio (raw float32), when made. */
   readonly scratch?: string;
+  /** Why the file audio could not be made (the effects chain failed twice); the metrics, if asked for, are still there. */
+  readonly failure?: string;
 }
 
 export interface WiringRenderer {
   /** The reference render of a wiring (the metrics' input). */
   reference(network: Network): Float32Array;
-  /** The processed audio of a wiring (file phrase, hum, chain), before gain; reuses `direct` when it is the same performance. */
-  processed(network: Network, direct?: Float32Array): Promise<Float32Array>;
+  /**
+   * The processed audio of a wiring (file phrase, hum, chain), before gain;
+   * reuses `direct` when it is the same performance. A failed chain render is
+   * tried once more; a second failure is a WorkError naming `name`.
+   */
+  processed(network: Network, direct?: Float32Array, name?: string): Promise<Float32Array>;
   readonly sampleRateHz: number;
 }
 
@@ -94,16 +104,37 @@ export function createWiringRenderer(settings: AudioSettings): WiringRenderer {
   return {
     sampleRateHz: settings.sampleRateHz,
     reference: (network) => referenceSynthesis().synthesize(network),
-    async processed(network, direct) {
+    async processed(network, direct, name) {
       const synthesis = fileSynthesis();
       const audio = direct && sameAsReference ? Float32Array.from(direct) : synthesis.synthesize(network);
       if (settings.hum) {
         const hum = synthesis.synthesizeHum(network, settings.hum.mainsHz, settings.hum.emfVolts);
         for (let n = 0; n < audio.length; n += 1) audio[n] = (audio[n] as number) + (hum[n] as number);
       }
-      return renderEffectsChain(audio, synthesis.sampleRateHz, settings.chain);
+      return renderChainRetried(audio, synthesis.sampleRateHz, settings.chain, name ?? 'a wiring');
     },
   };
+}
+
+/** Tries of one wiring's chain render before it is reported (the first and one retry). */
+export const CHAIN_RENDER_TRIES = 2;
+
+/**
+ * One wiring's effects chain, tried again once when it fails (a render the
+ * library lost to a race or a transient fault). Bad input is not retried.
+ */
+async function renderChainRetried(audio: Float32Array, sampleRateHz: number, chain: ChainName, name: string): Promise<Float32Array> {
+  let last: unknown;
+  for (let attempt = 1; attempt <= CHAIN_RENDER_TRIES; attempt += 1) {
+    try {
+      return await renderEffectsChain(audio, sampleRateHz, chain);
+    } catch (error) {
+      if (error instanceof InputError) throw error;
+      last = error;
+    }
+  }
+  const reason = last instanceof Error ? last.message : String(last);
+  throw new WorkError(`${name}: the ${chain} chain failed ${CHAIN_RENDER_TRIES} times (${reason})`, { cause: last });
 }
 
 /** Largest sample magnitude. */
@@ -117,6 +148,21 @@ export function peakOf(samples: Float32Array): number {
 }
 
 /** Run the first pass over `items`, parking processed audio in `scratchFolder`. `onStep` is told after each item. */
+/**
+ * Loudness of `audio` as it will be written: ITU-R BS.1770's absolute gate
+ * (−70 LKFS) makes loudness shift by slightly more or less than a gain, so a
+ * quiet wiring (−45 LUFS before gain) is measured scaled to the peak ceiling,
+ * near the level its file gets, and the scale taken off again:
+ * L = L(g·x) − 20·log10(g), g = ceiling / peak.
+ */
+function measureLoudnessNearCeiling(audio: Float32Array, sampleRateHz: number): number {
+  const peak = peakOf(audio);
+  if (!(peak > 0)) return measureLoudness([audio], sampleRateHz);
+  const gain = 10 ** (PEAK_CEILING_DB / 20) / peak;
+  const scaled = Float32Array.from(audio, (value) => value * gain);
+  return measureLoudness([scaled], sampleRateHz) - 20 * Math.log10(gain);
+}
+
 export async function runRenderPass(
   settings: AudioSettings,
   items: readonly PassItem[],
@@ -134,17 +180,33 @@ export async function runRenderPass(
     }
     let audio: PassResult['audio'];
     let scratch: string | undefined;
+    let failure: string | undefined;
+    let processed: Float32Array | undefined;
     if (item.audio) {
-      const processed = await renderer.processed(item.network, direct);
+      try {
+        processed = await renderer.processed(item.network, direct, item.name ?? item.id);
+      } catch (error) {
+        // One wiring's failure does not cost the others: it is reported, the rest carries on.
+        if (!(error instanceof WorkError)) throw error;
+        failure = error.message;
+      }
+    }
+    if (processed) {
       scratch = join(scratchFolder, `${item.id}.f32`);
       writeFileSync(scratch, new Uint8Array(processed.buffer, processed.byteOffset, processed.byteLength));
       audio = {
         peak: peakOf(processed),
         frames: processed.length,
-        loudnessLufs: settings.measureProcessedLoudness ? measureLoudness([processed], settings.sampleRateHz) : null,
+        loudnessLufs: settings.measureProcessedLoudness ? measureLoudnessNearCeiling(processed, settings.sampleRateHz) : null,
       };
     }
-    const result: PassResult = { id: item.id, ...(metrics ? { metrics } : {}), ...(audio ? { audio } : {}), ...(scratch ? { scratch } : {}) };
+    const result: PassResult = {
+      id: item.id,
+      ...(metrics ? { metrics } : {}),
+      ...(audio ? { audio } : {}),
+      ...(scratch ? { scratch } : {}),
+      ...(failure ? { failure } : {}),
+    };
     results.push(result);
     onStep?.(result);
   }

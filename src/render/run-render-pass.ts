@@ -16,6 +16,7 @@ import type { ChainName } from './chain-name.js';
 import { type AudioSettings, type PassItem, type PassResult, runRenderPass } from './render-pass.js';
 import type { WorkerJob, WorkerMessage } from './render-worker.js';
 import { shapeKey } from '../wiring/index.js';
+import { minOf, appendAll } from '../math/index.js';
 
 /**
  * Fewest wirings worth a worker thread, by effects chain: a worker starts cold
@@ -47,17 +48,22 @@ function tsxLoaderUrl(): string {
 }
 
 /**
- * How to start a worker: the compiled worker beside this file, or, when
- * running from source (development and tests), a small script that registers
- * tsx's loader in the worker and then imports the TypeScript worker.
+ * Start a worker thread on the module at `entry` (a URL of a .js or .ts
+ * file): compiled code directly, or, when running from source (development
+ * and tests), a small script that registers tsx's loader in the worker and
+ * then imports the TypeScript module.
  */
-function startWorker(job: WorkerJob): Worker {
-  const self = fileURLToPath(import.meta.url);
-  if (!self.endsWith('.ts')) return new Worker(new URL('./render-worker.js', import.meta.url), { workerData: job });
+export function startWorkerModule(entry: URL, workerData: unknown): Worker {
+  if (!entry.pathname.endsWith('.ts')) return new Worker(entry, { workerData });
   const loader = tsxLoaderUrl();
-  const entry = new URL('./render-worker.ts', import.meta.url).href;
-  const source = `import(${JSON.stringify(loader)}).then((api) => { api.register(); return import(${JSON.stringify(entry)}); });`;
-  return new Worker(source, { eval: true, workerData: job });
+  const source = `import(${JSON.stringify(loader)}).then((api) => { api.register(); return import(${JSON.stringify(entry.href)}); });`;
+  return new Worker(source, { eval: true, workerData });
+}
+
+/** The render worker beside this file, in the same form (.js or .ts) as this file. */
+function startWorker(job: WorkerJob): Worker {
+  const extension = fileURLToPath(import.meta.url).endsWith('.ts') ? 'ts' : 'js';
+  return startWorkerModule(new URL(`./render-worker.${extension}`, import.meta.url), job);
 }
 
 /** Split items into at most `parts` runs of whole shapes with about equal numbers of items (largest shapes placed first). */
@@ -72,8 +78,8 @@ export function splitByShape(items: readonly PassItem[], parts: number): PassIte
   const bins: PassItem[][] = Array.from({ length: parts }, () => []);
   const loads = new Array<number>(parts).fill(0);
   for (const group of ordered) {
-    const lightest = loads.indexOf(Math.min(...loads));
-    bins[lightest]?.push(...group);
+    const lightest = loads.indexOf(minOf(loads));
+    appendAll(bins[lightest] ?? [], group);
     loads[lightest] = (loads[lightest] ?? 0) + weight(group);
   }
   return bins.filter((bin) => bin.length > 0);

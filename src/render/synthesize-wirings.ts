@@ -7,13 +7,22 @@
  * Output samples are volts at the amplifier input: the coils' string EMF is
  * string velocity (m/s, from src/pickup) times COIL_VOLTS_PER_METRE_PER_SECOND.
  */
-import { type CircuitOverrides, type PreparedCircuit, magnetSign, prepareCircuit, solveTransfers } from '../circuit/index.js';
+import {
+  type CircuitOverrides,
+  type PreparedCircuit,
+  humFieldWeights,
+  phaseClassKey,
+  phaseClassNetwork,
+  phaseClassSigns,
+  prepareCircuit,
+  solveTransfers,
+} from '../circuit/index.js';
 import { InputError } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
 import { nextPowerOfTwo, realFft } from '../math/index.js';
 import { computeCoilSpectra, pickupDelaySamples } from '../pickup/index.js';
 import { type Phrase, type StringOptions, renderPhrase } from '../string/index.js';
-import { type Network, coilPhases, shapeKey, withoutPhases } from '../wiring/index.js';
+import type { Network } from '../wiring/index.js';
 
 /**
  * EMF a coil of relative sensitivity 1 gives per m/s of string velocity
@@ -151,16 +160,17 @@ export function createWiringSynthesis(guitar: Guitar, coils: CoilSpectra, overri
   const output = new Float64Array(2 * fft.bins);
   const time = new Float64Array(fftSize);
 
-  // A wiring's phases only flip the signs of its coils' transfers (T_i carries p_i), so the
-  // products T_i·E_i of the unsigned network are kept for the last shape rendered, and each
-  // phase pattern of that shape costs a signed sum and one inverse FFT.
+  // A wiring's phases only flip the signs of its coils' transfers (T_i carries p_i; coupled
+  // coils keep their relative phase, circuit/phase-class.ts), so the products T_i·E_i of the
+  // class representative are kept for the last class rendered, and each phase pattern of that
+  // class costs a signed sum and one inverse FFT.
   const products = guitar.coils.map(() => new Float64Array(2 * fft.bins));
   const used = new Uint8Array(guitar.coils.length);
   let cachedShape = '';
   const solveShape = (network: Network): void => {
-    const shape = shapeKey(network);
+    const shape = phaseClassKey(guitar, network);
     if (shape === cachedShape) return;
-    solveTransfers(circuit, withoutPhases(network), transfers);
+    solveTransfers(circuit, phaseClassNetwork(guitar, network), transfers);
     transfers.forEach((transfer, coil) => {
       const emf = spectra[coil] as Float64Array;
       const product = products[coil] as Float64Array;
@@ -183,7 +193,7 @@ export function createWiringSynthesis(guitar: Guitar, coils: CoilSpectra, overri
 
   const synthesize = (network: Network, out = new Float32Array(length)): Float32Array => {
     solveShape(network);
-    coilPhases(guitar.elements, network, signs);
+    phaseClassSigns(guitar, network, signs);
     // Y(f) = Σ_i p_i·T_i(f)·E_i(f) with T_i of the unsigned network.
     output.fill(0);
     products.forEach((product, coil) => {
@@ -209,11 +219,12 @@ export function createWiringSynthesis(guitar: Guitar, coils: CoilSpectra, overri
     solveTransfers(probe.prepared, network, probe.transfers);
     out.fill(0);
     HUM_HARMONICS.forEach(([harmonic, amplitude], index) => {
-      // H(f) = Σ_i m_i·h_i·T_i(f): the hum sign of a coil is p_i·m_i and T_i carries p_i (src/circuit/measure-hum.ts).
+      // H(f) = Σ_i m_i·h_i·B(x_i)·T_i(f): the hum sign of a coil is p_i·m_i and T_i carries p_i (src/circuit/measure-hum.ts).
+      const weights = humFieldWeights(guitar, probe.prepared.load);
       let re = 0;
       let im = 0;
-      guitar.coils.forEach((coil, c) => {
-        const weight = magnetSign(coil.magnet) * coil.humSensitivity;
+      guitar.coils.forEach((_coil, c) => {
+        const weight = weights[c] as number;
         const transfer = probe.transfers[c] as Float64Array;
         re += weight * (transfer[2 * index] as number);
         im += weight * (transfer[2 * index + 1] as number);

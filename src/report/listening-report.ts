@@ -6,6 +6,7 @@
  * Contract between the render pipeline (which fills it) and the page (which
  * draws it). Add fields freely; do not rename these.
  */
+import type { HumCategory } from '../circuit/index.js';
 import type { Topology } from '../wiring/index.js';
 
 export interface ReportCoil {
@@ -81,9 +82,11 @@ export interface ReportWiring {
   /** Height of the peak above the response at 100 Hz, dB. */
   readonly peakDb: number;
   readonly resonanceQ: number | null;
-  /** Hum relative to the mean of the single-coil wirings, dB. */
+  /** Hum relative to the mean single coil that does not cancel hum, dB, floored at HUM_FLOOR_DB (docs/physics.md §6.1). */
   readonly humDb: number;
   readonly humCancelling: boolean;
+  /** Hum in words: cancels, reduces or noisy (docs/physics.md §6.1); absent in reports of older versions. */
+  readonly humCategory?: HumCategory | null;
   /** Power-sum response at `ListeningReport.responseFrequenciesHz`, dB relative to its value at 100 Hz. */
   readonly responseDb: readonly number[];
   /** Group of wirings that sound alike (filled by the distinctness analysis), or null. */

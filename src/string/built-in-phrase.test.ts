@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { BUILT_IN_PHRASES, builtInPhrase } from './built-in-phrase.js';
+import { maxOf, minOf } from '../math/index.js';
 
 describe('builtInPhrase', () => {
   it('open-strings plays each open string once, lowest (6) to highest (1)', () => {
@@ -21,7 +22,7 @@ describe('builtInPhrase', () => {
     ]);
     expect(notes.every((note) => note.direction === 'down')).toBe(true);
     const times = notes.map((note) => note.timeS);
-    expect(Math.max(...times) - Math.min(...times)).toBeLessThan(0.1);
+    expect(maxOf(times) - minOf(times)).toBeLessThan(0.1);
   });
 
   it('riff is a single-note line: one note at a time, in time order', () => {

@@ -100,6 +100,11 @@ function fadeOut(waves: readonly Float64Array[], samples: number): void {
   }
 }
 
+/** Throws InputError unless every note of `phrase` is on a string the guitar has, plucked between the bridge and the fret (so a render can refuse before it writes anything). */
+export function checkPhraseFits(guitar: Pick<Guitar, 'scaleM' | 'strings'>, phrase: Phrase, options: Partial<StringOptions> = {}): void {
+  checkPhraseFitsGuitar(phrase, guitar, resolveStringOptions(options, guitar.strings).pluckM);
+}
+
 /** Every note on a string the guitar has, plucked between the bridge and the fret. */
 function checkPhraseFitsGuitar(phrase: Phrase, guitar: Pick<Guitar, 'scaleM' | 'strings'>, defaultPluckM: number): void {
   const problems: InputProblem[] = [];

@@ -15,7 +15,7 @@ export function normaliseStructure(network: Network): Network {
   const parts: Network[] = [];
   for (const part of network.parts) {
     const inner = normaliseStructure(part);
-    if (inner.kind === network.kind) parts.push(...inner.parts);
+    if (inner.kind === network.kind) for (const part of inner.parts) parts.push(part);
     else parts.push(inner);
   }
   if (parts.length === 1) return parts[0] as Network;

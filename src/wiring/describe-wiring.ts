@@ -34,10 +34,16 @@ function describeStructure(network: Network, ids: readonly string[]): string {
  * the one "out of phase with the others".
  */
 export function describeWiring(network: Network, ids: readonly string[]): string {
-  const structure =
-    network.kind === 'element' ? `${ids[network.element] ?? '?'} alone` : describeStructure(network, ids);
-  const used = elementsOf(network);
-  const inverted = invertedElements(network);
+  return describePhases(describeShape(network, ids), elementsOf(network), invertedElements(network), ids);
+}
+
+/** The structure in words, phase left out ("neck and bridge in series"); the same for every phase pattern of one shape. */
+export function describeShape(network: Network, ids: readonly string[]): string {
+  return network.kind === 'element' ? `${ids[network.element] ?? '?'} alone` : describeStructure(network, ids);
+}
+
+/** A shape's words with the phase told by the smaller side (`used` and `inverted` ascending element indices). */
+export function describePhases(structure: string, used: readonly number[], inverted: readonly number[], ids: readonly string[]): string {
   if (inverted.length === 0) return structure;
   const name = (index: number): string => ids[index] ?? '?';
   if (inverted.length * 2 > used.length) {

@@ -20,7 +20,7 @@
  * then the out-of-phase set compared as a list.
  */
 import type { WiringElement } from '../guitar/index.js';
-import { describeWiring } from './describe-wiring.js';
+import { describePhases, describeShape, describeWiring } from './describe-wiring.js';
 import { type Network, type Topology, leaf, topologyOf } from './network.js';
 import { printNetwork } from './print-wiring.js';
 import type { Wiring } from './wiring.js';
@@ -101,10 +101,12 @@ function cartesian<T>(lists: readonly (readonly T[])[]): T[][] {
   return result;
 }
 
-/** The network with the elements in `invertedSet` marked out of phase. */
+/** The network with the elements in `invertedSet` marked out of phase; parts with none of them are shared, not copied. */
 function withPhases(network: Network, invertedSet: ReadonlySet<number>): Network {
-  if (network.kind === 'element') return leaf(network.element, invertedSet.has(network.element));
-  return { kind: network.kind, parts: network.parts.map((part) => withPhases(part, invertedSet)) };
+  if (invertedSet.size === 0) return network;
+  if (network.kind === 'element') return invertedSet.has(network.element) ? leaf(network.element, true) : network;
+  const parts = network.parts.map((part) => withPhases(part, invertedSet));
+  return parts.every((part, index) => part === network.parts[index]) ? network : { kind: network.kind, parts };
 }
 
 function compareLists(a: readonly number[], b: readonly number[]): number {
@@ -113,14 +115,6 @@ function compareLists(a: readonly number[], b: readonly number[]): number {
     if (difference !== 0) return difference;
   }
   return a.length - b.length;
-}
-
-interface Candidate {
-  readonly network: Network;
-  readonly elements: number[];
-  readonly inverted: number[];
-  readonly topology: Topology;
-  readonly structureOrder: number;
 }
 
 /** Number of non-empty subsets times networks times phases for `n` elements, by construction (for progress and checks). */
@@ -133,32 +127,77 @@ export function countWirings(elementCount: number): number {
   return total;
 }
 
-/** Every distinct wiring of these elements, in the stable order, numbered w1, w2, … */
+/** Every subset of `items` with exactly `size` members, each ascending, in list order (lexicographic). */
+function combinations(items: readonly number[], size: number): number[][] {
+  const out: number[][] = [];
+  const chosen: number[] = [];
+  const visit = (from: number): void => {
+    if (chosen.length === size) {
+      out.push(chosen.slice());
+      return;
+    }
+    for (let i = from; i <= items.length - (size - chosen.length); i += 1) {
+      chosen.push(items[i] as number);
+      visit(i + 1);
+      chosen.pop();
+    }
+  };
+  visit(0);
+  return out;
+}
+
+/**
+ * Every distinct wiring of these elements, in the stable order, numbered w1, w2, …
+ * The order is produced directly (no sort over all wirings): subsets by size
+ * then as lists; inside a subset, structures by topology rank, then phase
+ * patterns by how many elements are out of phase, then structure order, then
+ * the out-of-phase set as a list.
+ */
 export function enumerateWirings(elements: readonly Pick<WiringElement, 'id'>[]): Wiring[] {
   const ids = elements.map((element) => element.id);
   const catalogue = new StructureCatalogue();
-  const candidates: Candidate[] = [];
-  for (let mask = 1; mask < 1 << ids.length; mask += 1) {
-    const used = bitsOf(mask);
+  const masks: Array<{ mask: number; used: number[] }> = [];
+  for (let mask = 1; mask < 1 << ids.length; mask += 1) masks.push({ mask, used: bitsOf(mask) });
+  masks.sort((a, b) => a.used.length - b.used.length || compareLists(a.used, b.used));
+  const wirings: Wiring[] = [];
+  for (const { mask, used } of masks) {
     const flippable = used.slice(1); // the earliest-declared element stays in phase
-    catalogue.any(mask).forEach((structure, structureOrder) => {
-      for (let signs = 0; signs < 1 << flippable.length; signs += 1) {
-        const inverted = flippable.filter((_, bit) => (signs >> bit) & 1);
-        const network = withPhases(structure, new Set(inverted));
-        candidates.push({ network, elements: used, inverted, topology: topologyOf(network), structureOrder });
+    const usedIds = used.map((index) => ids[index] ?? '?');
+    const structures = catalogue
+      .any(mask)
+      .map((structure, order) => {
+        const topology = topologyOf(structure);
+        return { structure, order, topology, rank: TOPOLOGY_RANK[topology], words: describeShape(structure, ids) };
+      })
+      .sort((a, b) => a.rank - b.rank || a.order - b.order);
+    const ranks = [...new Set(structures.map((entry) => entry.rank))];
+    for (const rank of ranks) {
+      const ofRank = structures.filter((entry) => entry.rank === rank);
+      for (let count = 0; count <= flippable.length; count += 1) {
+        const patterns = combinations(flippable, count);
+        for (const { structure, topology, words } of ofRank) {
+          for (const inverted of patterns) {
+            const network = withPhases(structure, new Set(inverted));
+            const number = wirings.length + 1;
+            wirings.push(
+              Object.freeze({
+                id: `w${number}`,
+                number,
+                network,
+                expression: printNetwork(network, ids),
+                elements: used,
+                elementIds: usedIds,
+                topology,
+                outOfPhase: inverted.map((index) => ids[index] ?? '?'),
+                description: describePhases(words, used, inverted, ids),
+              }),
+            );
+          }
+        }
       }
-    });
+    }
   }
-  candidates.sort(
-    (a, b) =>
-      a.elements.length - b.elements.length ||
-      compareLists(a.elements, b.elements) ||
-      TOPOLOGY_RANK[a.topology] - TOPOLOGY_RANK[b.topology] ||
-      a.inverted.length - b.inverted.length ||
-      a.structureOrder - b.structureOrder ||
-      compareLists(a.inverted, b.inverted),
-  );
-  return candidates.map((candidate, index) => makeWiring(candidate.network, ids, index + 1));
+  return wirings;
 }
 
 /** Build the reported record for a canonical network. */

@@ -6,6 +6,7 @@ import {
   AUDIO_BAND_LOW_HZ,
   HUM_CANCELLING_DB,
   HUM_FLOOR_DB,
+  HUM_REDUCING_DB,
   measureCircuitMetrics,
 } from '../../circuit/index.js';
 import { measureDistinctness } from '../../analysis/index.js';
@@ -83,14 +84,14 @@ export function describeLoad(load: CircuitLoad): string {
   if (trebleBleed) parts.push(`treble bleed ${formatEngineering(trebleBleed.capacitorF, 'F')}${trebleBleed.resistorOhms ? ` ${trebleBleed.arrangement} ${formatEngineering(trebleBleed.resistorOhms, 'Ω')}` : ''}`);
   parts.push(`cable ${formatEngineering(load.cableCapacitanceF, 'F')}`);
   parts.push(`amp ${formatEngineering(load.ampResistanceOhms, 'Ω')} with ${formatEngineering(load.ampCapacitanceF, 'F')}`);
-  parts.push(`hum at ${load.mainsHz} Hz`);
+  parts.push(`hum at ${load.mainsHz} Hz in a field changing ${load.humGradientPerM} % per cm along the strings`);
   return parts.join(', ');
 }
 
 const FOOTNOTES = [
   'resonance: frequency of the loaded peak, 20 Hz-20 kHz ("-" when the response only falls or only rises); peak: its height above 100 Hz;',
   'Q: resonance over its -3 dB bandwidth ("-" when a -3 dB point is outside the band);',
-  `hum: mains hum relative to the mean single coil (floored at ${HUM_FLOOR_DB} dB); hum cancelling: ${HUM_CANCELLING_DB} dB or less.`,
+  `hum dB: mains hum relative to the mean single coil that does not cancel hum, in a field with a gradient (never below ${HUM_FLOOR_DB} dB: the model cannot claim more); hum: cancels (${HUM_CANCELLING_DB} dB or less), reduces (${HUM_REDUCING_DB} dB or less) or noisy.`,
   `level: energy of the "${REFERENCE_PHRASE}" phrase through the wiring relative to the mean single coil; LUFS: its ITU-R BS.1770 loudness; centroid: its spectral centroid (higher is brighter).`,
   'A model of the circuit, not a measurement: choose by ear on the real instrument.',
 ];

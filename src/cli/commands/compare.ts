@@ -6,7 +6,7 @@ import {
   RESONANCE_CHANGE_PERCENT,
   measureGuitarComparison,
 } from '../../analysis/index.js';
-import { type RenderOutcome, defaultOutputRoot, outputFolder, renderGuitar, writeComparisonPage, writeFileAtomic } from '../../render/index.js';
+import { type RenderOutcome, claimOutputFolder, defaultOutputRoot, outputFolder, renderGuitar, writeComparisonPage, writeFileAtomic } from '../../render/index.js';
 import {
   type ComparisonEntry,
   type ComparisonReport,
@@ -16,7 +16,7 @@ import {
 import type { Wiring } from '../../wiring/index.js';
 import { createProgress } from '../progress.js';
 import { COILBENCH_VERSION } from '../version.js';
-import { parseRenderOptions } from './render.js';
+import { listRenderedFiles, parseRenderOptions, shownPath } from './render.js';
 import { InputError, type InputProblem, problemAt } from '../../errors/index.js';
 import type { Guitar } from '../../guitar/index.js';
 import { type AlikeOptionText, addAlikeOptions, describeThresholds, parseAlikeOptions } from '../alike-options.js';
@@ -25,6 +25,7 @@ import { formatTable } from '../format-table.js';
 import { collectOption } from '../collect-option.js';
 import type { Io } from '../io.js';
 import { readGuitarFile } from '../read-guitar.js';
+import { maxOf, appendAll } from '../../math/index.js';
 
 interface CompareOptions extends CircuitOptionText, AlikeOptionText {
   readonly map: string[];
@@ -33,6 +34,7 @@ interface CompareOptions extends CircuitOptionText, AlikeOptionText {
   readonly output?: string;
   readonly chain?: string;
   readonly phrase?: string;
+  readonly force?: boolean;
 }
 
 /** Mark of a difference at or above its threshold in the table. */
@@ -125,7 +127,7 @@ function renderComparisonText(comparison: GuitarComparison, label: string): stri
     { title: 'distance', value: (w) => `${w.distance.toFixed(2)}×`, align: 'right' },
     { title: 'heard', value: (w) => (w.audible ? 'yes' : '') },
   ]);
-  lines.push(...table.trimEnd().split('\n').map((line) => `  ${line}`));
+  appendAll(lines, table.trimEnd().split('\n').map((line) => `  ${line}`));
   return `${lines.join('\n')}\n`;
 }
 
@@ -140,6 +142,7 @@ export function registerCompare(program: Command, io: Io): void {
     .option('--json', 'print one JSON document on stdout')
     .option('--render', 'render every matched wiring on every set, and a comparison page to switch between sets while playing (default folder renders/<guitar>-compared)')
     .option('-o, --output <dir>', 'folder for --render')
+    .option('--force', 'with --render: write into a folder coilbench did not make, replacing only the files coilbench writes')
     .option('--chain <chain>', 'effects chain for --render: direct, clean, drive or compressed (default clean)')
     .option('--phrase <phrase>', 'what the strings play for --render: open-strings, strum, riff or a phrase file (default strum)');
   addAlikeOptions(addCircuitOptions(command)).action(async (fileA: string, fileB: string, more: string[], options: CompareOptions) => {
@@ -151,7 +154,7 @@ export function registerCompare(program: Command, io: Io): void {
         guitars.push(readGuitarFile(file, io.cwd));
       } catch (error) {
         if (!(error instanceof InputError)) throw error;
-        problems.push(...error.problems);
+        appendAll(problems, error.problems);
       }
     }
     if (problems.length > 0) throw new InputError(problems);
@@ -204,6 +207,7 @@ export function registerCompare(program: Command, io: Io): void {
     });
     io.stdout(
       'distance: the largest of the level, spectrum and brightness differences over its threshold (1× = just noticeable). ' +
+        'brightness %: the change of the power-weighted band centroid that decides "alike" (docs/distinctness.md), not of the centroid Hz that analyze prints. ' +
         'Figures come from models of the pickups, not measurements: a candidate set is worth trying by ear before you buy and fit it.\n',
     );
     if (options.render) {
@@ -235,46 +239,74 @@ async function renderComparison(base: Guitar, comparisons: readonly GuitarCompar
       return { guitar: comparison.candidate.guitar, all: comparison.candidate.wirings, selected: [...selected].sort((a, b) => a.number - b.number) };
     }),
   ];
-  const progress = createProgress(io);
-  const outcomes: RenderOutcome[] = [];
-  const sounds: Array<Parameters<typeof writeComparisonPage>[2][number]> = [];
-  for (const [index, set] of sets.entries()) {
-    const parsed = parseRenderOptions(
-      { chain: options.chain, phrase: options.phrase, volume: options.volume, tone: options.tone, cable: options.cable, mains: options.mains },
+  // Every set's options are checked before the folder is claimed or anything is written.
+  const parsedSets = sets.map((set) =>
+    parseRenderOptions(
+      { chain: options.chain, phrase: options.phrase, volume: options.volume, tone: options.tone, cable: options.cable, mains: options.mains, output: options.output },
       set.guitar,
       set.all,
       io,
-    );
-    io.stderr(`coilbench: rendering ${setLabel(index)} (${files[index] ?? set.guitar.name}): ${set.selected.length} wirings\n`);
-    outcomes.push(
-      await renderGuitar(
-        {
-          guitar: set.guitar,
-          all: set.all,
-          selected: set.selected,
-          phrase: parsed.phrase,
-          chain: parsed.chain,
-          sampleRateHz: parsed.sampleRateHz,
-          format: parsed.format,
-          level: 'true',
-          hum: null,
-          overrides: parsed.overrides,
-          seed: parsed.seed,
-          folder: outputFolder(join(root, setFolder(index))),
-          generator: `coilbench ${COILBENCH_VERSION}`,
-          thresholds: first.thresholds,
-        },
-        { onStage: (stage, total) => progress.stage(stage, total), onStep: (done, total) => progress.step(done, total) },
+    ),
+  );
+  const claim = claimOutputFolder({
+    root,
+    shownAs: shownPath(io, root),
+    force: options.force === true,
+    namedAfterGuitar: options.output === undefined,
+    ownNames: ['index.html', 'comparison.json', ...sets.map((_, index) => setFolder(index))],
+    purpose: {
+      guitar: `${base.name} compared`,
+      guitarFile: files.join(', '),
+      generator: `coilbench ${COILBENCH_VERSION}`,
+      settings: { chain: parsedSets[0]?.chain, phrase: parsedSets[0]?.phrase.name, sets: files },
+    },
+    note: (line) => io.stderr(`coilbench: ${line}\n`),
+  });
+  const progress = createProgress(io);
+  const outcomes: RenderOutcome[] = [];
+  const sounds: Array<Parameters<typeof writeComparisonPage>[2][number]> = [];
+  try {
+    for (const [index, set] of sets.entries()) {
+      const parsed = parsedSets[index] as (typeof parsedSets)[number];
+      io.stderr(`coilbench: rendering ${setLabel(index)} (${files[index] ?? set.guitar.name}): ${set.selected.length} wirings\n`);
+      outcomes.push(
+        await renderGuitar(
+          {
+            guitar: set.guitar,
+            all: set.all,
+            selected: set.selected,
+            phrase: parsed.phrase,
+            chain: parsed.chain,
+            sampleRateHz: parsed.sampleRateHz,
+            format: parsed.format,
+            level: 'true',
+            hum: null,
+            overrides: parsed.overrides,
+            seed: parsed.seed,
+            folder: outputFolder(join(root, setFolder(index))),
+            generator: `coilbench ${COILBENCH_VERSION}`,
+            thresholds: first.thresholds,
+          },
+          { onStage: (stage, total) => progress.stage(stage, total), onStep: (done, total) => progress.step(done, total) },
+        ),
+      );
+      sounds.push({ guitar: set.guitar, phrase: parsed.phrase, sampleRateHz: parsed.sampleRateHz, seed: parsed.seed, overrides: parsed.overrides, hum: null, chain: parsed.chain });
+    }
+    progress.finish();
+    const report = comparisonReport(comparisons, sets, outcomes);
+    const folder = outputFolder(root);
+    await writeFileAtomic(join(root, 'comparison.json'), `${JSON.stringify(report, null, 2)}\n`);
+    await writeComparisonPage(folder.page, report, sounds);
+    claim.finish(
+      outcomes.flatMap((outcome, index) =>
+        listRenderedFiles(outputFolder(join(root, setFolder(index))), outcome).map((path) => `${setFolder(index)}/${path}`),
       ),
     );
-    sounds.push({ guitar: set.guitar, phrase: parsed.phrase, sampleRateHz: parsed.sampleRateHz, seed: parsed.seed, overrides: parsed.overrides, hum: null, chain: parsed.chain });
+    return { root, page: folder.page };
+  } catch (error) {
+    claim.abandon();
+    throw error;
   }
-  progress.finish();
-  const report = comparisonReport(comparisons, sets, outcomes);
-  const folder = outputFolder(root);
-  await writeFileAtomic(join(root, 'comparison.json'), `${JSON.stringify(report, null, 2)}\n`);
-  await writeComparisonPage(folder.page, report, sounds);
-  return { root, page: folder.page };
 }
 
 /** The data of the comparison page: entries per set (figures on the baseline's scale) and rows, biggest change first. */
@@ -341,7 +373,7 @@ function comparisonReport(
       })),
     });
   }
-  const largest = (row: ComparisonRow): number => Math.max(...row.differences.map((difference) => difference.distance));
+  const largest = (row: ComparisonRow): number => maxOf(row.differences.map((difference) => difference.distance));
   rows.sort((a, b) => largest(b) - largest(a) || a.number - b.number);
   return {
     generator: `coilbench ${COILBENCH_VERSION}`,

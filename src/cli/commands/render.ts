@@ -1,6 +1,6 @@
 import { existsSync } from 'node:fs';
 import { readFileSync } from 'node:fs';
-import { relative, resolve } from 'node:path';
+import { join, relative, resolve, sep } from 'node:path';
 import type { Command } from 'commander';
 import { InputError, type InputProblem, problemAt } from '../../errors/index.js';
 import type { Guitar } from '../../guitar/index.js';
@@ -8,16 +8,22 @@ import {
   CHAIN_NAMES,
   type ChainName,
   type HumMix,
+  type OutputFolder,
   type RenderOutcome,
   WAV_FORMATS,
   type WavFormat,
+  REFERENCE_PHRASE,
+  claimOutputFolder,
   defaultOutputRoot,
   describeChain,
   outputFolder,
+  ownNamesOf,
+  netlistFileName,
   renderGuitar,
   writeFileAtomic,
 } from '../../render/index.js';
-import { BUILT_IN_PHRASES, type BuiltInPhraseName, type Phrase, builtInPhrase, parsePhrase } from '../../string/index.js';
+import { resolveCircuitLoad } from '../../circuit/index.js';
+import { BUILT_IN_PHRASES, type BuiltInPhraseName, type Phrase, builtInPhrase, checkPhraseFits, parsePhrase } from '../../string/index.js';
 import { QuantityError, parseQuantity } from '../../units/index.js';
 import { type Wiring, enumerateWirings, findWiring, vocabularyOf } from '../../wiring/index.js';
 import { type AlikeOptionText, addAlikeOptions, parseAlikeOptions } from '../alike-options.js';
@@ -29,6 +35,7 @@ import { renderCsv, renderMarkdownTable } from '../metric-columns.js';
 import { createProgress } from '../progress.js';
 import { readGuitarFile } from '../read-guitar.js';
 import { COILBENCH_VERSION } from '../version.js';
+import { appendAll } from '../../math/index.js';
 
 /** Sample rates a file may be written at, Hz (common practice for audio files). */
 export const SAMPLE_RATES_HZ: readonly number[] = Object.freeze([44_100, 48_000, 88_200, 96_000]);
@@ -52,6 +59,7 @@ export interface RenderOptionText extends CircuitOptionText, AlikeOptionText {
   readonly hum?: string;
   readonly humLevel?: string;
   readonly seed?: string;
+  readonly force?: boolean;
   /** False with --no-wav. */
   readonly wav?: boolean;
 }
@@ -69,6 +77,7 @@ export function addRenderOptions(command: Command): Command {
       .option('--hum <hz>', 'mix mains hum at 50 or 60 Hz into every file, through each wiring\'s own hum pickup')
       .option('--hum-level <volts>', `peak hum EMF in a nominal coil with --hum, like "5mV" (default ${DEFAULT_HUM_EMF_V * 1000} mV)`)
       .option('--seed <n>', 'seed of the pluck noise (default 1)')
+      .option('--force', 'write into a folder coilbench did not make, replacing only the files coilbench writes (index.html, report.*, wirings.csv, wav/, netlists/)')
       .option('--no-wav', 'write only the listening page, netlists and reports (the page plays every wiring without the WAV files)'),
   ));
 }
@@ -98,11 +107,43 @@ function readPhrase(text: string | undefined, guitar: Guitar, io: Io, problems: 
     return parsePhrase(readFileSync(path, 'utf8'), name, guitar.strings.length);
   } catch (error) {
     if (error instanceof InputError) {
-      problems.push(...error.problems);
+      appendAll(problems, error.problems);
       return undefined;
     }
     throw error;
   }
+}
+
+/**
+ * What would make a render refuse part-way, checked before anything is
+ * written: the volume at 0 (every file silent), a note the strings cannot
+ * play (the file phrase, and the reference strum every render measures),
+ * a cable or knob the circuit does not take.
+ */
+function refusalsBeforeWriting(guitar: Guitar, phrase: Phrase, overrides: ReturnType<typeof parseCircuitOptions>): InputProblem[] {
+  const problems: InputProblem[] = [];
+  const collect = (check: () => void): void => {
+    try {
+      check();
+    } catch (error) {
+      if (!(error instanceof InputError)) throw error;
+      for (const problem of error.problems) problems.push(problem);
+    }
+  };
+  collect(() => {
+    if (resolveCircuitLoad(guitar, overrides).silent) {
+      problems.push(
+        problemAt(
+          overrides.volumeSetting === undefined ? 'controls.volume.setting' : '--volume',
+          'a volume setting above 0 to render (at 0 the wiper shorts the output and every wiring is silent; `analyze` still gives the circuit figures)',
+          0,
+        ),
+      );
+    }
+  });
+  collect(() => checkPhraseFits(guitar, phrase));
+  if (phrase.name !== REFERENCE_PHRASE) collect(() => checkPhraseFits(guitar, builtInPhrase(REFERENCE_PHRASE, guitar.strings.length)));
+  return problems;
 }
 
 /** Validate every render option at once; throws InputError listing each problem. */
@@ -147,9 +188,13 @@ export function parseRenderOptions(options: RenderOptionText, guitar: Guitar, al
       if (!selected.includes(wiring)) selected.push(wiring);
     } catch (error) {
       if (!(error instanceof InputError)) throw error;
-      problems.push(...error.problems);
+      appendAll(problems, error.problems);
     }
   }
+  if (options.output !== undefined && options.output.trim() === '') {
+    problems.push(problemAt('--output', 'a folder name (-o . is the working folder)', options.output));
+  }
+  if (problems.length === 0) appendAll(problems, refusalsBeforeWriting(guitar, phrase as Phrase, overrides));
   if (problems.length > 0) throw new InputError(problems);
   selected.sort((a, b) => a.number - b.number);
   return {
@@ -172,6 +217,70 @@ export async function runRender(file: string, guitar: Guitar, options: RenderOpt
   const parsed = parseRenderOptions(options, guitar, all, io);
   const root = resolve(io.cwd, options.output ?? defaultRoot ?? defaultOutputRoot('.', guitar.name));
   const folder = outputFolder(root);
+  const claim = claimOutputFolder({
+    root,
+    shownAs: shownPath(io, root),
+    force: options.force === true,
+    namedAfterGuitar: options.output === undefined,
+    ownNames: ownNamesOf({ ...folder }),
+    purpose: {
+      guitar: guitar.name,
+      guitarFile: file,
+      generator: `coilbench ${COILBENCH_VERSION}`,
+      settings: renderSettingsRecord(parsed),
+    },
+    note: (line) => io.stderr(`coilbench: ${line}\n`),
+  });
+  try {
+    const result = await renderIntoFolder(file, guitar, parsed, folder, all, io, options.wav !== false);
+    claim.finish(listRenderedFiles(folder, result.outcome));
+    return { ...result, root };
+  } catch (error) {
+    claim.abandon();
+    throw error;
+  }
+}
+
+/** The settings a folder's marker records. */
+function renderSettingsRecord(parsed: ParsedRenderOptions): Record<string, unknown> {
+  return {
+    phrase: parsed.phrase.name,
+    chain: parsed.chain,
+    sampleRateHz: parsed.sampleRateHz,
+    format: parsed.format,
+    level: parsed.level,
+    hum: parsed.hum,
+    seed: parsed.seed,
+    overrides: parsed.overrides,
+    wirings: parsed.selected.length,
+  };
+}
+
+/** The files of a finished render inside wav/ and netlists/, relative to its folder ("/"-separated). */
+export function listRenderedFiles(folder: OutputFolder, outcome: RenderOutcome): string[] {
+  const files: string[] = [];
+  for (const row of outcome.rows) {
+    if (row.wav !== null) files.push(row.wav);
+    files.push(relative(folder.root, join(folder.netlistFolder, netlistFileName(row.wiring))).split(sep).join('/'));
+  }
+  return files;
+}
+
+/** How a folder is named in messages: relative to the working folder when inside it. */
+export function shownPath(io: Io, root: string): string {
+  const nearby = relative(io.cwd, root);
+  return nearby === '' ? '.' : nearby.startsWith('..') ? root : nearby;
+}
+
+async function renderIntoFolder(
+  file: string,
+  guitar: Guitar,
+  parsed: ParsedRenderOptions,
+  folder: OutputFolder,
+  all: readonly Wiring[],
+  io: Io,
+  writeWav: boolean,
+): Promise<{ outcome: RenderOutcome; seconds: number }> {
   const progress = createProgress(io);
   const started = performance.now();
   const outcome = await renderGuitar(
@@ -190,11 +299,11 @@ export async function runRender(file: string, guitar: Guitar, options: RenderOpt
       folder,
       generator: `coilbench ${COILBENCH_VERSION}`,
       thresholds: parsed.thresholds,
-      writeWav: options.wav !== false,
+      writeWav,
     },
     { onStage: (stage, total) => progress.stage(stage, total), onStep: (done, total) => progress.step(done, total) },
   );
-  const groupOf = new Map(all.map((wiring, index) => [wiring.id, outcome.distinct.groups.groupOf[index] ?? null]));
+  const groupOf = new Map(outcome.scope.map((wiring, index) => [wiring.id, outcome.distinct.groups.groupOf[index] ?? null]));
   const tableRows = outcome.rows.map((row) => ({
     wiring: row.wiring,
     circuit: row.circuit,
@@ -206,17 +315,16 @@ export async function runRender(file: string, guitar: Guitar, options: RenderOpt
   const caution =
     '\nRenders are models of the circuit and strings: make the final choice by ear on the real instrument. Start playback at a low volume. ' +
     'When you solder, use an iron stand, ventilate and wash your hands afterwards, check continuity with a meter before closing up, and never open an amplifier (its capacitors can hold a lethal charge).\n';
-  const groups = `\n${renderGroupSummary(all, outcome.distinct, true)}`;
+  const groups = `\n${renderGroupSummary(outcome.scope, outcome.distinct, true)}`;
   await writeFileAtomic(folder.reportMarkdown, `${heading}${renderMarkdownTable(tableRows)}${groups}${caution}`);
   progress.finish();
   const seconds = (performance.now() - started) / 1000;
-  return { outcome, root, seconds };
+  return { outcome, seconds };
 }
 
 /** The summary line and where to look. */
 export function reportRender(io: Io, root: string, outcome: RenderOutcome, seconds: number): void {
-  const nearby = relative(io.cwd, root);
-  const where = nearby === '' ? '.' : nearby.startsWith('..') ? root : nearby;
+  const where = shownPath(io, root);
   const count = outcome.rows.length;
   const level =
     outcome.commonGainDb !== null

@@ -16,9 +16,10 @@ import { formatTable } from '../format-table.js';
 import { collectOption } from '../collect-option.js';
 import type { Io } from '../io.js';
 import { readGuitarFile } from '../read-guitar.js';
-import { defaultOutputRoot } from '../../render/index.js';
+import { defaultOutputRoot, measureWiringAudio } from '../../render/index.js';
 import { reportRender, runRender } from './render.js';
 import { wiringRecord } from './wirings.js';
+import { appendAll } from '../../math/index.js';
 
 interface ShortlistOptions extends CircuitOptionText, AlikeOptionText {
   readonly count?: string;
@@ -29,13 +30,27 @@ interface ShortlistOptions extends CircuitOptionText, AlikeOptionText {
   readonly json?: boolean;
   readonly render?: boolean;
   readonly output?: string;
+  readonly force?: boolean;
   readonly chain?: string;
   readonly phrase?: string;
 }
 
 /** Largest shortlist asked for: a rotary switch has at most a dozen positions (common practice). */
 const MAX_COUNT = 12;
+/** Widest level window accepted, dB (our choice: far wider than any real spread of wirings). */
 const MAX_WINDOW_DB = 60;
+
+/** `--level-window 3` or `4.5dB`: a level spread in dB, or null when not given; a bad value is appended to `problems`. */
+export function parseLevelWindow(text: string | undefined, problems: InputProblem[]): number | null {
+  if (text === undefined) return null;
+  const number = text.trim().replace(/\s*db$/iu, '');
+  const value = Number(number);
+  if (!/^\d*\.?\d+$/u.test(number) || value > MAX_WINDOW_DB) {
+    problems.push(problemAt('--level-window', `a level spread in dB from 0 to ${MAX_WINDOW_DB}, like 3 or 4.5dB`, text));
+    return null;
+  }
+  return value;
+}
 
 const CAUTION =
   'These are models: listen to each on the real instrument before you build. To wire one, `coilbench netlist <guitar> <wiring> --build-sheet` ' +
@@ -59,13 +74,7 @@ function parsePlan(options: ShortlistOptions, guitar: Guitar, wirings: readonly 
     if (!/^\s*\d+\s*$/u.test(options.count) || value < 1 || value > MAX_COUNT) problems.push(problemAt('--count', `a whole number from 1 to ${MAX_COUNT}`, options.count));
     else count = value;
   }
-  let levelWindowDb: number | null = null;
-  if (options.levelWindow !== undefined) {
-    const text = options.levelWindow.trim().replace(/\s*db$/iu, '');
-    const value = Number(text);
-    if (!/^\d*\.?\d+$/u.test(text) || value > MAX_WINDOW_DB) problems.push(problemAt('--level-window', `a level spread in dB from 0 to ${MAX_WINDOW_DB}, like 3 or 4.5dB`, options.levelWindow));
-    else levelWindowDb = value;
-  }
+  const levelWindowDb = parseLevelWindow(options.levelWindow, problems);
   const ids = guitar.elements.map((element) => element.id);
   let elements: number[] | null = null;
   if (options.coils !== undefined) {
@@ -86,7 +95,7 @@ function parsePlan(options: ShortlistOptions, guitar: Guitar, wirings: readonly 
       include.push(findWiring(text, wirings, vocabulary, '--include'));
     } catch (error) {
       if (!(error instanceof InputError)) throw error;
-      problems.push(...error.problems);
+      appendAll(problems, error.problems);
     }
   }
   return { count, humCancelling: options.humCancelling === true, levelWindowDb, include, elements };
@@ -175,6 +184,7 @@ export function registerShortlist(program: Command, io: Io): void {
     .option('--json', 'print one JSON document on stdout')
     .option('--render', 'render just these wirings, with their listening page (default folder renders/<guitar>-shortlist)')
     .option('-o, --output <dir>', 'folder for --render')
+    .option('--force', 'with --render: write into a folder coilbench did not make, replacing only the files coilbench writes')
     .option('--chain <chain>', 'effects chain for --render: direct, clean, drive or compressed (default clean)')
     .option('--phrase <phrase>', 'what the strings play for --render: open-strings, strum, riff or a phrase file (default strum)');
   addAlikeOptions(addCircuitOptions(command)).action(async (file: string, options: ShortlistOptions) => {
@@ -196,13 +206,17 @@ export function registerShortlist(program: Command, io: Io): void {
     const shortlist = solvePlannedShortlist(guitar, wirings, circuit.wirings, distinct, plan);
     const pair = closestPair(shortlist, distinct);
     const { profiles } = distinct;
+    // Brightness is the one figure analyze, reports and the page give: the centroid of the strum render
+    // (docs/design.md, centroidHz), measured for the chosen wirings only (and the single coils levels refer to).
+    const chosen = shortlist.members.map((index) => wirings[index] as Wiring);
+    const audio = measureWiringAudio(guitar, wirings, chosen, overrides);
     const rowOf = (index: number) => {
       const wiring = wirings[index] as Wiring;
       const figures = circuit.wirings[index] as WiringCircuitMetrics;
       return {
         wiring,
         levelDb: profiles.levelsDb[index] as number,
-        brightnessHz: profiles.brightnessHz[index] as number,
+        centroidHz: audio.get(wiring.id)?.centroidHz ?? Number.NaN,
         figures,
         group: distinct.groups.groupOf[index] ?? 0,
       };
@@ -229,7 +243,7 @@ export function registerShortlist(program: Command, io: Io): void {
         wirings: rows.map((row) => ({
           ...wiringRecord(row.wiring),
           levelDb: row.levelDb,
-          brightnessHz: row.brightnessHz,
+          centroidHz: row.centroidHz,
           ...row.figures,
           group: row.group,
         })),
@@ -254,7 +268,7 @@ export function registerShortlist(program: Command, io: Io): void {
         { title: '#', value: (row) => row.wiring.id, align: 'right' },
         { title: 'wiring', value: (row) => row.wiring.expression },
         { title: 'level dB', value: (row) => signed(row.levelDb, 1), align: 'right' },
-        { title: 'brightness Hz', value: (row) => row.brightnessHz.toFixed(0), align: 'right' },
+        { title: 'centroid Hz', value: (row) => row.centroidHz.toFixed(0), align: 'right' },
         { title: 'resonance Hz', value: (row) => (row.figures.resonanceHz === null ? '-' : row.figures.resonanceHz.toFixed(0)), align: 'right' },
         { title: 'hum dB', value: (row) => (row.figures.humDb === null ? '-' : signed(row.figures.humDb, 1)), align: 'right' },
         { title: 'hum cancelling', value: (row) => (row.figures.humCancelling ? 'yes' : '') },
@@ -277,7 +291,7 @@ export function registerShortlist(program: Command, io: Io): void {
     if (shortlist.minDistance < 1) {
       io.stdout(`\nNote: some of these sound alike at these thresholds; fewer than ${plan.count} audibly different wirings meet the constraints.\n`);
     }
-    io.stdout(`\nlevel: relative to the mean single coil; brightness: power-weighted spectral centroid of the strum; group: as in \`coilbench analyze\`.\n${CAUTION}\n`);
+    io.stdout(`\nlevel: relative to the mean single coil; centroid: the spectral centroid of the strum, as in \`coilbench analyze\` (higher is brighter); group: as in \`coilbench analyze\`.\n${CAUTION}\n`);
     if (options.render) {
       const rendered = await renderShortlist(file, guitar, options, rows.map((row) => row.wiring.id), io);
       reportRender(io, rendered.root, rendered.outcome, rendered.seconds);
@@ -287,11 +301,11 @@ export function registerShortlist(program: Command, io: Io): void {
 
 /** Render the chosen wirings into their own folder (a listening page of just these). */
 async function renderShortlist(file: string, guitar: Guitar, options: ShortlistOptions, ids: readonly string[], io: Io) {
-  const { output, chain, phrase, volume, tone, cable, mains, levelThreshold, spectrumThreshold, brightnessThreshold } = options;
+  const { output, force, chain, phrase, volume, tone, cable, mains, levelThreshold, spectrumThreshold, brightnessThreshold } = options;
   return runRender(
     file,
     guitar,
-    { output, chain, phrase, volume, tone, cable, mains, levelThreshold, spectrumThreshold, brightnessThreshold, only: [...ids] },
+    { output, force, chain, phrase, volume, tone, cable, mains, levelThreshold, spectrumThreshold, brightnessThreshold, only: [...ids] },
     io,
     defaultOutputRoot('.', `${guitar.name} shortlist`),
   );

@@ -1,8 +1,9 @@
 import type { Command } from 'commander';
 import { enumerateWirings, type Wiring } from '../../wiring/index.js';
-import { formatTable } from '../format-table.js';
+import { writeTable } from '../format-table.js';
 import type { Io } from '../io.js';
 import { readGuitarFile } from '../read-guitar.js';
+import { writeJson } from '../write-json.js';
 
 /** The `--json` record of a wiring (contract in docs/design.md). */
 export function wiringRecord(wiring: Wiring): Record<string, unknown> {
@@ -26,20 +27,22 @@ export function registerWirings(program: Command, io: Io): void {
       const guitar = readGuitarFile(file, io.cwd);
       const wirings = enumerateWirings(guitar.elements);
       if (options.json) {
-        const document = { guitar: guitar.name, count: wirings.length, wirings: wirings.map(wiringRecord) };
-        io.stdout(`${JSON.stringify(document, null, 2)}\n`);
+        // Written in chunks: six elements give 228,386 wirings.
+        writeJson({ guitar: guitar.name, count: wirings.length, wirings: wirings.map(wiringRecord) }, io.stdout);
         return;
       }
       io.stdout(`${guitar.name}: ${wirings.length} distinct wirings\n\n`);
-      io.stdout(
-        formatTable(wirings, [
+      writeTable(
+        wirings,
+        [
           { title: '#', value: (w) => w.id, align: 'right' },
           { title: 'wiring', value: (w) => w.expression },
           { title: 'coils', value: (w) => String(w.elements.length), align: 'right' },
           { title: 'topology', value: (w) => w.topology },
           { title: 'out of phase', value: (w) => (w.outOfPhase.length > 0 ? w.outOfPhase.join(', ') : '-') },
           { title: 'in words', value: (w) => w.description },
-        ]),
+        ],
+        io.stdout,
       );
     });
 }

@@ -1,0 +1,128 @@
+/**
+ * What users run, timed as they wait for it: each case is a fresh process
+ * running the built command (`node dist/cli.js render …`, `… analyze …`),
+ * timed from start to exit, with the peak memory of that process (GNU time's
+ * maximum resident set size, which covers its worker threads). At least three
+ * runs per case: median and range.
+ *
+ * The five-coil analyze (9,997 wirings) runs only with BENCH_BIG=1.
+ *
+ * Ratios against a reference computation in this process make figures taken
+ * on a busy machine comparable: the reference (inverse FFTs of 2^17 points,
+ * the per-wiring floor of a render) is timed just before each case, and each
+ * case is also given in "reference units" (its wall time ÷ the reference's).
+ */
+import { spawnSync } from 'node:child_process';
+import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { realFft } from '../../src/math/index.js';
+import { heading, line, medianMs } from './timing.js';
+import { fiveCoilGuitarJson } from './guitars.js';
+
+const ROOT = join(import.meta.dirname, '..', '..');
+/** The built command to time (BENCH_CLI: another build, e.g. of an older commit, for before/after figures). */
+const CLI = process.env.BENCH_CLI ?? join(ROOT, 'dist', 'cli.js');
+const GNU_TIME = '/usr/bin/time';
+/** Runs per case (the issue's minimum for a median and range). */
+const RUNS = Number(process.env.BENCH_RUNS ?? 3);
+/** Reference computation: this many inverse FFTs of REFERENCE_SIZE points. */
+const REFERENCE_FFTS = 20;
+const REFERENCE_SIZE = 2 ** 17;
+const KILOBYTES_PER_MEGABYTE = 1024;
+
+interface Run {
+  readonly seconds: number;
+  readonly peakMb: number;
+}
+
+/** Wall time of the reference computation, ms (median of 5). */
+function referenceMs(): number {
+  const fft = realFft(REFERENCE_SIZE);
+  const spectrum = new Float64Array(REFERENCE_SIZE + 2).map((_, index) => Math.sin(index));
+  const out = new Float64Array(REFERENCE_SIZE);
+  return medianMs(() => {
+    for (let i = 0; i < REFERENCE_FFTS; i += 1) fft.inverse(spectrum, out);
+  });
+}
+
+/** One fresh process: `node dist/cli.js …args`, under GNU time. */
+function runOnce(args: readonly string[]): Run {
+  const child = spawnSync(GNU_TIME, ['-f', '%e %M', process.execPath, CLI, ...args], { encoding: 'utf8', maxBuffer: 1 << 28 });
+  if (child.status !== 0) throw new Error(`bench: coilbench ${args.join(' ')} failed (${child.status}): ${child.stderr.slice(-2000)}`);
+  const [seconds, kilobytes] = (child.stderr.trim().split('\n').at(-1) ?? '').split(' ').map(Number);
+  return { seconds: seconds ?? Number.NaN, peakMb: (kilobytes ?? Number.NaN) / KILOBYTES_PER_MEGABYTE };
+}
+
+const median = (values: readonly number[]): number => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)] ?? Number.NaN;
+
+interface Case {
+  readonly label: string;
+  readonly args: (folder: string) => string[];
+  /** Seconds of audio the case writes (null: not a render). */
+  readonly audioSeconds: (folder: string) => number | null;
+}
+
+function runCase(item: Case): void {
+  const reference = referenceMs();
+  const runs: Run[] = [];
+  let audio: number | null = null;
+  for (let i = 0; i < RUNS; i += 1) {
+    const folder = mkdtempSync(join(tmpdir(), 'coilbench-bench-'));
+    try {
+      runs.push(runOnce(item.args(join(folder, 'out'))));
+      audio = item.audioSeconds(join(folder, 'out'));
+    } finally {
+      rmSync(folder, { recursive: true, force: true });
+    }
+  }
+  const seconds = runs.map((run) => run.seconds);
+  const low = Math.min(...seconds);
+  const high = Math.max(...seconds);
+  const mid = median(seconds);
+  const peaks = runs.map((run) => run.peakMb);
+  const rate = audio === null ? '' : `, ${(audio / mid).toFixed(0)}× real time (${(audio / high).toFixed(0)}–${(audio / low).toFixed(0)}×)`;
+  line(
+    item.label,
+    `${mid.toFixed(2)} s (${low.toFixed(2)}–${high.toFixed(2)})${rate}; ${((mid * 1000) / reference).toFixed(1)} ref; peak ${median(peaks).toFixed(0)} MB (${Math.min(...peaks).toFixed(0)}–${Math.max(...peaks).toFixed(0)})`,
+  );
+}
+
+/** Seconds of audio in a render folder: its report's duration × its wirings. */
+function renderedSeconds(folder: string): number {
+  const report = JSON.parse(readFileSync(join(folder, 'report.json'), 'utf8')) as { render: { durationS: number }; wirings: unknown[] };
+  return report.render.durationS * report.wirings.length;
+}
+
+export function benchCommands(): void {
+  if (!existsSync(GNU_TIME)) {
+    heading(`Commands as users run them: skipped (needs GNU time at ${GNU_TIME}: apt-get install time)`);
+    return;
+  }
+  const reference = referenceMs();
+  heading(`Commands as users run them: fresh process \`node dist/cli.js …\`, start to exit, ${RUNS} runs: median (range)`);
+  console.log(`  reference computation in this process: ${REFERENCE_FFTS} inverse FFTs of ${REFERENCE_SIZE} points = ${reference.toFixed(1)} ms ("ref")`);
+  const scratch = mkdtempSync(join(tmpdir(), 'coilbench-bench-guitar-'));
+  const five = join(scratch, 'five-coil.json');
+  writeFileSync(five, fiveCoilGuitarJson());
+  const three = join(ROOT, 'samples', 'three-single-coil.json');
+  const four = join(ROOT, 'samples', 'humbucker-two-single-coil.json');
+  const render = (guitar: string, chain: string): Case['args'] => (folder) => ['render', guitar, '--chain', chain, '-o', folder];
+  const cases: Case[] = [
+    { label: '47 wirings, render direct', args: render(three, 'direct'), audioSeconds: renderedSeconds },
+    { label: '47 wirings, render clean', args: render(three, 'clean'), audioSeconds: renderedSeconds },
+    { label: '47 wirings, render drive', args: render(three, 'drive'), audioSeconds: renderedSeconds },
+    { label: '572 wirings, render direct (2 threads)', args: render(four, 'direct'), audioSeconds: renderedSeconds },
+    { label: '47 wirings, analyze (audio figures included)', args: () => ['analyze', three, '--json'], audioSeconds: () => null },
+    { label: '572 wirings, analyze', args: () => ['analyze', four, '--json'], audioSeconds: () => null },
+  ];
+  // Minutes today: only when asked for (BENCH_BIG=1).
+  if (process.env.BENCH_BIG === '1') cases.push({ label: '9,997 wirings, analyze', args: () => ['analyze', five, '--json'], audioSeconds: () => null });
+  // BENCH_CASES: a regular expression choosing cases by label (e.g. "47 wirings").
+  const only = process.env.BENCH_CASES ? new RegExp(process.env.BENCH_CASES, 'u') : null;
+  try {
+    for (const item of cases) if (!only || only.test(item.label)) runCase(item);
+  } finally {
+    rmSync(scratch, { recursive: true, force: true });
+  }
+}

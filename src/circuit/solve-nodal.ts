@@ -1,0 +1,611 @@
+/**
+ * Each coil's transfer T_i(f) from its string EMF to the amplifier input for
+ * ANY connection of coil leads (a `CircuitGraph`): complex modified nodal
+ * analysis, one small dense system per frequency (docs/physics.md §12).
+ *
+ * Elements (docs/physics.md §1.1 for the coil, circuit-load.ts for the load):
+ * - Each coil: its EMF e in series with its inductive branch Z_b, shunted by
+ *   its self-capacitance across its two leads. The coil model lives in
+ *   prepare-circuit.ts as a Thevenin pair per frequency: k = open-circuit
+ *   voltage / EMF and Z = impedance seen at the leads. The same coil as a
+ *   Norton source (Norton's theorem) is an admittance 1/Z between its leads
+ *   with a current k·e/Z pushed into its finish node, and the split of 1/Z
+ *   into the inductive branch and the shunt is
+ *     Y_b = 1/Z_b = k/Z,  Y_shunt = (1 − k)/Z
+ *   (from k = Y_b/(Y_b + Y_shunt), Z = 1/(Y_b + Y_shunt)). Reading them from
+ *   the prepared pair keeps one coil model for both solvers.
+ * - Coupled coils (coil-coupling.ts): the branch currents i of a group obey
+ *     (v_s − v_f) + e = Z_g·i,  Z_g = diag(Z_b) + jω·M
+ *   so i = Y_g·((v_s − v_f) + e) with Y_g = Z_g⁻¹, a symmetric admittance
+ *   block stamped between the leads (the coupled-inductor stamp).
+ * - The load: Y_h from hot to ground (tone branch), Y_ho from hot to out
+ *   (volume track above the wiper, treble bleed), Y_o from out to ground
+ *   (track below the wiper, cable, amplifier). With the volume fully up, out
+ *   is hot.
+ *
+ * Kirchhoff's current law at every node that is not grounded gives
+ * A·v = Σ_i b_i·e_i with A symmetric (a reciprocal network). The output is
+ * v_out = u_outᵀ·A⁻¹·b_i·e_i, so one solve of A·x = u_out (A = Aᵀ) gives every
+ * coil's transfer T_i = xᵀ·b_i (the adjoint method). Dense complex Gaussian
+ * elimination with partial pivoting; the systems have a handful of nodes.
+ *
+ * Conventions as solveTransfers (solve-transfers.ts, coil-signs.ts): the
+ * string EMF from start to finish is w·m·E_i, so T_i includes the sign w·m
+ * and the orientation in which the graph places the coil.
+ *
+ * Nodes that only floating leads touch, and parts of the circuit with no
+ * conductive path to ground, carry no current to the output: each such part
+ * gets one node fixed at 0 V (its potential is arbitrary), so a floating coil
+ * contributes nothing, while a closed loop of coils elsewhere still acts on a
+ * coil it is magnetically coupled to.
+ */
+import type { Coil } from '../guitar/index.js';
+import type { CircuitGraph } from './circuit-graph.js';
+import { magnetSign, windingSign } from './coil-signs.js';
+import { type CoilCoupling, coilCouplings } from './coil-coupling.js';
+import type { PreparedCircuit } from './prepare-circuit.js';
+
+const TWO_PI = 2 * Math.PI;
+
+/** One coil as the solver stamps it. */
+interface ActiveCoil {
+  readonly coil: number;
+  /** Unknown index of the start and finish nodes, −1 when fixed at 0 V. */
+  readonly start: number;
+  readonly finish: number;
+  /** w·m: sign of the string EMF from start to finish. */
+  readonly stringSign: number;
+  /** Index of its coupling group, −1 when it is coupled to nothing present. */
+  readonly group: number;
+  /** Its row in the group's admittance block. */
+  readonly slot: number;
+}
+
+interface CouplingGroup {
+  /** Positions in the active-coil list. */
+  readonly members: readonly number[];
+  /** Mutual inductance M_jk in henries, g×g row-major, zero diagonal. */
+  readonly mutualH: Float64Array;
+  /** Branch admittance Y_g per frequency, g×g complex (interleaved), refilled per frequency. */
+  readonly admittance: Float64Array;
+  /** Scratch for the inversion: g×2g complex, then a g×g work matrix and a column. */
+  readonly scratch: Float64Array;
+}
+
+/** Buffers reused from call to call (grown when a bigger system comes along). */
+interface NodalWorkspace {
+  matrix: Float64Array;
+  rhs: Float64Array;
+}
+
+const workspaces = new WeakMap<PreparedCircuit, NodalWorkspace>();
+
+function workspaceFor(prepared: PreparedCircuit, unknowns: number): NodalWorkspace {
+  let workspace = workspaces.get(prepared);
+  if (workspace === undefined || workspace.rhs.length < 2 * unknowns) {
+    workspace = { matrix: new Float64Array(2 * unknowns * unknowns), rhs: new Float64Array(2 * unknowns) };
+    workspaces.set(prepared, workspace);
+  }
+  return workspace;
+}
+
+/** Union–find root with path halving. */
+function root(parent: Int32Array, node: number): number {
+  let n = node;
+  while (parent[n] !== n) {
+    const up = parent[parent[n] as number] as number;
+    parent[n] = up;
+    n = up;
+  }
+  return n;
+}
+
+function checkNode(graph: CircuitGraph, value: number | null, what: string): void {
+  if (value === null) return;
+  if (!Number.isInteger(value) || value < 0 || value >= graph.nodeCount) {
+    throw new RangeError(`solveNodalTransfers: ${what} must be a node from 0 to ${graph.nodeCount - 1}, got ${value}`);
+  }
+}
+
+/** The structure of one graph on one guitar: which unknown each node is, the coils and coupling groups. */
+interface NodalPlan {
+  readonly unknowns: number;
+  readonly hot: number;
+  /** Unknown index of the output node (equal to `hot` with the volume fully up). */
+  readonly out: number;
+  readonly coils: readonly ActiveCoil[];
+  readonly groups: readonly CouplingGroup[];
+  /** Per active coil, its branch admittance Y_b at the frequency being solved (complex, scratch). */
+  readonly branch: Float64Array;
+  /** Per active coil, x_finish − x_start of the adjoint solution (complex, scratch). */
+  readonly drop: Float64Array;
+}
+
+/**
+ * How the load enters a plan: "loaded" hangs the controls off hot (with out a
+ * node of its own when the volume is not fully up); "coils" leaves them off,
+ * to read the coils' own impedance between hot and ground.
+ */
+type PlanMode = 'loaded' | 'loaded-bridged' | 'coils';
+
+/** Plans already made, by graph (a plan depends on the guitar and the mode). */
+const plans = new WeakMap<CircuitGraph, { readonly guitar: PreparedCircuit['guitar']; readonly mode: PlanMode; readonly plan: NodalPlan | null }>();
+
+function planFor(prepared: PreparedCircuit, graph: CircuitGraph, withLoad: boolean): NodalPlan | null {
+  const mode: PlanMode = !withLoad ? 'coils' : prepared.bridgeAdmittance === null ? 'loaded' : 'loaded-bridged';
+  const known = plans.get(graph);
+  if (known !== undefined && known.guitar === prepared.guitar && known.mode === mode) return known.plan;
+  const plan = planGraph(prepared, graph, mode);
+  plans.set(graph, { guitar: prepared.guitar, mode, plan });
+  return plan;
+}
+
+function planGraph(prepared: PreparedCircuit, graph: CircuitGraph, mode: PlanMode): NodalPlan | null {
+  const guitar = prepared.guitar;
+  if (!Number.isInteger(graph.nodeCount) || graph.nodeCount < 1) {
+    throw new RangeError(`solveNodalTransfers: nodeCount must be a positive integer, got ${graph.nodeCount}`);
+  }
+  checkNode(graph, graph.hot, 'hot');
+  checkNode(graph, graph.ground, 'ground');
+  const seen = new Set<number>();
+  for (const placed of graph.coils) {
+    if (!Number.isInteger(placed.coil) || guitar.coils[placed.coil] === undefined) {
+      throw new RangeError(`solveNodalTransfers: no coil ${placed.coil} in this guitar`);
+    }
+    if (seen.has(placed.coil)) throw new RangeError(`solveNodalTransfers: coil ${placed.coil} placed twice`);
+    seen.add(placed.coil);
+    checkNode(graph, placed.start, `coil ${placed.coil} start`);
+    checkNode(graph, placed.finish, `coil ${placed.coil} finish`);
+  }
+  if (graph.hot === graph.ground) return null;
+
+  // A coil with a floating lead carries no current: it is left out.
+  const connected = graph.coils.filter((placed) => placed.start !== null && placed.finish !== null);
+  // Conductive parts: coils join their leads' nodes; the load joins hot to ground.
+  const parent = Int32Array.from({ length: graph.nodeCount }, (_, n) => n);
+  const join = (a: number, b: number): void => {
+    const ra = root(parent, a);
+    const rb = root(parent, b);
+    if (ra !== rb) parent[ra] = rb;
+  };
+  if (mode !== 'coils') join(graph.hot, graph.ground);
+  for (const placed of connected) join(placed.start as number, placed.finish as number);
+  // The coils alone: hot with no path to ground is an open circuit.
+  if (mode === 'coils' && root(parent, graph.hot) !== root(parent, graph.ground)) return null;
+  // Fixed at 0 V: ground, and one node of every part with no path to ground.
+  const fixed = new Uint8Array(graph.nodeCount);
+  fixed[graph.ground] = 1;
+  const groundRoot = root(parent, graph.ground);
+  for (let n = 0; n < graph.nodeCount; n += 1) if (n === root(parent, n) && n !== groundRoot) fixed[n] = 1;
+  // Nodes no connected coil touches (other than hot) have no equation: fix them too.
+  const touched = new Uint8Array(graph.nodeCount);
+  touched[graph.hot] = 1;
+  for (const placed of connected) {
+    touched[placed.start as number] = 1;
+    touched[placed.finish as number] = 1;
+  }
+  const unknownOf = new Int32Array(graph.nodeCount).fill(-1);
+  let unknowns = 0;
+  for (let n = 0; n < graph.nodeCount; n += 1) {
+    if (fixed[n] === 0 && touched[n] === 1) {
+      unknownOf[n] = unknowns;
+      unknowns += 1;
+    }
+  }
+  const hot = unknownOf[graph.hot] as number;
+  const out = mode === 'loaded-bridged' ? unknowns : hot;
+  if (mode === 'loaded-bridged') unknowns += 1;
+
+  // Coupling groups among the coils present (connected components of the coupling pairs).
+  const position = new Map<number, number>();
+  connected.forEach((placed, k) => position.set(placed.coil, k));
+  const couplings = coilCouplings(guitar).filter((pair) => position.has(pair.first) && position.has(pair.second));
+  const groupParent = Int32Array.from({ length: connected.length }, (_, k) => k);
+  for (const pair of couplings) {
+    const a = root(groupParent, position.get(pair.first) as number);
+    const b = root(groupParent, position.get(pair.second) as number);
+    if (a !== b) groupParent[a] = b;
+  }
+  const groupOfRoot = new Map<number, number>();
+  const memberLists: number[][] = [];
+  for (const pair of couplings) {
+    const r = root(groupParent, position.get(pair.first) as number);
+    if (!groupOfRoot.has(r)) {
+      groupOfRoot.set(r, memberLists.length);
+      memberLists.push([]);
+    }
+  }
+  connected.forEach((_, k) => {
+    const g = groupOfRoot.get(root(groupParent, k));
+    if (g !== undefined) (memberLists[g] as number[]).push(k);
+  });
+  const groups = memberLists.map((members) => makeGroup(guitar.coils, connected.map((placed) => placed.coil), members, couplings));
+  const coils = connected.map((placed, k): ActiveCoil => {
+    const coil = guitar.coils[placed.coil] as Coil;
+    return {
+      coil: placed.coil,
+      start: unknownOf[placed.start as number] as number,
+      finish: unknownOf[placed.finish as number] as number,
+      stringSign: windingSign(coil.winding) * magnetSign(coil.magnet),
+      group: groupOfRoot.get(root(groupParent, k)) ?? -1,
+      slot: memberLists[groupOfRoot.get(root(groupParent, k)) ?? -1]?.indexOf(k) ?? -1,
+    };
+  });
+  return { unknowns, hot, out, coils, groups, branch: new Float64Array(2 * coils.length), drop: new Float64Array(2 * coils.length) };
+}
+
+function makeGroup(
+  coils: readonly Coil[],
+  coilAt: readonly number[],
+  members: readonly number[],
+  couplings: readonly CoilCoupling[],
+): CouplingGroup {
+  const size = members.length;
+  const mutualH = new Float64Array(size * size);
+  const slot = new Map<number, number>();
+  members.forEach((member, j) => slot.set(coilAt[member] as number, j));
+  for (const pair of couplings) {
+    const a = slot.get(pair.first);
+    const b = slot.get(pair.second);
+    if (a === undefined || b === undefined) continue;
+    const first = coils[pair.first] as Coil;
+    const second = coils[pair.second] as Coil;
+    const mutual = pair.sign * pair.coefficient * Math.sqrt(first.inductanceH * second.inductanceH);
+    mutualH[a * size + b] = mutual;
+    mutualH[b * size + a] = mutual;
+  }
+  return { members, mutualH, admittance: new Float64Array(2 * size * size), scratch: new Float64Array(6 * size * size + 2 * size) };
+}
+
+/** A[row][col] += (re, im); a fixed node (−1) has no row or column. */
+function add(matrix: Float64Array, n: number, row: number, col: number, re: number, im: number): void {
+  if (row < 0 || col < 0) return;
+  const at = 2 * (row * n + col);
+  matrix[at] = (matrix[at] as number) + re;
+  matrix[at + 1] = (matrix[at + 1] as number) + im;
+}
+
+/** The two-terminal stamp of an admittance Y between nodes a and b. */
+function stampAdmittance(matrix: Float64Array, n: number, a: number, b: number, re: number, im: number): void {
+  add(matrix, n, a, a, re, im);
+  add(matrix, n, b, b, re, im);
+  add(matrix, n, a, b, -re, -im);
+  add(matrix, n, b, a, -re, -im);
+}
+
+/**
+ * Invert the g×g complex matrix held in the left half of `scratch` (g rows of
+ * 2g complex entries) into `target`, one column at a time with `solveDense`
+ * (`scratch` holds a work matrix and a column after the g×2g rows). For
+ * groups of three or more coupled coils; two use `invertTwo`.
+ */
+function invertSmall(scratch: Float64Array, size: number, target: Float64Array): void {
+  const width = 2 * size;
+  const matrixEnd = 4 * size * size;
+  const work = scratch.subarray(matrixEnd, matrixEnd + 2 * size * size);
+  const column = scratch.subarray(matrixEnd + 2 * size * size, matrixEnd + 2 * size * size + 2 * size);
+  for (let c = 0; c < size; c += 1) {
+    for (let r = 0; r < size; r += 1) {
+      for (let k = 0; k < size; k += 1) {
+        work[2 * (r * size + k)] = scratch[2 * (r * width + k)] as number;
+        work[2 * (r * size + k) + 1] = scratch[2 * (r * width + k) + 1] as number;
+      }
+    }
+    column.fill(0);
+    column[2 * c] = 1;
+    solveDense(work, column, size);
+    for (let r = 0; r < size; r += 1) {
+      target[2 * (r * size + c)] = column[2 * r] as number;
+      target[2 * (r * size + c) + 1] = column[2 * r + 1] as number;
+    }
+  }
+}
+
+function swapRows(matrix: Float64Array, width: number, a: number, b: number): void {
+  for (let c = 0; c < 2 * width; c += 1) {
+    const x = 2 * a * width + c;
+    const y = 2 * b * width + c;
+    const t = matrix[x] as number;
+    matrix[x] = matrix[y] as number;
+    matrix[y] = t;
+  }
+}
+
+/**
+ * Solve A·x = rhs in place (A n×n complex, row-major, destroyed; x written
+ * over rhs) by Gaussian elimination with partial pivoting. Throws when A is
+ * singular, which a graph of positive impedances never is.
+ */
+function solveDense(matrix: Float64Array, rhs: Float64Array, n: number): void {
+  for (let col = 0; col < n; col += 1) {
+    let pivot = col;
+    let best = -1;
+    for (let r = col; r < n; r += 1) {
+      const at = 2 * (r * n + col);
+      const magnitude = Math.abs(matrix[at] as number) + Math.abs(matrix[at + 1] as number);
+      if (magnitude > best) {
+        best = magnitude;
+        pivot = r;
+      }
+    }
+    if (!(best > 0)) throw new RangeError('solveNodalTransfers: singular nodal matrix');
+    if (pivot !== col) {
+      swapRows(matrix, n, pivot, col);
+      const t0 = rhs[2 * pivot] as number;
+      const t1 = rhs[2 * pivot + 1] as number;
+      rhs[2 * pivot] = rhs[2 * col] as number;
+      rhs[2 * pivot + 1] = rhs[2 * col + 1] as number;
+      rhs[2 * col] = t0;
+      rhs[2 * col + 1] = t1;
+    }
+    const pAt = 2 * (col * n + col);
+    const pr = matrix[pAt] as number;
+    const pi = matrix[pAt + 1] as number;
+    const pn = pr * pr + pi * pi;
+    const ir = pr / pn;
+    const ii = -pi / pn;
+    for (let r = col + 1; r < n; r += 1) {
+      const fAt = 2 * (r * n + col);
+      const ar = matrix[fAt] as number;
+      const ai = matrix[fAt + 1] as number;
+      if (ar === 0 && ai === 0) continue;
+      const fr = ar * ir - ai * ii; // factor = A[r][col] / pivot
+      const fi = ar * ii + ai * ir;
+      for (let c = col + 1; c < n; c += 1) {
+        const src = 2 * (col * n + c);
+        const dst = 2 * (r * n + c);
+        const sr = matrix[src] as number;
+        const si = matrix[src + 1] as number;
+        matrix[dst] = (matrix[dst] as number) - (fr * sr - fi * si);
+        matrix[dst + 1] = (matrix[dst + 1] as number) - (fr * si + fi * sr);
+      }
+      const br = rhs[2 * col] as number;
+      const bi = rhs[2 * col + 1] as number;
+      rhs[2 * r] = (rhs[2 * r] as number) - (fr * br - fi * bi);
+      rhs[2 * r + 1] = (rhs[2 * r + 1] as number) - (fr * bi + fi * br);
+    }
+  }
+  for (let r = n - 1; r >= 0; r -= 1) {
+    let sr = rhs[2 * r] as number;
+    let si = rhs[2 * r + 1] as number;
+    for (let c = r + 1; c < n; c += 1) {
+      const at = 2 * (r * n + c);
+      const ar = matrix[at] as number;
+      const ai = matrix[at + 1] as number;
+      const xr = rhs[2 * c] as number;
+      const xi = rhs[2 * c + 1] as number;
+      sr -= ar * xr - ai * xi;
+      si -= ar * xi + ai * xr;
+    }
+    const pAt = 2 * (r * n + r);
+    const pr = matrix[pAt] as number;
+    const pi = matrix[pAt + 1] as number;
+    const pn = pr * pr + pi * pi;
+    rhs[2 * r] = (sr * pr + si * pi) / pn;
+    rhs[2 * r + 1] = (si * pr - sr * pi) / pn;
+  }
+}
+
+/** x_a − x_b, with a fixed node (−1) at 0 V. */
+function difference(x: Float64Array, a: number, b: number, part: 0 | 1): number {
+  return (a < 0 ? 0 : (x[2 * a + part] as number)) - (b < 0 ? 0 : (x[2 * b + part] as number));
+}
+
+/**
+ * One interleaved complex array (re, im, …; length 2·F) per guitar coil, in
+ * `guitar.coils` order: T_i(f) from coil i's string EMF (acoustic polarity
+ * +1) to the amplifier input, for the connection `graph`. Zeros for coils
+ * the graph leaves disconnected or floating, and for every coil when the
+ * volume is at 0 or hot is ground. Writes into `out` when given.
+ */
+export function solveNodalTransfers(prepared: PreparedCircuit, graph: CircuitGraph, out?: Float64Array[]): Float64Array[] {
+  const frequencies = prepared.frequenciesHz;
+  const length = 2 * frequencies.length;
+  const coilCount = prepared.guitar.coils.length;
+  const result = out ?? Array.from({ length: coilCount }, () => new Float64Array(length));
+  let fits = result.length === coilCount;
+  for (let c = 0; fits && c < coilCount; c += 1) fits = (result[c] as Float64Array).length === length;
+  if (!fits) throw new RangeError(`solveNodalTransfers: out must hold ${coilCount} arrays of length ${length}`);
+  for (const array of result) array.fill(0);
+  const plan = planFor(prepared, graph, true);
+  if (plan === null || prepared.load.silent || plan.coils.length === 0) return result;
+
+  const n = plan.unknowns;
+  const { matrix, rhs } = workspaceFor(prepared, n);
+  const { hot, out: output, coils, groups } = plan;
+  const bridge = prepared.bridgeAdmittance;
+  const branch = plan.branch;
+  const drop = plan.drop;
+  for (let f = 0; f < frequencies.length; f += 1) {
+    const re = 2 * f;
+    const im = re + 1;
+    matrix.fill(0, 0, 2 * n * n);
+    rhs.fill(0, 0, 2 * n);
+    // The load.
+    add(matrix, n, hot, hot, prepared.hotAdmittance[re] as number, prepared.hotAdmittance[im] as number);
+    add(matrix, n, output, output, prepared.outAdmittance[re] as number, prepared.outAdmittance[im] as number);
+    if (bridge !== null) stampAdmittance(matrix, n, hot, output, bridge[re] as number, bridge[im] as number);
+    stampCoils(matrix, n, prepared, plan, f, TWO_PI * (frequencies[f] as number));
+    // Adjoint solve: A·x = u_out.
+    rhs[2 * output] = 1;
+    solveDense(matrix, rhs, n);
+    // d_j = x_finish − x_start per coil.
+    for (let j = 0; j < coils.length; j += 1) {
+      const coil = coils[j] as ActiveCoil;
+      drop[2 * j] = difference(rhs, coil.finish, coil.start, 0);
+      drop[2 * j + 1] = difference(rhs, coil.finish, coil.start, 1);
+    }
+    for (let j = 0; j < coils.length; j += 1) {
+      const coil = coils[j] as ActiveCoil;
+      let tr: number;
+      let ti: number;
+      if (coil.group < 0) {
+        // b = Y_b·(u_finish − u_start), Y_b = k/Z
+        const yr = branch[2 * j] as number;
+        const yi = branch[2 * j + 1] as number;
+        const dr = drop[2 * j] as number;
+        const di = drop[2 * j + 1] as number;
+        tr = yr * dr - yi * di;
+        ti = yr * di + yi * dr;
+      } else {
+        // b_k = Σ_m Y_mk·(u_finish_m − u_start_m)
+        const group = groups[coil.group] as CouplingGroup;
+        const size = group.members.length;
+        const k = coil.slot;
+        tr = 0;
+        ti = 0;
+        for (let m = 0; m < size; m += 1) {
+          const member = group.members[m] as number;
+          const at = 2 * (m * size + k);
+          const yr = group.admittance[at] as number;
+          const yi = group.admittance[at + 1] as number;
+          const dr = drop[2 * member] as number;
+          const di = drop[2 * member + 1] as number;
+          tr += yr * dr - yi * di;
+          ti += yr * di + yi * dr;
+        }
+      }
+      const target = result[coil.coil] as Float64Array;
+      target[re] = coil.stringSign * tr;
+      target[im] = coil.stringSign * ti;
+    }
+  }
+  return result;
+}
+
+/**
+ * Every coil's stamps for frequency index f: an uncoupled coil 1/Z between
+ * its leads; a coupled one its shunt (1 − k)/Z, and its group's block. Leaves
+ * each coil's branch admittance Y_b = k/Z in `plan.branch`.
+ */
+function stampCoils(matrix: Float64Array, n: number, prepared: PreparedCircuit, plan: NodalPlan, f: number, omega: number): void {
+  const { coils, groups, branch } = plan;
+  const re = 2 * f;
+  const im = re + 1;
+  for (let j = 0; j < coils.length; j += 1) {
+    const coil = coils[j] as ActiveCoil;
+    const impedance = prepared.coilImpedance[coil.coil] as Float64Array;
+    const source = prepared.coilSource[coil.coil] as Float64Array;
+    const zr = impedance[re] as number;
+    const zi = impedance[im] as number;
+    const kr = source[re] as number;
+    const ki = source[im] as number;
+    const zn = zr * zr + zi * zi;
+    const yr = zr / zn; // 1/Z
+    const yi = -zi / zn;
+    const br = kr * yr - ki * yi; // Y_b = k/Z
+    const bi = kr * yi + ki * yr;
+    branch[2 * j] = br;
+    branch[2 * j + 1] = bi;
+    if (coil.group < 0) stampAdmittance(matrix, n, coil.start, coil.finish, yr, yi);
+    else stampAdmittance(matrix, n, coil.start, coil.finish, yr - br, yi - bi); // (1 − k)/Z
+  }
+  for (const group of groups) {
+    fillGroupAdmittance(plan, group, omega);
+    stampGroup(matrix, n, coils, group);
+  }
+}
+
+/** Y_g = (diag(Z_b) + jω·M)⁻¹ with Z_b = 1/Y_b = Z/k, for one frequency. */
+function fillGroupAdmittance(plan: NodalPlan, group: CouplingGroup, omega: number): void {
+  const size = group.members.length;
+  const width = 2 * size;
+  const scratch = group.scratch;
+  const branch = plan.branch;
+  for (let j = 0; j < size; j += 1) {
+    for (let k = 0; k < size; k += 1) {
+      const at = 2 * (j * width + k);
+      scratch[at] = 0;
+      scratch[at + 1] = omega * (group.mutualH[j * size + k] as number);
+    }
+    const member = group.members[j] as number;
+    const br = branch[2 * member] as number;
+    const bi = branch[2 * member + 1] as number;
+    const bn = br * br + bi * bi;
+    const at = 2 * (j * width + j);
+    scratch[at] = br / bn;
+    scratch[at + 1] = -bi / bn;
+  }
+  if (size === 2) invertTwo(scratch, group.admittance);
+  else invertSmall(scratch, size, group.admittance);
+}
+
+/**
+ * A 2×2 complex symmetric-or-not inverse in closed form (the usual humbucker):
+ * [a b; c d]⁻¹ = [d −b; −c a]/(a·d − b·c). Reads the left half of `scratch` (rows of 4 complex).
+ */
+function invertTwo(scratch: Float64Array, target: Float64Array): void {
+  const ar = scratch[0] as number;
+  const ai = scratch[1] as number;
+  const br = scratch[2] as number;
+  const bi = scratch[3] as number;
+  const cr = scratch[8] as number;
+  const ci = scratch[9] as number;
+  const dr = scratch[10] as number;
+  const di = scratch[11] as number;
+  const detR = ar * dr - ai * di - (br * cr - bi * ci);
+  const detI = ar * di + ai * dr - (br * ci + bi * cr);
+  const norm = detR * detR + detI * detI;
+  const ir = detR / norm;
+  const ii = -detI / norm;
+  target[0] = dr * ir - di * ii;
+  target[1] = dr * ii + di * ir;
+  target[2] = -(br * ir - bi * ii);
+  target[3] = -(br * ii + bi * ir);
+  target[4] = -(cr * ir - ci * ii);
+  target[5] = -(cr * ii + ci * ir);
+  target[6] = ar * ir - ai * ii;
+  target[7] = ar * ii + ai * ir;
+}
+
+/** i_j = Σ_k Y_jk·(v_s_k − v_f_k + e_k) leaves the branch at f_j: the coupled-inductor stamp. */
+function stampGroup(matrix: Float64Array, n: number, coils: readonly ActiveCoil[], group: CouplingGroup): void {
+  const size = group.members.length;
+  for (let j = 0; j < size; j += 1) {
+    const a = coils[group.members[j] as number] as ActiveCoil;
+    for (let k = 0; k < size; k += 1) {
+      const b = coils[group.members[k] as number] as ActiveCoil;
+      const at = 2 * (j * size + k);
+      const yr = group.admittance[at] as number;
+      const yi = group.admittance[at + 1] as number;
+      add(matrix, n, a.finish, b.finish, yr, yi);
+      add(matrix, n, a.start, b.start, yr, yi);
+      add(matrix, n, a.finish, b.start, -yr, -yi);
+      add(matrix, n, a.start, b.finish, -yr, -yi);
+    }
+  }
+}
+
+/**
+ * The impedance of the coils alone between hot and ground, per frequency
+ * (interleaved complex, length 2·F): controls, cable and amplifier
+ * disconnected, EMFs off, as an impedance meter across the harness's hot and
+ * ground leads reads it. Nodal analysis with 1 A driven into hot: Z = v_hot.
+ * 0 where hot is ground; Infinity (real part) where the coils leave hot with
+ * no path to ground.
+ */
+export function solveCoilsImpedance(prepared: PreparedCircuit, graph: CircuitGraph): Float64Array {
+  const frequencies = prepared.frequenciesHz;
+  const result = new Float64Array(2 * frequencies.length);
+  if (graph.hot === graph.ground) {
+    planGraph(prepared, graph, 'coils'); // validates the graph
+    return result;
+  }
+  const plan = planFor(prepared, graph, false);
+  if (plan === null) {
+    for (let f = 0; f < frequencies.length; f += 1) result[2 * f] = Infinity;
+    return result;
+  }
+  const n = plan.unknowns;
+  const { matrix, rhs } = workspaceFor(prepared, n);
+  for (let f = 0; f < frequencies.length; f += 1) {
+    matrix.fill(0, 0, 2 * n * n);
+    rhs.fill(0, 0, 2 * n);
+    stampCoils(matrix, n, prepared, plan, f, TWO_PI * (frequencies[f] as number));
+    rhs[2 * plan.hot] = 1;
+    solveDense(matrix, rhs, n);
+    result[2 * f] = rhs[2 * plan.hot] as number;
+    result[2 * f + 1] = rhs[2 * plan.hot + 1] as number;
+  }
+  return result;
+}
