@@ -1,5 +1,5 @@
-export type { ComparisonPageData, PageCoilSignals, PageData, PageHum, PageSound } from './page-data.js';
-export { encodeSignal, decodeSignal } from './page-data.js';
+export type { ComparisonPageData, PageCoilDrive, PageCoilSignals, PageData, PageHum, PageSound } from './page-data.js';
+export { encodeSignal, decodeSignal, encodeCoilDrive, decodeCoilDrive } from './page-data.js';
 export {
   brightnessScale,
   describePeak,

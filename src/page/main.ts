@@ -11,7 +11,7 @@ import { type ChainName, CHAIN_NAMES, encodeWav } from '../render/portable/index
 import { type Wiring, enumerateWirings, makeWiring, parseWiring, printNetwork, canonicalize, vocabularyOf } from '../wiring/index.js';
 import type { ReportWiring } from '../report/index.js';
 import { createBlindTest } from './blind-test.js';
-import { type PageData, encodeSignal } from './page-data.js';
+import { type PageData, decodeCoilDrive, encodeSignal } from './page-data.js';
 import { loopsByDefault, matchesSearch, playbackGainDb, MATCHED_LOUDNESS_LUFS } from './page-math.js';
 import { brightnessScale, describePeak, formatDb, formatHz, humVerdict, HUM_VERDICT_WORDS } from './page-words.js';
 import { type Playable, createPlayer } from './player.js';
@@ -271,6 +271,8 @@ byId('download').addEventListener('click', () => {
 
 /* ---------- plot ---------- */
 
+/** The drive the report's figures were read with: the plotted curve is R(f) as the strings drive it, its dot the report's resonance. */
+const drive = data.drive === undefined ? undefined : decodeCoilDrive(data.drive);
 const plot = createResponsePlot(byId('response-plot') as unknown as SVGSVGElement, byId('plot-legend'), byId('plot-readout'));
 function drawPlot(): void {
   const circuitGuitar = guitarWithKnobs(guitar, knobs);
@@ -278,7 +280,7 @@ function drawPlot(): void {
   plot.draw(
     plotted.flatMap((id) => {
       const wiring = byKey.get(id);
-      return wiring ? [{ id, label: wiring.expression, ...responseCurve(circuitGuitar, overrides, wiring.network) }] : [];
+      return wiring ? [{ id, label: wiring.expression, ...responseCurve(circuitGuitar, overrides, wiring.network, drive) }] : [];
     }),
   );
 }

@@ -5,7 +5,7 @@
  * grows with the number of coils, not of wirings: every wiring is
  * synthesised in the page from the coils' signals.
  */
-import type { CircuitOverrides } from '../circuit/index.js';
+import type { CircuitOverrides, CoilDrive } from '../circuit/index.js';
 import type { Guitar } from '../guitar/index.js';
 import type { ComparisonReport, ListeningReport } from '../report/index.js';
 
@@ -27,6 +27,22 @@ export interface PageHum {
   readonly emfVolts: number;
 }
 
+/** The reference phrase's coil drive (`measureCoilDrive`, src/analysis) as plain numbers, for plotting R(f) as the strings drive it. */
+export interface PageCoilDrive {
+  readonly coilCount: number;
+  readonly pairCount: number;
+  readonly frequenciesHz: readonly number[];
+  readonly cross: readonly number[];
+}
+
+export function encodeCoilDrive(drive: CoilDrive): PageCoilDrive {
+  return { coilCount: drive.coilCount, pairCount: drive.pairCount, frequenciesHz: Array.from(drive.frequenciesHz), cross: Array.from(drive.cross) };
+}
+
+export function decodeCoilDrive(drive: PageCoilDrive): CoilDrive {
+  return { coilCount: drive.coilCount, pairCount: drive.pairCount, frequenciesHz: Float64Array.from(drive.frequenciesHz), cross: Float64Array.from(drive.cross) };
+}
+
 export interface PageData {
   readonly report: ListeningReport;
   /** The parsed guitar (the page enumerates its wirings and solves its circuit). */
@@ -35,6 +51,8 @@ export interface PageData {
   readonly overrides: CircuitOverrides;
   readonly hum: PageHum | null;
   readonly coils: PageCoilSignals;
+  /** The coil drive the report's figures were read with; absent in pages written before it was carried (the plot then shows the power sum). */
+  readonly drive?: PageCoilDrive;
 }
 
 /** What the wiring engine needs to sound one guitar: its circuit, knob settings, hum, coil signals and chain. */
@@ -45,6 +63,8 @@ export interface PageSound {
   readonly coils: PageCoilSignals;
   /** The chain the render used (a ChainName). */
   readonly chain: string;
+  /** The coil drive of the reference phrase (the report's figures are read with it). */
+  readonly drive?: PageCoilDrive;
 }
 
 /**

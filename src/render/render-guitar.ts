@@ -403,7 +403,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     groups: reportGroups(scope, distinct),
   };
   await writeFileAtomic(folder.reportJson, `${JSON.stringify(report, null, 2)}\n`);
-  await writeListeningPage(folder.page, report, request);
+  await writeListeningPage(folder.page, report, { ...request, drive });
   return { report, rows, written, skipped, commonGainDb, matchedLoudnessLufs, audioSeconds, distinct, scope };
 }
 

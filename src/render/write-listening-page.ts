@@ -3,9 +3,10 @@
  * settings and each coil's signal for the rendered phrase (the page
  * synthesises every wiring from them), with the bundled page script.
  */
-import type { CircuitOverrides } from '../circuit/index.js';
+import { measureCoilDrive, measureSpectralBasis } from '../analysis/index.js';
+import type { CircuitOverrides, CoilDrive } from '../circuit/index.js';
 import type { Guitar } from '../guitar/index.js';
-import { type PageSound, encodeSignal } from '../page/index.js';
+import { type PageSound, encodeCoilDrive, encodeSignal } from '../page/index.js';
 import { type ListeningReport, renderListeningPage } from '../report/index.js';
 import type { Phrase } from '../string/index.js';
 import { RENDER_TAIL_S } from './measure-wiring-audio.js';
@@ -23,6 +24,8 @@ export interface PageSettings {
   readonly hum: HumMix | null;
   /** Ring-out after the last note, s (default: the files' RENDER_TAIL_S). */
   readonly tailS?: number;
+  /** The coil drive of the reference phrase, when already measured (else measured here). */
+  readonly drive?: CoilDrive;
 }
 
 /** What a page needs to sound a guitar through `chain`: each coil's signal for the same performance as the files (phrase, rate, seed, tail). */
@@ -33,6 +36,7 @@ export function renderPageSound(settings: PageSettings, chain: string): PageSoun
     overrides: settings.overrides,
     hum: settings.hum,
     chain,
+    drive: encodeCoilDrive(settings.drive ?? measureCoilDrive(measureSpectralBasis(settings.guitar))),
     coils: { sampleRateHz: coils.sampleRateHz, length: coils.length, delay: coils.delay, fftSize: coils.fftSize, signals: coils.signals.map(encodeSignal) },
   };
 }
