@@ -5,7 +5,8 @@ import { MIN_PEAK_PROMINENCE } from '../../src/circuit/index.js';
  * its neighbours on ln f (Press et al., Numerical Recipes, 3rd ed., §10.3),
  * and the −3 dB points by linear interpolation in ln f between samples.
  * Meant for dense sweeps, where the interpolation error is far inside the
- * checks' tolerances.
+ * checks' tolerances. A maximum counts only with the prominence
+ * measureResonance requires (MIN_PEAK_PROMINENCE, measure-resonance.ts).
  */
 export interface DensePeak {
   readonly peakHz: number | null;
