@@ -8,6 +8,7 @@
  * ITU-R BS.1770), run the blind test between them, keep hostile names inert,
  * and make no request outside its folder and no console error.
  */
+import { maxOf, minOf } from '../src/math/index.js';
 import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -110,9 +111,9 @@ describe.skipIf(!RUN_BROWSER_TESTS)('the comparison page in chromium (file://)',
     )) as Rendered[];
     const atGain = (render: Rendered, db: number) => ({ sampleRateHz: render.sampleRateHz, channels: [decodeSignal(render.samples).map((sample) => sample * 10 ** (db / 20))] });
     const matched = referenceLoudness(rendered.map((render) => atGain(render, render.matchedGainDb)));
-    const spread = Math.max(...matched) - Math.min(...matched);
+    const spread = maxOf(matched) - minOf(matched);
     const trueLevel = referenceLoudness(rendered.map((render) => atGain(render, render.trueGainDb)));
-    const trueSpread = Math.max(...trueLevel) - Math.min(...trueLevel);
+    const trueSpread = maxOf(trueLevel) - minOf(trueLevel);
     console.info(`comparison page, ${rendered.length} renders on two sets: matched spread ${spread.toFixed(3)} LU, true-level spread ${trueSpread.toFixed(2)} LU (ebur128-wasm)`);
     expect(spread).toBeLessThan(LOUDNESS_LU);
     expect(trueSpread).toBeGreaterThan(LOUDNESS_LU); // the matching did something

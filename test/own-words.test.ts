@@ -69,6 +69,44 @@ describe('the repository stands alone', () => {
   });
 });
 
+/** Words of a published author's peak scale and the labels of existing blind-test tools: the project uses its own. */
+const BORROWED_WORDS = /\bpiercing\b|\bbrittle\b|\bPlay [ABX]\b|\bX is [AB]\b/u;
+
+/** Text a user reads: README, the guide, docs, and the pages' code and words. */
+const USER_FACING = /^(README\.md|DEVELOPERS\.md|docs\/.*\.md|src\/page\/.*\.ts|src\/report\/.*\.ts)$/u;
+
+describe('user-facing text uses our own words and points only inside the repository', () => {
+  const files = trackedTextFiles();
+
+  it('no borrowed peak words or blind-test labels in the README, docs or pages', () => {
+    const scanned = files.filter((file) => USER_FACING.test(file.path) && !file.path.endsWith('.test.ts'));
+    expect(scanned.length).toBeGreaterThan(10);
+    const hits = scanned.flatMap((file) => file.text.split('\n').flatMap((line, index) => (BORROWED_WORDS.test(line) ? [`${file.path}:${index + 1}: ${line.trim()}`] : [])));
+    expect(hits).toEqual([]);
+  });
+
+  it('every relative link in the README, the guide and docs names a file in the repository', () => {
+    const present = new Set(files.map((file) => file.path));
+    const missing: string[] = [];
+    for (const file of files.filter((candidate) => /^(README|DEVELOPERS)\.md$|^docs\/.*\.md$/u.test(candidate.path))) {
+      for (const match of file.text.matchAll(/\]\(([^)#\s]+)(#[^)]*)?\)/gu)) {
+        const target = match[1] as string;
+        if (/^[a-z]+:/u.test(target)) continue; // an address, not a file
+        const base = file.path.includes('/') ? file.path.slice(0, file.path.lastIndexOf('/') + 1) : '';
+        const parts: string[] = [];
+        for (const part of `${base}${target}`.split('/')) {
+          if (part === '..') parts.pop();
+          else if (part !== '.' && part !== '') parts.push(part);
+        }
+        const resolved = parts.join('/');
+        const isFolder = [...present].some((path) => path.startsWith(`${resolved}/`));
+        if (!present.has(resolved) && !isFolder) missing.push(`${file.path}: ${target}`);
+      }
+    }
+    expect(missing).toEqual([]);
+  });
+});
+
 describe('the command line speaks in its own words', () => {
   it('no --help text uses one-letter coil placeholders or points outside the repository', async () => {
     const io = captureIo(root);

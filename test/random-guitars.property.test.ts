@@ -35,8 +35,8 @@ const PER_ELEMENT_COUNT = [900, 700, 370, 27, 3].map((count) => count * SCALE);
 const FULL_ANALYZE_RUNS = 3 * SCALE;
 /** Wirings of 1 to 5 elements (OEIS A006351 series–parallel networks × 2^(n−1) phase patterns, summed over subsets). */
 const EXPECTED_WIRINGS = [1, 6, 47, 572, 9997];
-/** Fields of a wiring's circuit figures that may be null when the guitar is not silent (docs: measure-circuit-metrics.ts). */
-const NULLABLE_WHEN_SOUNDING = new Set(['resonanceHz', 'resonanceQ']);
+/** Fields of a wiring's circuit figures that may be null without a `…Reason` when the guitar is not silent (docs: measure-circuit-metrics.ts). */
+const NULLABLE_WHEN_SOUNDING = new Set<string>([]);
 
 const regressions = join(import.meta.dirname, 'property-regressions');
 const work = temporaryFolder('property');
@@ -50,9 +50,14 @@ function circuitFaults(document: unknown): string[] {
   if (wirings.length !== expected) faults.push(`${wirings.length} wirings for ${guitar.elements.length} elements, expected ${expected}`);
   const analysis = measureCircuitMetrics(guitar, wirings);
   analysis.wirings.forEach((figures, index) => {
-    for (const [name, value] of Object.entries(figures)) {
+    const record = figures as unknown as Record<string, unknown>;
+    for (const [name, value] of Object.entries(record)) {
+      if (name.endsWith('Reason')) continue; // checked with its figure below
+      const reason = record[`${name}Reason`];
       if (typeof value === 'number' && !Number.isFinite(value)) faults.push(`${wirings[index]?.expression}: ${name} = ${value}`);
-      if (value === null && !analysis.silent && !NULLABLE_WHEN_SOUNDING.has(name)) faults.push(`${wirings[index]?.expression}: ${name} is null`);
+      // A figure that does not exist says why; one that exists carries no reason.
+      if (value === null && !analysis.silent && !NULLABLE_WHEN_SOUNDING.has(name) && typeof reason !== 'string') faults.push(`${wirings[index]?.expression}: ${name} is null without a reason`);
+      if (value !== null && typeof reason === 'string') faults.push(`${wirings[index]?.expression}: ${name} = ${String(value)} with a reason "${reason}"`);
     }
   });
   return faults;
