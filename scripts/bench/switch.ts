@@ -6,10 +6,8 @@
  * standard plan, in the same process.
  */
 import { performance } from 'node:perf_hooks';
-import { measureDistinctness, measureWiringDistance } from '../../src/analysis/index.js';
-import { measureCircuitMetrics } from '../../src/circuit/index.js';
 import { createRandom } from '../../src/math/index.js';
-import { type PositionWish, parseSwitchTexts, solveSwitchChoice, solveSwitchPlan } from '../../src/switching/index.js';
+import { type PositionWish, measureChoiceWirings, parseSwitchTexts, solveSwitchChoice, solveSwitchPlan } from '../../src/switching/index.js';
 import { enumerateWirings } from '../../src/wiring/index.js';
 import { randomInterestingPlan } from '../../test/support/random-switch-plan.js';
 import { sample } from './guitars.js';
@@ -53,18 +51,8 @@ export function benchSwitch(): void {
 
   // --choose over the 47 wirings.
   const started = performance.now();
-  const circuit = measureCircuitMetrics(guitar, wirings);
-  const distinct = measureDistinctness(guitar, wirings);
+  const { list, distance } = measureChoiceWirings(guitar, wirings);
   const measured = performance.now() - started;
-  const list = wirings.map((wiring, index) => ({
-    rank: wiring.number,
-    levelDb: distinct.profiles.levelsDb[index] as number,
-    humCancelling: circuit.wirings[index]?.humCancelling ?? false,
-    elements: wiring.elements,
-    expression: wiring.expression,
-    network: wiring.network,
-  }));
-  const distance = (a: number, b: number): number => measureWiringDistance(distinct.profiles, a, distinct.profiles, b, distinct.thresholds);
   for (const kitText of ['lever-5-position-1-pole', 'lever-5-position-2-pole']) {
     const kit = parseSwitchTexts([kitText]);
     const t0 = performance.now();

@@ -31,3 +31,5 @@ export { escapeXml, renderSwitchDrawing } from './render-switch-drawing.js';
 export { describeKit, describeReading, describeWish, expectedReading, renderSwitchSheet } from './render-switch-sheet.js';
 export type { ChoiceWiring, SwitchChoice, SwitchChoiceRequest } from './solve-switch-choice.js';
 export { solveSwitchChoice } from './solve-switch-choice.js';
+export type { ChoiceWirings } from './measure-choice-wirings.js';
+export { measureChoiceWirings } from './measure-choice-wirings.js';

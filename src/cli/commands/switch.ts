@@ -8,8 +8,7 @@
 import { mkdirSync, readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
-import { measureDistinctness, measureWiringDistance } from '../../analysis/index.js';
-import { measureCircuitMetrics, renderGraphNetlist } from '../../circuit/index.js';
+import { renderGraphNetlist } from '../../circuit/index.js';
 import { InputError, type InputProblem, WorkError, problemAt } from '../../errors/index.js';
 import { type Guitar, parseJsonText } from '../../guitar/index.js';
 import { defaultOutputRoot, writeFileAtomicSync } from '../../render/index.js';
@@ -33,8 +32,9 @@ import {
   solveSwitchRequest,
   verifySwitchPlan,
   withMorePoles,
-    type SwitchDefinition,
+  type SwitchDefinition,
   MAX_POLES,
+  measureChoiceWirings,
 } from '../../switching/index.js';
 import { type Wiring, enumerateWirings, findWiring, vocabularyOf } from '../../wiring/index.js';
 import { type AlikeOptionText, addAlikeOptions, parseAlikeOptions } from '../alike-options.js';
@@ -354,17 +354,7 @@ async function runChoose(
     }
   }
   if (problems.length > 0) throw new InputError(problems);
-  const circuit = measureCircuitMetrics(guitar, wirings, overrides);
-  const distinct = measureDistinctness(guitar, wirings, { overrides, thresholds });
-  const list = wirings.map((wiring, index) => ({
-    rank: wiring.number,
-    levelDb: distinct.profiles.levelsDb[index] as number,
-    humCancelling: circuit.wirings[index]?.humCancelling ?? false,
-    elements: wiring.elements,
-    expression: wiring.expression,
-    network: wiring.network,
-  }));
-  const distance = (a: number, b: number): number => measureWiringDistance(distinct.profiles, a, distinct.profiles, b, distinct.thresholds);
+  const { list, distance } = measureChoiceWirings(guitar, wirings, overrides, thresholds);
   const request = { humCancelling: options.humCancelling === true, include, levelWindowDb, planSearchLimit: PLAN_SEARCH_LIMIT };
   const kits = comparisonKits(kit);
   const choiceSteps = options.searchLimit === undefined ? CHOICE_SEARCH_STEPS : stepBudget;
