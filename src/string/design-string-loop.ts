@@ -27,7 +27,7 @@ export interface StringLoopRequest {
   readonly t60S: number;
   /** 0 (plain Karplus–Strong averaging, darkest) to 1 (no extra loss of highs). */
   readonly brightness: number;
-  /** Inharmonicity coefficient B of the vibrating length (Fletcher & Rossing §2.18); 0 or absent: a flexible string. */
+  /** Inharmonicity coefficient B of the vibrating length (Fletcher & Rossing ch. 2); 0 or absent: a flexible string. */
   readonly inharmonicity?: number;
 }
 

@@ -75,7 +75,7 @@ describe('stiffness dispersion in the string loop', () => {
     expect(Math.abs(centsBetween(peakHz(spectrum, size, f1Hz, f1Hz / 4), f1Hz))).toBeLessThan(1);
   });
 
-  it('the low E partials follow f_n/f_1 = n·√((1 + B·n²)/(1 + B)) within 0.5 cent for n = 2…8 (Fletcher & Rossing §2.18), 16 cents off harmonic at n = 8', () => {
+  it('the low E partials follow f_n/f_1 = n·√((1 + B·n²)/(1 + B)) within 0.5 cent for n = 2…8 (Fletcher & Rossing ch. 2), 16 cents off harmonic at n = 8', () => {
     const b = TYPICAL_INHARMONICITY[0]?.b ?? 0;
     const phrase = { name: 'low E', notes: [{ timeS: 0, string: 6, fret: 0, velocity: 1 }] };
     const size = 2 ** 18; // 5.5 s at 48 kHz: bins of 0.18 Hz

@@ -2,7 +2,7 @@
  * Stiffness dispersion of a steel string, as an allpass in the string loop.
  *
  * A stiff string's partials are stretched (Fletcher & Rossing, *The Physics
- * of Musical Instruments*, 2nd ed. 1998, §2.18):
+ * of Musical Instruments*, 2nd ed. 1998, ch. 2):
  *
  *   f_n = n·f0·√(1 + B·n²),   B = π³·E·d⁴ / (64·T·L²)
  *
@@ -29,8 +29,10 @@
  * fit of M·(τ_H(ω_n) − τ_H(ω_1)) to ΔD_n less the rest of the loop's own
  * dispersion (the damping filter's τ(ω_n) − τ(ω_1)) over the partials
  * n = 2 … that lie below DISPERSION_FIT_MAX_HZ (at most
- * DISPERSION_FIT_MAX_PARTIAL of them), and the M with the smallest error is
- * kept (the fewest sections among equals). The cascade's phase delay at the
+ * DISPERSION_FIT_MAX_PARTIAL of them). The first M whose worst partial is
+ * within DISPERSION_FIT_TOLERANCE_CENTS is kept, else the best fit found. A
+ * loop delay error δ at partial n moves it by −(1200/ln 2)·δ/D_n cents,
+ * D_n = n·fs/f_n (derived from ω·τ_loop = 2πn). The cascade's phase delay at the
  * fundamental, M·τ_H(ω_1), is taken off the loop's delay line so the
  * fundamental stays in tune (`designStringLoop`).
  */
@@ -42,6 +44,10 @@ export const DISPERSION_SECTIONS = 16;
 export const DISPERSION_FIT_MAX_HZ = 5000;
 /** Highest partial number in the fit (modelling choice: the partials that carry a plucked note's pitch and beats). */
 export const DISPERSION_FIT_MAX_PARTIAL = 10;
+/** Partial error at which a fit is good enough to stop adding sections, cents (modelling choice: a tenth of the 1-cent pitch check). */
+export const DISPERSION_FIT_TOLERANCE_CENTS = 0.1;
+/** Cents per natural-log unit of frequency ratio, 1200/ln 2 (definition of the cent). */
+const CENTS_PER_NEPER = 1200 / Math.LN2;
 /** Share of the loop period the cascade may take at the fundamental (modelling choice: leaves the delay line and tuning allpass room). */
 const MAX_PERIOD_SHARE = 0.5;
 /** Grid points of the coarse search over a before the golden-section refinement. */
@@ -82,13 +88,14 @@ export function designDispersionAllpass(
   const maxHz = Math.min(DISPERSION_FIT_MAX_HZ, sampleRateHz / 4);
   const omega1 = (2 * Math.PI * frequencyHz) / sampleRateHz;
   const loopDelayAtFundamental = loopDelay(omega1);
-  const partials: { omega: number; target: number }[] = [];
+  const partials: { omega: number; target: number; loopDelay: number }[] = [];
   for (let n = 2; n <= DISPERSION_FIT_MAX_PARTIAL; n += 1) {
     const hz = frequencyHz * partialRatio(n, inharmonicity);
     if (hz > maxHz) break;
     // Equation (2).
     const omega = (2 * Math.PI * hz) / sampleRateHz;
-    partials.push({ omega, target: periodSamples * (n / partialRatio(n, inharmonicity) - 1) - (loopDelay(omega) - loopDelayAtFundamental) });
+    const needed = (periodSamples * n) / partialRatio(n, inharmonicity);
+    partials.push({ omega, target: needed - periodSamples - (loopDelay(omega) - loopDelayAtFundamental), loopDelay: needed });
   }
   if (partials.length === 0) return NO_DISPERSION;
   let best: DispersionAllpass = NO_DISPERSION;
@@ -98,6 +105,7 @@ export function designDispersionAllpass(
     if (fit && fit.error < bestError) {
       best = fit.filter;
       bestError = fit.error;
+      if (fit.worstCents <= DISPERSION_FIT_TOLERANCE_CENTS) break;
     }
   }
   return best;
@@ -107,9 +115,9 @@ export function designDispersionAllpass(
 function fitSections(
   m: number,
   omega1: number,
-  partials: readonly { omega: number; target: number }[],
+  partials: readonly { omega: number; target: number; loopDelay: number }[],
   budgetSamples: number,
-): { filter: DispersionAllpass; error: number } | undefined {
+): { filter: DispersionAllpass; error: number; worstCents: number } | undefined {
   // Bound a so that M·τ_H(0) = M·(1 − a)/(1 + a) stays within the allowed share of the budget.
   const maxSectionDelay = (MAX_PERIOD_SHARE * budgetSamples) / m;
   if (maxSectionDelay <= 1) return undefined;
@@ -146,5 +154,11 @@ function fitSections(
     else low = left;
   }
   const coefficient = (low + high) / 2;
-  return { filter: { sections: m, coefficient, delayAtFundamental: m * allpassPhaseDelay(coefficient, omega1) }, error: error(coefficient) };
+  const base = allpassPhaseDelay(coefficient, omega1);
+  let worstCents = 0;
+  for (const { omega, target, loopDelay } of partials) {
+    const miss = m * (allpassPhaseDelay(coefficient, omega) - base) - target;
+    worstCents = Math.max(worstCents, (CENTS_PER_NEPER * Math.abs(miss)) / loopDelay);
+  }
+  return { filter: { sections: m, coefficient, delayAtFundamental: m * base }, error: error(coefficient), worstCents };
 }

@@ -25,5 +25,5 @@ export { renderExcitation } from './render-excitation.js';
 export type { ExcitationRequest, PickDirection, PluckShape } from './render-excitation.js';
 export { dampingFilterGain, dampingFilterPhaseDelay, stretchForBrightness, PLAIN_KARPLUS_STRONG_STRETCH } from './damping-filter.js';
 export { allpassCoefficient, allpassPhaseDelay, MIN_ALLPASS_DELAY } from './tuning-allpass.js';
-export { designDispersionAllpass, partialRatio, NO_DISPERSION, DISPERSION_SECTIONS, DISPERSION_FIT_MAX_HZ, DISPERSION_FIT_MAX_PARTIAL } from './dispersion-allpass.js';
+export { designDispersionAllpass, partialRatio, NO_DISPERSION, DISPERSION_SECTIONS, DISPERSION_FIT_MAX_HZ, DISPERSION_FIT_MAX_PARTIAL, DISPERSION_FIT_TOLERANCE_CENTS } from './dispersion-allpass.js';
 export type { DispersionAllpass } from './dispersion-allpass.js';

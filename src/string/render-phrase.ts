@@ -67,7 +67,7 @@ export function renderPhrase(guitar: Pick<Guitar, 'scaleM' | 'strings'>, phrase:
       frequencyHz,
       t60S: settings.t60PerString[index] ?? 1,
       brightness: settings.brightnessPerString[index] ?? 1,
-      // B = π³·E·d⁴/(64·T·L²) (Fletcher & Rossing §2.18): the fretted length L·2^(−m/12) multiplies B by 2^(2m/12).
+      // B = π³·E·d⁴/(64·T·L²) (Fletcher & Rossing ch. 2): the fretted length L·2^(−m/12) multiplies B by 2^(2m/12).
       inharmonicity: (settings.inharmonicityPerString[index] ?? 0) * 2 ** ((2 * note.fret) / SEMITONES_PER_OCTAVE),
     });
     const excitation = renderExcitation({

@@ -36,7 +36,7 @@ export interface StringOptions {
   readonly pluckShape: PluckShape;
   /**
    * Inharmonicity coefficient B of each open string (Fletcher & Rossing
-   * §2.18: f_n = n·f0·√(1 + B·n²)), 0 to MAX_INHARMONICITY: 'typical' (the
+   * ch. 2: f_n = n·f0·√(1 + B·n²)), 0 to MAX_INHARMONICITY: 'typical' (the
    * default, TYPICAL_INHARMONICITY by nearest open pitch, for the guitar's
    * scale), one number for every string, or one per string lowest first.
    * 0 turns stiffness off: the loop is then exactly the flexible-string one.
@@ -48,7 +48,7 @@ export interface StringOptions {
 /**
  * Typical B of an open six-string electric guitar set (gauges 0.010–0.046 in,
  * wound E A D, plain G B E) on a 648 mm scale, lowest first (from memory:
- * B = π³·E·d⁴/(64·T·L²), Fletcher & Rossing §2.18, with steel E = 200 GPa,
+ * B = π³·E·d⁴/(64·T·L²), Fletcher & Rossing ch. 2, with steel E = 200 GPa,
  * the core wire's diameter d for wound strings and the set's tensions of
  * 70–80 N). Their order agrees with Fastl & Völk (2012, "Inharmonicity of
  * sounds from electric guitars: physical flaw or musical asset?"): the low
