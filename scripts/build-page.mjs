@@ -1,8 +1,10 @@
 #!/usr/bin/env node
-// Bundles the listening page's script (src/page/main.ts and the modules it
-// imports: the circuit, wiring, synthesis and loudness code the command line
-// runs) into dist/page.js, one self-contained IIFE the render inlines into
-// each page. Run by `npm run build` (and so by `prepare`).
+// Bundles the pages' scripts (src/page/main.ts for the listening page,
+// src/page/comparison-main.ts for the comparison page of `compare --render`,
+// and the modules they import: the circuit, wiring, synthesis and loudness
+// code the command line runs) into dist/page.js and dist/comparison-page.js,
+// each one self-contained IIFE the render inlines into its page. Run by
+// `npm run build` (and so by `prepare`).
 import { build } from 'esbuild';
 import { mkdirSync } from 'node:fs';
 import { dirname, join } from 'node:path';
@@ -10,9 +12,13 @@ import { fileURLToPath } from 'node:url';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 mkdirSync(join(root, 'dist'), { recursive: true });
-await build({
-  entryPoints: [join(root, 'src', 'page', 'main.ts')],
-  outfile: join(root, 'dist', 'page.js'),
+const entries = [
+  ['main.ts', 'page.js'],
+  ['comparison-main.ts', 'comparison-page.js'],
+];
+await Promise.all(entries.map(([entry, output]) => build({
+  entryPoints: [join(root, 'src', 'page', entry)],
+  outfile: join(root, 'dist', output),
   bundle: true,
   format: 'iife',
   platform: 'browser',
@@ -21,4 +27,4 @@ await build({
   legalComments: 'none',
   charset: 'utf8',
   logLevel: 'warning',
-});
+})));

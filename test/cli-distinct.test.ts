@@ -4,7 +4,8 @@
  * are checked in src/analysis (against exact per-bin sums, brute force and
  * hand-worked values); here the commands must carry them faithfully.
  */
-import { readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { testFolder } from './support/temporary-folder.js';
@@ -249,7 +250,16 @@ describe('coilbench compare', () => {
       };
       expect(report.sets.map((set) => [set.label, set.folder])).toEqual([['A', 'a'], ['B', 'b']]);
       expect(report.rows).toHaveLength(6);
-      for (const entry of report.entries) expect(readFileSync(join(folder, `${entry.wav}.js`), 'utf8')).toMatch(/^coilbenchAudio\("w\d+", "/u);
+      for (const entry of report.entries) {
+        expect(readFileSync(join(folder, entry.wav)).subarray(0, 4).toString('latin1')).toBe('RIFF'); // each set's WAV files, for players outside the page
+        expect(existsSync(join(folder, `${entry.wav}.js`))).toBe(false); // the page carries coil signals, not copies of the files
+      }
+      // the page carries each set's coil signals, one per coil of its guitar
+      const page = readFileSync(join(folder, 'index.html'), 'utf8');
+      const data = JSON.parse(/<script type="application\/json" id="comparison-data">([\s\S]*?)<\/script>/u.exec(page)?.[1] ?? '{}') as { sets: Array<{ guitar: { coils: unknown[] }; coils: { signals: string[] } }> };
+      expect(data.sets).toHaveLength(2);
+      for (const set of data.sets) expect(set.coils.signals.length).toBe(set.guitar.coils.length);
+      expect(data.sets[0]?.coils.signals.length).toBeGreaterThan(1);
       // the same guitar twice: the same levels and no difference anywhere
       const level = new Map(report.entries.map((entry) => [entry.id, entry.levelDb]));
       for (const row of report.rows) {

@@ -1,9 +1,12 @@
 /**
  * `coilbench compare --render` end to end: two sets rendered beside a
  * comparison page, opened from file:// in Debian's chromium as a user would.
- * The page must switch between the sets while playing at the same place in
- * the phrase, run a blind test between them, and load nothing from outside
- * its folder (each set's audio comes from that set's folder beside it).
+ * The page sounds both sets live from their coil signals (the bundled
+ * engine, src/page/comparison-main.ts). It must switch between the sets while
+ * playing at the same place in the phrase, play every set at matched level
+ * (checked with an outside meter: ebur128-wasm, the Rust port of libebur128,
+ * ITU-R BS.1770), run the blind test between them, keep hostile names inert,
+ * and make no request outside its folder and no console error.
  */
 import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -11,13 +14,17 @@ import { join } from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { captureIo, main } from '../src/cli/index.js';
+import { decodeSignal } from '../src/page/index.js';
 import type { ComparisonReport } from '../src/report/index.js';
 import { CHROMIUM, INSTALL_HINT, RUN_BROWSER_TESTS, launchChromium, openFolderPage } from './support/browser.js';
+import { referenceLoudness } from './support/ebur128-reference.js';
 
 const OUTPUT_DIR = join(import.meta.dirname, '..', 'test-output');
 const samples = join(import.meta.dirname, '..', 'samples');
 /** Largest jump of the playing position allowed when switching sets, s (as for the listening page). */
 const SWITCH_TOLERANCE_S = 0.05;
+/** Largest spread of matched loudness, LU (as for the listening page). */
+const LOUDNESS_LU = 0.5;
 const HOSTILE_NAME = '<script>window.__pwned = 1</script>"><img src=x onerror="window.__pwned = 2">';
 
 if (!RUN_BROWSER_TESTS) console.warn(`comparison page browser tests skipped: ${CHROMIUM} not found (${INSTALL_HINT})`);
@@ -25,9 +32,11 @@ if (!RUN_BROWSER_TESTS) console.warn(`comparison page browser tests skipped: ${C
 interface ComparisonView {
   position(): number;
   isPlaying(): boolean;
-  currentId(): string;
+  currentId(): string | null;
   soundingIds(): string[];
+  render(id: string): Promise<{ samples: string; sampleRateHz: number; loudnessLufs: number; matchedGainDb: number; trueGainDb: number }>;
 }
+type Rendered = Awaited<ReturnType<ComparisonView['render']>>;
 
 describe.skipIf(!RUN_BROWSER_TESTS)('the comparison page in chromium (file://)', () => {
   let work = '';
@@ -37,11 +46,11 @@ describe.skipIf(!RUN_BROWSER_TESTS)('the comparison page in chromium (file://)',
   let page: Page;
   let problems: string[] = [];
   let outside: string[] = [];
-  const view = 'coilbenchComparison';
 
   beforeAll(async () => {
     work = mkdtempSync(join(tmpdir(), 'coilbench-compare-page-'));
     const guitar = JSON.parse(readFileSync(join(samples, 'two-lead-humbucker.json'), 'utf8')) as Record<string, unknown>;
+    // A longer cable darkens and changes the level of every wiring on B (the level check could fail without matching).
     writeFileSync(join(work, 'candidate.json'), JSON.stringify({ ...guitar, name: `${HOSTILE_NAME} (invented)`, cable: { capacitance: '1500p' } }));
     folder = join(work, 'compared');
     const io = captureIo(work);
@@ -50,6 +59,7 @@ describe.skipIf(!RUN_BROWSER_TESTS)('the comparison page in chromium (file://)',
     report = JSON.parse(readFileSync(join(folder, 'comparison.json'), 'utf8')) as ComparisonReport;
     browser = await launchChromium();
     ({ page, problems, outside } = await openFolderPage(browser, folder));
+    await page.waitForFunction(() => !(document.getElementById('transport-play') as HTMLButtonElement).disabled);
   });
 
   afterAll(async () => {
@@ -57,59 +67,73 @@ describe.skipIf(!RUN_BROWSER_TESTS)('the comparison page in chromium (file://)',
     if (work) rmSync(work, { recursive: true, force: true });
   });
 
-  const call = <T>(name: keyof ComparisonView): Promise<T> =>
-    page.evaluate(([viewName, method]) => (window as unknown as Record<string, Record<string, () => unknown>>)[viewName as string]?.[method as string]?.(), [view, name]) as Promise<T>;
+  const soundingIs = (id: string): Promise<unknown> =>
+    page.waitForFunction((wanted) => (window as unknown as { coilbenchComparison: ComparisonView }).coilbenchComparison.soundingIds().join() === wanted, id);
 
-  it('has one row per wiring with a button per set, biggest change first', async () => {
+  it('has one row per wiring with a button per set, biggest change first; no .wav.js copies', async () => {
     expect(report.rows).toHaveLength(6);
     expect(await page.locator('tr[data-row]').count()).toBe(6);
     expect(await page.locator('tr[data-row] [data-action="play-set"]').count()).toBe(12);
     const shown = await page.$$eval('tr[data-row]', (rows) => rows.map((row) => row.getAttribute('data-row')));
     expect(shown).toEqual(report.rows.map((row) => row.key));
+    const { readdirSync } = await import('node:fs');
+    expect(readdirSync(join(folder, 'a', 'wav')).filter((name) => name.endsWith('.js'))).toEqual([]);
   });
 
-  it('plays a wiring on A: the sound comes from A\'s folder and time advances', async () => {
-    const key = report.rows[0]?.key ?? '';
-    await page.locator(`tr[data-row="${key}"] [data-action="play-set"][data-set="0"]`).click();
-    await page.waitForFunction(([name, id]) => (window as unknown as Record<string, ComparisonView>)[name as string]?.soundingIds().join() === id, [view, `A:${key}`]);
-    const first = await call<number>('position');
-    await page.waitForTimeout(400);
-    expect((await call<number>('position')) - first).toBeGreaterThan(0.25);
-  });
-
-  it(`switches to B during playback at the same position (within ${SWITCH_TOLERANCE_S * 1000} ms), and back with the A key`, async () => {
-    const key = report.rows[0]?.key ?? '';
-    const [before, after] = (await page.evaluate(([name, rowKey]) => {
-      const comparison = (window as unknown as Record<string, ComparisonView>)[name as string] as ComparisonView;
-      const start = comparison.position();
-      (document.querySelector(`tr[data-row="${rowKey}"] [data-action="play-set"][data-set="1"]`) as HTMLButtonElement).click();
-      return [start, comparison.position()];
-    }, [view, key])) as [number, number];
-    expect(Math.abs(after - before)).toBeLessThan(SWITCH_TOLERANCE_S);
-    const bId = report.rows[0]?.entries[1] ?? '';
-    await page.waitForFunction(([name, id]) => (window as unknown as Record<string, ComparisonView>)[name as string]?.soundingIds().join() === id, [view, bId]);
-    expect(await call<boolean>('isPlaying')).toBe(true);
+  it(`plays a wiring on A, switches to B at the same position (within ${SWITCH_TOLERANCE_S * 1000} ms), and back with the A key`, async () => {
+    const row = report.rows[0];
+    const [idA, idB] = [row?.entries[0] ?? '', row?.entries[1] ?? ''];
+    await page.locator(`tr[data-row="${row?.key ?? ''}"] [data-action="play-set"][data-set="0"]`).click();
+    await soundingIs(idA);
+    await page.waitForTimeout(300);
+    const jump = await page.evaluate(async ([key, wanted]) => {
+      const view = (window as unknown as { coilbenchComparison: ComparisonView }).coilbenchComparison;
+      const before = view.position();
+      const started = performance.now();
+      (document.querySelector(`tr[data-row="${key}"] [data-action="play-set"][data-set="1"]`) as HTMLButtonElement).click();
+      while (view.soundingIds().join() !== wanted) await new Promise((resolve) => setTimeout(resolve, 5));
+      return { before, after: view.position(), elapsed: (performance.now() - started) / 1000 };
+    }, [row?.key ?? '', idB] as const);
+    // The position runs on through the switch as the clock does (the phrase loops; it is longer than the wait).
+    expect(Math.abs(jump.after - jump.before - jump.elapsed)).toBeLessThan(SWITCH_TOLERANCE_S);
+    expect(await page.evaluate(() => (window as unknown as { coilbenchComparison: ComparisonView }).coilbenchComparison.isPlaying())).toBe(true);
     await page.locator('body').press('a');
-    await page.waitForFunction(([name, id]) => (window as unknown as Record<string, ComparisonView>)[name as string]?.soundingIds().join() === id, [view, `A:${key}`]);
+    await soundingIs(idA);
     expect(await page.locator('#level-note').textContent()).toContain('Level matched');
   });
 
-  it('runs ten blind trials between the sets of one wiring', async () => {
-    const row = report.rows[1];
-    await page.locator(`tr[data-row="${row?.key ?? ''}"] [data-action="blind-row"]`).click();
-    expect(await page.locator('#abx-a').inputValue()).toBe(row?.entries[0]);
-    expect(await page.locator('#abx-b').inputValue()).toBe(row?.entries[1]);
-    await page.locator('[data-action="abx-start"]').click();
-    for (let trial = 0; trial < 10; trial += 1) {
-      await page.locator('[data-action="abx-play-x"]').click();
-      await page.locator(`[data-action="abx-answer-${trial % 2 === 0 ? 'a' : 'b'}"]`).click();
-    }
-    expect(await page.locator('#abx-score').getAttribute('data-trials')).toBe('10');
-    await page.locator('[data-action="abx-end"]').click();
-    expect(await page.locator('#abx-log li').count()).toBe(10);
+  it(`plays both sets at matched level within ${LOUDNESS_LU} LU, by an outside meter (ebur128-wasm); true level keeps B's difference`, async () => {
+    const ids = report.rows.slice(0, 3).flatMap((row) => row.entries);
+    const rendered = (await page.evaluate(
+      (list) => Promise.all(list.map((id) => (window as unknown as { coilbenchComparison: ComparisonView }).coilbenchComparison.render(id))),
+      ids,
+    )) as Rendered[];
+    const atGain = (render: Rendered, db: number) => ({ sampleRateHz: render.sampleRateHz, channels: [decodeSignal(render.samples).map((sample) => sample * 10 ** (db / 20))] });
+    const matched = referenceLoudness(rendered.map((render) => atGain(render, render.matchedGainDb)));
+    const spread = Math.max(...matched) - Math.min(...matched);
+    const trueLevel = referenceLoudness(rendered.map((render) => atGain(render, render.trueGainDb)));
+    const trueSpread = Math.max(...trueLevel) - Math.min(...trueLevel);
+    console.info(`comparison page, ${rendered.length} renders on two sets: matched spread ${spread.toFixed(3)} LU, true-level spread ${trueSpread.toFixed(2)} LU (ebur128-wasm)`);
+    expect(spread).toBeLessThan(LOUDNESS_LU);
+    expect(trueSpread).toBeGreaterThan(LOUDNESS_LU); // the matching did something
   });
 
-  it('escaped the hostile guitar name, made no console errors and no request outside its folder; keeps a screenshot', async () => {
+  it('runs ten blind rounds between the sets of one wiring', async () => {
+    const row = report.rows[1];
+    await page.locator(`tr[data-row="${row?.key ?? ''}"] [data-action="blind-row"]`).click();
+    expect(await page.locator('#blind-first').inputValue()).toBe(row?.entries[0]);
+    expect(await page.locator('#blind-second').inputValue()).toBe(row?.entries[1]);
+    await page.locator('[data-action="blind-start"]').click();
+    for (let round = 0; round < 10; round += 1) {
+      await page.locator('[data-action="blind-hear-mystery"]').click();
+      await page.locator(`[data-action="blind-is-${round % 2 === 0 ? 'first' : 'second'}"]`).click();
+    }
+    expect(await page.locator('#blind-tally').getAttribute('data-rounds')).toBe('10');
+    await page.locator('[data-action="blind-finish"]').click();
+    expect(await page.locator('#blind-answers li').count()).toBe(10);
+  });
+
+  it('kept the hostile guitar name inert, made no console error and no request outside its folder; keeps a screenshot', async () => {
     expect(await page.evaluate(() => (window as unknown as { __pwned?: number }).__pwned)).toBeUndefined();
     expect(await page.locator('.set-list').textContent()).toContain('<script>window.__pwned = 1</script>');
     await page.evaluate(() => window.scrollTo(0, 0));

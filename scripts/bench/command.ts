@@ -19,6 +19,7 @@ import { join } from 'node:path';
 import { realFft } from '../../src/math/index.js';
 import { heading, line, medianMs } from './timing.js';
 import { fiveCoilGuitarJson } from './guitars.js';
+import { maxOf, minOf } from '../../src/math/index.js';
 
 const ROOT = join(import.meta.dirname, '..', '..');
 /** The built command to time (BENCH_CLI: another build, e.g. of an older commit, for before/after figures). */
@@ -77,14 +78,14 @@ function runCase(item: Case): void {
     }
   }
   const seconds = runs.map((run) => run.seconds);
-  const low = Math.min(...seconds);
-  const high = Math.max(...seconds);
+  const low = minOf(seconds);
+  const high = maxOf(seconds);
   const mid = median(seconds);
   const peaks = runs.map((run) => run.peakMb);
   const rate = audio === null ? '' : `, ${(audio / mid).toFixed(0)}× real time (${(audio / high).toFixed(0)}–${(audio / low).toFixed(0)}×)`;
   line(
     item.label,
-    `${mid.toFixed(2)} s (${low.toFixed(2)}–${high.toFixed(2)})${rate}; ${((mid * 1000) / reference).toFixed(1)} ref; peak ${median(peaks).toFixed(0)} MB (${Math.min(...peaks).toFixed(0)}–${Math.max(...peaks).toFixed(0)})`,
+    `${mid.toFixed(2)} s (${low.toFixed(2)}–${high.toFixed(2)})${rate}; ${((mid * 1000) / reference).toFixed(1)} ref; peak ${median(peaks).toFixed(0)} MB (${minOf(peaks).toFixed(0)}–${maxOf(peaks).toFixed(0)})`,
   );
 }
 

@@ -11,7 +11,7 @@ import { type PreparedCircuit, measureResonance, prepareCircuit, analysisFrequen
 
 /** The power sum √(Σ_i |T_i(f)|²) at `frequencyHz`, solved there (no overrides). */
 function powerSumAt(prepared: PreparedCircuit, network: Network, frequencyHz: number): number {
-  return Math.hypot(...solveTransfers(prepareCircuit(prepared.guitar, Float64Array.of(frequencyHz)), network).flatMap((transfer) => [transfer[0] as number, transfer[1] as number]));
+  return Math.sqrt(solveTransfers(prepareCircuit(prepared.guitar, Float64Array.of(frequencyHz)), network).reduce((sum, transfer) => sum + (transfer[0] as number) ** 2 + (transfer[1] as number) ** 2, 0));
 }
 
 interface Case {

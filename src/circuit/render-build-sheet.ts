@@ -84,9 +84,9 @@ export function renderBuildSheet(
   const title = wiring.id ? `${wiring.id}  ${wiring.expression}` : wiring.expression;
   lines.push(`Build sheet: ${title}`, wiring.description, `Guitar: ${guitar.name}`, '');
 
+  lines.push('Read this first');
+  appendAll(lines, WORKSHOP_CAUTIONS);
   lines.push(
-    'Read this first',
-    ...WORKSHOP_CAUTIONS,
     '  - This sheet comes from a model of your guitar file. Check every lead against your pickups,',
     '    and make the final choice by ear on the real instrument.',
     '',

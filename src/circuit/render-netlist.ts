@@ -28,6 +28,7 @@ import { AUDIO_BAND_HIGH_HZ, AUDIO_BAND_LOW_HZ } from './frequency-grid.js';
 import type { CircuitGraph } from './circuit-graph.js';
 import { type CoilCoupling, coilCouplings, mutualInductanceH } from './coil-coupling.js';
 import { GROUND_NODE, HOT_NODE, layoutWiring } from './layout-wiring.js';
+import { appendAll } from '../math/index.js';
 
 /** A source's AC value: magnitude and phase in degrees. */
 export interface SourcePhasor {
@@ -273,11 +274,8 @@ function netlistText(
     const phasor = settings.sourcePhasors?.[coil.index] ?? { magnitude: 1, phaseDeg: 0 };
     const stringSign = windingSign(coil.winding) * magnetSign(coil.magnet);
     const phaseDeg = phasor.phaseDeg + (stringSign < 0 ? HALF_TURN_DEG : 0);
-    lines.push(
-      asciiText(comment),
-      `V${name} ${name}_emf ${startNode} DC 0 AC ${spiceNumber(phasor.magnitude)} ${spiceNumber(phaseDeg)}`,
-      ...coilElementLines(coil, name, startNode, finishNode),
-    );
+    lines.push(asciiText(comment), `V${name} ${name}_emf ${startNode} DC 0 AC ${spiceNumber(phasor.magnitude)} ${spiceNumber(phaseDeg)}`);
+    appendAll(lines, coilElementLines(coil, name, startNode, finishNode));
   }
   const present = new Set(coils.map(({ coil }) => coil.index));
   for (const pair of coilCouplings(guitar)) {

@@ -1,4 +1,4 @@
-export type { PageCoilSignals, PageData, PageHum } from './page-data.js';
+export type { ComparisonPageData, PageCoilSignals, PageData, PageHum, PageSound } from './page-data.js';
 export { encodeSignal, decodeSignal } from './page-data.js';
 export {
   brightnessScale,

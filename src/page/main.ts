@@ -12,9 +12,10 @@ import { type Wiring, enumerateWirings, makeWiring, parseWiring, printNetwork, c
 import type { ReportWiring } from '../report/index.js';
 import { createBlindTest } from './blind-test.js';
 import { type PageData, encodeSignal } from './page-data.js';
-import { formatSeconds, loopsByDefault, matchesSearch, playbackGainDb, MATCHED_LOUDNESS_LUFS } from './page-math.js';
+import { loopsByDefault, matchesSearch, playbackGainDb, MATCHED_LOUDNESS_LUFS } from './page-math.js';
 import { brightnessScale, describePeak, formatDb, formatHz, humVerdict, HUM_VERDICT_WORDS } from './page-words.js';
 import { type Playable, createPlayer } from './player.js';
+import { TICK_MS, byId, connectTransport } from './transport-bar.js';
 import { createResponsePlot } from './response-plot.js';
 import { responseCurve } from './response-curve.js';
 import { type Knobs, type RenderedWiring, createWiringEngine, overridesOf, guitarWithKnobs, renderKey } from './wiring-engine.js';
@@ -22,22 +23,15 @@ import { type ListRow, createWiringList } from './wiring-list.js';
 
 /** Renders kept ready to play (each a few MB of float32; our own bound). */
 const RENDERS_KEPT = 24;
-/** Interval of the position display, ms. */
-const TICK_MS = 50;
 /** Farads per nanofarad and picofarad (the knob fields' units). */
 const NANO = 1e-9;
 const PICO = 1e-12;
 
-function byId<T extends HTMLElement>(id: string): T {
-  const element = document.getElementById(id);
-  if (!element) throw new Error(`the page lacks #${id}`);
-  return element as T;
-}
 
 const data = JSON.parse(byId('page-data').textContent ?? '{}') as PageData;
 const { guitar, report } = data;
 performance.mark('coilbench-data');
-const engine = createWiringEngine(data);
+const engine = createWiringEngine({ ...data, chain: report.render.chain });
 performance.mark('coilbench-engine');
 const wirings: Wiring[] = enumerateWirings(guitar.elements);
 const reported = new Map<string, ReportWiring>(report.wirings.map((wiring) => [wiring.id, wiring]));
@@ -227,20 +221,6 @@ function updateLabels(): void {
   play.classList.toggle('is-playing', player.isPlaying());
 }
 
-function updateTime(): void {
-  player.tick();
-  const duration = engine.length / engine.sampleRateHz;
-  const position = player.position();
-  byId('time').textContent = `${formatSeconds(position)} / ${formatSeconds(duration)}`;
-  const scrub = byId<HTMLInputElement>('scrub');
-  if (document.activeElement !== scrub) scrub.value = String(position);
-}
-
-player.onChange(() => {
-  updateLabels();
-  updateTime();
-});
-
 function togglePlayback(): void {
   if (player.isPlaying()) {
     player.pause();
@@ -249,8 +229,15 @@ function togglePlayback(): void {
   const wiring = currentWiring ?? byKey.get(list.shown()[0] ?? '');
   if (wiring) void choose(wiring, true);
 }
-byId('transport-play').addEventListener('click', togglePlayback);
-byId('scrub').addEventListener('input', () => player.seek(Number(byId<HTMLInputElement>('scrub').value)));
+const updateTime = connectTransport({
+  player,
+  durationS: engine.length / engine.sampleRateHz,
+  toggle: togglePlayback,
+  levelMode: (on) => {
+    matched = on;
+  },
+  changed: () => updateLabels(),
+});
 
 function applyLoop(): void {
   const on = byId<HTMLInputElement>('loop-on').checked;
@@ -260,12 +247,6 @@ function applyLoop(): void {
 }
 for (const id of ['loop-on', 'loop-start', 'loop-end']) byId(id).addEventListener('change', applyLoop);
 
-byId('match-level').addEventListener('change', () => {
-  matched = byId<HTMLInputElement>('match-level').checked;
-  player.refreshGains();
-  updateLabels();
-});
-byId('volume').addEventListener('input', () => player.setVolume(Number(byId<HTMLInputElement>('volume').value)));
 
 /* ---------- download ---------- */
 
@@ -390,7 +371,6 @@ drawPlot();
 fillBlindChoices();
 updateLabels();
 updateTime();
-setInterval(updateTime, TICK_MS);
 byId<HTMLButtonElement>('transport-play').disabled = false;
 performance.mark('coilbench-ready');
 

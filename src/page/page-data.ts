@@ -7,7 +7,7 @@
  */
 import type { CircuitOverrides } from '../circuit/index.js';
 import type { Guitar } from '../guitar/index.js';
-import type { ListeningReport } from '../report/index.js';
+import type { ComparisonReport, ListeningReport } from '../report/index.js';
 
 /** Each coil's EMF for the rendered phrase, float32 little-endian, base64. */
 export interface PageCoilSignals {
@@ -35,6 +35,27 @@ export interface PageData {
   readonly overrides: CircuitOverrides;
   readonly hum: PageHum | null;
   readonly coils: PageCoilSignals;
+}
+
+/** What the wiring engine needs to sound one guitar: its circuit, knob settings, hum, coil signals and chain. */
+export interface PageSound {
+  readonly guitar: Guitar;
+  readonly overrides: CircuitOverrides;
+  readonly hum: PageHum | null;
+  readonly coils: PageCoilSignals;
+  /** The chain the render used (a ChainName). */
+  readonly chain: string;
+}
+
+/**
+ * What the comparison page of `compare --render` carries, in
+ * `<script type="application/json" id="comparison-data">`: the comparison
+ * and each set's sound (sets in `report.sets` order). Its size grows with
+ * the coils of every set, not with the wirings.
+ */
+export interface ComparisonPageData {
+  readonly report: ComparisonReport;
+  readonly sets: readonly PageSound[];
 }
 
 /** Bytes per float32 sample. */

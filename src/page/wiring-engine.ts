@@ -23,7 +23,7 @@ import {
   resolveChainOptions,
 } from '../render/portable/index.js';
 import type { Network } from '../wiring/index.js';
-import { type PageData, decodeSignal } from './page-data.js';
+import { type PageSound, decodeSignal } from './page-data.js';
 
 /** The knobs a listener can turn. */
 export interface Knobs {
@@ -88,7 +88,7 @@ export interface WiringEngine {
   render(expression: string, network: Network, knobs: Knobs): Promise<RenderedWiring>;
 }
 
-export function createWiringEngine(data: PageData): WiringEngine {
+export function createWiringEngine(data: PageSound): WiringEngine {
   const { guitar, coils } = data;
   const signals = coils.signals.map(decodeSignal);
   const spectra = coilSpectraOfSignals({ ...coils, signals });
@@ -112,7 +112,7 @@ export function createWiringEngine(data: PageData): WiringEngine {
     toneSetting: tone ? (data.overrides.toneSetting ?? tone.setting) : null,
     toneCapacitorF: tone ? tone.capacitorF : null,
     cableCapacitanceF: data.overrides.cableCapacitanceF ?? guitar.cable.capacitanceF,
-    chain: data.report.render.chain as ChainName,
+    chain: data.chain as ChainName,
   };
 
   const synthesize = (network: Network, knobs: Knobs): Float32Array => {

@@ -40,3 +40,4 @@ export { hashOf, readManifest, MANIFEST_VERSION } from './render-manifest.js';
 export { runRenderPassOnThreads, defaultThreadCount, splitByShape, startWorkerModule, MIN_ITEMS_PER_THREAD } from './run-render-pass.js';
 export { createWiringRenderer, runRenderPass, peakOf } from './render-pass.js';
 export type { AudioSettings, PassItem, PassResult, WiringRenderer } from './render-pass.js';
+export { writeComparisonPage } from './write-comparison-page.js';

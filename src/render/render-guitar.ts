@@ -33,8 +33,6 @@ import { WorkError } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
 import {
   type ListeningReport,
-  pageAudioPath,
-  renderPageAudioScript,
   type ReportGroups,
   type ReportWiring,
   reportGuitar,
@@ -90,8 +88,6 @@ export interface RenderRequest {
   readonly folder: OutputFolder;
   /** Name of the generator for report.json ("coilbench 0.1.0"). */
   readonly generator: string;
-  /** Also write `wav/<name>.wav.js` beside each WAV for the comparison page of `compare --render` (the listening page needs none). */
-  readonly pageAudioCopies?: boolean;
   /** Write the WAV files (default true); false writes only the page, netlists and reports. */
   readonly writeWav?: boolean;
   /** Threads for the first pass (default: the machine's cores, at most two). */
@@ -142,8 +138,8 @@ interface Entry {
   audio?: { peak: number; loudnessLufs: number | null; frames: number };
   fileHash?: string;
   file?: string;
-  /** Size and SHA-256 of the WAV and of its page-audio copy as written: a re-run keeps them only if both still match. */
-  written?: { wav: FileRecord; pageAudio?: FileRecord };
+  /** Size and SHA-256 of the WAV as written: a re-run keeps it only if it still matches. */
+  written?: { wav: FileRecord };
 }
 
 /** The parts of a guitar that shape its sound (names and notes do not). */
@@ -286,12 +282,8 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
       const name = wavFileName(wiring);
       const path = join(folder.wavFolder, name);
       const fileHash = hashOf({ audio: entry.audioHash, gain: gain.toPrecision(12), format: request.format, name });
-      const pageAudio = request.pageAudioCopies ? join(folder.root, pageAudioPath(relative(folder.root, path))) : null;
-      // Kept only if the files still match the size and SHA-256 recorded when they were written.
-      const intact =
-        entry.written !== undefined &&
-        fileMatches(path, entry.written.wav) &&
-        (pageAudio === null || (entry.written.pageAudio !== undefined && fileMatches(pageAudio, entry.written.pageAudio)));
+      // Kept only if the file still matches the size and SHA-256 recorded when it was written.
+      const intact = entry.written !== undefined && fileMatches(path, entry.written.wav);
       if (request.writeWav === false || (entry.fileHash === fileHash && entry.file === name && intact)) {
         skipped += 1;
       } else {
@@ -309,10 +301,8 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
         });
         // Written in the background while the next wiring is prepared; the manifest records a file only once it is whole.
         await writes.add(async () => {
-          const script = pageAudio ? renderPageAudioScript(wiring.id, bytes) : '';
           await writeFileAtomic(path, bytes);
-          if (pageAudio) await writeFileAtomic(pageAudio, script);
-          Object.assign(entry, { fileHash, file: name, written: { wav: recordOf(bytes), pageAudio: pageAudio ? recordOf(script) : undefined } });
+          Object.assign(entry, { fileHash, file: name, written: { wav: recordOf(bytes) } });
         });
         await saveManifest(false);
         written += 1;

@@ -5,7 +5,7 @@
  */
 import type { CircuitOverrides } from '../circuit/index.js';
 import type { Guitar } from '../guitar/index.js';
-import { encodeSignal } from '../page/index.js';
+import { type PageSound, encodeSignal } from '../page/index.js';
 import { type ListeningReport, renderListeningPage } from '../report/index.js';
 import type { Phrase } from '../string/index.js';
 import { RENDER_TAIL_S } from './measure-wiring-audio.js';
@@ -25,19 +25,21 @@ export interface PageSettings {
   readonly tailS?: number;
 }
 
-/** The page's HTML for a report: the same performance as the files (phrase, rate, seed, tail). */
-export function renderPageFor(report: ListeningReport, settings: PageSettings): string {
+/** What a page needs to sound a guitar through `chain`: each coil's signal for the same performance as the files (phrase, rate, seed, tail). */
+export function renderPageSound(settings: PageSettings, chain: string): PageSound {
   const coils = renderCoilSignals(settings.guitar, settings.phrase, { sampleRateHz: settings.sampleRateHz, seed: settings.seed, strings: { tailS: settings.tailS ?? RENDER_TAIL_S } });
-  return renderListeningPage(
-    report,
-    {
-      guitar: settings.guitar,
-      overrides: settings.overrides,
-      hum: settings.hum,
-      coils: { sampleRateHz: coils.sampleRateHz, length: coils.length, delay: coils.delay, fftSize: coils.fftSize, signals: coils.signals.map(encodeSignal) },
-    },
-    readPageScript(),
-  );
+  return {
+    guitar: settings.guitar,
+    overrides: settings.overrides,
+    hum: settings.hum,
+    chain,
+    coils: { sampleRateHz: coils.sampleRateHz, length: coils.length, delay: coils.delay, fftSize: coils.fftSize, signals: coils.signals.map(encodeSignal) },
+  };
+}
+
+/** The page's HTML for a report. */
+export function renderPageFor(report: ListeningReport, settings: PageSettings): string {
+  return renderListeningPage(report, renderPageSound(settings, report.render.chain), readPageScript());
 }
 
 export async function writeListeningPage(path: string, report: ListeningReport, settings: PageSettings): Promise<void> {

@@ -28,7 +28,7 @@ export interface ComparisonEntry {
   readonly wiringId: string;
   /** The wiring as its own set spells it. */
   readonly expression: string;
-  /** WAV path relative to the page ("b/wav/w9-….wav"), or null when not rendered; the audio comes from `pageAudioPath(wav)`. */
+  /** WAV path relative to the page ("b/wav/w9-….wav"), for players outside the page; the page synthesises the sound from the set's coil signals. */
   readonly wav: string | null;
   /** Level against the baseline's mean single coil, dB. */
   readonly levelDb: number;

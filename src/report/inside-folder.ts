@@ -1,8 +1,6 @@
 /**
  * A path the listening page may link or load: relative and inside the page's
  * own folder (no URL scheme, no leading slash or backslash, no ".." segment).
- * The page script applies the same rule (page-math-script.ts, isInsideFolder)
- * before it loads anything.
  */
 export function isInsideFolder(path: string | null | undefined): path is string {
   if (typeof path !== 'string' || path === '') return false;

@@ -69,11 +69,7 @@ export interface ReportWiring {
   readonly coils: readonly string[];
   readonly topology: Topology;
   readonly outOfPhase: readonly string[];
-  /**
-   * WAV path relative to the report folder ("wav/w9-neck-bridge-series-out.wav"), or null when not rendered.
-   * The listening page plays the same audio from `pageAudioPath(wav)` ("….wav.js", content from
-   * `renderPageAudioScript`), which the render writes beside the WAV; a page opened from file:// cannot read the WAV itself.
-   */
+  /** WAV path relative to the report folder ("wav/w9-neck-bridge-series-out.wav"), or null when not written (the page synthesises its sound from coil signals). */
   readonly wav: string | null;
   /** Energy of the reference render relative to the mean of the single-coil wirings, dB. */
   readonly levelDb: number;

@@ -110,13 +110,13 @@ td.compare input { width: 1.1rem; height: 1.1rem; margin-top: 0.6rem; }
 .legend { list-style: none; padding: 0; margin: 0.3rem 0 0.8rem; display: grid; gap: 0.2rem; }
 .legend li { display: flex; align-items: center; gap: 0.5rem; }
 
-.abx-pick { display: flex; flex-wrap: wrap; gap: 0.6rem 1rem; align-items: center; }
-.abx-pick select { max-width: 26rem; }
-.abx-trial { margin-top: 0.8rem; padding: 0.8rem 1rem; background: var(--card); border: 1px solid var(--line); border-radius: 0.6rem; }
-.abx-listen, .abx-answer { display: flex; flex-wrap: wrap; gap: 0.5rem; margin: 0.5rem 0; }
-.abx-answer button { background: var(--accent); color: #fff; border-color: var(--accent); font-weight: 600; }
+.blind-pick { display: flex; flex-wrap: wrap; gap: 0.6rem 1rem; align-items: center; }
+.blind-pick select { max-width: 26rem; }
+.blind-rounds { margin-top: 0.8rem; padding: 0.8rem 1rem; background: var(--card); border: 1px solid var(--line); border-radius: 0.6rem; }
+.blind-hear, .blind-name { display: flex; flex-wrap: wrap; gap: 0.5rem; margin: 0.5rem 0; }
+.blind-name button { background: var(--accent); color: #fff; border-color: var(--accent); font-weight: 600; }
 .score { font-weight: 600; }
-.abx-log li.right { color: var(--quiet); } .abx-log li.wrong { color: var(--noisy); }
+.blind-answers li.right { color: var(--quiet); } .blind-answers li.wrong { color: var(--noisy); }
 
 table.facts { border-collapse: collapse; font-size: 0.92rem; background: var(--card); }
 .facts caption { text-align: left; color: var(--muted); padding-bottom: 0.3rem; }

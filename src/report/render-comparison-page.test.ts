@@ -1,5 +1,9 @@
 import { createHash } from 'node:crypto';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { parseGuitar } from '../guitar/index.js';
+import { type ComparisonPageData, type PageSound, decodeSignal, encodeSignal } from '../page/index.js';
 import type { ComparisonEntry, ComparisonReport, ComparisonRow } from './comparison-report.js';
 import { renderComparisonPage } from './render-comparison-page.js';
 
@@ -27,25 +31,33 @@ function makeReport(candidateName: string): ComparisonReport {
 
 const scriptsOf = (html: string): string[] => [...html.matchAll(/<script\b[^>]*>([\s\S]*?)<\/script>/gu)].map((match) => match[1] ?? '');
 
+const SCRIPT = "console.log('comparison script');";
+
 describe('renderComparisonPage', () => {
   const report = makeReport(HOSTILE);
-  const html = renderComparisonPage(report);
+  const raw = JSON.parse(readFileSync(join(import.meta.dirname, '..', '..', 'samples', 'three-single-coil.json'), 'utf8')) as Record<string, unknown>;
+  const signal = Float32Array.from([0.5, -0.25, 1e-9, 3.4e38, -0]);
+  const sounds: PageSound[] = ['Baseline (invented)', HOSTILE].map((name) => {
+    const guitar = parseGuitar({ ...raw, name });
+    return { guitar, overrides: {}, hum: null, chain: 'clean', coils: { sampleRateHz: 48000, length: 5, delay: 0, fftSize: 8, signals: guitar.coils.map(() => encodeSignal(signal)) } };
+  });
+  const html = renderComparisonPage(report, sounds, SCRIPT);
 
   it('has one row per wiring with a play button per set and the blind-test hooks', () => {
     expect(html.match(/<tr data-row="w\d+">/gu)?.length).toBe(3);
     expect(html.match(/<button type="button" data-action="play-set"/gu)?.length).toBe(6);
-    for (const action of ['abx-start', 'abx-play-a', 'abx-play-b', 'abx-play-x', 'abx-answer-a', 'abx-answer-b', 'abx-end', 'blind-row']) {
+    for (const action of ['blind-start', 'blind-hear-first', 'blind-hear-second', 'blind-hear-mystery', 'blind-is-first', 'blind-is-second', 'blind-finish', 'blind-row']) {
       expect(html).toContain(`data-action="${action}"`);
     }
     expect(html).toContain('<option value="B:w3">B · w3 neck + ~bridge</option>');
   });
 
-  it('carries the report and the playback gains as JSON', () => {
+  it('carries the report and every set\'s coil signals bit for bit as JSON', () => {
     const json = /<script type="application\/json" id="comparison-data">([\s\S]*?)<\/script>/u.exec(html)?.[1] ?? '';
-    const data = JSON.parse(json) as { report: ComparisonReport; gains: { matched: Record<string, number>; trueLevel: Record<string, number> } };
+    const data = JSON.parse(json) as ComparisonPageData;
     expect(data.report).toEqual(report);
-    // B's files were written 2 dB quieter (common gain 4 vs 6): true level gives B 2 dB more than A for the same loudness.
-    expect((data.gains.trueLevel['B:w1'] as number) - (data.gains.trueLevel['A:w1'] as number)).toBeCloseTo(2, 12);
+    expect(data.sets.map((set) => set.guitar.name)).toEqual(['Baseline (invented)', HOSTILE]);
+    for (const set of data.sets) for (const coil of set.coils.signals) expect([...decodeSignal(coil)]).toEqual([...signal]);
   });
 
   it('pins its script and style by hash and allows no connections', () => {

@@ -1,26 +1,22 @@
 /**
  * The comparison page: candidate pickup sets against a baseline, wiring by
  * wiring, in one self-contained HTML document drawn from a comparison
- * report. Pure: no I/O. Built like the listening page (render-listening-
- * page.ts) from the same pieces — its style, its math, loader, player and
- * blind-test scripts, its blind-test markup, glossary and cautions — with
- * its own table and interface script (page-comparison-script.ts). Each
- * set's audio stays in that set's render folder beside the page; the page
- * loads only from there (its Content-Security-Policy allows scripts from
- * the page and its folder and no connections).
+ * report and each set's sound. Pure: no I/O. Built like the listening page
+ * (render-listening-page.ts) from the same pieces — its style, its player
+ * bar, its blind-test markup, glossary and cautions — with its own table;
+ * the script is the bundle's comparison entry (src/page/comparison-main.ts,
+ * dist/comparison-page.js, passed in), which sounds every set live from its
+ * coil signals carried in the page. The script is inline and pinned by hash
+ * in a Content-Security-Policy that allows no connections, so the page makes
+ * no request outside its folder and works from file://.
  */
 import { renderPageHead } from './render-page-head.js';
 import type { ComparisonDifference, ComparisonEntry, ComparisonReport, ComparisonRow } from './comparison-report.js';
 import { escapeHtml, serializeJsonForScript } from './escape-html.js';
-import { PAGE_BLIND_SCRIPT } from './page-blind-script.js';
-import { PAGE_COMPARISON_SCRIPT } from './page-comparison-script.js';
-import { PAGE_LOADER_SCRIPT } from './page-loader-script.js';
-import { PAGE_MATH_SCRIPT } from './page-math-script.js';
-import { PAGE_PLAYER_SCRIPT } from './page-player-script.js';
 import { renderCautionsSection, renderGlossarySection } from './page-sections.js';
 import { PAGE_STYLE } from './page-style.js';
-import { planComparisonGains } from './plan-comparison-gains.js';
-import { renderBlindTestSection, renderTransport } from './render-listening-page.js';
+import { renderBlindSection, renderTransport } from './render-listening-page.js';
+import type { ComparisonPageData, PageSound } from '../page/index.js';
 
 /** Extra rules for the comparison table's set buttons (appended to the listening page's style). */
 const COMPARISON_STYLE = `
@@ -63,7 +59,7 @@ function renderRow(report: ComparisonReport, row: ComparisonRow, entries: Readon
     .map((set, index) => {
       const entry = entries.get(row.entries[index] ?? '');
       const title = entry ? `${set.label}: ${set.name} · ${entry.wiringId} ${entry.expression}` : `${set.label}: not rendered`;
-      return `<button type="button" data-action="play-set" data-set="${index}" aria-pressed="false" title="${escapeHtml(title)}"${entry?.wav ? '' : ' disabled'}>${escapeHtml(set.label)}</button>`;
+      return `<button type="button" data-action="play-set" data-set="${index}" aria-pressed="false" title="${escapeHtml(title)}"${entry ? '' : ' disabled'}>${escapeHtml(set.label)}</button>`;
     })
     .join('');
   const heard = row.differences.some((difference) => difference.audible);
@@ -117,9 +113,8 @@ function renderSetsList(report: ComparisonReport): string {
   return `<ul class="set-list">${items}</ul>`;
 }
 
-/** The comparison page for a report, as one HTML document. */
-export function renderComparisonPage(report: ComparisonReport): string {
-  const script = ["'use strict';", PAGE_MATH_SCRIPT, PAGE_LOADER_SCRIPT, PAGE_PLAYER_SCRIPT, PAGE_BLIND_SCRIPT, PAGE_COMPARISON_SCRIPT].join('\n');
+/** The comparison page for a report, as one HTML document: `sounds` are the sets' sounds (in `report.sets` order), `script` the bundled comparison script (dist/comparison-page.js). */
+export function renderComparisonPage(report: ComparisonReport, sounds: readonly PageSound[], script: string): string {
   const style = `${PAGE_STYLE}${COMPARISON_STYLE}`;
   const { thresholds } = report;
   const first = report.sets[0];
@@ -130,7 +125,7 @@ export function renderComparisonPage(report: ComparisonReport): string {
     id: entry.id,
     label: `${report.sets[entry.set]?.label ?? '?'} · ${entry.wiringId} ${entry.expression}`,
   }));
-  const data = { report, gains: planComparisonGains(report) };
+  const data: ComparisonPageData = { report, sets: sounds };
   return `${renderPageHead({ title, script, style, generator: report.generator })}
 <a class="skip" href="#compared">Skip to the wirings</a>
 <header class="masthead">
@@ -140,7 +135,7 @@ export function renderComparisonPage(report: ComparisonReport): string {
 ${renderSetsList(report)}
 <p class="warn-volume">Turn your speakers or headphones down before you press play.</p>
 </header>
-<noscript><p class="noscript">Playing and the blind test need JavaScript; the table and notes below work without it.</p></noscript>
+<noscript><p class="noscript">This page makes its sound with JavaScript; the table and notes below work without it, and each set's WAV files (when written) play anywhere.</p></noscript>
 <main>
 <section id="start" class="start" aria-labelledby="start-title">
 <h2 id="start-title">Start here</h2>
@@ -157,12 +152,12 @@ ${renderTable(report)}
 </div>
 <p class="notes">Level: the candidate's wiring against the baseline's, both on the baseline's scale (its average single coil is 0 dB). Brightness: power-weighted spectral centroid of the strum. Spectrum: level-matched difference over ERB bands. Hum: against the baseline's average single coil. Resonant peak: where the circuit boosts most.</p>
 </section>
-${renderBlindTestSection(choices, 'Choose a wiring on each set (a row\'s Blind test button picks its two sets). Each trial plays X, secretly one of A or B, at matched level; listen to A, B and X as often as you like, switching at the same point in the phrase, then say which one X is. ')}
+${renderBlindSection('Choose a wiring on each set (a row\'s Blind test button picks its two sets). ', choices, 'sound')}
 ${renderGlossarySection()}
 ${renderCautionsSection()}
 </main>
 <footer class="footer"><p>Made with coilbench. Renders are models of pickups that may differ from real ones: try a candidate set by ear before you buy and fit it.</p></footer>
-${renderTransport(report.sets[0]?.render.durationS ?? 0, 'Press a set\'s letter on any row to listen')}
+${renderTransport(report.sets[0]?.render.durationS ?? 0, 'Press a set’s letter on any row to listen')}
 <script type="application/json" id="comparison-data">${serializeJsonForScript(data)}</script>
 <script>${script}</script>
 </body>

@@ -11,7 +11,6 @@
  * not of wirings.
  */
 import { renderPageHead } from './render-page-head.js';
-import { RECOMMENDED_ABX_TRIALS } from './abx-settings.js';
 import { escapeHtml, serializeJsonForScript } from './escape-html.js';
 import type { ListeningReport } from './listening-report.js';
 import { renderGroupsSection } from './page-groups.js';
@@ -136,14 +135,24 @@ function renderPlotSection(): string {
   );
 }
 
-/** The blind test of the listening page (src/page/blind-test.ts drives it). */
-function renderBlindSection(): string {
+/**
+ * The blind test's section, the markup src/page/blind-test.ts drives (its ids
+ * and data-action hooks). `intro` is plain text (escaped here); `choices`
+ * fill the two pickers (the listening page fills them itself when none are given).
+ * Shared by the listening and comparison pages.
+ */
+export function renderBlindSection(
+  intro = 'Pick two wirings (the ones you plotted are offered, and every single coil). ',
+  choices: ReadonlyArray<{ readonly id: string; readonly label: string }> = [],
+  what = 'wiring',
+): string {
+  const options = choices.map((choice) => `<option value="${escapeHtml(choice.id)}">${escapeHtml(choice.label)}</option>`).join('');
   return (
     '<section id="blind" aria-labelledby="blind-title"><h2 id="blind-title">Blind test: is the difference real to your ears?</h2>' +
-    '<p>Pick two wirings (the ones you plotted are offered, and every single coil). Each round, the page hides one of them as the <em>mystery sound</em>. Hear the first, the second and the mystery as often as you like, always at matched level and at the same place in the phrase, then say which one the mystery is. ' +
+    `<p>${escapeHtml(intro)}Each round, the page hides one of them as the <em>mystery sound</em>. Hear the first, the second and the mystery as often as you like, always at matched level and at the same place in the phrase, then say which one the mystery is. ` +
     `The tally says how often a coin would do as well; give it <strong>${SUGGESTED_ROUNDS} rounds or more</strong>. (The method is the ABX test.)</p>` +
-    '<div class="blind-pick"><label>First wiring <select id="blind-first"></select></label>' +
-    '<label>Second wiring <select id="blind-second"></select></label>' +
+    `<div class="blind-pick"><label>First ${what} <select id="blind-first">${options}</select></label>` +
+    `<label>Second ${what} <select id="blind-second">${options}</select></label>` +
     '<button type="button" data-action="blind-start">Begin</button></div>' +
     '<div id="blind-rounds" class="blind-rounds" hidden>' +
     '<p id="blind-round" aria-live="polite"></p>' +
@@ -159,39 +168,6 @@ function renderBlindSection(): string {
     '</div>' +
     '<p id="blind-tally" class="score" aria-live="polite"></p>' +
     '<ol id="blind-answers" class="blind-answers"></ol>' +
-    '</section>'
-  );
-}
-
-/**
- * The blind-test section, the markup the blind-test script drives (its ids
- * and data-action hooks), offering `choices` for A and B. `introText` is
- * plain text (escaped here). Shared by the listening and comparison pages.
- */
-export function renderBlindTestSection(choices: ReadonlyArray<{ readonly id: string; readonly label: string }>, introText: string): string {
-  const options = choices.map((choice) => `<option value="${escapeHtml(choice.id)}">${escapeHtml(choice.label)}</option>`).join('');
-  return (
-    '<section id="blind" aria-labelledby="blind-title"><h2 id="blind-title">Blind test: is the difference real to your ears?</h2>' +
-    `<p>${escapeHtml(introText)}` +
-    `Give it <strong>${RECOMMENDED_ABX_TRIALS} rounds or more</strong>: the tally says how often a coin would do as well. (The method is the ABX test.)</p>` +
-    '<div class="abx-pick">' +
-    `<label>First wiring <select id="abx-a">${options}</select></label>` +
-    `<label>Second wiring <select id="abx-b">${options}</select></label>` +
-    '<button type="button" data-action="abx-start">Begin</button></div>' +
-    '<div id="abx-trial" class="abx-trial" hidden>' +
-    '<p id="abx-status" aria-live="polite"></p>' +
-    '<div class="abx-listen" role="group" aria-label="Listen">' +
-    '<button type="button" data-action="abx-play-a">Hear the first</button>' +
-    '<button type="button" data-action="abx-play-b">Hear the second</button>' +
-    '<button type="button" data-action="abx-play-x">Hear the mystery</button>' +
-    '<button type="button" data-action="abx-stop">Silence</button></div>' +
-    '<div class="abx-answer" role="group" aria-label="Answer">' +
-    '<button type="button" data-action="abx-answer-a">The mystery is the first</button>' +
-    '<button type="button" data-action="abx-answer-b">The mystery is the second</button></div>' +
-    '<button type="button" data-action="abx-end">Finish and reveal the answers</button>' +
-    '</div>' +
-    '<p id="abx-score" class="score" aria-live="polite"></p>' +
-    '<ol id="abx-log" class="abx-log"></ol>' +
     '</section>'
   );
 }

@@ -11,6 +11,7 @@
 import { InputError, type InputProblem, problemAt } from '../errors/index.js';
 import { MAX_POLES, MAX_POSITIONS, PRESET_NAMES_TEXT, presetSwitch } from './switch-presets.js';
 import { MAX_KIT_POSITIONS, type SwitchDefinition, type SwitchKit, countKitPositions } from './switch-kit.js';
+import { maxOf } from '../math/index.js';
 
 /** Most switches in one kit (our choice: a selector and a few mini toggles or push-pulls). */
 export const MAX_SWITCHES = 4;
@@ -103,7 +104,7 @@ export function parseSwitchText(text: string, path: string): SwitchDefinition {
     if (words === '-' || words === '') return [];
     return words.split(',').map((word) => (/^\s*\d+\s*$/u.test(word) ? Number(word) - 1 : Number.NaN)).sort((a, b) => a - b);
   });
-  const lugs = Math.max(1, ...positions.flat().filter(Number.isFinite).map((lug) => lug + 1));
+  const lugs = maxOf([1, ...positions.flat().filter(Number.isFinite).map((lug) => lug + 1)]);
   checkPositions(positions, Math.min(lugs, MAX_CONTACT_LUGS), path, problems);
   if (positions.flat().some((lug) => Number.isNaN(lug))) problems.push(problemAt(path, 'lug numbers like 1,2 between the "/"', text));
   if (problems.length > 0) throw new InputError(problems);

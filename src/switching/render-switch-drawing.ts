@@ -8,6 +8,7 @@ import type { Guitar } from '../guitar/index.js';
 import { describePlan } from './describe-plan.js';
 import { enumerateKitPoles, poleLetter } from './switch-kit.js';
 import type { SwitchPlan } from './solve-switch-plan.js';
+import { maxOf } from '../math/index.js';
 
 /** Layout of the drawing, in SVG user units (our choice, sized for a printed page). */
 const ROW_HEIGHT = 46;
@@ -28,8 +29,8 @@ export function renderSwitchDrawing(guitar: Guitar, plan: SwitchPlan): string {
   const description = describePlan(guitar, plan);
   const tagOf = new Map(description.nets.map((net) => [net.net, net.tag]));
   const poles = enumerateKitPoles(plan.kit);
-  const maxContacts = Math.max(...plan.kit.switches.map((definition) => definition.contactLugs));
-  const maxPositions = Math.max(...plan.kit.switches.map((definition) => definition.positions.length));
+  const maxContacts = maxOf(plan.kit.switches.map((definition) => definition.contactLugs));
+  const maxPositions = maxOf(plan.kit.switches.map((definition) => definition.positions.length));
   const tableLeft = LEFT + (maxContacts + 1) * LUG_SPACING + LUG_SPACING / 2;
   const width = tableLeft + (maxPositions + 1) * POSITION_CELL + LUG_SPACING;
   const polesHeight = TOP + poles.length * ROW_HEIGHT + plan.kit.switches.length * KEY_LINE;

@@ -14,6 +14,7 @@ import type { PositionReading } from './read-position-wiring.js';
 import { type SwitchKit, countKitPositions, describeKitPosition } from './switch-kit.js';
 import type { PositionWish, SwitchPlan } from './solve-switch-plan.js';
 import type { PositionVerification } from './verify-switch-plan.js';
+import { appendAll, maxOf } from '../math/index.js';
 
 /** Parallel of resistances (Ohm's law): 1/R = Σ 1/R_k. */
 function parallelOhms(a: number, b: number): number {
@@ -56,9 +57,9 @@ export function renderSwitchSheet(
   const description = describePlan(guitar, plan);
   const lines: string[] = [];
   lines.push(`Switch plan: ${guitar.name}`, `Kit: ${describeKit(plan.kit)}`, '');
+  lines.push('Read this first');
+  appendAll(lines, WORKSHOP_CAUTIONS);
   lines.push(
-    'Read this first',
-    ...WORKSHOP_CAUTIONS,
     '  - Switch lug layouts differ between makers: which lug is the common and which lugs each',
     '    position closes. Match the drawing to the switch in hand (check with a meter, switch in',
     '    each position) before you solder.',
@@ -102,7 +103,7 @@ export function renderSwitchSheet(
       reading.atJack,
     ]);
   });
-  const widths = (table[0] as string[]).map((_, column) => Math.max(...table.map((row) => (row[column] ?? '').length)));
+  const widths = (table[0] as string[]).map((_, column) => maxOf(table.map((row) => (row[column] ?? '').length)));
   lines.push('', 'Positions');
   for (const row of table) lines.push(`  ${row.map((cell, column) => cell.padEnd(widths[column] ?? 0)).join('  ').trimEnd()}`);
   lines.push(
@@ -116,8 +117,8 @@ export function renderSwitchSheet(
     '    position connects should sound, and no other.',
   );
   if (verification.length > 0) {
-    const worstDb = Math.max(...verification.map((check) => check.maxDb));
-    const worstDeg = Math.max(...verification.map((check) => check.maxDeg));
+    const worstDb = maxOf(verification.map((check) => check.maxDb));
+    const worstDeg = maxOf(verification.map((check) => check.maxDeg));
     const ok = verification.every((check) => check.passed);
     lines.push(
       '',

@@ -34,6 +34,7 @@ import { wiringCountFor } from '../../guitar/index.js';
 import { type AudioMetrics, REFERENCE_PHRASE, measureWiringAudio } from '../../render/index.js';
 import { removeStaleTempFiles, writeFileAtomicSync } from '../../render/index.js';
 import { wiringRecord } from './wirings.js';
+import { appendAll } from '../../math/index.js';
 
 interface AnalyzeOptions extends CircuitOptionText, AlikeOptionText {
   /** false with --no-audio: skip the figures that need each wiring's render. */
@@ -122,7 +123,7 @@ export function registerAnalyze(program: Command, io: Io): void {
     }
     if (options.json && options.markdown) problems.push(problemAt('--markdown', 'either --json or --markdown, not both', '--json --markdown'));
     if (options.csv !== undefined && options.csv.trim() === '') problems.push(problemAt('--csv', 'a file name', options.csv));
-    else if (options.csv !== undefined) problems.push(...findOutputProblems([file], [{ option: '--csv', path: options.csv, kind: 'file' }], io.cwd));
+    else if (options.csv !== undefined) appendAll(problems, findOutputProblems([file], [{ option: '--csv', path: options.csv, kind: 'file' }], io.cwd));
     if (problems.length > 0) throw new InputError(problems);
 
     const estimate = estimateAnalyze(wiringCountFor(guitar.elements.length), options.audio !== false);

@@ -6,13 +6,12 @@ import {
   RESONANCE_CHANGE_PERCENT,
   measureGuitarComparison,
 } from '../../analysis/index.js';
-import { type RenderOutcome, claimOutputFolder, defaultOutputRoot, outputFolder, renderGuitar, writeFileAtomic } from '../../render/index.js';
+import { type RenderOutcome, claimOutputFolder, defaultOutputRoot, outputFolder, renderGuitar, writeComparisonPage, writeFileAtomic } from '../../render/index.js';
 import {
   type ComparisonEntry,
   type ComparisonReport,
   type ComparisonRow,
   type ComparisonSetReport,
-  renderComparisonPage,
 } from '../../report/index.js';
 import type { Wiring } from '../../wiring/index.js';
 import { createProgress } from '../progress.js';
@@ -268,6 +267,7 @@ async function renderComparison(base: Guitar, comparisons: readonly GuitarCompar
   });
   const progress = createProgress(io);
   const outcomes: RenderOutcome[] = [];
+  const sounds: Array<Parameters<typeof writeComparisonPage>[2][number]> = [];
   try {
     for (const [index, set] of sets.entries()) {
       const parsed = parsedSets[index] as (typeof parsedSets)[number];
@@ -289,17 +289,17 @@ async function renderComparison(base: Guitar, comparisons: readonly GuitarCompar
             folder: outputFolder(join(root, setFolder(index))),
             generator: `coilbench ${COILBENCH_VERSION}`,
             thresholds: first.thresholds,
-            pageAudioCopies: true,
           },
           { onStage: (stage, total) => progress.stage(stage, total), onStep: (done, total) => progress.step(done, total) },
         ),
       );
+      sounds.push({ guitar: set.guitar, phrase: parsed.phrase, sampleRateHz: parsed.sampleRateHz, seed: parsed.seed, overrides: parsed.overrides, hum: null, chain: parsed.chain });
     }
     progress.finish();
     const report = comparisonReport(comparisons, sets, outcomes);
     const folder = outputFolder(root);
     await writeFileAtomic(join(root, 'comparison.json'), `${JSON.stringify(report, null, 2)}\n`);
-    await writeFileAtomic(folder.page, renderComparisonPage(report));
+    await writeComparisonPage(folder.page, report, sounds);
     claim.finish(
       outcomes.flatMap((outcome, index) =>
         listRenderedFiles(outputFolder(join(root, setFolder(index))), outcome).map((path) => `${setFolder(index)}/${path}`),

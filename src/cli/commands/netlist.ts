@@ -29,7 +29,7 @@ export function registerNetlist(program: Command, io: Io): void {
         graph = parseConnections(guitar, expression, '<wiring>');
       } catch (error) {
         if (!(error instanceof InputError)) throw error;
-        problems.push(...error.problems);
+        appendAll(problems, error.problems);
       }
       if (options.buildSheet) problems.push(problemAt('--build-sheet', 'a wiring in +, // and ~ notation (build sheets of connection lists are not written yet)', expression));
       if (problems.length > 0 || graph === undefined) throw new InputError(problems);

@@ -24,7 +24,6 @@ import {
   writeFileAtomic,
 } from '../../render/index.js';
 import { resolveCircuitLoad } from '../../circuit/index.js';
-import { pageAudioPath } from '../../report/index.js';
 import {
   BUILT_IN_PHRASES,
   type BuiltInPhraseName,
@@ -289,11 +288,7 @@ function renderSettingsRecord(parsed: ParsedRenderOptions): Record<string, unkno
 export function listRenderedFiles(folder: OutputFolder, outcome: RenderOutcome): string[] {
   const files: string[] = [];
   for (const row of outcome.rows) {
-    if (row.wav !== null) {
-      files.push(row.wav);
-      const pageAudio = pageAudioPath(row.wav);
-      if (existsSync(join(folder.root, pageAudio))) files.push(pageAudio);
-    }
+    if (row.wav !== null) files.push(row.wav);
     files.push(relative(folder.root, join(folder.netlistFolder, netlistFileName(row.wiring))).split(sep).join('/'));
   }
   return files;

@@ -45,6 +45,7 @@ import type { Io } from '../io.js';
 import { readGuitarFile } from '../read-guitar.js';
 import { reportRender, runRender } from './render.js';
 import { parseLevelWindow } from './shortlist.js';
+import { appendAll } from '../../math/index.js';
 
 interface SwitchOptions extends CircuitOptionText, AlikeOptionText {
   readonly switch: string[];
@@ -91,7 +92,7 @@ function parseWishes(texts: readonly string[], guitar: Guitar, wirings: readonly
       return { kind: 'wiring', network: wiring.network, expression: wiring.expression };
     } catch (error) {
       if (!(error instanceof InputError)) throw error;
-      problems.push(...error.problems);
+      appendAll(problems, error.problems);
       return { kind: 'free' };
     }
   });
@@ -138,7 +139,7 @@ export function registerSwitch(program: Command, io: Io): void {
       kit = readKit(file, options, io);
     } catch (error) {
       if (!(error instanceof InputError)) throw error;
-      problems.push(...error.problems);
+      appendAll(problems, error.problems);
     }
     const wishes = parseWishes(options.wiring, guitar, wirings, problems);
     if (options.choose && wishes.length > 0) problems.push(problemAt('--wiring', 'either --wiring … or --choose, not both', options.wiring.join(' ')));
@@ -349,7 +350,7 @@ async function runChoose(
       include.push(findWiring(text, wirings, vocabulary, '--include').number - 1);
     } catch (error) {
       if (!(error instanceof InputError)) throw error;
-      problems.push(...error.problems);
+      appendAll(problems, error.problems);
     }
   }
   if (problems.length > 0) throw new InputError(problems);
