@@ -36,10 +36,10 @@ export interface StringOptions {
   readonly pluckShape: PluckShape;
   /**
    * Inharmonicity coefficient B of each open string (Fletcher & Rossing
-   * ch. 2: f_n = n·f0·√(1 + B·n²)), 0 to MAX_INHARMONICITY: 'typical' (the
-   * default, TYPICAL_INHARMONICITY by nearest open pitch, for the guitar's
-   * scale), one number for every string, or one per string lowest first.
-   * 0 turns stiffness off: the loop is then exactly the flexible-string one.
+   * ch. 2: f_n = n·f0·√(1 + B·n²)), 0 to MAX_INHARMONICITY: 'typical'
+   * (TYPICAL_INHARMONICITY by nearest open pitch, for the guitar's scale), one
+   * number for every string, or one per string lowest first. 0 (the default
+   * for now) turns stiffness off: the loop is then exactly the flexible-string one.
    * A fretted note's B grows as 1/L² (L the vibrating length).
    */
   readonly inharmonicity: 'typical' | number | readonly number[];
@@ -94,7 +94,7 @@ export const DEFAULT_STRING_OPTIONS: StringOptions = Object.freeze({
   repluckDampS: 0.03,
   fadeOutS: 0.05,
   pluckShape: 'natural',
-  inharmonicity: 'typical',
+  inharmonicity: 0,
 });
 
 /** Options with per-string values expanded, lowest string first. */
