@@ -61,7 +61,8 @@ function pickupSignal(guitarCoils: Coil[], render: StringRender): Float64Array[]
   return computeCoilSpectra({ coils: guitarCoils }, render, size).map((spectrum) => realFft(size).inverse(spectrum));
 }
 
-const single = (note: PhraseNote, seconds = 1.5): StringRender => renderPhrase(demo, { name: 'one', notes: [note] }, { tailS: seconds });
+// Flexible strings (B = 0): these checks measure at exact harmonics, which a stiff string's partials leave (docs/physics.md §4.5).
+const single = (note: PhraseNote, seconds = 1.5): StringRender => renderPhrase(demo, { name: 'one', notes: [note] }, { tailS: seconds, inharmonicity: 0 });
 
 describe('computeCoilSpectra: position comb (docs/physics.md §2, derived; Smith, PASP, "Pickup Modeling")', () => {
   const quarter = coil(demo.scaleM / 4, 0.02);
@@ -157,7 +158,7 @@ describe('computeCoilSpectra: what the coil senses', () => {
     const render = renderPhrase(
       guitar,
       { name: 'ideal', notes: [{ timeS: 0, string: 1, fret: 0, velocity: 1, pluckM: 0.12 }] },
-      { pluckShape: 'ideal', brightness: 1, t60S: 60, tailS: 2 },
+      { pluckShape: 'ideal', brightness: 1, t60S: 60, tailS: 2, inharmonicity: 0 },
     );
     const [signal] = pickupSignal([coil(0.16, 0)], render);
     const levels = harmonicAmplitudes(signal ?? new Float64Array(), FS, 82.4069, 10, 0.2, 1.5);

@@ -5,7 +5,17 @@ export { MAX_FRET, MAX_PHRASE_TIME_S } from './phrase.js';
 export { builtInPhrase, BUILT_IN_PHRASES } from './built-in-phrase.js';
 export type { BuiltInPhraseName } from './built-in-phrase.js';
 export { parsePhrase, MAX_PHRASE_NOTES } from './parse-phrase.js';
-export { DEFAULT_STRING_OPTIONS, resolveStringOptions, t60ByPitchS, T60_AT_LOW_E_S, T60_AT_HIGH_E_S } from './string-options.js';
+export {
+  DEFAULT_STRING_OPTIONS,
+  resolveStringOptions,
+  t60ByPitchS,
+  T60_AT_LOW_E_S,
+  T60_AT_HIGH_E_S,
+  TYPICAL_INHARMONICITY,
+  TYPICAL_INHARMONICITY_SCALE_M,
+  MAX_INHARMONICITY,
+  typicalInharmonicity,
+} from './string-options.js';
 export type { StringOptions, ResolvedStringOptions } from './string-options.js';
 export { designStringLoop, T60_LEVEL } from './design-string-loop.js';
 export type { StringLoop, StringLoopRequest } from './design-string-loop.js';
@@ -15,3 +25,5 @@ export { renderExcitation } from './render-excitation.js';
 export type { ExcitationRequest, PickDirection, PluckShape } from './render-excitation.js';
 export { dampingFilterGain, dampingFilterPhaseDelay, stretchForBrightness, PLAIN_KARPLUS_STRONG_STRETCH } from './damping-filter.js';
 export { allpassCoefficient, allpassPhaseDelay, MIN_ALLPASS_DELAY } from './tuning-allpass.js';
+export { designDispersionAllpass, partialRatio, NO_DISPERSION, DISPERSION_SECTIONS, DISPERSION_FIT_MAX_HZ, DISPERSION_FIT_MAX_PARTIAL, DISPERSION_FIT_TOLERANCE_CENTS } from './dispersion-allpass.js';
+export type { DispersionAllpass } from './dispersion-allpass.js';

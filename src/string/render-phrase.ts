@@ -38,7 +38,7 @@ export interface StringRender {
 
 /** Render `phrase` on the guitar's strings. Throws InputError for options or notes the guitar cannot play. */
 export function renderPhrase(guitar: Pick<Guitar, 'scaleM' | 'strings'>, phrase: Phrase, options: Partial<StringOptions> = {}): StringRender {
-  const settings = resolveStringOptions(options, guitar.strings);
+  const settings = resolveStringOptions(options, guitar.strings, guitar.scaleM);
   checkPhraseFitsGuitar(phrase, guitar, settings.pluckM);
   const fs = settings.sampleRateHz;
   const stringCount = guitar.strings.length;
@@ -67,6 +67,8 @@ export function renderPhrase(guitar: Pick<Guitar, 'scaleM' | 'strings'>, phrase:
       frequencyHz,
       t60S: settings.t60PerString[index] ?? 1,
       brightness: settings.brightnessPerString[index] ?? 1,
+      // B = π³·E·d⁴/(64·T·L²) (Fletcher & Rossing ch. 2): the fretted length L·2^(−m/12) multiplies B by 2^(2m/12).
+      inharmonicity: (settings.inharmonicityPerString[index] ?? 0) * 2 ** ((2 * note.fret) / SEMITONES_PER_OCTAVE),
     });
     const excitation = renderExcitation({
       sampleRateHz: fs,

@@ -4,6 +4,7 @@ import { createRandom, maxOf } from '../math/index.js';
 import { centsBetween } from '../units/index.js';
 import { toneAmplitude } from '../../test/support/harmonics.js';
 import type { StringLoop } from './design-string-loop.js';
+import { NO_DISPERSION } from './dispersion-allpass.js';
 import { runStringLoop } from './run-string-loop.js';
 
 const FS = 44100;
@@ -20,6 +21,7 @@ function plainKarplusStrong(n: number): StringLoop {
     stretch: 0.5,
     allpassEta: 0,
     allpassDelay: 1,
+    dispersion: NO_DISPERSION,
     loopGain: 1,
     decayLimitedByBrightness: false,
   };

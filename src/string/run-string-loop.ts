@@ -5,7 +5,9 @@
  *   d[n] = y[n − N]                               delay line
  *   h[n] = (1 − S)·d[n] + S·d[n − 1]              damping filter Hd (brightness)
  *   a[n] = η·h[n] + h[n − 1] − η·a[n − 1]         tuning allpass (fractional delay)
- *   y[n] = x[n] + ρ·a[n]                          excitation plus loop gain (decay)
+ *   b_k[n] = α·b_{k−1}[n] + b_{k−1}[n − 1] − α·b_k[n − 1],  b_0 = a,  k = 1…M
+ *                                                 stiffness dispersion cascade (none when B = 0)
+ *   y[n] = x[n] + ρ·b_M[n]                        excitation plus loop gain (decay)
  *
  * y is the travelling velocity wave arriving at the bridge, W(t): a wave
  * leaving the bridge comes back after one period having been reflected,
@@ -33,6 +35,10 @@ export interface StringVoice {
 /** Run one note's loop and add its wave into `out` over [start, stop). */
 export function runStringLoop(loop: StringLoop, excitation: Float64Array, out: Float64Array, voice: StringVoice): void {
   const { delaySamples, stretch, allpassEta: eta, loopGain } = loop;
+  const sections = loop.dispersion.sections;
+  const alpha = loop.dispersion.coefficient;
+  const sectionInputs = new Float64Array(sections);
+  const sectionOutputs = new Float64Array(sections);
   const keep = 1 - stretch;
   const line = new Float64Array(delaySamples);
   const excitationLength = excitation.length;
@@ -50,7 +56,14 @@ export function runStringLoop(loop: StringLoop, excitation: Float64Array, out: F
     previousDelayed = delayed;
     previousDamped = damped;
     previousTuned = tuned;
-    const y = (i < excitationLength ? (excitation[i] as number) : 0) + loopGain * tuned;
+    let dispersed = tuned;
+    for (let k = 0; k < sections; k += 1) {
+      const output = alpha * dispersed + (sectionInputs[k] as number) - alpha * (sectionOutputs[k] as number);
+      sectionInputs[k] = dispersed;
+      sectionOutputs[k] = output;
+      dispersed = output;
+    }
+    const y = (i < excitationLength ? (excitation[i] as number) : 0) + loopGain * dispersed;
     line[index] = y;
     index = index + 1 === delaySamples ? 0 : index + 1;
     if (n < voice.dampStart) {

@@ -34,6 +34,46 @@ export interface StringOptions {
   readonly fadeOutS: number;
   /** 'natural' (seeded noise, pick direction, dynamic level) or 'ideal' (the textbook ideal pluck, for checks). Default 'natural'. */
   readonly pluckShape: PluckShape;
+  /**
+   * Inharmonicity coefficient B of each open string (Fletcher & Rossing
+   * ch. 2: f_n = n·f0·√(1 + B·n²)), 0 to MAX_INHARMONICITY: 'typical'
+   * (TYPICAL_INHARMONICITY by nearest open pitch, for the guitar's scale), one
+   * number for every string, or one per string lowest first. 0 (the default
+   * for now) turns stiffness off: the loop is then exactly the flexible-string one.
+   * A fretted note's B grows as 1/L² (L the vibrating length).
+   */
+  readonly inharmonicity: 'typical' | number | readonly number[];
+}
+
+/**
+ * Typical B of an open six-string electric guitar set (gauges 0.010–0.046 in,
+ * wound E A D, plain G B E) on a 648 mm scale, lowest first (from memory:
+ * B = π³·E·d⁴/(64·T·L²), Fletcher & Rossing ch. 2, with steel E = 200 GPa,
+ * the core wire's diameter d for wound strings and the set's tensions of
+ * 70–80 N). Their order agrees with Fastl & Völk (2012, "Inharmonicity of
+ * sounds from electric guitars: physical flaw or musical asset?"): the low
+ * wound strings have the most, and a plain G more than a wound D.
+ */
+export const TYPICAL_INHARMONICITY: readonly { readonly openHz: number; readonly b: number }[] = Object.freeze([
+  { openHz: 82.4069, b: 3.0e-4 },
+  { openHz: 110.0, b: 1.3e-4 },
+  { openHz: 146.8324, b: 7.0e-5 },
+  { openHz: 195.9977, b: 1.1e-4 },
+  { openHz: 246.9417, b: 4.0e-5 },
+  { openHz: 329.6276, b: 1.3e-5 },
+]);
+/** Scale length the TYPICAL_INHARMONICITY values belong to, metres (common practice: 25.5 in). */
+export const TYPICAL_INHARMONICITY_SCALE_M = 0.648;
+/** Largest B accepted (from memory: a piano's shortest treble strings reach about 0.01; guitar strings are far below). */
+export const MAX_INHARMONICITY = 0.01;
+
+/** B of an open string at `openHz` on a `scaleM` scale from the typical table: nearest pitch (in log frequency), times (L_table/L)² (B ∝ 1/L²). */
+export function typicalInharmonicity(openHz: number, scaleM: number): number {
+  let best = TYPICAL_INHARMONICITY[0] ?? { openHz, b: 0 };
+  for (const entry of TYPICAL_INHARMONICITY) {
+    if (Math.abs(Math.log(entry.openHz / openHz)) < Math.abs(Math.log(best.openHz / openHz))) best = entry;
+  }
+  return best.b * (TYPICAL_INHARMONICITY_SCALE_M / scaleM) ** 2;
 }
 
 /** t60 of an open low E (82.4 Hz), seconds (from memory: an electric guitar's low E sustains several seconds). */
@@ -54,12 +94,15 @@ export const DEFAULT_STRING_OPTIONS: StringOptions = Object.freeze({
   repluckDampS: 0.03,
   fadeOutS: 0.05,
   pluckShape: 'natural',
+  inharmonicity: 0,
 });
 
 /** Options with per-string values expanded, lowest string first. */
 export interface ResolvedStringOptions extends StringOptions {
   readonly t60PerString: readonly number[];
   readonly brightnessPerString: readonly number[];
+  /** Open-string inharmonicity B per string, lowest first. */
+  readonly inharmonicityPerString: readonly number[];
 }
 
 const MIN_SAMPLE_RATE_HZ = 8000; // telephone band, the lowest rate that still holds a guitar's pitch range
@@ -83,7 +126,11 @@ const inRange = (value: unknown, low: number, high: number): value is number =>
   typeof value === 'number' && Number.isFinite(value) && value >= low && value <= high;
 
 /** Merge `options` over the defaults and check every field once; throws InputError listing each problem. */
-export function resolveStringOptions(options: Partial<StringOptions>, strings: readonly OpenString[]): ResolvedStringOptions {
+export function resolveStringOptions(
+  options: Partial<StringOptions>,
+  strings: readonly OpenString[],
+  scaleM: number = TYPICAL_INHARMONICITY_SCALE_M,
+): ResolvedStringOptions {
   const merged: StringOptions = { ...DEFAULT_STRING_OPTIONS, ...options };
   const problems: InputProblem[] = [];
   const check = (ok: boolean, name: string, expected: string, value: unknown): void => {
@@ -109,20 +156,30 @@ export function resolveStringOptions(options: Partial<StringOptions>, strings: r
     high: number,
     what: string,
     byPitch: ((openHz: number) => number) | undefined,
+    byPitchWord = 'by-pitch',
   ): number[] => {
-    if (byPitch && value === 'by-pitch') return strings.map((string) => byPitch(string.openHz));
+    if (byPitch && value === byPitchWord) return strings.map((string) => byPitch(string.openHz));
     if (inRange(value, low, high)) return strings.map(() => value);
     if (Array.isArray(value) && value.length === strings.length) {
       value.forEach((item: unknown, index) => check(inRange(item, low, high), `${name}[${index}]`, what, item));
       return value.map((item: unknown) => (typeof item === 'number' ? item : low));
     }
-    const forms = byPitch ? `"by-pitch", ${what}, or ${strings.length} such values` : `${what} or ${strings.length} such values`;
+    const forms = byPitch ? `"${byPitchWord}", ${what}, or ${strings.length} such values` : `${what} or ${strings.length} such values`;
     check(false, name, `${forms} (one per string, lowest first)`, value);
     return strings.map(() => low);
   };
   const t60PerString = perString('t60S', merged.t60S, MIN_T60_S, MAX_T60_S, `seconds from ${MIN_T60_S} to ${MAX_T60_S}`, t60ByPitchS);
   const brightnessPerString = perString('brightness', merged.brightness, 0, 1, 'a number from 0 to 1', undefined);
+  const inharmonicityPerString = perString(
+    'inharmonicity',
+    merged.inharmonicity,
+    0,
+    MAX_INHARMONICITY,
+    `a coefficient B from 0 to ${MAX_INHARMONICITY}`,
+    (openHz) => typicalInharmonicity(openHz, scaleM),
+    'typical',
+  );
 
   if (problems.length > 0) throw new InputError(problems);
-  return Object.freeze({ ...merged, t60PerString, brightnessPerString });
+  return Object.freeze({ ...merged, t60PerString, brightnessPerString, inharmonicityPerString });
 }
