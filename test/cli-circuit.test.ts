@@ -7,6 +7,7 @@ import { captureIo, main } from '../src/cli/index.js';
 import { prepareCircuit, solveTransfers } from '../src/circuit/index.js';
 import { parseGuitarText } from '../src/guitar/index.js';
 import { enumerateWirings } from '../src/wiring/index.js';
+import { readPrintRows } from './support/ngspice-sweep.js';
 
 const samples = join(import.meta.dirname, '..', 'samples');
 const SAMPLE_FILES = ['three-single-coil.json', 'humbucker-two-single-coil.json', 'two-humbucker.json', 'two-lead-humbucker.json'];
@@ -213,10 +214,7 @@ describe('netlists in plain ngspice (Debian ngspice, `ngspice -b`)', () => {
     writeFileSync(join(folder, 'w.cir'), out);
     const result = spawnSync('ngspice', ['-b', join(folder, 'w.cir')], { encoding: 'utf8' });
     expect(result.status).toBe(0);
-    const rows = result.stdout
-      .split('\n')
-      .map((line) => line.trim().split(/\s+/u).map(Number))
-      .filter((cells) => cells.length === 4 && cells.every(Number.isFinite));
+    const rows = readPrintRows(result.stdout);
     expect(rows.length).toBeGreaterThanOrEqual(61);
     const frequencies = Float64Array.from(rows.map((cells) => cells[1] as number));
     const transfers = solveTransfers(prepareCircuit(guitar, frequencies), wiring?.network ?? { kind: 'element', element: 0, inverted: false });

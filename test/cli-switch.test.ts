@@ -14,6 +14,7 @@ import { captureIo, main } from '../src/cli/index.js';
 import { prepareCircuit, solveTransfers } from '../src/circuit/index.js';
 import { parseGuitarText } from '../src/guitar/index.js';
 import { enumerateWirings } from '../src/wiring/index.js';
+import { readPrintRows } from './support/ngspice-sweep.js';
 
 const samples = join(import.meta.dirname, '..', 'samples');
 const STANDARD = ['neck', 'neck // mid', 'mid', 'mid // bridge', 'bridge'].flatMap((text) => ['--wiring', text]);
@@ -104,10 +105,7 @@ describe('coilbench switch', () => {
     expect(code).toBe(0);
     const result = spawnSync('ngspice', ['-b', join(folder, 'position-4.cir')], { encoding: 'utf8' });
     expect(result.status).toBe(0);
-    const rows = result.stdout
-      .split('\n')
-      .map((line) => line.trim().split(/\s+/u).map(Number))
-      .filter((cells) => cells.length === 4 && cells.every(Number.isFinite));
+    const rows = readPrintRows(result.stdout);
     expect(rows.length).toBeGreaterThanOrEqual(61);
     const guitar = parseGuitarText(readFileSync(join(samples, 'three-single-coil.json'), 'utf8'));
     const wiring = enumerateWirings(guitar.elements).find((candidate) => candidate.expression === 'mid // bridge');

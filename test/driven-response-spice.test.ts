@@ -46,6 +46,7 @@ import {
 import { type Guitar, parseGuitarText } from '../src/guitar/index.js';
 import { readDensePeak } from './support/dense-peak.js';
 import { type Wiring, coilPhases, enumerateWirings, shapeKey } from '../src/wiring/index.js';
+import { runAcSweep } from './support/ngspice-sweep.js';
 
 const SAMPLES = join(import.meta.dirname, '..', 'samples');
 const POINTS_PER_DECADE = 400;
@@ -80,14 +81,9 @@ async function spiceTransfers(guitar: Guitar, wiring: Wiring, startHz: number, s
   const transfers: Float64Array[] = [];
   for (let c = 0; c < guitar.coils.length; c += 1) {
     const sourcePhasors = guitar.coils.map((_, other) => ({ magnitude: other === c ? 1 : 0, phaseDeg: 0 }));
-    simulation.setNetList(renderNetlist(guitar, wiring, { volumeSetting: VOLUME_SETTING }, { sourcePhasors, startHz, stopHz, pointsPerDecade }));
-    const result = await simulation.runSim();
-    if (result.dataType !== 'complex') throw new Error(`expected an AC result, got ${result.dataType}`);
-    const frequency = result.data.find((vector) => vector.name === 'frequency');
-    const output = result.data.find((vector) => vector.name === 'v(out)');
-    if (!frequency || !output) throw new Error('no frequency or v(out)');
-    frequenciesHz = Float64Array.from(frequency.values, (value) => value.real);
-    transfers.push(Float64Array.from(output.values.flatMap((value) => [value.real, value.img])));
+    const sweep = await runAcSweep(simulation, renderNetlist(guitar, wiring, { volumeSetting: VOLUME_SETTING }, { sourcePhasors, startHz, stopHz, pointsPerDecade }));
+    frequenciesHz = sweep.frequencies;
+    transfers.push(Float64Array.from(sweep.output.flatMap((value) => [value.real, value.img])));
   }
   return { frequenciesHz, transfers };
 }

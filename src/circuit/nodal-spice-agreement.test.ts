@@ -10,6 +10,7 @@
 import { Simulation } from 'eecircuit-engine';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { type Guitar, parseGuitar } from '../guitar/index.js';
+import { runAcSweep } from '../../test/support/ngspice-sweep.js';
 import {
   type CircuitGraph,
   type CircuitOverrides,
@@ -66,13 +67,7 @@ beforeAll(async () => {
 
 /** Largest deviation in dB and degrees between ngspice and Σ T_i·E_i over the sweep. */
 async function compare(guitar: Guitar, graph: CircuitGraph, phasors: readonly SourcePhasor[], overrides: CircuitOverrides = {}): Promise<{ db: number; deg: number; points: number }> {
-  simulation.setNetList(renderGraphNetlist(guitar, graph, 'check', overrides, { sourcePhasors: phasors }));
-  const result = await simulation.runSim();
-  if (result.dataType !== 'complex') throw new Error(`expected an AC result, got ${result.dataType}`);
-  const frequency = result.data.find((vector) => vector.name === 'frequency');
-  const output = result.data.find((vector) => vector.name === 'v(out)');
-  if (!frequency || !output) throw new Error(`no frequency or v(out) in ${result.variableNames.join(', ')}`);
-  const frequencies = Float64Array.from(frequency.values.map((value) => value.real));
+  const { frequencies, output } = await runAcSweep(simulation, renderGraphNetlist(guitar, graph, 'check', overrides, { sourcePhasors: phasors }));
   const transfers = solveNodalTransfers(prepareCircuit(guitar, frequencies, overrides), graph);
   let db = 0;
   let deg = 0;
@@ -88,7 +83,7 @@ async function compare(guitar: Guitar, graph: CircuitGraph, phasors: readonly So
       re += tr * ar - ti * ai;
       im += tr * ai + ti * ar;
     });
-    const spice = output.values[k] ?? { real: Number.NaN, img: Number.NaN };
+    const spice = output[k] ?? { real: Number.NaN, img: Number.NaN };
     db = Math.max(db, Math.abs(20 * Math.log10(Math.hypot(re, im) / Math.hypot(spice.real, spice.img))));
     deg = Math.max(deg, Math.abs(Math.atan2(im * spice.real - re * spice.img, re * spice.real + im * spice.img) * DEG_PER_RAD));
   });

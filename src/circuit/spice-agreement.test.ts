@@ -18,6 +18,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { type Guitar, parseGuitarText } from '../guitar/index.js';
 import { enumerateWirings, type Wiring } from '../wiring/index.js';
 import { type SourcePhasor, prepareCircuit, renderNetlist, solveTransfers } from './index.js';
+import { runAcSweep } from '../../test/support/ngspice-sweep.js';
 
 const SAMPLES = join(import.meta.dirname, '..', '..', 'samples');
 const MAGNITUDE_TOLERANCE_DB = 0.01;
@@ -48,13 +49,7 @@ beforeAll(async () => {
 
 /** Largest deviation between ngspice and coilbench over the sweep of one wiring. */
 async function compare(guitar: Guitar, wiring: Wiring, phasors: readonly SourcePhasor[] | null): Promise<Deviation> {
-  simulation.setNetList(renderNetlist(guitar, wiring, undefined, phasors ? { sourcePhasors: phasors } : {}));
-  const result = await simulation.runSim();
-  if (result.dataType !== 'complex') throw new Error(`expected an AC result, got ${result.dataType}`);
-  const frequency = result.data.find((vector) => vector.name === 'frequency');
-  const output = result.data.find((vector) => vector.name === 'v(out)');
-  if (!frequency || !output) throw new Error(`no frequency or v(out) in ${result.variableNames.join(', ')}`);
-  const frequencies = Float64Array.from(frequency.values.map((value) => value.real));
+  const { frequencies, output } = await runAcSweep(simulation, renderNetlist(guitar, wiring, undefined, phasors ? { sourcePhasors: phasors } : {}));
   const transfers = solveTransfers(prepareCircuit(guitar, frequencies), wiring.network);
   let db = 0;
   let deg = 0;
@@ -73,7 +68,7 @@ async function compare(guitar: Guitar, wiring: Wiring, phasors: readonly SourceP
       im += tr * ai + ti * ar;
       scale += Math.hypot(tr, ti) * phasor.magnitude;
     });
-    const spice = output.values[k] ?? { real: Number.NaN, img: Number.NaN };
+    const spice = output[k] ?? { real: Number.NaN, img: Number.NaN };
     const ours = Math.hypot(re, im);
     const theirs = Math.hypot(spice.real, spice.img);
     if (ours < CANCELLED_FRACTION * scale) {

@@ -14,6 +14,7 @@ import { prepareCircuit, renderGraphNetlist, solveTransfers } from '../circuit/i
 import { createRandom } from '../math/index.js';
 import { type Wiring, enumerateWirings } from '../wiring/index.js';
 import { randomInterestingPlan } from '../../test/support/random-switch-plan.js';
+import { runAcSweep } from '../../test/support/ngspice-sweep.js';
 import {
   type PositionWish,
   VERIFY_TOLERANCE_DB,
@@ -92,13 +93,7 @@ describe('ngspice (eecircuit-engine) runs each position\'s netlist', () => {
   it('and agrees with the wanted wiring within 0.01 dB in every position', async () => {
     const positions = planFor(THREE, ['lever-5-position-1-pole'], STANDARD);
     for (const [index, position] of positions.entries()) {
-      simulation.setNetList(renderGraphNetlist(THREE, position.circuit, `position ${index + 1}`));
-      const result = await simulation.runSim();
-      if (result.dataType !== 'complex') throw new Error('expected an AC sweep');
-      const frequency = result.data.find((vector) => vector.name === 'frequency');
-      const output = result.data.find((vector) => vector.name === 'v(out)');
-      if (!frequency || !output) throw new Error('no v(out)');
-      const frequencies = Float64Array.from(frequency.values.map((value) => value.real));
+      const { frequencies, output } = await runAcSweep(simulation, renderGraphNetlist(THREE, position.circuit, `position ${index + 1}`));
       const wanted = STANDARD[index] as PositionWish & { kind: 'wiring' };
       const transfers = solveTransfers(prepareCircuit(THREE, frequencies), wanted.network);
       let worst = 0;
@@ -109,7 +104,7 @@ describe('ngspice (eecircuit-engine) runs each position\'s netlist', () => {
           re += transfer[2 * k] as number;
           im += transfer[2 * k + 1] as number;
         }
-        const spice = output.values[k] ?? { real: Number.NaN, img: Number.NaN };
+        const spice = output[k] ?? { real: Number.NaN, img: Number.NaN };
         worst = Math.max(worst, Math.abs(20 * Math.log10(Math.hypot(re, im) / Math.hypot(spice.real, spice.img))));
       });
       expect(frequencies.length).toBeGreaterThan(50);
