@@ -33,8 +33,6 @@ export const REFUSE_SECONDS = 600;
 export const REFUSE_BYTES = 5e9;
 /** Bytes of a WAV header with its INFO list (about; the exact size depends on the names). */
 const WAV_HEADER_BYTES = 512;
-/** The page-audio copy of each WAV is base64 in a script: 4 bytes for every 3 (RFC 4648). */
-const BASE64_GROWTH = 4 / 3;
 /** Bytes per parked sample in the scratch folder (float32). */
 const SCRATCH_BYTES_PER_SAMPLE = 4;
 /** Margin kept free on the disk beyond the estimate (judgement: 5 % and at least 50 MB for the system). */
@@ -53,10 +51,11 @@ export interface WorkEstimate {
 /** Bytes per sample of each WAV format. */
 const BYTES_PER_SAMPLE: Readonly<Record<string, number>> = Object.freeze({ pcm16: 2, pcm24: 3, f32: 4 });
 
-export function estimateRender(wirings: number, audioSeconds: number, sampleRateHz: number, format: string): WorkEstimate {
+/** A render's work: the WAV files (none with --no-wav; the page holds coil signals, not copies of them) and the scratch audio. */
+export function estimateRender(wirings: number, audioSeconds: number, sampleRateHz: number, format: string, writeWav = true): WorkEstimate {
   const frames = Math.ceil(audioSeconds * sampleRateHz);
   const wav = WAV_HEADER_BYTES + frames * (BYTES_PER_SAMPLE[format] ?? SCRATCH_BYTES_PER_SAMPLE);
-  const bytes = wirings * wav * (1 + BASE64_GROWTH);
+  const bytes = writeWav ? wirings * wav : 0;
   return { wirings, seconds: wirings * audioSeconds * RENDER_SECONDS_PER_AUDIO_SECOND, bytes, peakBytes: bytes + wirings * frames * SCRATCH_BYTES_PER_SAMPLE };
 }
 

@@ -11,7 +11,7 @@ import { hashOf } from './render-manifest.js';
 
 /**
  * Longest part of a WAV name taken from the wiring's description, characters:
- * with the number, "-", ".wav.js" (the page's copy) the name stays well
+ * with the number, "-" and ".wav" the name stays well
  * under the 255-byte limit of common file systems (NAME_MAX).
  */
 const MAX_DESCRIPTION_SLUG = 200;
