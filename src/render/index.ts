@@ -17,6 +17,7 @@ export {
 } from './wav-file.js';
 export type { AudioChannels, WavFormat, WavInfo, WavOptions } from './wav-file.js';
 export {
+  createDeferredSync,
   writeFileAtomic,
   writeFileAtomicSync,
   removeStaleTempFiles,
@@ -24,6 +25,7 @@ export {
   TEMP_FILE_PREFIX,
   STALE_TEMP_FILE_AGE_MS,
 } from './write-file-atomic.js';
+export type { DeferredSync } from './write-file-atomic.js';
 export { defaultOutputRoot, outputFolder, wavFileName, netlistFileName } from './output-folder.js';
 export { claimOutputFolder, ownNamesOf, releaseFolderLocksSync, FOLDER_MARKER, FOLDER_LOCK } from './folder-claim.js';
 export type { ClaimRequest, FolderClaim, FolderPurpose } from './folder-claim.js';

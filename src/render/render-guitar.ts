@@ -45,6 +45,7 @@ import {
   REFERENCE_PHRASE,
   REFERENCE_SAMPLE_RATE_HZ,
   REFERENCE_SEED,
+  REFERENCE_FIGURES_VERSION,
   RENDER_TAIL_S,
   referLevels,
 } from './measure-wiring-audio.js';
@@ -54,7 +55,7 @@ import { type OutputFolder, netlistFileName, wavFileName } from './output-folder
 import { gainToDb, planMatchedGains, planTrueLevelGain } from './plan-gains.js';
 import { MANIFEST_VERSION, type Manifest, hashOf, readManifest } from './render-manifest.js';
 import { type WavFormat, encodeWav } from './wav-file.js';
-import { removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
+import { createDeferredSync, removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
 import { type FileRecord, fileMatches, recordOf } from './file-record.js';
 import { maxOf } from '../math/index.js';
 import { writeListeningPage } from './write-listening-page.js';
@@ -159,20 +160,22 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   mkdirSync(scratch, { recursive: true });
   activeScratchFolders.add(scratch);
 
+  // Files are renamed into place without an fsync each; their folders are synced once at the end (write-file-atomic.ts).
+  const deferred = createDeferredSync();
   const manifest = readManifest<Entry>(folder.manifest);
   const entries: Record<string, Entry> = { ...manifest.entries };
   let lastSave = performance.now();
   const saveManifest = async (force = true): Promise<void> => {
     if (!force && performance.now() - lastSave < MANIFEST_SAVE_INTERVAL_MS) return;
     const document: Manifest<Entry> = { version: MANIFEST_VERSION, entries };
-    await writeFileAtomic(folder.manifest, JSON.stringify(document));
+    await writeFileAtomic(folder.manifest, JSON.stringify(document), deferred);
     lastSave = performance.now();
   };
 
   const sound = soundOf(guitar);
   const base = { model: RENDER_MODEL_VERSION, sound, overrides: request.overrides };
   const metricsHashOf = (wiring: Wiring): string =>
-    hashOf({ ...base, expression: wiring.expression, phrase: REFERENCE_PHRASE, rate: REFERENCE_SAMPLE_RATE_HZ, seed: REFERENCE_SEED, tail: RENDER_TAIL_S });
+    hashOf({ ...base, expression: wiring.expression, phrase: REFERENCE_PHRASE, rate: REFERENCE_SAMPLE_RATE_HZ, seed: REFERENCE_SEED, tail: RENDER_TAIL_S, figures: REFERENCE_FIGURES_VERSION });
   const audioHashOf = (wiring: Wiring): string =>
     hashOf({
       ...base,
@@ -239,7 +242,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   let renderer: WiringRenderer | undefined;
   const processedAudio = (wiring: Wiring): Promise<Float32Array> => {
     renderer ??= createWiringRenderer(settings);
-    return renderer.processed(wiring.network, undefined, wiring.expression);
+    return renderer.processed(wiring.network, wiring.expression);
   };
   await saveManifest();
   // A wiring whose chain failed twice: what the others made is kept in the manifest, so the same command finishes the work.
@@ -247,6 +250,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   if (failures.length > 0) {
     rmSync(scratch, { recursive: true, force: true });
     activeScratchFolders.delete(scratch);
+    await deferred.flush();
     throw new WorkError(`${failures.join('; ')}; nothing written was lost, and running the same command again finishes the render`);
   }
   const audioMetrics = referLevels(request.all, raw);
@@ -301,7 +305,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
         });
         // Written in the background while the next wiring is prepared; the manifest records a file only once it is whole.
         await writes.add(async () => {
-          await writeFileAtomic(path, bytes);
+          await writeFileAtomic(path, bytes, deferred);
           Object.assign(entry, { fileHash, file: name, written: { wav: recordOf(bytes) } });
         });
         await saveManifest(false);
@@ -313,6 +317,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     // Keep the record of every file already whole, so a re-run skips them and finishes the rest.
     await writes.drain().catch(() => undefined);
     await saveManifest();
+    await deferred.flush();
     throw error;
   }
   await writes.drain();
@@ -324,7 +329,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   for (const wiring of selected) {
     const path = join(folder.netlistFolder, netlistFileName(wiring));
     const text = renderNetlist(guitar, wiring, request.overrides);
-    if (!existsSync(path) || readFileSync(path, 'utf8') !== text) await writes.add(() => writeFileAtomic(path, text));
+    if (!existsSync(path) || readFileSync(path, 'utf8') !== text) await writes.add(() => writeFileAtomic(path, text, deferred));
   }
   await writes.drain();
 
@@ -402,8 +407,9 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     wirings: reportWirings,
     groups: reportGroups(scope, distinct),
   };
-  await writeFileAtomic(folder.reportJson, `${JSON.stringify(report, null, 2)}\n`);
+  await writeFileAtomic(folder.reportJson, `${JSON.stringify(report, null, 2)}\n`, deferred);
   await writeListeningPage(folder.page, report, { ...request, drive });
+  await deferred.flush();
   return { report, rows, written, skipped, commonGainDb, matchedLoudnessLufs, audioSeconds, distinct, scope };
 }
 

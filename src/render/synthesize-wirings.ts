@@ -254,7 +254,7 @@ export function createWiringSynthesis(guitar: Guitar, coils: CoilSpectra, overri
 
 
 /** Refuse to render a guitar whose output is shorted (volume at 0): every file would be silence. */
-export function assertAudible(synthesis: WiringSynthesis, volumePath: string): void {
+export function assertAudible(synthesis: { readonly silent: boolean }, volumePath: string): void {
   if (synthesis.silent) {
     throw InputError.at(volumePath, 'a volume setting above 0 (at 0 the wiper shorts the output and every wiring is silent)', 0);
   }
