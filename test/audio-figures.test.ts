@@ -20,7 +20,8 @@ import { describe, expect, it } from 'vitest';
 import { measureCentroid, measureEnergy, measureLoudness } from '../src/analysis/index.js';
 import { phaseClassKey } from '../src/circuit/index.js';
 import { parseGuitarText } from '../src/guitar/index.js';
-import { prepareReferenceFigures, prepareReferenceSynthesis, renderReferenceCoils } from '../src/render/measure-wiring-audio.js';
+import { measureReferenceFigures, prepareReferenceFigures, prepareReferenceSynthesis, renderReferenceCoils } from '../src/render/measure-wiring-audio.js';
+import { measureFiguresOnThread } from '../src/render/measure-figures-on-thread.js';
 import { enumerateWirings } from '../src/wiring/index.js';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
@@ -82,5 +83,18 @@ describe('audio figures from cross-spectra', () => {
     const picked = renders.filter((_, index) => index % 8 === 0);
     const reference = referenceLoudness(picked.map((render) => ({ sampleRateHz: RATE_HZ, channels: [render.samples] })));
     picked.forEach((render, index) => expect(Math.abs(render.loudnessLufs - (reference[index] as number))).toBeLessThan(REFERENCE_LOUDNESS_LU));
+  });
+
+  it('are the same numbers, to the last bit, on a worker thread, one by one and phase class by phase class', async () => {
+    const guitar = loadSample('humbucker-two-single-coil.json');
+    const wirings = enumerateWirings(guitar.elements).filter((_, index) => index % 11 === 0);
+    const here = measureReferenceFigures(guitar, wirings, {});
+    const meter = prepareReferenceFigures(guitar, {});
+    const oneByOne = new Map(wirings.map((wiring) => [wiring.id, meter.measure(wiring.network)]));
+    let steps = 0;
+    const there = await measureFiguresOnThread(guitar, wirings, {}, () => (steps += 1));
+    expect(steps).toBeGreaterThan(0);
+    expect([...there.entries()]).toEqual([...here.entries()].sort((a, b) => wirings.findIndex((w) => w.id === a[0]) - wirings.findIndex((w) => w.id === b[0])));
+    for (const [id, figures] of here) expect(oneByOne.get(id)).toEqual(figures);
   });
 });

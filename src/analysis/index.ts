@@ -55,5 +55,5 @@ export { measureDistinctness } from './measure-distinctness.js';
 export type { Distinctness, DistinctnessOptions } from './measure-distinctness.js';
 export { measureGuitarComparison } from './measure-guitar-comparison.js';
 export type { ComparedGuitar, GuitarComparison, GuitarComparisonOptions } from './measure-guitar-comparison.js';
-export { prepareAudioFigures, designFigureGrid, GRID_POINTS_PER_OCTAVE, GRID_LOWEST_HZ, BLOCK_PADDING_S } from './measure-audio-figures.js';
+export { prepareAudioFigures, measureFiguresByClass, designFigureGrid, GRID_POINTS_PER_OCTAVE, GRID_LOWEST_HZ, BLOCK_PADDING_S } from './measure-audio-figures.js';
 export type { AudioFigureMeter, CoilRecording, RawAudioFigures } from './measure-audio-figures.js';

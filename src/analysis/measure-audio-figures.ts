@@ -95,8 +95,10 @@ export interface RawAudioFigures {
 export interface AudioFigureMeter {
   /** Is the output shorted (volume at 0)? Every wiring is then silent. */
   readonly silent: boolean;
-  /** The figures of one wiring (phase patterns of one class are cheapest taken one after another). */
+  /** The figures of one wiring. */
   measure(network: Network): RawAudioFigures;
+  /** The figures of several wirings of one phase class (phaseClassKey), cheaper together than one by one; the same numbers either way. */
+  measureClass(networks: readonly Network[]): RawAudioFigures[];
 }
 
 /** Grid of the circuit solves: 0 Hz, then points per octave from GRID_LOWEST_HZ, ending at `topHz` exactly. */
@@ -183,7 +185,7 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
   const points = grid.length;
   const circuit = prepareCircuit(guitar, grid, overrides);
   const silentFigures: RawAudioFigures = Object.freeze({ energy: 0, loudnessLufs: LOUDNESS_FLOOR_LUFS, centroidHz: SILENCE_CENTROID_HZ });
-  if (circuit.load.silent) return { silent: true, measure: () => silentFigures };
+  if (circuit.load.silent) return { silent: true, measure: () => silentFigures, measureClass: (networks) => networks.map(() => silentFigures) };
 
   const fft = realFft(fftSize);
   const binHz = sampleRateHz / fftSize;
@@ -245,6 +247,7 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
   const energyTerms = new Float64Array(pairCount);
   const blockTerms = new Float64Array(blockCount * pairCount);
   const products = new Float64Array(2 * bandBins * coilCount);
+  const inPhaseSum = new Float64Array(2 * bandBins);
   const usedCoils = new Int32Array(coilCount);
   let usedCount = 0;
   const pairA = new Int32Array(pairCount);
@@ -297,9 +300,11 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
       energyTerms[pair] = foldTerm(energyTable, pair, a !== b);
       for (let block = 0; block < blockCount; block += 1) blockTerms[block * pairCount + pair] = foldTerm(blockTables[block] as Float64Array, pair, a !== b);
     }
-    // P_u(k) = T_u(f_k)·H_u(k) for the used coils u, bin-major (k·U + u) so a phase pattern reads them in one pass.
+    // P_u(k) = T_u(f_k)·H_u(k) for the used coils u: their sum B(k) = Σ_u P_u(k) (every coil in phase) and
+    // D_u(k) = 2·P_u(k), bin-major (k·U + u) so that the phase patterns read them in one pass.
     usedCount = 0;
     for (let coil = 0; coil < coilCount; coil += 1) if (used[coil]) usedCoils[usedCount++] = coil;
+    inPhaseSum.fill(0);
     for (let u = 0; u < usedCount; u += 1) {
       const coil = usedCoils[u] as number;
       const transfer = transfers[coil] as Float64Array;
@@ -311,9 +316,13 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
         const ti = (transfer[2 * m + 1] as number) * (1 - t) + (transfer[2 * m + 3] as number) * t;
         const hr = spectrum[2 * k] as number;
         const hi = spectrum[2 * k + 1] as number;
+        const pr = tr * hr - ti * hi;
+        const pi = tr * hi + ti * hr;
+        inPhaseSum[2 * k] = (inPhaseSum[2 * k] as number) + pr;
+        inPhaseSum[2 * k + 1] = (inPhaseSum[2 * k + 1] as number) + pi;
         const at = 2 * (k * usedCount + u);
-        products[at] = tr * hr - ti * hi;
-        products[at + 1] = tr * hi + ti * hr;
+        products[at] = 2 * pr;
+        products[at + 1] = 2 * pi;
       }
     }
     cachedClass = key;
@@ -321,10 +330,9 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
 
   const signs = new Float64Array(coilCount);
   const blockPower = new Float64Array(blockCount);
-  const usedSigns = new Float64Array(coilCount);
-  const measure = (network: Network): RawAudioFigures => {
-    solveClass(network);
-    phaseClassSigns(guitar, network, signs);
+
+  /** Energy and loudness of one phase pattern (signs in `signs`) from the class's quadratic-form terms. */
+  const measureQuadratic = (): { energy: number; loudnessLufs: number } => {
     let energy = 0;
     blockPower.fill(0);
     for (let pair = 0; pair < pairCount; pair += 1) {
@@ -333,28 +341,100 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
       for (let block = 0; block < blockCount; block += 1) blockPower[block] = (blockPower[block] as number) + sign * (blockTerms[block * pairCount + pair] as number);
     }
     for (let block = 0; block < blockCount; block += 1) blockPower[block] = Math.max(0, blockPower[block] as number) / (blockLengths[block] as number);
-    const loudnessLufs = blockCount > 0 ? integrateGatedLoudness(blockPower) : LOUDNESS_FLOOR_LUFS;
-
-    // X_k = Σ_i p_i·T_i·H_i, then Σ k·|X_k| / Σ |X_k|.
-    for (let u = 0; u < usedCount; u += 1) usedSigns[u] = signs[usedCoils[u] as number] as number;
-    let weightedSum = 0;
-    let magnitudeSum = 0;
-    let at = 0;
-    for (let k = 0; k < bandBins; k += 1) {
-      let re = 0;
-      let im = 0;
-      for (let u = 0; u < usedCount; u += 1) {
-        const sign = usedSigns[u] as number;
-        re += sign * (products[at] as number);
-        im += sign * (products[at + 1] as number);
-        at += 2;
-      }
-      const magnitude = Math.sqrt(re * re + im * im);
-      weightedSum += (firstBin + k) * magnitude;
-      magnitudeSum += magnitude;
-    }
-    const centroidHz = magnitudeSum > 0 ? (weightedSum / magnitudeSum) * binHz : SILENCE_CENTROID_HZ;
-    return { energy: Math.max(0, energy), loudnessLufs, centroidHz };
+    return { energy: Math.max(0, energy), loudnessLufs: blockCount > 0 ? integrateGatedLoudness(blockPower) : LOUDNESS_FLOOR_LUFS };
   };
-  return { silent: false, measure };
+
+  /**
+   * Centroids of several phase patterns of the class in one pass over the bins.
+   * X = Σ_u s_u·P_u = B − Σ_{u: s_u = −1} D_u, and −X = B − Σ_{u: s_u = +1} D_u has
+   * the same magnitude, so each pattern subtracts the smaller of the two sets
+   * from B (at most U/2 coils). Each result depends on its own signs only, not
+   * on the other patterns measured with it.
+   */
+  const measureCentroids = (patterns: readonly Float64Array[]): number[] => {
+    const count = patterns.length;
+    const flipStart = new Int32Array(count + 1);
+    const flips: number[] = [];
+    patterns.forEach((patternSigns, index) => {
+      const negative: number[] = [];
+      const positive: number[] = [];
+      for (let u = 0; u < usedCount; u += 1) ((patternSigns[usedCoils[u] as number] as number) < 0 ? negative : positive).push(2 * u);
+      for (const offset of negative.length <= positive.length ? negative : positive) flips.push(offset);
+      flipStart[index + 1] = flips.length;
+    });
+    const flipOffsets = Int32Array.from(flips);
+    const weightedSums = new Float64Array(count);
+    const magnitudeSums = new Float64Array(count);
+    for (let k = 0; k < bandBins; k += 1) {
+      const baseRe = inPhaseSum[2 * k] as number;
+      const baseIm = inPhaseSum[2 * k + 1] as number;
+      const row = 2 * k * usedCount;
+      const bin = firstBin + k;
+      for (let pattern = 0; pattern < count; pattern += 1) {
+        let re = baseRe;
+        let im = baseIm;
+        const end = flipStart[pattern + 1] as number;
+        for (let flip = flipStart[pattern] as number; flip < end; flip += 1) {
+          const at = row + (flipOffsets[flip] as number);
+          re -= products[at] as number;
+          im -= products[at + 1] as number;
+        }
+        const magnitude = Math.sqrt(re * re + im * im);
+        weightedSums[pattern] = (weightedSums[pattern] as number) + bin * magnitude;
+        magnitudeSums[pattern] = (magnitudeSums[pattern] as number) + magnitude;
+      }
+    }
+    return patterns.map((_, index) => {
+      const magnitudeSum = magnitudeSums[index] as number;
+      return magnitudeSum > 0 ? ((weightedSums[index] as number) / magnitudeSum) * binHz : SILENCE_CENTROID_HZ;
+    });
+  };
+
+  const measureClass = (networks: readonly Network[]): RawAudioFigures[] => {
+    const first = networks[0];
+    if (first === undefined) return [];
+    solveClass(first);
+    const quadratic: { energy: number; loudnessLufs: number }[] = [];
+    const patterns = networks.map((network) => {
+      if (phaseClassKey(guitar, network) !== cachedClass) throw new RangeError('measureClass: every network must be of one phase class');
+      phaseClassSigns(guitar, network, signs);
+      quadratic.push(measureQuadratic());
+      return Float64Array.from(signs);
+    });
+    const centroids = measureCentroids(patterns);
+    return quadratic.map((figures, index) => ({ ...figures, centroidHz: centroids[index] as number }));
+  };
+  const measure = (network: Network): RawAudioFigures => measureClass([network])[0] as RawAudioFigures;
+  return { silent: false, measure, measureClass };
+}
+
+/**
+ * The figures of `networks` (in their order), measured phase class by phase
+ * class (`measureClass`): the way every caller should take many wirings.
+ * `onProgress` is told after each class.
+ */
+export function measureFiguresByClass(
+  guitar: Guitar,
+  meter: AudioFigureMeter,
+  networks: readonly Network[],
+  onProgress?: (done: number, total: number) => void,
+): RawAudioFigures[] {
+  const classes = new Map<string, number[]>();
+  networks.forEach((network, index) => {
+    const key = phaseClassKey(guitar, network);
+    const members = classes.get(key);
+    if (members) members.push(index);
+    else classes.set(key, [index]);
+  });
+  const results = new Array<RawAudioFigures>(networks.length);
+  let done = 0;
+  for (const members of classes.values()) {
+    const figures = meter.measureClass(members.map((index) => networks[index] as Network));
+    members.forEach((index, position) => {
+      results[index] = figures[position] as RawAudioFigures;
+    });
+    done += members.length;
+    onProgress?.(done, networks.length);
+  }
+  return results;
 }

@@ -11,12 +11,20 @@
  * measure-audio-figures.ts), with no render per wiring; measureRawAudio
  * measures a render itself, the check those figures are held to.
  */
-import { type CircuitOverrides, phaseClassKey } from '../circuit/index.js';
-import { type AudioFigureMeter, type RawAudioFigures, measureCentroid, measureEnergy, measureLevelDb, measureLoudness, prepareAudioFigures } from '../analysis/index.js';
+import type { CircuitOverrides } from '../circuit/index.js';
+import { type AudioFigureMeter, type RawAudioFigures, type SpectralBasis, measureFiguresByClass, measureCentroid, measureEnergy, measureLevelDb, measureLoudness, prepareAudioFigures } from '../analysis/index.js';
 import type { Guitar } from '../guitar/index.js';
 import { builtInPhrase } from '../string/index.js';
 import type { Wiring } from '../wiring/index.js';
-import { type CoilSignals, type WiringSynthesis, coilSpectraOfSignals, createWiringSynthesis, renderCoilSignals } from './synthesize-wirings.js';
+import {
+  type CoilSignals,
+  type WiringSynthesis,
+  COIL_VOLTS_PER_METRE_PER_SECOND,
+  coilSignalsOfSpectra,
+  coilSpectraOfSignals,
+  createWiringSynthesis,
+  renderCoilSignals,
+} from './synthesize-wirings.js';
 
 /** The reference performance for metrics (docs/design.md, phrases). */
 export const REFERENCE_PHRASE = 'strum';
@@ -60,6 +68,19 @@ export function renderReferenceCoils(guitar: Guitar): CoilSignals {
   });
 }
 
+/**
+ * The same coil signals from a spectral basis of the reference performance
+ * (measureSpectralBasis with its defaults renders the very same strings and
+ * coil spectra), so a command that needs both renders the strings once.
+ * Another basis is not reused: the strings are rendered.
+ */
+export function referenceCoilsOf(guitar: Guitar, basis: SpectralBasis | undefined): CoilSignals {
+  if (!basis?.reference || basis.sampleRateHz !== REFERENCE_SAMPLE_RATE_HZ || basis.phraseName !== REFERENCE_PHRASE) return renderReferenceCoils(guitar);
+  // E_i in volts, as renderCoilSpectra scales them.
+  const spectra = basis.coilSpectra.map((spectrum) => spectrum.map((value) => value * COIL_VOLTS_PER_METRE_PER_SECOND));
+  return coilSignalsOfSpectra(spectra, basis.phraseSamples + basis.pickupDelay, basis.pickupDelay, basis.fftSize, basis.sampleRateHz);
+}
+
 /** The synthesis of the reference phrase for a guitar and its settings (prepareWiringSynthesis of `strum`). */
 export function prepareReferenceSynthesis(guitar: Guitar, overrides: CircuitOverrides, coils: CoilSignals = renderReferenceCoils(guitar)): WiringSynthesis {
   return createWiringSynthesis(guitar, { ...coils, spectra: coilSpectraOfSignals(coils) }, overrides);
@@ -92,7 +113,9 @@ export function referLevels(
 /**
  * Audio metrics for `wanted` (plus the single-element wirings, which levels
  * refer to), from the coils' cross-spectra, nothing rendered or written.
- * `onProgress` is told after each wiring.
+ * `onProgress` is told after each phase class; `basis`, a spectral basis of
+ * the reference performance the caller already has, saves rendering the
+ * strings again.
  */
 export function measureWiringAudio(
   guitar: Guitar,
@@ -100,11 +123,13 @@ export function measureWiringAudio(
   wanted: readonly Wiring[],
   overrides: CircuitOverrides,
   onProgress?: (done: number, total: number) => void,
+  basis?: SpectralBasis,
 ): Map<string, AudioMetrics> {
   const todo = new Map<string, Wiring>();
   for (const wiring of all) if (wiring.elements.length === 1) todo.set(wiring.id, wiring);
   for (const wiring of wanted) todo.set(wiring.id, wiring);
-  return referLevels(all, measureReferenceFigures(guitar, [...todo.values()], overrides, onProgress));
+  const meter = prepareReferenceFigures(guitar, overrides, referenceCoilsOf(guitar, basis));
+  return referLevels(all, measureReferenceFigures(guitar, [...todo.values()], overrides, onProgress, meter));
 }
 
 /** Raw figures of `wirings` (taken phase class by phase class, which share their transfers), by wiring id. */
@@ -115,14 +140,11 @@ export function measureReferenceFigures(
   onProgress?: (done: number, total: number) => void,
   meter: AudioFigureMeter = prepareReferenceFigures(guitar, overrides),
 ): Map<string, RawAudioMetrics> {
-  const keyed = wirings.map((wiring) => ({ wiring, key: phaseClassKey(guitar, wiring.network) }));
-  const ordered = keyed.sort((a, b) => (a.key < b.key ? -1 : a.key > b.key ? 1 : 0));
-  const raw = new Map<string, RawAudioMetrics>();
-  let done = 0;
-  for (const { wiring } of ordered) {
-    raw.set(wiring.id, meter.measure(wiring.network));
-    done += 1;
-    onProgress?.(done, ordered.length);
-  }
-  return raw;
+  const figures = measureFiguresByClass(
+    guitar,
+    meter,
+    wirings.map((wiring) => wiring.network),
+    onProgress,
+  );
+  return new Map(wirings.map((wiring, index) => [wiring.id, figures[index] as RawAudioMetrics]));
 }

@@ -15,7 +15,7 @@ import type { Phrase } from '../string/index.js';
 import type { Network } from '../wiring/index.js';
 import type { ChainName } from './chain-name.js';
 import { renderEffectsChain } from './effects-chain.js';
-import type { AudioFigureMeter } from '../analysis/index.js';
+import { type AudioFigureMeter, measureFiguresByClass } from '../analysis/index.js';
 import {
   type RawAudioMetrics,
   REFERENCE_PHRASE,
@@ -70,8 +70,8 @@ export interface PassResult {
 }
 
 export interface WiringRenderer {
-  /** The reference figures of a wiring (docs/design.md metrics, before levels are referred to the single coils). */
-  figures(network: Network): RawAudioMetrics;
+  /** The reference figures of wirings (docs/design.md metrics, before levels are referred to the single coils), in their order. */
+  figures(networks: readonly Network[]): RawAudioMetrics[];
   /**
    * The processed audio of a wiring (file phrase, hum, chain), before gain.
    * A failed chain render is tried once more; a second failure is a
@@ -114,7 +114,7 @@ export function createWiringRenderer(settings: AudioSettings): WiringRenderer {
   };
   return {
     sampleRateHz: settings.sampleRateHz,
-    figures: (network) => referenceFigures().measure(network),
+    figures: (networks) => (networks.length === 0 ? [] : measureFiguresByClass(settings.guitar, referenceFigures(), networks)),
     async processed(network, name) {
       const synthesis = fileSynthesis();
       const audio = synthesis.synthesize(network);
@@ -182,8 +182,12 @@ export async function runRenderPass(
 ): Promise<PassResult[]> {
   const renderer = createWiringRenderer(settings);
   const results: PassResult[] = [];
+  // Figures first, phase class by phase class (cheap: no render); then each wiring's file audio.
+  const measured = items.filter((item) => item.metrics);
+  const figures = renderer.figures(measured.map((item) => item.network));
+  const figuresOf = new Map(measured.map((item, index) => [item.id, figures[index] as RawAudioMetrics]));
   for (const item of items) {
-    const metrics = item.metrics ? renderer.figures(item.network) : undefined;
+    const metrics = figuresOf.get(item.id);
     let audio: PassResult['audio'];
     let scratch: string | undefined;
     let failure: string | undefined;
