@@ -27,9 +27,10 @@
  *   so X(f) = Σ_i p_i·T_i(f)·H_i(f) with H_i the FFT of the Hann-windowed
  *   coil signal e_i (the render's length L, zero padded to N), and
  *   SC = Σ f_k·|X_k| / Σ |X_k| over 20 Hz–20 kHz as measureCentroid. The
- *   magnitude is not a quadratic form, so this sum runs over the bins per
- *   wiring (a signed sum of the phase class's products T_i·H_i and a
- *   square root per bin: no FFT).
+ *   magnitude is not a quadratic form, so this sum runs over the bins for
+ *   each wiring: no FFT, but per bin the products T_i·H_i (shared by the
+ *   phase patterns of a class, measured together) and a square root per
+ *   pattern.
  *
  * The circuit is solved at a grid of frequencies (0 Hz, then GRID_POINTS_PER_OCTAVE
  * log-spaced points per octave from GRID_LOWEST_HZ to Nyquist) and the
@@ -37,9 +38,9 @@
  * T_i(f) = Σ_m φ_m(f)·T_i(g_m) for the centroid, and for the quadratic forms
  * the products T_a·conj(T_b) are interpolated, so the frequency sums fold into
  * the per-guitar tables S̃_ab,m = Σ_k w_k·φ_m(f_k)·S_ab(k). A phase class then
- * costs its transfers at the grid points, a few small dot products and the
- * products T_i·H_i; a phase pattern costs a signed sum per bin for the
- * centroid and a few multiplications for the rest. Linear interpolation is
+ * costs its transfers at the grid points and a few small dot products; a
+ * phase pattern a few multiplications for energy and loudness, and for the
+ * centroid its share of one pass over the band's bins. Linear interpolation is
  * second order: at 48 points per octave (1.45 % steps) a resonance with Q = 5
  * is off by about 0.07 % in |T|²; test/audio-figures.test.ts measures the
  * figures against each wiring's own render (measureEnergy, measureLoudness,
@@ -241,13 +242,12 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
     return Float64Array.from(spectrum.subarray(2 * firstBin, 2 * (lastBin + 1)));
   });
 
-  // Per phase class: transfers at the grid, the quadratic forms' terms per pair, and P_i = T_i·H_i per band bin.
+  // Per phase class: transfers at the grid and the quadratic forms' terms per pair.
   const transfers = guitar.coils.map(() => new Float64Array(2 * points));
   const used = new Uint8Array(coilCount);
   const energyTerms = new Float64Array(pairCount);
   const blockTerms = new Float64Array(blockCount * pairCount);
-  const products = new Float64Array(2 * bandBins * coilCount);
-  const inPhaseSum = new Float64Array(2 * bandBins);
+  const products = new Float64Array(2 * coilCount);
   const usedCoils = new Int32Array(coilCount);
   let usedCount = 0;
   const pairA = new Int32Array(pairCount);
@@ -300,31 +300,8 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
       energyTerms[pair] = foldTerm(energyTable, pair, a !== b);
       for (let block = 0; block < blockCount; block += 1) blockTerms[block * pairCount + pair] = foldTerm(blockTables[block] as Float64Array, pair, a !== b);
     }
-    // P_u(k) = T_u(f_k)·H_u(k) for the used coils u: their sum B(k) = Σ_u P_u(k) (every coil in phase) and
-    // D_u(k) = 2·P_u(k), bin-major (k·U + u) so that the phase patterns read them in one pass.
     usedCount = 0;
     for (let coil = 0; coil < coilCount; coil += 1) if (used[coil]) usedCoils[usedCount++] = coil;
-    inPhaseSum.fill(0);
-    for (let u = 0; u < usedCount; u += 1) {
-      const coil = usedCoils[u] as number;
-      const transfer = transfers[coil] as Float64Array;
-      const spectrum = windowed[coil] as Float64Array;
-      for (let k = 0; k < bandBins; k += 1) {
-        const m = bandLocation.node[k] as number;
-        const t = bandLocation.weight[k] as number;
-        const tr = (transfer[2 * m] as number) * (1 - t) + (transfer[2 * m + 2] as number) * t;
-        const ti = (transfer[2 * m + 1] as number) * (1 - t) + (transfer[2 * m + 3] as number) * t;
-        const hr = spectrum[2 * k] as number;
-        const hi = spectrum[2 * k + 1] as number;
-        const pr = tr * hr - ti * hi;
-        const pi = tr * hi + ti * hr;
-        inPhaseSum[2 * k] = (inPhaseSum[2 * k] as number) + pr;
-        inPhaseSum[2 * k + 1] = (inPhaseSum[2 * k + 1] as number) + pi;
-        const at = 2 * (k * usedCount + u);
-        products[at] = 2 * pr;
-        products[at + 1] = 2 * pi;
-      }
-    }
     cachedClass = key;
   };
 
@@ -346,10 +323,12 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
 
   /**
    * Centroids of several phase patterns of the class in one pass over the bins.
-   * X = Σ_u s_u·P_u = B − Σ_{u: s_u = −1} D_u, and −X = B − Σ_{u: s_u = +1} D_u has
-   * the same magnitude, so each pattern subtracts the smaller of the two sets
-   * from B (at most U/2 coils). Each result depends on its own signs only, not
-   * on the other patterns measured with it.
+   * Per bin, P_u = T_u·H_u for the used coils u (T_u interpolated from the
+   * grid) and their in-phase sum B = Σ_u P_u; then X = Σ_u s_u·P_u =
+   * B − Σ_{u: s_u = −1} 2·P_u, and −X = B − Σ_{u: s_u = +1} 2·P_u has the
+   * same magnitude, so each pattern subtracts the smaller of the two sets
+   * from B (at most U/2 coils). Each result depends on its own signs only,
+   * not on the other patterns measured with it.
    */
   const measureCentroids = (patterns: readonly Float64Array[]): number[] => {
     const count = patterns.length;
@@ -365,17 +344,35 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
     const flipOffsets = Int32Array.from(flips);
     const weightedSums = new Float64Array(count);
     const magnitudeSums = new Float64Array(count);
+    const usedTransfers = Array.from({ length: usedCount }, (_, u) => transfers[usedCoils[u] as number] as Float64Array);
+    const usedSpectra = Array.from({ length: usedCount }, (_, u) => windowed[usedCoils[u] as number] as Float64Array);
     for (let k = 0; k < bandBins; k += 1) {
-      const baseRe = inPhaseSum[2 * k] as number;
-      const baseIm = inPhaseSum[2 * k + 1] as number;
-      const row = 2 * k * usedCount;
+      const m = bandLocation.node[k] as number;
+      const t = bandLocation.weight[k] as number;
+      const s = 1 - t;
+      let baseRe = 0;
+      let baseIm = 0;
+      for (let u = 0; u < usedCount; u += 1) {
+        const transfer = usedTransfers[u] as Float64Array;
+        const spectrum = usedSpectra[u] as Float64Array;
+        const tr = (transfer[2 * m] as number) * s + (transfer[2 * m + 2] as number) * t;
+        const ti = (transfer[2 * m + 1] as number) * s + (transfer[2 * m + 3] as number) * t;
+        const hr = spectrum[2 * k] as number;
+        const hi = spectrum[2 * k + 1] as number;
+        const pr = tr * hr - ti * hi;
+        const pi = tr * hi + ti * hr;
+        baseRe += pr;
+        baseIm += pi;
+        products[2 * u] = 2 * pr;
+        products[2 * u + 1] = 2 * pi;
+      }
       const bin = firstBin + k;
       for (let pattern = 0; pattern < count; pattern += 1) {
         let re = baseRe;
         let im = baseIm;
         const end = flipStart[pattern + 1] as number;
         for (let flip = flipStart[pattern] as number; flip < end; flip += 1) {
-          const at = row + (flipOffsets[flip] as number);
+          const at = flipOffsets[flip] as number;
           re -= products[at] as number;
           im -= products[at + 1] as number;
         }
