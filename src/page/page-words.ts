@@ -5,7 +5,7 @@
  */
 import type { Topology } from '../wiring/index.js';
 import { maxOf, minOf } from '../math/index.js';
-import { type HumCategory, humCategory } from '../circuit/measure-hum.js';
+import { HUM_FLOOR_DB, type HumCategory, humCategory } from '../circuit/measure-hum.js';
 
 const TOPOLOGY_WORDS: Readonly<Record<Topology, string>> = Object.freeze({
   single: 'alone',
@@ -114,6 +114,12 @@ export function formatDb(db: number | null, digits = 1): string {
   const fixed = Math.abs(db).toFixed(digits);
   if (Number(fixed) === 0) return `${(0).toFixed(digits)} dB`;
   return `${db < 0 ? MINUS : '+'}${fixed} dB`;
+}
+
+/** A hum figure in whole decibels (the model claims no finer), the floor as "≤ −40 dB" (it claims no deeper rejection). */
+export function formatHumDb(db: number | null): string {
+  if (db !== null && db <= HUM_FLOOR_DB) return `\u2264 ${formatDb(HUM_FLOOR_DB, 0)}`;
+  return formatDb(db, 0);
 }
 
 const HZ_PER_KHZ = 1000;
