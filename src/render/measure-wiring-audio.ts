@@ -77,7 +77,11 @@ export function renderReferenceCoils(guitar: Guitar): CoilSignals {
 export function referenceCoilsOf(guitar: Guitar, basis: SpectralBasis | undefined): CoilSignals {
   if (!basis?.reference || basis.sampleRateHz !== REFERENCE_SAMPLE_RATE_HZ || basis.phraseName !== REFERENCE_PHRASE) return renderReferenceCoils(guitar);
   // E_i in volts, as renderCoilSpectra scales them.
-  const spectra = basis.coilSpectra.map((spectrum) => spectrum.map((value) => value * COIL_VOLTS_PER_METRE_PER_SECOND));
+  const spectra = basis.coilSpectra.map((spectrum) => {
+    const volts = new Float64Array(spectrum.length);
+    for (let k = 0; k < spectrum.length; k += 1) volts[k] = (spectrum[k] as number) * COIL_VOLTS_PER_METRE_PER_SECOND;
+    return volts;
+  });
   return coilSignalsOfSpectra(spectra, basis.phraseSamples + basis.pickupDelay, basis.pickupDelay, basis.fftSize, basis.sampleRateHz);
 }
 
