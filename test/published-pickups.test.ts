@@ -11,6 +11,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { CONSTRUCTION_DEFAULTS } from '../src/guitar/index.js';
+import { maxOf } from '../src/math/index.js';
 import { type PublishedPickup, fitPublishedPickup, measuredPeak, modelPeak, readPublishedPickups, relativeError } from './support/published-pickups.js';
 
 /** The agreement asked of the fitted model: 10 % in peak frequency and in peak height (as a ratio). */
@@ -91,8 +92,8 @@ describe('published pickup measurements', () => {
 
   it('a lossless coil cannot meet them: without the eddy branch the fit misses at least one peak by more than 10 %', () => {
     // Why the loss branch exists (docs/physics.md §1.6): hold κ at 0 and the best R-L-C fit fails on some pickup.
-    const worst = Math.max(
-      ...pickups.flatMap((pickup) => {
+    const worst = maxOf(
+      pickups.flatMap((pickup) => {
         const fit = fitPublishedPickup(pickup, pickup.responses, { eddy: { share: 0, cornerHz: 1 } });
         return pickup.responses.flatMap((response) => {
           const measured = measuredPeak(response);

@@ -135,7 +135,10 @@ export function measuredPeak(response: LoadedResponse): PeakFigure {
 export function modelPeak(coil: CoilModel, instrumentOhms: number, response: LoadedResponse): PeakFigure {
   const withLeads = withInstrument(coil, instrumentOhms);
   const frequencies = response.points.map((point) => point.frequencyHz);
-  const magnitudes = frequencies.map((f) => Math.hypot(...coilLoadRatioAt(withLeads, response.conductanceS, response.capacitanceF, f)));
+  const magnitudes = frequencies.map((f) => {
+    const [re, im] = coilLoadRatioAt(withLeads, response.conductanceS, response.capacitanceF, f);
+    return Math.hypot(re, im);
+  });
   return measureRatioPeak(frequencies, magnitudes);
 }
 
