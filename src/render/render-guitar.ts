@@ -60,8 +60,8 @@ import { type FileRecord, fileMatches, recordOf } from './file-record.js';
 import { maxOf } from '../math/index.js';
 import { writeListeningPage } from './write-listening-page.js';
 
-/** Bump when the sound of a render changes for the same inputs (string model, pickup, chain), so old files are redone. */
-export const RENDER_MODEL_VERSION = 2;
+/** Bump when the sound of a render changes for the same inputs (string model, pickup, chain), so old files are redone. 3: stiff strings (inharmonicity on by default). */
+export const RENDER_MODEL_VERSION = 3;
 /** File writes allowed to run in the background at once (each holds one encoded file in memory). */
 const MAX_PENDING_WRITES = 4;
 /** Least time between manifest saves while writing files, ms: an interrupted run loses at most this much record (the files themselves are always whole). */
