@@ -359,7 +359,7 @@ async function runChoose(
   const kits = comparisonKits(kit);
   const choiceSteps = options.searchLimit === undefined ? CHOICE_SEARCH_STEPS : stepBudget;
   const allowShorted = guitar.pickups.every((pickup) => pickup.coupling === 0);
-  const choices = kits.map((candidate) => solveSwitchChoice(candidate, guitar.elements.length, list, distance, request, { stepBudget: choiceSteps, allowShorted }));
+  const choices = kits.map((candidate) => solveSwitchChoice(candidate, guitar, list, distance, request, { stepBudget: choiceSteps, allowShorted }));
   const mine = choices[0] as ReturnType<typeof solveSwitchChoice>;
   const rows = kits.map((candidate, k) => {
     const choice = choices[k] as ReturnType<typeof solveSwitchChoice>;
