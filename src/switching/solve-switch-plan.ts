@@ -584,7 +584,7 @@ export function solveSwitchPlan(
   // that a position is settled as soon as the lugs it touches are (a lever's position 1 after the
   // commons and the first contacts), and the bounds above bite early.
   const lugOrder: { readonly q: number; readonly lug: number }[] = poles.map((_, q) => ({ q, lug: 0 }));
-  const mostContacts = Math.max(0, ...layout.contactCounts);
+  const mostContacts = layout.contactCounts.reduce((most, count) => Math.max(most, count), 0);
   for (let k = 1; k <= mostContacts; k += 1) {
     layout.contactCounts.forEach((count, q) => {
       if (count >= k) lugOrder.push({ q, lug: k });
