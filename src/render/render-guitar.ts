@@ -33,6 +33,7 @@ import { WorkError } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
 import {
   type ListeningReport,
+  type ReportSwitchPosition,
   type ReportGroups,
   type ReportWiring,
   reportGuitar,
@@ -95,6 +96,8 @@ export interface RenderRequest {
   readonly threads?: number;
   /** "Sounds alike" thresholds for the groups in the report (src/analysis defaults when absent). */
   readonly thresholds?: Partial<AlikeThresholds>;
+  /** A switch plan's positions in order (`switch --render`): the report and page label the wirings by position. */
+  readonly positions?: readonly ReportSwitchPosition[];
 }
 
 export interface RenderEvents {
@@ -406,6 +409,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     responseFrequenciesHz: Array.from(responseGrid),
     wirings: reportWirings,
     groups: reportGroups(scope, distinct),
+    ...(request.positions === undefined ? {} : { positions: request.positions }),
   };
   await writeFileAtomic(folder.reportJson, `${JSON.stringify(report, null, 2)}\n`, deferred);
   await writeListeningPage(folder.page, report, { ...request, drive });
