@@ -47,11 +47,13 @@
  * measureCentroid) and states the bounds.
  */
 import {
+  type CircuitGraph,
   type CircuitOverrides,
   phaseClassKey,
   phaseClassNetwork,
   phaseClassSigns,
   prepareCircuit,
+  solveNodalTransfers,
   solveTransfers,
 } from '../circuit/index.js';
 import type { Guitar } from '../guitar/index.js';
@@ -100,6 +102,8 @@ export interface AudioFigureMeter {
   measure(network: Network): RawAudioFigures;
   /** The figures of several wirings of one phase class (phaseClassKey), cheaper together than one by one; the same numbers either way. */
   measureClass(networks: readonly Network[]): RawAudioFigures[];
+  /** The figures of any connection of coil leads (a bridge network, say), its transfers from the nodal solver. */
+  measureGraph(graph: CircuitGraph): RawAudioFigures;
 }
 
 /** Grid of the circuit solves: 0 Hz, then points per octave from GRID_LOWEST_HZ, ending at `topHz` exactly. */
@@ -186,7 +190,7 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
   const points = grid.length;
   const circuit = prepareCircuit(guitar, grid, overrides);
   const silentFigures: RawAudioFigures = Object.freeze({ energy: 0, loudnessLufs: LOUDNESS_FLOOR_LUFS, centroidHz: SILENCE_CENTROID_HZ });
-  if (circuit.load.silent) return { silent: true, measure: () => silentFigures, measureClass: (networks) => networks.map(() => silentFigures) };
+  if (circuit.load.silent) return { silent: true, measure: () => silentFigures, measureClass: (networks) => networks.map(() => silentFigures), measureGraph: () => silentFigures };
 
   const fft = realFft(fftSize);
   const binHz = sampleRateHz / fftSize;
@@ -273,6 +277,12 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
     const key = phaseClassKey(guitar, network);
     if (key === cachedClass) return;
     solveTransfers(circuit, phaseClassNetwork(guitar, network), transfers);
+    foldTransfers();
+    cachedClass = key;
+  };
+
+  /** The quadratic forms' terms per pair and the used coils, from the transfers just solved into `transfers`. */
+  const foldTransfers = (): void => {
     transfers.forEach((transfer, coil) => {
       let any = 0;
       for (let m = 0; m < transfer.length; m += 1) if (transfer[m] !== 0) { any = 1; break; }
@@ -302,7 +312,6 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
     }
     usedCount = 0;
     for (let coil = 0; coil < coilCount; coil += 1) if (used[coil]) usedCoils[usedCount++] = coil;
-    cachedClass = key;
   };
 
   const signs = new Float64Array(coilCount);
@@ -402,7 +411,16 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
     return quadratic.map((figures, index) => ({ ...figures, centroidHz: centroids[index] as number }));
   };
   const measure = (network: Network): RawAudioFigures => measureClass([network])[0] as RawAudioFigures;
-  return { silent: false, measure, measureClass };
+  const measureGraph = (graph: CircuitGraph): RawAudioFigures => {
+    // the graph's transfers carry every sign (solve-nodal.ts): one pattern, s_i = 1
+    solveNodalTransfers(circuit, graph, transfers);
+    foldTransfers();
+    cachedClass = '';
+    signs.fill(1);
+    const quadratic = measureQuadratic();
+    return { ...quadratic, centroidHz: measureCentroids([signs])[0] as number };
+  };
+  return { silent: false, measure, measureClass, measureGraph };
 }
 
 /**

@@ -27,6 +27,8 @@ import { type CoilDrive, coilDriveAt, drivenPowerAt, sampleCoilDrive } from './c
 import { REFERENCE_FREQUENCY_HZ } from './frequency-grid.js';
 import { type PreparedCircuit, fixedProbeAt, probeAt, probeTransfers } from './prepare-circuit.js';
 import { solveTransfers } from './solve-transfers.js';
+import type { CircuitGraph } from './circuit-graph.js';
+import { solveNodalTransfers } from './solve-nodal.js';
 
 /** R of one wiring on a prepared grid, and anywhere else by an exact solve. */
 export interface DrivenResponse {
@@ -58,6 +60,19 @@ export interface DrivenResponseInputs {
 /** Below this fraction of its uncancelled value the reference sum counts as cancelled (double rounding is ~1e-16; see measure-resonance.ts). */
 const REFERENCE_CANCELLED_FRACTION = 1e-9;
 
+/**
+ * What R needs of a circuit: each coil's transfer on the grid, a solve at any
+ * other frequency, and the sign s_i each transfer is taken with.
+ */
+interface TransferSource {
+  /** s_i per coil (0 for coils not used). */
+  readonly phases: Float64Array;
+  /** The transfers on the prepared grid. */
+  readonly transfers: readonly Float64Array[];
+  /** The transfers on a one-frequency probe, written into `out`. */
+  readonly solveAt: (probe: PreparedCircuit, out: Float64Array[]) => Float64Array[];
+}
+
 /** R of `network` on `prepared` driven by `drive` (coil counts must match). */
 export function solveDrivenResponse(
   prepared: PreparedCircuit,
@@ -65,18 +80,40 @@ export function solveDrivenResponse(
   drive: CoilDrive,
   inputs: DrivenResponseInputs = {},
 ): DrivenResponse {
-  const coilCount = prepared.guitar.coils.length;
-  if (drive.coilCount !== coilCount) throw new RangeError(`solveDrivenResponse: the drive has ${drive.coilCount} coils, the guitar ${coilCount}`);
   // T_i = s_i·T_i of the phase-class representative (phase-class.ts; without coupling s_i = p_i and the representative is all in phase)
   const inPhase = phaseClassNetwork(prepared.guitar, network);
-  const phases = phaseClassSigns(prepared.guitar, network, new Float64Array(coilCount));
+  const phases = phaseClassSigns(prepared.guitar, network, new Float64Array(prepared.guitar.coils.length));
+  const transfers = inputs.inPhaseTransfers ?? solveTransfers(prepared, inPhase);
+  return drivenResponseOf(prepared, drive, inputs, { phases, transfers, solveAt: (probe, out) => solveTransfers(probe, inPhase, out) });
+}
+
+/**
+ * R of any connection of coil leads (a `CircuitGraph`, solved by nodal
+ * analysis, solve-nodal.ts): its transfers already carry every sign, so
+ * s_i = 1. `inputs.inPhaseTransfers`, when given, are the graph's own
+ * transfers on the grid.
+ */
+export function solveGraphDrivenResponse(
+  prepared: PreparedCircuit,
+  graph: CircuitGraph,
+  drive: CoilDrive,
+  inputs: DrivenResponseInputs = {},
+): DrivenResponse {
+  const phases = new Float64Array(prepared.guitar.coils.length).fill(1);
+  const transfers = inputs.inPhaseTransfers ?? solveNodalTransfers(prepared, graph);
+  return drivenResponseOf(prepared, drive, inputs, { phases, transfers, solveAt: (probe, out) => solveNodalTransfers(probe, graph, out) });
+}
+
+function drivenResponseOf(prepared: PreparedCircuit, drive: CoilDrive, inputs: DrivenResponseInputs, source: TransferSource): DrivenResponse {
+  const coilCount = prepared.guitar.coils.length;
+  if (drive.coilCount !== coilCount) throw new RangeError(`solveDrivenResponse: the drive has ${drive.coilCount} coils, the guitar ${coilCount}`);
+  const { phases, transfers, solveAt } = source;
   const used = Float64Array.from(phases, Math.abs);
   const grid = prepared.frequenciesHz;
   const sampled = inputs.sampledDrive ?? sampleCoilDrive(drive, grid);
-  const transfers = inputs.inPhaseTransfers ?? solveTransfers(prepared, inPhase);
   const width = 2 * drive.pairCount;
   // the transfers at 100 Hz, kept (the probe's buffers are reused by every later solve)
-  const reference = solveTransfers(fixedProbeAt(prepared, REFERENCE_FREQUENCY_HZ), inPhase, probeTransfers(prepared)).map((transfer) => Float64Array.from(transfer));
+  const reference = solveAt(fixedProbeAt(prepared, REFERENCE_FREQUENCY_HZ), probeTransfers(prepared)).map((transfer) => Float64Array.from(transfer));
   const referenceAbsolute = reference.map((transfer) => Float64Array.of(Math.hypot(transfer[0] as number, transfer[1] as number), 0));
   const driveHere = new Float64Array(width);
   const magnitudes = new Float64Array(width);
@@ -101,13 +138,13 @@ export function solveDrivenResponse(
     referenceCancelled,
     at: (frequencyHz) => {
       if (referenceCancelled) return 0;
-      const solved = solveTransfers(probeAt(prepared, frequencyHz), inPhase, probeTransfers(prepared));
+      const solved = solveAt(probeAt(prepared, frequencyHz), probeTransfers(prepared));
       coilDriveAt(drive, frequencyHz, driveHere);
       const below = denominator(driveHere, 0);
       return below > 0 ? Math.sqrt(drivenPowerAt(solved, 0, phases, driveHere, 0) / below) : 0;
     },
     uncancelledAt: (frequencyHz) => {
-      const solved = solveTransfers(probeAt(prepared, frequencyHz), inPhase, probeTransfers(prepared));
+      const solved = solveAt(probeAt(prepared, frequencyHz), probeTransfers(prepared));
       coilDriveAt(drive, frequencyHz, driveHere);
       const below = denominator(driveHere, 0);
       // |T_i|·|D_ij|·|T_j| summed: the same form on magnitudes, every used coil's phase +1

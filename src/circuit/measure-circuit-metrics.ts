@@ -18,9 +18,11 @@ import type { Network } from '../wiring/index.js';
 import { phaseClassKey, phaseClassNetwork, phaseClassSigns } from './phase-class.js';
 import type { CircuitLoad, CircuitOverrides } from './circuit-load.js';
 import { ANALYSIS_POINTS, analysisFrequencies } from './frequency-grid.js';
-import { type HumCategory, humCategory, humDecibels, humFieldWeights, measureHumReference } from './measure-hum.js';
+import { type HumCategory, humCategory, humDecibels, humFieldWeights, humMagnitudeAt, measureHumReference } from './measure-hum.js';
 import { type CoilDrive, incoherentCoilDrive, sampleCoilDrive } from './coil-drive.js';
-import { SILENT_RESONANCE, measureResonance } from './measure-resonance.js';
+import { SILENT_RESONANCE, measureGraphResonance, measureResonance } from './measure-resonance.js';
+import type { CircuitGraph } from './circuit-graph.js';
+import { solveNodalTransfers } from './solve-nodal.js';
 import { fixedProbeAt, prepareCircuit, probeTransfers } from './prepare-circuit.js';
 import { solveTransfers } from './solve-transfers.js';
 
@@ -127,3 +129,38 @@ export function measureCircuitMetrics(
   return { load: prepared.load, silent: false, points, wirings: metrics };
 }
 
+
+/**
+ * The same figures for connections of coil leads written out joint by joint
+ * (a `CircuitGraph`, e.g. a bridge network of five coils that no +, // and ~
+ * expression writes), solved by nodal analysis (solve-nodal.ts) on the same
+ * grid, drive and hum reference as `measureCircuitMetrics`, so a graph of a
+ * series–parallel wiring gets that wiring's figures.
+ */
+export function measureGraphCircuitMetrics(
+  guitar: Guitar,
+  graphs: readonly CircuitGraph[],
+  overrides?: CircuitOverrides,
+  options: Partial<CircuitMetricsOptions> = {},
+): CircuitAnalysis {
+  const { points } = { ...DEFAULT_CIRCUIT_METRICS_OPTIONS, ...options };
+  if (!Number.isInteger(points) || points < 3) throw new RangeError(`measureGraphCircuitMetrics: points must be an integer ≥ 3, got ${points}`);
+  const prepared = prepareCircuit(guitar, analysisFrequencies(points), overrides);
+  if (prepared.load.silent) return { load: prepared.load, silent: true, points, wirings: graphs.map(() => SILENT_METRICS) };
+  const drive = options.drive ?? incoherentCoilDrive(guitar.coils.length);
+  if (drive.coilCount !== guitar.coils.length) throw new RangeError(`measureGraphCircuitMetrics: the drive has ${drive.coilCount} coils, the guitar ${guitar.coils.length}`);
+  const sampledDrive = sampleCoilDrive(drive, prepared.frequenciesHz);
+  const reference = measureHumReference(prepared);
+  const mains = fixedProbeAt(prepared, prepared.load.mainsHz);
+  const humWeights = humFieldWeights(guitar, prepared.load);
+  const metrics = graphs.map((graph): WiringCircuitMetrics => {
+    const transfers = solveNodalTransfers(prepared, graph);
+    const resonance = measureGraphResonance(prepared, graph, { drive, sampledDrive, inPhaseTransfers: transfers });
+    // H = Σ_i m_i·h_i·B(x_i)·T_i (measure-hum.ts); the graph's T_i carry their signs
+    const atMains = solveNodalTransfers(mains, graph, probeTransfers(prepared));
+    const humDb = humDecibels(humMagnitudeAt(humWeights, atMains, 0), reference);
+    const category = humCategory(humDb);
+    return { ...resonance, humDb, humCategory: category, humCancelling: category === 'cancels' };
+  });
+  return { load: prepared.load, silent: false, points, wirings: metrics };
+}

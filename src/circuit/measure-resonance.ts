@@ -28,7 +28,8 @@
 import type { Network } from '../wiring/index.js';
 import { type CoilDrive, incoherentCoilDrive } from './coil-drive.js';
 import { amplitudeDb } from './decibels.js';
-import { type DrivenResponse, type DrivenResponseInputs, solveDrivenResponse } from './driven-response.js';
+import { type DrivenResponse, type DrivenResponseInputs, solveDrivenResponse, solveGraphDrivenResponse } from './driven-response.js';
+import type { CircuitGraph } from './circuit-graph.js';
 import { AUDIO_BAND_HIGH_HZ, AUDIO_BAND_LOW_HZ } from './frequency-grid.js';
 import type { PreparedCircuit } from './prepare-circuit.js';
 
@@ -233,6 +234,18 @@ export interface ResonanceInputs extends DrivenResponseInputs {
 /** Resonance metrics of `network` on `prepared`'s grid, refined between grid points. */
 export function measureResonance(prepared: PreparedCircuit, network: Network, inputs: ResonanceInputs = {}): ResonanceMetrics {
   if (prepared.load.silent) return SILENT_RESONANCE;
+  const drive = inputs.drive ?? incoherentCoilDrive(prepared.guitar.coils.length);
+  return resonanceOf(prepared, () => solveDrivenResponse(prepared, network, drive, inputs));
+}
+
+/** The same for any connection of coil leads (nodal analysis); `inputs.inPhaseTransfers` are the graph's own transfers. */
+export function measureGraphResonance(prepared: PreparedCircuit, graph: CircuitGraph, inputs: ResonanceInputs = {}): ResonanceMetrics {
+  if (prepared.load.silent) return SILENT_RESONANCE;
+  const drive = inputs.drive ?? incoherentCoilDrive(prepared.guitar.coils.length);
+  return resonanceOf(prepared, () => solveGraphDrivenResponse(prepared, graph, drive, inputs));
+}
+
+function resonanceOf(prepared: PreparedCircuit, solveResponse: () => DrivenResponse): ResonanceMetrics {
   const grid = prepared.frequenciesHz;
   let first = -1;
   let last = -1;
@@ -244,8 +257,7 @@ export function measureResonance(prepared: PreparedCircuit, network: Network, in
     }
   }
   if (first < 0 || last - first < 2) throw new RangeError('measureResonance: the grid needs at least 3 points within 20 Hz–20 kHz');
-  const drive = inputs.drive ?? incoherentCoilDrive(prepared.guitar.coils.length);
-  const response = solveDrivenResponse(prepared, network, drive, inputs);
+  const response = solveResponse();
   const values = response.values;
 
   let best: Point | null = null;

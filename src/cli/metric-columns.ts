@@ -19,8 +19,14 @@ export interface WiringAudioMetrics {
   readonly centroidHz: number;
 }
 
+/**
+ * What a table row shows of its wiring: an enumerated wiring, or a connection
+ * list given with `analyze --network` (topology "connection list").
+ */
+export type RowWiring = Omit<Wiring, 'network' | 'elements' | 'topology'> & { readonly topology: Wiring['topology'] | 'connection list' };
+
 export interface AnalyzedWiring {
-  readonly wiring: Wiring;
+  readonly wiring: RowWiring;
   readonly circuit: WiringCircuitMetrics;
   /** Absent when the audio figures were not computed (silent output). */
   readonly audio?: WiringAudioMetrics | null;

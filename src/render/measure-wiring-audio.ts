@@ -11,7 +11,7 @@
  * measure-audio-figures.ts), with no render per wiring; measureRawAudio
  * measures a render itself, the check those figures are held to.
  */
-import type { CircuitOverrides } from '../circuit/index.js';
+import type { CircuitGraph, CircuitOverrides } from '../circuit/index.js';
 import { type AudioFigureMeter, type RawAudioFigures, type SpectralBasis, measureFiguresByClass, measureCentroid, measureEnergy, measureLevelDb, measureLoudness, prepareAudioFigures } from '../analysis/index.js';
 import type { Guitar } from '../guitar/index.js';
 import { builtInPhrase } from '../string/index.js';
@@ -151,4 +151,25 @@ export function measureReferenceFigures(
     onProgress,
   );
   return new Map(wirings.map((wiring, index) => [wiring.id, figures[index] as RawAudioMetrics]));
+}
+
+/**
+ * Audio metrics of connections of coil leads (`graphs`, e.g. bridge networks
+ * from `analyze --network`), their transfers from the nodal solver; levels
+ * refer to the single-element wirings of `all` as every wiring's do.
+ */
+export function measureGraphAudio(
+  guitar: Guitar,
+  all: readonly Wiring[],
+  graphs: readonly CircuitGraph[],
+  overrides: CircuitOverrides,
+  basis?: SpectralBasis,
+): AudioMetrics[] {
+  const meter = prepareReferenceFigures(guitar, overrides, referenceCoilsOf(guitar, basis));
+  const singles = all.filter((wiring) => wiring.elements.length === 1);
+  const raw = measureReferenceFigures(guitar, singles, overrides, undefined, meter);
+  const keys = graphs.map((_, index) => `graph ${index}`);
+  graphs.forEach((graph, index) => raw.set(keys[index] as string, meter.measureGraph(graph)));
+  const referred = referLevels(singles, raw);
+  return keys.map((key) => referred.get(key) as AudioMetrics);
 }

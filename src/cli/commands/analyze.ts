@@ -8,6 +8,7 @@ import {
   HUM_FLOOR_DB,
   HUM_REDUCING_DB,
   measureCircuitMetrics,
+  measureGraphCircuitMetrics,
 } from '../../circuit/index.js';
 import { measureCoilDrive, measureDistinctness, measureSpectralBasis } from '../../analysis/index.js';
 import { InputError, type InputProblem, problemAt } from '../../errors/index.js';
@@ -31,9 +32,11 @@ import { readGuitarFile } from '../read-guitar.js';
 import { findOutputProblems } from '../guard-outputs.js';
 import { checkWorkSize, estimateAnalyze } from '../estimate-work.js';
 import { wiringCountFor } from '../../guitar/index.js';
-import { type AudioMetrics, REFERENCE_PHRASE, figuresThreadPays, measureFiguresOnThread, measureWiringAudio, referLevels } from '../../render/index.js';
+import { type AudioMetrics, REFERENCE_PHRASE, figuresThreadPays, measureFiguresOnThread, measureGraphAudio, measureWiringAudio, referLevels } from '../../render/index.js';
 import { removeStaleTempFiles, writeFileAtomicSync } from '../../render/index.js';
 import { wiringRecord } from './wirings.js';
+import { collectOption } from '../collect-option.js';
+import { networkRow, parseNetworkOptions } from '../network-option.js';
 import { appendAll } from '../../math/index.js';
 
 interface AnalyzeOptions extends CircuitOptionText, AlikeOptionText {
@@ -45,6 +48,8 @@ interface AnalyzeOptions extends CircuitOptionText, AlikeOptionText {
   readonly sort?: string;
   /** Start work past the size limit without asking. */
   readonly yes?: boolean;
+  /** Connection lists (`--network`, repeatable), analysed after the enumerated wirings. */
+  readonly network?: readonly string[];
 }
 
 const SILENT_NOTE = 'the volume at 0 shorts the output to ground: nothing reaches the amplifier, so every wiring is silent and has no figures';
@@ -102,6 +107,8 @@ const FOOTNOTES = [
   'A model of the circuit, not a measurement: choose by ear on the real instrument.',
 ];
 
+const NETWORK_FOOTNOTE = 'n1, n2, ...: the --network connection lists, solved by nodal analysis with the same controls, drive and hum field as the wirings; they are not put in groups.';
+
 export function registerAnalyze(program: Command, io: Io): void {
   const command = program
     .command('analyze')
@@ -112,7 +119,12 @@ export function registerAnalyze(program: Command, io: Io): void {
     .option('--markdown', 'print a Markdown table')
     .option('--sort <column>', `order rows by ${sortNames().join('|')} (default id)`)
     .option('--no-audio', 'skip level, loudness and brightness (the figures of the reference phrase)')
-    .option('--yes', 'start even when the analysis is estimated past 10 minutes');
+    .option('--yes', 'start even when the analysis is estimated past 10 minutes')
+    .option(
+      '--network <connections>',
+      'also analyse this connection of coil leads, e.g. a bridge network, written joint by joint: "neck.finish = hot, neck.start = ground" (repeatable; rows n1, n2, … after the wirings)',
+      collectOption,
+    );
   addAlikeOptions(addCircuitOptions(command)).action(async (file: string, options: AnalyzeOptions) => {
     const guitar = readGuitarFile(file, io.cwd);
     const problems: InputProblem[] = [];
@@ -124,6 +136,7 @@ export function registerAnalyze(program: Command, io: Io): void {
     if (options.json && options.markdown) problems.push(problemAt('--markdown', 'either --json or --markdown, not both', '--json --markdown'));
     if (options.csv !== undefined && options.csv.trim() === '') problems.push(problemAt('--csv', 'a file name', options.csv));
     else if (options.csv !== undefined) appendAll(problems, findOutputProblems([file], [{ option: '--csv', path: options.csv, kind: 'file' }], io.cwd));
+    const networks = parseNetworkOptions(guitar, options.network ?? [], problems);
     if (problems.length > 0) throw new InputError(problems);
 
     const estimate = estimateAnalyze(wiringCountFor(guitar.elements.length), options.audio !== false);
@@ -150,6 +163,19 @@ export function registerAnalyze(program: Command, io: Io): void {
       audio: audio?.get(wiring.id) ?? null,
       group: distinct.groups.groupOf[index] ?? null,
     }));
+    if (networks.length > 0) {
+      const graphs = networks.map((network) => network.graph);
+      const circuits = measureGraphCircuitMetrics(guitar, graphs, overrides, { drive: measureCoilDrive(basis) }).wirings;
+      const sounds = options.audio !== false && !analysis.silent ? measureGraphAudio(guitar, wirings, graphs, overrides, basis) : null;
+      networks.forEach((network, index) => {
+        unsorted.push({
+          wiring: networkRow(guitar, network, wirings.length + index + 1, index + 1),
+          circuit: circuits[index] as AnalyzedWiring['circuit'],
+          audio: sounds?.[index] ?? null,
+          group: null,
+        });
+      });
+    }
     const rows = sortRows(unsorted, options.sort ?? 'id');
 
     if (options.csv !== undefined) {
@@ -179,11 +205,13 @@ export function registerAnalyze(program: Command, io: Io): void {
       io.stdout(`${JSON.stringify(document, null, 2)}\n`);
       return;
     }
-    const heading = `${guitar.name}: ${rows.length} wirings`;
+    const listed = networks.length === 0 ? '' : ` and ${networks.length} connection list${networks.length === 1 ? '' : 's'}`;
+    const heading = `${guitar.name}: ${wirings.length} wirings${listed}`;
+    const footnotes = networks.length === 0 ? FOOTNOTES : [...FOOTNOTES.slice(0, -1), NETWORK_FOOTNOTE, ...FOOTNOTES.slice(-1)];
     const settings = describeLoad(analysis.load);
     if (options.markdown) {
       const silentLine = analysis.silent ? `\n**Silent:** ${SILENT_NOTE}.\n` : '';
-      io.stdout(`## ${heading}\n\n${settings}.\n${silentLine}\n${renderMarkdownTable(rows)}\n${FOOTNOTES.join(' ')}\n\n${renderGroupSummary(wirings, distinct, true)}`);
+      io.stdout(`## ${heading}\n\n${settings}.\n${silentLine}\n${renderMarkdownTable(rows)}\n${footnotes.join(' ')}\n\n${renderGroupSummary(wirings, distinct, true)}`);
       return;
     }
     io.stdout(`${heading}\n${settings}\n`);
@@ -195,6 +223,6 @@ export function registerAnalyze(program: Command, io: Io): void {
         METRIC_COLUMNS.filter((column) => column.table).map((column) => ({ title: column.title, value: column.text, align: column.align })),
       ),
     );
-    io.stdout(`\n${FOOTNOTES.join('\n')}\n\n${renderGroupSummary(wirings, distinct, false)}`);
+    io.stdout(`\n${footnotes.join('\n')}\n\n${renderGroupSummary(wirings, distinct, false)}`);
   });
 }

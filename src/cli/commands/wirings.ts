@@ -4,9 +4,10 @@ import { writeTable } from '../format-table.js';
 import type { Io } from '../io.js';
 import { readGuitarFile } from '../read-guitar.js';
 import { writeJson } from '../write-json.js';
+import type { RowWiring } from '../metric-columns.js';
 
 /** The `--json` record of a wiring (contract in docs/design.md). */
-export function wiringRecord(wiring: Wiring): Record<string, unknown> {
+export function wiringRecord(wiring: RowWiring): Record<string, unknown> {
   return {
     id: wiring.id,
     expression: wiring.expression,
