@@ -19,7 +19,7 @@ export { solveTransfers } from './solve-transfers.js';
 export type { CoilDrive } from './coil-drive.js';
 export { coilDriveAt, drivePairIndex, drivenPowerAt, incoherentCoilDrive, sampleCoilDrive } from './coil-drive.js';
 export type { DrivenResponse, DrivenResponseInputs } from './driven-response.js';
-export { solveDrivenResponse } from './driven-response.js';
+export { solveDrivenResponse, solveGraphDrivenResponse } from './driven-response.js';
 export {
   analysisFrequencies,
   logSpacedFrequencies,
@@ -29,7 +29,7 @@ export {
   REFERENCE_FREQUENCY_HZ,
 } from './frequency-grid.js';
 export type { ResonanceInputs, ResonanceMetrics } from './measure-resonance.js';
-export { measureResonance, CANCELLED_FRACTION, CANCELLED_REASON, MIN_PEAK_PROMINENCE, MIN_PEAK_PROMINENCE_DB, SILENT_REASON } from './measure-resonance.js';
+export { measureResonance, LOG_FREQUENCY_TOLERANCE, CANCELLED_FRACTION, CANCELLED_REASON, MIN_PEAK_PROMINENCE, MIN_PEAK_PROMINENCE_DB, SILENT_REASON } from './measure-resonance.js';
 export type { HumCategory } from './measure-hum.js';
 export {
   humCategory,

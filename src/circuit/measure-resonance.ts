@@ -49,7 +49,7 @@ const HALF_POWER_AMPLITUDE = Math.SQRT1_2;
 /** Golden ratio conjugate (√5 − 1)/2 for golden-section steps. */
 const GOLDEN_SECTION = (Math.sqrt(5) - 1) / 2;
 /** Refinement stops when steps are this small in ln f (relative frequency 1e-7). */
-const LOG_FREQUENCY_TOLERANCE = 1e-7;
+export const LOG_FREQUENCY_TOLERANCE = 1e-7;
 /** Safety cap on refinement steps. */
 const MAX_REFINEMENT_STEPS = 100;
 /**
