@@ -45,6 +45,10 @@
  * is off by about 0.07 % in |T|²; test/audio-figures.test.ts measures the
  * figures against each wiring's own render (measureEnergy, measureLoudness,
  * measureCentroid) and states the bounds.
+ *
+ * Any connection of coil leads (a `CircuitGraph`, `measureGraph`) is taken
+ * the same way with its transfers from the nodal solver (solve-nodal.ts),
+ * which carry every sign: one pattern with s_i = 1.
  */
 import {
   type CircuitGraph,
