@@ -62,3 +62,19 @@ export function graphOfNetwork(guitar: Guitar, network: Network): CircuitGraph {
   });
   return { nodeCount: names.length, hot: 1, ground: 0, coils, nodeNames: names };
 }
+
+/** Does some path of coil windings (both leads connected) join hot to ground? Without one nothing reaches the output. */
+export function connectsHotToGround(graph: CircuitGraph): boolean {
+  if (graph.hot === graph.ground) return false;
+  const parent = Array.from({ length: graph.nodeCount }, (_, node) => node);
+  const find = (node: number): number => {
+    let n = node;
+    while (parent[n] !== n) n = parent[n] as number;
+    return n;
+  };
+  for (const placed of graph.coils) {
+    if (placed.start === null || placed.finish === null) continue;
+    parent[find(placed.start)] = find(placed.finish);
+  }
+  return find(graph.hot) === find(graph.ground);
+}

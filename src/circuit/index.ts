@@ -53,7 +53,7 @@ export type { NetlistOptions, SourcePhasor } from './render-netlist.js';
 export { renderGraphNetlist, renderNetlist, DEFAULT_NETLIST_OPTIONS } from './render-netlist.js';
 export { renderBuildSheet, WORKSHOP_CAUTIONS } from './render-build-sheet.js';
 export type { CircuitGraph, GraphCoil } from './circuit-graph.js';
-export { graphOfNetwork } from './circuit-graph.js';
+export { connectsHotToGround, graphOfNetwork } from './circuit-graph.js';
 export { solveCoilsImpedance, solveNodalTransfers } from './solve-nodal.js';
 export type { CoilCoupling } from './coil-coupling.js';
 export { coilCouplings, mutualInductanceH } from './coil-coupling.js';

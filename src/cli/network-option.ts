@@ -5,7 +5,7 @@
  * bridge network of five coils. Each becomes one extra row (n1, n2, …) after
  * the enumerated wirings.
  */
-import { type CircuitGraph, parseConnections } from '../circuit/index.js';
+import { type CircuitGraph, connectsHotToGround, parseConnections } from '../circuit/index.js';
 import { InputError, type InputProblem, problemAt } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
 import type { RowWiring } from './metric-columns.js';
@@ -16,22 +16,6 @@ export interface NetworkOption {
   readonly graph: CircuitGraph;
 }
 
-/** Does some path of coil windings join hot to ground? Without one nothing reaches the output. */
-function joinsHotToGround(graph: CircuitGraph): boolean {
-  if (graph.hot === graph.ground) return false;
-  const parent = Array.from({ length: graph.nodeCount }, (_, node) => node);
-  const find = (node: number): number => {
-    let n = node;
-    while (parent[n] !== n) n = parent[n] as number;
-    return n;
-  };
-  for (const placed of graph.coils) {
-    if (placed.start === null || placed.finish === null) continue;
-    parent[find(placed.start)] = find(placed.finish);
-  }
-  return find(graph.hot) === find(graph.ground);
-}
-
 /** Parse every `--network` value; problems (each naming --network) go into `problems`. */
 export function parseNetworkOptions(guitar: Guitar, texts: readonly string[], problems: InputProblem[]): NetworkOption[] {
   const parsed: NetworkOption[] = [];
@@ -39,7 +23,7 @@ export function parseNetworkOptions(guitar: Guitar, texts: readonly string[], pr
     const path = texts.length === 1 ? '--network' : `--network (${index + 1} of ${texts.length})`;
     try {
       const graph = parseConnections(guitar, text, path);
-      if (!joinsHotToGround(graph)) {
+      if (!connectsHotToGround(graph)) {
         problems.push(problemAt(path, 'connections that join hot to ground through coil windings (hot and ground on one joint short the output)', text));
         return;
       }
