@@ -44,8 +44,8 @@ export {
   HUM_REDUCING_DB,
 } from './measure-hum.js';
 export { measureResponseDb, RESPONSE_FLOOR_DB } from './measure-response.js';
-export type { CircuitAnalysis, CircuitMetricsOptions, WiringCircuitMetrics } from './measure-circuit-metrics.js';
-export { measureCircuitMetrics, DEFAULT_CIRCUIT_METRICS_OPTIONS } from './measure-circuit-metrics.js';
+export type { CircuitAnalysis, CircuitMetricsOptions, CircuitMetricsSolver, WiringCircuitMetrics } from './measure-circuit-metrics.js';
+export { measureCircuitMetrics, prepareCircuitMetrics, DEFAULT_CIRCUIT_METRICS_OPTIONS } from './measure-circuit-metrics.js';
 export { amplitudeDb } from './decibels.js';
 export type { CoilPlacement, Lead, WiringLayout } from './layout-wiring.js';
 export { layoutWiring, networkResistanceOhms, HOT_NODE, GROUND_NODE } from './layout-wiring.js';

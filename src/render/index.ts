@@ -19,11 +19,13 @@ export type { AudioChannels, WavFormat, WavInfo, WavOptions } from './wav-file.j
 export {
   writeFileAtomic,
   writeFileAtomicSync,
+  openFileAtomicSync,
   removeStaleTempFiles,
   removePendingTempFilesSync,
   TEMP_FILE_PREFIX,
   STALE_TEMP_FILE_AGE_MS,
 } from './write-file-atomic.js';
+export type { AtomicFileStream } from './write-file-atomic.js';
 export { defaultOutputRoot, outputFolder, wavFileName, netlistFileName } from './output-folder.js';
 export { claimOutputFolder, ownNamesOf, releaseFolderLocksSync, FOLDER_MARKER, FOLDER_LOCK } from './folder-claim.js';
 export type { ClaimRequest, FolderClaim, FolderPurpose } from './folder-claim.js';

@@ -95,6 +95,82 @@ export function writeFileAtomicSync(path: string, data: Uint8Array | string): vo
   }
 }
 
+/** A file written piece by piece under a temporary name, renamed into place by `commit`. */
+export interface AtomicFileStream {
+  /** Append text (UTF-8); gathered and written in chunks. */
+  readonly write: (text: string) => void;
+  /** Flush, fsync and rename over the destination. Throws WorkError on failure, leaving no temporary file. */
+  readonly commit: () => void;
+  /** Remove the temporary file (after a failure or an interruption); never throws. */
+  readonly abandon: () => void;
+}
+
+/** Characters gathered before each write of an AtomicFileStream. */
+const STREAM_CHUNK_CHARACTERS = 1 << 16;
+
+/**
+ * Open `path` for writing piece by piece, atomically: the pieces go to a
+ * temporary file in the same folder (removed by removePendingTempFilesSync
+ * on Ctrl-C, by removeStaleTempFiles after a kill), and only `commit` puts
+ * the whole file in place. For outputs too big to hold as one string.
+ */
+export function openFileAtomicSync(path: string): AtomicFileStream {
+  const temporary = temporaryPathFor(path);
+  pending.add(temporary);
+  let descriptor: number | null = null;
+  let chunk = '';
+  const fail = (error: unknown): WorkError => {
+    if (descriptor !== null) {
+      try {
+        closeSync(descriptor);
+      } catch {
+        // already failing; the original error is the one to report
+      }
+      descriptor = null;
+    }
+    rmSync(temporary, { force: true });
+    pending.delete(temporary);
+    return failure(path, error);
+  };
+  const flush = (): void => {
+    if (descriptor === null) throw new Error(`openFileAtomicSync: ${path} is already committed or abandoned`);
+    const bytes = Buffer.from(chunk, 'utf8');
+    chunk = '';
+    for (let written = 0; written < bytes.length; ) written += writeSync(descriptor, bytes, written, bytes.length - written);
+  };
+  try {
+    descriptor = openSync(temporary, 'wx');
+  } catch (error) {
+    throw fail(error);
+  }
+  return {
+    write: (text) => {
+      chunk += text;
+      if (chunk.length < STREAM_CHUNK_CHARACTERS) return;
+      try {
+        flush();
+      } catch (error) {
+        throw fail(error);
+      }
+    },
+    commit: () => {
+      try {
+        flush();
+        fsyncSync(descriptor as number);
+        closeSync(descriptor as number);
+        descriptor = null;
+        renameSync(temporary, path);
+        pending.delete(temporary);
+      } catch (error) {
+        throw fail(error);
+      }
+    },
+    abandon: () => {
+      fail(undefined);
+    },
+  };
+}
+
 /** Remove the temporary files of writes still in progress in this process (for a SIGINT handler). Returns how many. */
 export function removePendingTempFilesSync(): number {
   let removed = 0;

@@ -8,6 +8,7 @@ import {
   HUM_FLOOR_DB,
   HUM_REDUCING_DB,
   measureCircuitMetrics,
+  prepareCircuitMetrics,
 } from '../../circuit/index.js';
 import { measureCoilDrive, measureDistinctness, measureSpectralBasis } from '../../analysis/index.js';
 import { InputError, type InputProblem, problemAt } from '../../errors/index.js';
@@ -35,6 +36,7 @@ import { type AudioMetrics, REFERENCE_PHRASE, measureWiringAudio } from '../../r
 import { removeStaleTempFiles, writeFileAtomicSync } from '../../render/index.js';
 import { wiringRecord } from './wirings.js';
 import { appendAll } from '../../math/index.js';
+import { MAX_WIRINGS_IN_MEMORY, streamAnalysis, streamedAnalysisProblems } from '../stream-analysis.js';
 
 interface AnalyzeOptions extends CircuitOptionText, AlikeOptionText {
   /** false with --no-audio: skip the figures that need each wiring's render. */
@@ -124,10 +126,33 @@ export function registerAnalyze(program: Command, io: Io): void {
     if (options.json && options.markdown) problems.push(problemAt('--markdown', 'either --json or --markdown, not both', '--json --markdown'));
     if (options.csv !== undefined && options.csv.trim() === '') problems.push(problemAt('--csv', 'a file name', options.csv));
     else if (options.csv !== undefined) appendAll(problems, findOutputProblems([file], [{ option: '--csv', path: options.csv, kind: 'file' }], io.cwd));
+    const total = wiringCountFor(guitar.elements.length);
+    const streamed = total > MAX_WIRINGS_IN_MEMORY;
+    if (streamed) appendAll(problems, streamedAnalysisProblems(options.audio !== false, options.sort, total));
     if (problems.length > 0) throw new InputError(problems);
 
-    const estimate = estimateAnalyze(wiringCountFor(guitar.elements.length), options.audio !== false);
+    const estimate = estimateAnalyze(total, options.audio !== false);
     const big = checkWorkSize(io, options.audio === false ? 'analysis (no audio)' : 'analysis', estimate, { yes: options.yes === true, picked: false });
+    if (streamed) {
+      const basis = measureSpectralBasis(guitar);
+      const circuit = prepareCircuitMetrics(guitar, overrides, { drive: measureCoilDrive(basis) });
+      await streamAnalysis({
+        io,
+        guitar,
+        circuit,
+        basis,
+        overrides,
+        total,
+        csv: options.csv,
+        format: options.json ? 'json' : options.markdown ? 'markdown' : 'table',
+        big,
+        settings: settingsRecord(circuit.load, circuit.points),
+        settingsLine: describeLoad(circuit.load),
+        footnotes: FOOTNOTES,
+        silentNote: SILENT_NOTE,
+      });
+      return;
+    }
     const wirings = enumerateWirings(guitar.elements);
     const basis = measureSpectralBasis(guitar);
     const analysis = measureCircuitMetrics(guitar, wirings, overrides, { drive: measureCoilDrive(basis) });
