@@ -31,7 +31,7 @@ export type { CrossSpectra } from './measure-cross-spectra.js';
 export { measureCoilDrive, SMOOTHING_ERB } from './measure-coil-drive.js';
 export { measureSpectralBasis, DEFAULT_SPECTRAL_BASIS_OPTIONS, REFERENCE_TAIL_S } from './measure-spectral-basis.js';
 export type { SpectralBasis, SpectralBasisOptions } from './measure-spectral-basis.js';
-export { solveWiringSpectra, prepareWiringSpectra, energyLevelDb } from './solve-wiring-spectra.js';
+export { solveWiringSpectra, solveWiringSpectraSteps, prepareWiringSpectra, energyLevelDb } from './solve-wiring-spectra.js';
 export type { WiringSpectra, WiringSpectraSolver, WiringSpectrumFigures } from './solve-wiring-spectra.js';
 export { resolveAlikeThresholds, DEFAULT_ALIKE_THRESHOLDS } from './alike-thresholds.js';
 export type { AlikeThresholds } from './alike-thresholds.js';
@@ -39,7 +39,7 @@ export { measureSpectralProfiles, SPECIFIC_LOUDNESS_EXPONENT, DYNAMIC_RANGE_DB }
 export type { SpectralProfiles } from './measure-spectral-profiles.js';
 export { measureWiringDifference, measureWiringDistance, measureSpectrumDistance, distanceLowerBound } from './measure-wiring-difference.js';
 export type { WiringDifference } from './measure-wiring-difference.js';
-export { groupAlikeWirings, MAX_SPREAD_MEMBERS } from './group-alike-wirings.js';
+export { groupAlikeWirings, groupAlikeWiringsSteps, MAX_SPREAD_MEMBERS } from './group-alike-wirings.js';
 export type { WiringGroup, WiringGroups } from './group-alike-wirings.js';
 export { solveMaxMinSubset, DEFAULT_MAX_MIN_SUBSET_OPTIONS } from './solve-max-min-subset.js';
 export type { MaxMinSubsetOptions, MaxMinSubsetProblem, MaxMinSubsetResult } from './solve-max-min-subset.js';
@@ -48,7 +48,7 @@ export type { Shortlist, ShortlistRequest, ShortlistWiring } from './solve-short
 export { matchElements, matchWirings } from './match-wirings.js';
 export { measureComparison, RESONANCE_CHANGE_PERCENT } from './measure-comparison.js';
 export type { ComparisonOptions, ComparisonSet, FigurePair, WiringComparison } from './measure-comparison.js';
-export { measureDistinctness } from './measure-distinctness.js';
+export { measureDistinctness, measureDistinctnessSteps } from './measure-distinctness.js';
 export type { Distinctness, DistinctnessOptions } from './measure-distinctness.js';
 export { measureGuitarComparison } from './measure-guitar-comparison.js';
 export type { ComparedGuitar, GuitarComparison, GuitarComparisonOptions } from './measure-guitar-comparison.js';

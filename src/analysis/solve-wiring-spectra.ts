@@ -23,6 +23,7 @@
  */
 import { type CircuitOverrides, phaseClassKey, phaseClassNetwork, phaseClassSigns, prepareCircuit, solveTransfers } from '../circuit/index.js';
 import type { Guitar } from '../guitar/index.js';
+import { type Steps, runSteps } from '../math/index.js';
 import { type Network, leaf } from '../wiring/index.js';
 import { designExcitationSpread } from './design-excitation-spread.js';
 import { LEVEL_FLOOR_DB } from './measure-energy.js';
@@ -211,6 +212,17 @@ export function solveWiringSpectra(
   wirings: readonly { readonly network: Network }[],
   overrides?: CircuitOverrides,
 ): WiringSpectra {
+  return runSteps(solveWiringSpectraSteps(guitar, basis, wirings, overrides));
+}
+
+/** solveWiringSpectra as steps (math/run-steps.ts): yields after every `perStep` wirings. */
+export function* solveWiringSpectraSteps(
+  guitar: Guitar,
+  basis: SpectralBasis,
+  wirings: readonly { readonly network: Network }[],
+  overrides?: CircuitOverrides,
+  perStep = Number.POSITIVE_INFINITY,
+): Steps<WiringSpectra> {
   const solver = prepareWiringSpectra(guitar, basis, overrides);
   const { bandCount, referenceEnergy } = solver;
   const excitationRow = bandCount;
@@ -220,7 +232,8 @@ export function solveWiringSpectra(
   const excitation = new Float64Array(count * bandCount);
   const brightnessHz = new Float64Array(count);
   const levelsDb = new Float64Array(count);
-  wirings.forEach(({ network }, w) => {
+  for (const [w, { network }] of wirings.entries()) {
+    if (w > 0 && w % perStep === 0) yield;
     const values = solver.solveRows(network);
     for (let b = 0; b < bandCount; b += 1) {
       bandEnergies[w * bandCount + b] = values[b] as number;
@@ -230,6 +243,6 @@ export function solveWiringSpectra(
     energies[w] = figures.energy;
     brightnessHz[w] = figures.brightnessHz;
     levelsDb[w] = figures.levelDb;
-  });
+  }
   return { basis, count, bandCount, silent: solver.silent, energies, bandEnergies, excitation, brightnessHz, referenceEnergy, levelsDb };
 }

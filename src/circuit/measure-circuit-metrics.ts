@@ -14,6 +14,7 @@
  * relative phase in the shape (phase-class.ts).
  */
 import type { Guitar } from '../guitar/index.js';
+import { type Steps, runSteps } from '../math/index.js';
 import type { Network } from '../wiring/index.js';
 import { phaseClassKey, phaseClassNetwork, phaseClassSigns } from './phase-class.js';
 import type { CircuitLoad, CircuitOverrides } from './circuit-load.js';
@@ -85,6 +86,8 @@ export interface CircuitMetricsSolver {
   readonly points: number;
   /** Figures of `wirings`, in the order given (the phase patterns of one shape share its transfers). */
   readonly measure: (wirings: readonly { readonly network: Network }[]) => WiringCircuitMetrics[];
+  /** The same as steps (math/run-steps.ts): yields after each shape. */
+  readonly measureSteps: (wirings: readonly { readonly network: Network }[]) => Steps<WiringCircuitMetrics[]>;
 }
 
 /** Prepare the circuit figures of `guitar`. Throws InputError for a bad override. */
@@ -93,7 +96,11 @@ export function prepareCircuitMetrics(guitar: Guitar, overrides?: CircuitOverrid
   if (!Number.isInteger(points) || points < 3) throw new RangeError(`measureCircuitMetrics: points must be an integer ≥ 3, got ${points}`);
   const prepared = prepareCircuit(guitar, analysisFrequencies(points), overrides);
   if (prepared.load.silent) {
-    return { load: prepared.load, silent: true, points, measure: (wirings) => wirings.map(() => SILENT_METRICS) };
+    const silent = (wirings: readonly { readonly network: Network }[]): WiringCircuitMetrics[] => wirings.map(() => SILENT_METRICS);
+    const silentSteps = function* (wirings: readonly { readonly network: Network }[]): Steps<WiringCircuitMetrics[]> {
+      return silent(wirings);
+    };
+    return { load: prepared.load, silent: true, points, measure: silent, measureSteps: silentSteps };
   }
   const drive = options.drive ?? incoherentCoilDrive(guitar.coils.length);
   if (drive.coilCount !== guitar.coils.length) throw new RangeError(`measureCircuitMetrics: the drive has ${drive.coilCount} coils, the guitar ${guitar.coils.length}`);
@@ -103,7 +110,7 @@ export function prepareCircuitMetrics(guitar: Guitar, overrides?: CircuitOverrid
   const mains = fixedProbeAt(prepared, prepared.load.mainsHz);
   const humWeights = humFieldWeights(guitar, prepared.load);
   const phases = new Float64Array(guitar.coils.length);
-  const measure = (wirings: readonly { readonly network: Network }[]): WiringCircuitMetrics[] => {
+  const measureSteps = function* (wirings: readonly { readonly network: Network }[]): Steps<WiringCircuitMetrics[]> {
     // wirings grouped by network shape, shapes in order of first appearance
     const byShape = new Map<string, number[]>();
     wirings.forEach(({ network }, index) => {
@@ -134,10 +141,11 @@ export function prepareCircuitMetrics(guitar: Guitar, overrides?: CircuitOverrid
         const category = humCategory(humDb);
         metrics[index] = { ...resonance, humDb, humCategory: category, humCancelling: category === 'cancels' };
       }
+      yield;
     }
     return metrics;
   };
-  return { load: prepared.load, silent: false, points, measure };
+  return { load: prepared.load, silent: false, points, measure: (wirings) => runSteps(measureSteps(wirings)), measureSteps };
 }
 
 /** Resonance, peak, Q and hum of each wiring, in the order given. Throws InputError for a bad override. */

@@ -8,6 +8,8 @@
  * signal is read), so interrupt.ts's handler runs within about that time.
  */
 
+import type { Steps } from '../math/index.js';
+
 /** Most time between two turns of the event loop during long work, ms (judgement: an interrupt answered within a tenth of a second feels at once). */
 export const PAUSE_INTERVAL_MS = 50;
 
@@ -21,4 +23,13 @@ export function createPause(intervalMs: number = PAUSE_INTERVAL_MS, now: () => n
     await new Promise<void>((resolve) => setImmediate(resolve));
     last = now();
   };
+}
+
+/** Run core work written as steps (src/math/run-steps.ts) to its end, pausing between steps. */
+export async function runStepsPausing<T>(steps: Steps<T>, pause: Pause): Promise<T> {
+  for (;;) {
+    const next = steps.next();
+    if (next.done === true) return next.value;
+    await pause();
+  }
 }

@@ -33,7 +33,7 @@ export { guitarFolderName } from './folder-name.js';
 export type { OutputFolder } from './output-folder.js';
 export { renderGuitar, removeScratchFoldersSync, RENDER_MODEL_VERSION, RESPONSE_POINTS } from './render-guitar.js';
 export type { HumMix, RenderEvents, RenderOutcome, RenderRequest, RenderedWiring } from './render-guitar.js';
-export { measureWiringAudio, measureRawAudio, referLevels, prepareReferenceSynthesis, REFERENCE_PHRASE, REFERENCE_SAMPLE_RATE_HZ, RENDER_TAIL_S } from './measure-wiring-audio.js';
+export { measureWiringAudio, measureWiringAudioSteps, measureRawAudio, referLevels, prepareReferenceSynthesis, REFERENCE_PHRASE, REFERENCE_SAMPLE_RATE_HZ, RENDER_TAIL_S } from './measure-wiring-audio.js';
 export type { AudioMetrics, RawAudioMetrics } from './measure-wiring-audio.js';
 export { prepareWiringSynthesis, assertAudible, COIL_VOLTS_PER_METRE_PER_SECOND, HUM_HARMONICS } from './synthesize-wirings.js';
 export type { SynthesisOptions, WiringSynthesis } from './synthesize-wirings.js';

@@ -10,6 +10,7 @@
 import { type CircuitOverrides, phaseClassKey } from '../circuit/index.js';
 import { measureCentroid, measureEnergy, measureLevelDb, measureLoudness } from '../analysis/index.js';
 import type { Guitar } from '../guitar/index.js';
+import { type Steps, runSteps } from '../math/index.js';
 import { builtInPhrase } from '../string/index.js';
 import type { Wiring } from '../wiring/index.js';
 import { type WiringSynthesis, prepareWiringSynthesis } from './synthesize-wirings.js';
@@ -87,7 +88,19 @@ export function measureWiringAudio(
   overrides: CircuitOverrides,
   onProgress?: (done: number, total: number) => void,
 ): Map<string, AudioMetrics> {
+  return runSteps(measureWiringAudioSteps(guitar, all, wanted, overrides, onProgress));
+}
+
+/** measureWiringAudio as steps (math/run-steps.ts): yields after each wiring's render. */
+export function* measureWiringAudioSteps(
+  guitar: Guitar,
+  all: readonly Wiring[],
+  wanted: readonly Wiring[],
+  overrides: CircuitOverrides,
+  onProgress?: (done: number, total: number) => void,
+): Steps<Map<string, AudioMetrics>> {
   const synthesis = prepareReferenceSynthesis(guitar, overrides);
+  yield;
   const todo = new Map<string, Wiring>();
   for (const wiring of all) if (wiring.elements.length === 1) todo.set(wiring.id, wiring);
   for (const wiring of wanted) todo.set(wiring.id, wiring);
@@ -101,6 +114,7 @@ export function measureWiringAudio(
     raw.set(wiring.id, measureRawAudio(synthesis.synthesize(wiring.network, buffer), synthesis.sampleRateHz));
     done += 1;
     onProgress?.(done, todo.size);
+    yield;
   }
   return referLevels(all, raw);
 }

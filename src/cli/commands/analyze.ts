@@ -7,13 +7,13 @@ import {
   HUM_CANCELLING_DB,
   HUM_FLOOR_DB,
   HUM_REDUCING_DB,
-  measureCircuitMetrics,
+  type CircuitAnalysis,
   prepareCircuitMetrics,
 } from '../../circuit/index.js';
-import { measureCoilDrive, measureDistinctness, measureSpectralBasis } from '../../analysis/index.js';
+import { measureCoilDrive, measureDistinctnessSteps, measureSpectralBasis } from '../../analysis/index.js';
 import { InputError, type InputProblem, problemAt } from '../../errors/index.js';
 import { formatEngineering } from '../../units/index.js';
-import { enumerateWirings } from '../../wiring/index.js';
+import { iterateWirings, type Wiring } from '../../wiring/index.js';
 import { type AlikeOptionText, addAlikeOptions, parseAlikeOptions } from '../alike-options.js';
 import { type CircuitOptionText, addCircuitOptions, parseCircuitOptions } from '../circuit-options.js';
 import { formatTable } from '../format-table.js';
@@ -27,12 +27,13 @@ import {
   sortNames,
   sortRows,
 } from '../metric-columns.js';
+import { createPause, runStepsPausing } from '../pause-for-signals.js';
 import { createProgress } from '../progress.js';
 import { readGuitarFile } from '../read-guitar.js';
 import { findOutputProblems } from '../guard-outputs.js';
 import { checkWorkSize, estimateAnalyze } from '../estimate-work.js';
 import { wiringCountFor } from '../../guitar/index.js';
-import { type AudioMetrics, REFERENCE_PHRASE, measureWiringAudio } from '../../render/index.js';
+import { type AudioMetrics, REFERENCE_PHRASE, measureWiringAudioSteps } from '../../render/index.js';
 import { removeStaleTempFiles, writeFileAtomicSync } from '../../render/index.js';
 import { wiringRecord } from './wirings.js';
 import { appendAll } from '../../math/index.js';
@@ -153,17 +154,25 @@ export function registerAnalyze(program: Command, io: Io): void {
       });
       return;
     }
-    const wirings = enumerateWirings(guitar.elements);
+    // Every long step pauses now and then, so Ctrl-C and SIGTERM are answered during the work (pause-for-signals.ts).
+    const pause = createPause();
+    const wirings: Wiring[] = [];
+    for (const wiring of iterateWirings(guitar.elements)) {
+      wirings.push(wiring);
+      await pause();
+    }
     const basis = measureSpectralBasis(guitar);
-    const analysis = measureCircuitMetrics(guitar, wirings, overrides, { drive: measureCoilDrive(basis) });
+    await pause();
+    const solver = prepareCircuitMetrics(guitar, overrides, { drive: measureCoilDrive(basis) });
+    const analysis: CircuitAnalysis = { load: solver.load, silent: solver.silent, points: solver.points, wirings: await runStepsPausing(solver.measureSteps(wirings), pause) };
     let audio: ReadonlyMap<string, AudioMetrics> | undefined;
     if (options.audio !== false && !analysis.silent) {
       const progress = createProgress(io, undefined, { plainLines: big });
       progress.stage('rendering', wirings.length);
-      audio = measureWiringAudio(guitar, wirings, wirings, overrides, (done, total) => progress.step(done, total));
+      audio = await runStepsPausing(measureWiringAudioSteps(guitar, wirings, wirings, overrides, (done, total) => progress.step(done, total)), pause);
       progress.finish();
     }
-    const distinct = measureDistinctness(guitar, wirings, { overrides, thresholds, reuseBasis: basis });
+    const distinct = await runStepsPausing(measureDistinctnessSteps(guitar, wirings, { overrides, thresholds, reuseBasis: basis }), pause);
     const unsorted: AnalyzedWiring[] = wirings.map((wiring, index) => ({
       wiring,
       circuit: analysis.wirings[index] as AnalyzedWiring['circuit'],
