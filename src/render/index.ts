@@ -19,6 +19,7 @@ export type { AudioChannels, WavFormat, WavInfo, WavOptions } from './wav-file.j
 export {
   writeFileAtomic,
   writeFileAtomicSync,
+  settleAtomicWrites,
   openFileAtomicSync,
   removeStaleTempFiles,
   removePendingTempFilesSync,

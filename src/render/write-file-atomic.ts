@@ -46,24 +46,66 @@ function failure(path: string, error: unknown): WorkError {
   return new WorkError(`could not write ${path}: ${reason(error)}`, { cause: error });
 }
 
+/**
+ * Set once an interrupt is being handled: no new asynchronous write starts
+ * and those in flight remove their temporary file at their next step (see
+ * settleAtomicWrites).
+ */
+let stopping = false;
+/** One promise per asynchronous write in flight, resolved once its temporary file is gone or renamed. */
+const unsettled = new Set<Promise<void>>();
+/** What a write returns once writing has stopped: the process is about to exit, so nothing after it runs. */
+const NEVER = new Promise<never>(() => undefined);
+
+/**
+ * Stop asynchronous atomic writes for an interrupt and wait until none has
+ * a temporary file being created: the interrupt handler removes the pending
+ * temporary files, and a file the thread pool was still opening could
+ * otherwise appear just after that removal (seen under load by the kill
+ * tests). Writes started later never begin.
+ */
+export async function settleAtomicWrites(): Promise<void> {
+  stopping = true;
+  await Promise.allSettled([...unsettled]);
+}
+
 /** Write `data` (bytes, or text as UTF-8) to `path` atomically. Throws WorkError on failure, leaving no temporary file. */
 export async function writeFileAtomic(path: string, data: Uint8Array | string): Promise<void> {
+  if (stopping) return NEVER;
   const temporary = temporaryPathFor(path);
   pending.add(temporary);
+  let markSettled: () => void = () => undefined;
+  const settled = new Promise<void>((resolve) => {
+    markSettled = resolve;
+  });
+  unsettled.add(settled);
   let handle: FileHandle | null = null;
+  let stopped = false;
+  const checkStopping = (): void => {
+    if (stopping) {
+      stopped = true;
+      throw new Error('interrupted');
+    }
+  };
   try {
     handle = await open(temporary, 'wx');
+    checkStopping();
     await handle.writeFile(data);
+    checkStopping();
     await handle.sync();
     await handle.close();
     handle = null;
+    checkStopping();
     await rename(temporary, path);
   } catch (error) {
     await handle?.close().catch(() => undefined);
     await rm(temporary, { force: true }).catch(() => undefined);
+    if (stopped || stopping) return NEVER;
     throw failure(path, error);
   } finally {
     pending.delete(temporary);
+    unsettled.delete(settled);
+    markSettled();
   }
 }
 
