@@ -20,6 +20,7 @@ import { type InputProblem, problemAt } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
 import { type AtomicFileStream, openFileAtomicSync, removeStaleTempFiles } from '../render/index.js';
 import { invertAll, planWiringSubsets, printNetwork, type Network } from '../wiring/index.js';
+import { wiringRecord } from './commands/wirings.js';
 import { renderTableLine } from './format-table.js';
 import type { Io } from './io.js';
 import { type AnalyzedWiring, METRIC_COLUMNS, renderCsvHeader, renderCsvRow, renderMarkdownHeader, renderMarkdownRow } from './metric-columns.js';
@@ -135,12 +136,7 @@ export async function streamAnalysis(request: StreamAnalysisRequest): Promise<vo
       csv?.write(`${renderCsvRow(row)}\r\n`);
       if (format === 'json') {
         const record = {
-          id: wiring.id,
-          expression: wiring.expression,
-          coils: wiring.elementIds,
-          topology: wiring.topology,
-          outOfPhase: wiring.outOfPhase,
-          description: wiring.description,
+          ...wiringRecord(wiring),
           ...row.circuit,
           levelDb,
           loudnessLufs: null,
