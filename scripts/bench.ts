@@ -11,6 +11,7 @@ import { benchCircuit } from './bench/circuit.js';
 import { benchCommands } from './bench/command.js';
 import { benchDistinct } from './bench/distinct.js';
 import { benchEnumerate } from './bench/enumerate.js';
+import { benchFigures } from './bench/figures.js';
 import { benchListeningPage } from './bench/listening-page.js';
 import { benchMeasures } from './bench/measures.js';
 import { benchRender } from './bench/render.js';
@@ -24,6 +25,7 @@ const SECTIONS: ReadonlyArray<readonly [string, () => unknown]> = [
   ['enumerate', benchEnumerate],
   ['strings', benchStrings],
   ['measures', benchMeasures],
+  ['figures', benchFigures],
   ['chain', benchChain],
   ['circuit', benchCircuit],
   ['page', benchListeningPage],

@@ -13,6 +13,7 @@ import { describe, expect, it } from 'vitest';
 import { captureIo, main } from '../src/cli/index.js';
 import { prepareCircuit, solveTransfers } from '../src/circuit/index.js';
 import { parseGuitarText } from '../src/guitar/index.js';
+import { escapeHtml } from '../src/report/index.js';
 import { enumerateWirings } from '../src/wiring/index.js';
 import { readPrintRows } from './support/ngspice-sweep.js';
 
@@ -45,6 +46,38 @@ describe('coilbench switch', () => {
     expect(drawing.trimEnd().endsWith('</svg>')).toBe(true);
     expect(drawing).toContain('pole A');
   });
+
+  it('--render labels the page, report and files by position, in position order', async () => {
+    const folder = mkdtempSync(join(tmpdir(), 'coilbench-switch-render-'));
+    const out = join(folder, 'positions');
+    // Position 5 repeats position 3's wiring: the page and files must still list five positions in order.
+    const wanted = ['neck', 'neck // mid', 'mid', 'mid // bridge', 'mid'];
+    const { code, err } = await run(samples, 'switch', 'three-single-coil.json', '--switch', 'lever-5-position-2-pole', ...wanted.flatMap((text) => ['--wiring', text]), '--render', '-o', out);
+    expect(err).not.toMatch(/coilbench: .*expected/u);
+    expect(code).toBe(0);
+    const report = JSON.parse(readFileSync(join(out, 'report.json'), 'utf8')) as {
+      positions: { position: number; label: string; wiringId: string | null; expression: string | null }[];
+      wirings: { id: string; expression: string; wav: string | null }[];
+    };
+    expect(report.positions.map((position) => position.label)).toEqual(wanted.map((text, k) => `position ${k + 1}: ${text}`));
+    for (const position of report.positions) {
+      expect(report.wirings.find((wiring) => wiring.id === position.wiringId)?.expression).toBe(position.expression);
+    }
+    const page = readFileSync(join(out, 'index.html'), 'utf8');
+    const shown = wanted.map((text, k) => page.indexOf(`<strong>${escapeHtml(`position ${k + 1}: ${text}`)}</strong>`));
+    expect(shown.every((at) => at > 0)).toBe(true);
+    expect([...shown].sort((a, b) => a - b)).toEqual(shown);
+    const table = readFileSync(join(out, 'switch-positions.md'), 'utf8');
+    const rows = table.split('\n').filter((line) => /^\| position \d/u.test(line));
+    expect(rows.map((row) => row.split('|')[1]?.trim())).toEqual(wanted.map((text, k) => `position ${k + 1}: ${text}`));
+    // Each row names the WAV file of its wiring.
+    for (const [k, row] of rows.entries()) {
+      const wav = report.wirings.find((wiring) => wiring.id === report.positions[k]?.wiringId)?.wav;
+      expect(wav).toBeTruthy();
+      expect(row).toContain(wav as string);
+      expect(existsSync(join(out, wav as string))).toBe(true);
+    }
+  }, 120_000);
 
   it('refuses eight wirings on a five-position switch with the reason, and writes nothing', async () => {
     const folder = mkdtempSync(join(tmpdir(), 'coilbench-switch-'));

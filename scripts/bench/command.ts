@@ -117,8 +117,11 @@ export function benchCommands(): void {
     { label: '47 wirings, analyze (audio figures included)', args: () => ['analyze', three, '--json'], audioSeconds: () => null },
     { label: '572 wirings, analyze', args: () => ['analyze', four, '--json'], audioSeconds: () => null },
   ];
-  // Minutes today: only when asked for (BENCH_BIG=1).
-  if (process.env.BENCH_BIG === '1') cases.push({ label: '9,997 wirings, analyze', args: () => ['analyze', five, '--json'], audioSeconds: () => null });
+  // Five coils: only when asked for (BENCH_BIG=1).
+  if (process.env.BENCH_BIG === '1') {
+    cases.push({ label: '9,997 wirings, analyze', args: () => ['analyze', five, '--json', '--yes'], audioSeconds: () => null });
+    cases.push({ label: '9,997 wirings, render --no-wav (page and reports)', args: (folder) => ['render', five, '--no-wav', '--yes', '-o', folder], audioSeconds: () => null });
+  }
   // BENCH_CASES: a regular expression choosing cases by label (e.g. "47 wirings").
   const only = process.env.BENCH_CASES ? new RegExp(process.env.BENCH_CASES, 'u') : null;
   try {

@@ -21,6 +21,10 @@ export function benchStrings(): void {
     const seconds = (render?.length ?? 0) / (render?.sampleRateHz ?? 1);
     line(`${name}: ${guitar.strings.length} strings, ${seconds.toFixed(2)} s of audio`, `${ms.toFixed(1)} ms (${(seconds / (ms / 1000)).toFixed(0)}× real time)`);
   }
+  // Stiffness costs the dispersion cascade's sections per sample (docs/physics.md §4.5): a ratio in this process.
+  const stiffMs = medianMs(() => renderPhrase(guitar, builtInPhrase('strum')));
+  const flexibleMs = medianMs(() => renderPhrase(guitar, builtInPhrase('strum'), { inharmonicity: 0 }));
+  line('strum: stiff strings (the default) against flexible (B = 0)', `${(stiffMs / flexibleMs).toFixed(2)}× (${stiffMs.toFixed(1)} against ${flexibleMs.toFixed(1)} ms)`);
   const strum = renderPhrase(guitar, builtInPhrase('strum'));
   const size = nextPowerOfTwo(strum.length);
   const spectraMs = medianMs(() => computeCoilSpectra(guitar, strum, size));

@@ -61,6 +61,20 @@ describe('measureWiringDifference', () => {
     expect(measureWiringDistance(brighter, 0, brighter, 1, thresholds)).toBeCloseTo(1, 12);
   });
 
+  it('is the same double whichever wiring comes first (the exact shortlist search compares distances for equality)', () => {
+    // 700 Hz and 2804 Hz: Math.log(2804 / 700) and −Math.log(700 / 2804) differ in the last bit; the level and
+    // band terms are chosen below the brightness term so that term decides the distance.
+    const profiles = syntheticProfiles([
+      { level: 0, brightness: 700, shape: [0, 1] },
+      { level: 0.25, brightness: 2804, shape: [1, 0] },
+    ]);
+    expect(Math.abs(Math.log(2804 / 700))).not.toBe(Math.abs(Math.log(700 / 2804)));
+    expect(measureWiringDistance(profiles, 0, profiles, 1, thresholds)).toBe(measureWiringDistance(profiles, 1, profiles, 0, thresholds));
+    expect(measureWiringDifference(profiles, 0, profiles, 1, thresholds).distance).toBe(measureWiringDifference(profiles, 1, profiles, 0, thresholds).distance);
+    // Hand-worked: ln(2804/700)/ln(1.03) = 46.95.
+    expect(measureWiringDistance(profiles, 0, profiles, 1, thresholds)).toBeCloseTo(Math.log(2804 / 700) / Math.log(1.03), 10);
+  });
+
   it('weights band differences by loudness share', () => {
     const profiles = syntheticProfiles([
       { level: 0, brightness: 1000, shape: [0, 0] },

@@ -9,6 +9,9 @@ export {
 } from './k-weighting.js';
 export {
   measureLoudness,
+  integrateGatedLoudness,
+  layoutGatingBlocks,
+  HOPS_PER_GATING_BLOCK,
   DEFAULT_LOUDNESS_OPTIONS,
   LOUDNESS_FLOOR_LUFS,
   ABSOLUTE_GATE_LUFS,
@@ -17,7 +20,7 @@ export {
   GATING_BLOCK_OVERLAP,
   LOUDNESS_OFFSET_DB,
 } from './measure-loudness.js';
-export type { LoudnessOptions } from './measure-loudness.js';
+export type { GatingBlocks, LoudnessOptions } from './measure-loudness.js';
 export { measureCentroid, DEFAULT_CENTROID_OPTIONS, SILENCE_CENTROID_HZ } from './measure-centroid.js';
 export type { CentroidOptions, HannWindowKind } from './measure-centroid.js';
 export { measureEnergy, measureLevelDb, LEVEL_FLOOR_DB } from './measure-energy.js';
@@ -54,3 +57,5 @@ export { measureGuitarComparison } from './measure-guitar-comparison.js';
 export type { ComparedGuitar, GuitarComparison, GuitarComparisonOptions } from './measure-guitar-comparison.js';
 export { measureWiringFigures } from './measure-wiring-figures.js';
 export type { WiringFigures, WiringFiguresOptions, WiringFiguresStep } from './measure-wiring-figures.js';
+export { prepareAudioFigures, measureFiguresByClass, designFigureGrid, GRID_POINTS_PER_OCTAVE, GRID_LOWEST_HZ, BLOCK_PADDING_S } from './measure-audio-figures.js';
+export type { AudioFigureMeter, CoilRecording, RawAudioFigures } from './measure-audio-figures.js';

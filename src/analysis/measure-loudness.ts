@@ -75,6 +75,54 @@ function validate(channels: readonly ArrayLike<number>[], sampleRateHz: number, 
   return weights;
 }
 
+/** Where the gating blocks of a signal lie (steps 2 of the file comment). */
+export interface GatingBlocks {
+  /** Hops of 100 ms that fit whole in the signal. */
+  readonly hopCount: number;
+  /** Whole blocks of four hops (0 when the signal is shorter than one block). */
+  readonly blockCount: number;
+  /** First sample of hop `hop`: round(hop·T_g/4·fs); block j covers [boundary(j), boundary(j + 4)). */
+  boundary(hop: number): number;
+}
+
+/** The gating blocks of a signal of `length` samples at `sampleRateHz` (every loudness measure here cuts blocks this way). */
+export function layoutGatingBlocks(length: number, sampleRateHz: number): GatingBlocks {
+  const hopSamples = (GATING_BLOCK_S / HOPS_PER_BLOCK) * sampleRateHz;
+  // Hop k covers samples [round(k·hop), round((k+1)·hop)); block j is hops j … j+3.
+  const boundary = (hop: number): number => Math.round(hop * hopSamples);
+  let hopCount = Math.floor(length / hopSamples);
+  while (boundary(hopCount + 1) <= length) hopCount += 1;
+  return { hopCount, blockCount: hopCount - HOPS_PER_BLOCK + 1, boundary };
+}
+
+/** Hops in one gating block (4). */
+export const HOPS_PER_GATING_BLOCK = HOPS_PER_BLOCK;
+
+/**
+ * Steps 4–6 of the file comment: the gated loudness of block powers
+ * Σ_i G_i·z_ij (mean squares of the K-weighted channels over each block),
+ * LUFS; LOUDNESS_FLOOR_LUFS when no block passes the absolute gate.
+ */
+export function integrateGatedLoudness(blockPower: ArrayLike<number>): number {
+  const meanAbove = (threshold: number): { mean: number; count: number } => {
+    let sum = 0;
+    let count = 0;
+    for (let block = 0; block < blockPower.length; block += 1) {
+      const power = blockPower[block] as number;
+      if (power > threshold) {
+        sum += power;
+        count += 1;
+      }
+    }
+    return { mean: count > 0 ? sum / count : 0, count };
+  };
+  const absolutelyGated = meanAbove(powerOfLoudness(ABSOLUTE_GATE_LUFS));
+  if (absolutelyGated.count === 0) return LOUDNESS_FLOOR_LUFS;
+  const relativeGateLufs = loudnessOfPower(absolutelyGated.mean) + RELATIVE_GATE_LU;
+  const gated = meanAbove(Math.max(powerOfLoudness(relativeGateLufs), powerOfLoudness(ABSOLUTE_GATE_LUFS)));
+  return loudnessOfPower(gated.mean);
+}
+
 /**
  * Integrated loudness of `channels` (equal lengths; mono is one channel) at
  * `sampleRateHz`, LUFS. See the file comment for the method and the floor.
@@ -86,12 +134,7 @@ export function measureLoudness(
 ): number {
   const weights = validate(channels, sampleRateHz, options);
   const length = channels[0]?.length ?? 0;
-  const hopSamples = (GATING_BLOCK_S / HOPS_PER_BLOCK) * sampleRateHz;
-  // Hop k covers samples [round(k·hop), round((k+1)·hop)); block j is hops j … j+3.
-  const boundary = (hop: number): number => Math.round(hop * hopSamples);
-  let hopCount = Math.floor(length / hopSamples);
-  while (boundary(hopCount + 1) <= length) hopCount += 1;
-  const blockCount = hopCount - HOPS_PER_BLOCK + 1;
+  const { hopCount, blockCount, boundary } = layoutGatingBlocks(length, sampleRateHz);
   if (blockCount < 1) return LOUDNESS_FLOOR_LUFS;
 
   // Σ_i G_i · Σ_n y_i[n]² per hop, y the K-weighted channel.
@@ -126,20 +169,5 @@ export function measureLoudness(
     throw new InputError([{ path: 'channels', expected: 'finite samples', got: 'NaN or an infinite sample' }]);
   }
 
-  const meanAbove = (threshold: number): { mean: number; count: number } => {
-    let sum = 0;
-    let count = 0;
-    for (const power of blockPower) {
-      if (power > threshold) {
-        sum += power;
-        count += 1;
-      }
-    }
-    return { mean: count > 0 ? sum / count : 0, count };
-  };
-  const absolutelyGated = meanAbove(powerOfLoudness(ABSOLUTE_GATE_LUFS));
-  if (absolutelyGated.count === 0) return LOUDNESS_FLOOR_LUFS;
-  const relativeGateLufs = loudnessOfPower(absolutelyGated.mean) + RELATIVE_GATE_LU;
-  const gated = meanAbove(Math.max(powerOfLoudness(relativeGateLufs), powerOfLoudness(ABSOLUTE_GATE_LUFS)));
-  return loudnessOfPower(gated.mean);
+  return integrateGatedLoudness(blockPower);
 }

@@ -47,6 +47,12 @@ export interface SpectralBasis {
   readonly fftSize: number;
   readonly layout: BandLayout;
   readonly cross: CrossSpectra;
+  /** Each coil's spectrum (computeCoilSpectra: sensed string velocity, m/s, per bin of the fftSize transform), kept so other measures of the same performance need not render the strings again. */
+  readonly coilSpectra: readonly Float64Array[];
+  /** Samples by which the coil spectra are delayed to stay causal (pickupDelaySamples). */
+  readonly pickupDelay: number;
+  /** Made with every default (the `strum` reference phrase, its ring-out, 48 kHz, seed 1): the reference performance of docs/design.md's metrics. */
+  readonly reference: boolean;
 }
 
 /** Strings, coil spectra and band cross-spectra of `guitar` playing the phrase. Throws InputError for notes or options the guitar cannot take. */
@@ -54,9 +60,11 @@ export function measureSpectralBasis(guitar: Guitar, options: Partial<SpectralBa
   const phrase = options.phrase ?? builtInPhrase('strum', guitar.strings.length);
   const phraseName = options.phraseName ?? DEFAULT_SPECTRAL_BASIS_OPTIONS.phraseName;
   const strings = renderPhrase(guitar, phrase, { ...DEFAULT_SPECTRAL_BASIS_OPTIONS.strings, ...options.strings });
-  const fftSize = nextPowerOfTwo(strings.length + pickupDelaySamples(guitar, strings));
+  const pickupDelay = pickupDelaySamples(guitar, strings);
+  const fftSize = nextPowerOfTwo(strings.length + pickupDelay);
   const coilSpectra = computeCoilSpectra(guitar, strings, fftSize);
   const layout = designBands(strings.sampleRateHz, options.bands ?? {});
   const cross = measureCrossSpectra(coilSpectra, fftSize, layout);
-  return { phraseName, sampleRateHz: strings.sampleRateHz, phraseSamples: strings.length, fftSize, layout, cross };
+  const reference = options.phrase === undefined && options.strings === undefined;
+  return { phraseName, sampleRateHz: strings.sampleRateHz, phraseSamples: strings.length, fftSize, layout, cross, coilSpectra, pickupDelay, reference };
 }

@@ -9,7 +9,8 @@
  * L = level (dB), D = loudness-weighted RMS distance of the level-matched
  * excitation patterns (measure-spectral-profiles.ts), b = brightness (Hz).
  * The brightness term is symmetric on a log scale: +3 % and −2.9 % both read 1.0
- * at a 3 % threshold. The largest term, not a sum, because each threshold
+ * at a 3 % threshold; every term, and so the distance, is exactly symmetric
+ * (d(A, B) and d(B, A) are the same double). The largest term, not a sum, because each threshold
  * is a limen measured on its own: a wiring pair is noticed as different as
  * soon as any one difference is.
  */
@@ -50,9 +51,13 @@ export function measureSpectrumDistance(a: SpectralProfiles, i: number, b: Spect
   return weights > 0 ? Math.sqrt(weighted / weights) : 0;
 }
 
-/** |ln(b_B/b_A)|, or null when only one is silent (0 Hz). */
+/**
+ * |ln(b_B/b_A)|, or null when only one is silent (0 Hz). Taken as ln(larger/smaller), so it is the same
+ * double whichever wiring comes first: Math.abs(Math.log(b / a)) and Math.abs(Math.log(a / b)) can differ
+ * in the last bit (700 Hz and 2804 Hz do), and the shortlist's exact search needs d(A, B) = d(B, A) exactly.
+ */
 function brightnessLogRatio(a: number, b: number): number | null {
-  if (a > 0 && b > 0) return Math.abs(Math.log(b / a));
+  if (a > 0 && b > 0) return Math.log(Math.max(a, b) / Math.min(a, b));
   return a > 0 || b > 0 ? null : 0;
 }
 

@@ -73,4 +73,14 @@ describe('solveMaxMinSubset', () => {
     expect(solveMaxMinSubset({ candidates: [0, 1, 5], include: [], size: 1, distance })).toMatchObject({ members: [0], minDistance: Number.POSITIVE_INFINITY });
     expect(solveMaxMinSubset({ candidates: [1, 5], include: [0, 9], size: 2, distance })).toMatchObject({ members: [0, 9], minDistance: 9 });
   });
+  it('reads each pair in one order, so a distance that differs in its last bit with the argument order cannot lose the answer', () => {
+    // Regression: the shortlist's distance once gave |ln(b/a)| and |ln(a/b)| one ulp apart. The heuristic's
+    // set then scored d(0, 1) = 10 + ulp while the exact search tabled d(1, 0) = 10, so no level reached the
+    // heuristic's floor and a three-coil shortlist failed with "no set found although enough candidates exist".
+    const ulp = 2 ** -49; // spacing of doubles between 8 and 16
+    const base = (a: number, b: number): number => (a === 3 || b === 3 ? 1 : 10);
+    const lopsided = (a: number, b: number): number => base(a, b) + (a < b ? ulp : 0);
+    const result = solveMaxMinSubset({ candidates: [1, 2, 3], include: [0], size: 3, distance: lopsided });
+    expect(result).toMatchObject({ members: [0, 1, 2], minDistance: 10 + ulp, method: 'exact' });
+  });
 });

@@ -37,7 +37,11 @@ export interface MaxMinSubsetProblem {
   readonly include: readonly number[];
   /** How many items in all, include included; at least include.length. */
   readonly size: number;
-  /** Symmetric distance between two items. */
+  /**
+   * Symmetric distance between two items. The solver reads each pair in one
+   * order only (smaller item first), so a distance whose two orders differ in
+   * rounding still gives every part of the search the same number.
+   */
   readonly distance: (a: number, b: number) => number;
   /** Return null at once unless a set strictly better than this can exist (for searching many windows). Default −Infinity. */
   readonly mustExceed?: number;
@@ -73,8 +77,11 @@ export const DEFAULT_MAX_MIN_SUBSET_OPTIONS: Readonly<MaxMinSubsetOptions> = Obj
 class BudgetExceeded extends Error {}
 
 /** Solve the problem; null when fewer candidates than needed, or nothing beats `mustExceed`. */
-export function solveMaxMinSubset(problem: MaxMinSubsetProblem, options: Partial<MaxMinSubsetOptions> = {}): MaxMinSubsetResult | null {
+export function solveMaxMinSubset(given: MaxMinSubsetProblem, options: Partial<MaxMinSubsetOptions> = {}): MaxMinSubsetResult | null {
   const settings = { ...DEFAULT_MAX_MIN_SUBSET_OPTIONS, ...options };
+  // One order per pair: the exact search compares the heuristic's smallest distance with its table of
+  // pair distances for equality, so both must come from the same evaluation of each pair.
+  const problem: MaxMinSubsetProblem = { ...given, distance: (a, b) => (a <= b ? given.distance(a, b) : given.distance(b, a)) };
   const { candidates, include, size } = problem;
   const need = size - include.length;
   if (need < 0) throw new RangeError(`solveMaxMinSubset: size ${size} is smaller than the ${include.length} included items`);

@@ -59,12 +59,17 @@ describe('solveWiringSpectra on the demo guitar (47 wirings)', () => {
     // docs/design.md's centroidHz of each exact render (magnitude weighted, Hann window) against brightnessHz (power weighted).
     const centroids = exact.renders.map((render) => measureCentroid(render, exact.sampleRateHz));
     const { slope, correlation } = fitLogRatios(centroids, Array.from(spectra.brightnessHz));
-    // Measured on this guitar: slope 1.42, correlation 0.96 (docs/distinctness.md).
+    // Measured on this guitar: slope 1.43, correlation 0.95 with stiff strings (1.40 and 0.96 flexible; docs/distinctness.md).
     expect(correlation).toBeGreaterThan(0.9);
     expect(slope).toBeGreaterThan(1.2);
     expect(slope).toBeLessThan(1.7);
-    // Power weighting leans to the strong low partials: brightness sits below the centroid for every wiring.
-    wirings.forEach((_, w) => expect(spectra.brightnessHz[w]).toBeLessThan((centroids[w] as number) * 1.1));
+    // Power weighting leans to the strong partials. Where the magnitude falls with frequency, as it does for every
+    // in-phase wiring, Chebyshev's sum inequality puts Σf·|X|²/Σ|X|² below Σf·|X|/Σ|X|: brightness below the
+    // centroid (measured: at most 0.80 of it). Out-of-phase wirings whose lows cancel have a rising spectrum and
+    // may sit above it (measured: up to 1.12×, (neck + bridge) // ~mid).
+    wirings.forEach((wiring, w) => {
+      if (!wiring.expression.includes('~')) expect(spectra.brightnessHz[w], wiring.expression).toBeLessThan(centroids[w] as number);
+    });
   });
 });
 

@@ -19,8 +19,10 @@ const MAX_SHOWN_PATH = 120;
 
 /** Seconds to render and write one wiring, per second of its audio (a five-coil render of 9,997 wirings of the 2.6 s strum took about 20 min on a 2-core machine: 1200 / 9997 / 2.6). */
 const RENDER_SECONDS_PER_AUDIO_SECOND = 0.046;
-/** Seconds of the reference render's audio figures per wiring in `analyze` (about 25 ms; run-render-pass.ts). */
-const ANALYZE_AUDIO_SECONDS_PER_WIRING = 0.025;
+/** Seconds of the audio figures per wiring in `analyze` (from the coils' cross-spectra: about 0.7 ms; `npm run bench -- figures`). */
+const ANALYZE_AUDIO_SECONDS_PER_WIRING = 0.0007;
+/** Seconds per wiring of a render that writes no WAV (figures, circuit figures, response curve, netlist: about 2 ms; `npm run bench -- commands` with BENCH_BIG=1). */
+const RENDER_NO_WAV_SECONDS_PER_WIRING = 0.002;
 /** Seconds of circuit figures, level and groups per wiring in `analyze --no-audio` (about 1.5 ms: the six-element sample's 228,386 wirings took 326 s of processor time on a loaded 2-core machine; coupled humbucker coils go through the slower nodal solver). */
 const ANALYZE_CIRCUIT_SECONDS_PER_WIRING = 0.0015;
 /** Work longer than this is announced first, seconds. */
@@ -56,6 +58,7 @@ export function estimateRender(wirings: number, audioSeconds: number, sampleRate
   const frames = Math.ceil(audioSeconds * sampleRateHz);
   const wav = WAV_HEADER_BYTES + frames * (BYTES_PER_SAMPLE[format] ?? SCRATCH_BYTES_PER_SAMPLE);
   const bytes = writeWav ? wirings * wav : 0;
+  if (!writeWav) return { wirings, seconds: wirings * RENDER_NO_WAV_SECONDS_PER_WIRING, bytes, peakBytes: bytes };
   return { wirings, seconds: wirings * audioSeconds * RENDER_SECONDS_PER_AUDIO_SECOND, bytes, peakBytes: bytes + wirings * frames * SCRATCH_BYTES_PER_SAMPLE };
 }
 

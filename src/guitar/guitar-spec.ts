@@ -65,7 +65,12 @@ const position: FieldSpec = {
   },
 };
 
-/** Least relative sensitivity accepted: 1/1000 of nominal, 60 dB down (a plausibility bound; far smaller values underflow the rendered energies to zero). */
+/**
+ * Least relative sensitivity accepted, for the string signal and for hum alike: 1/1000 of nominal, 60 dB
+ * down (a plausibility bound: a winding's EMF grows with its turns and area, and the `turns` field accepts
+ * 100 at least against a nominal coil's thousands; far smaller values also underflow the rendered energies to
+ * zero, and a hum sensitivity of 0 would make a single coil read as hum cancelling).
+ */
 export const MIN_RELATIVE_SENSITIVITY = 0.001;
 
 const coil: ObjectSpec = {
@@ -129,7 +134,7 @@ const coil: ObjectSpec = {
       spec: { type: 'number', description: 'Relative string-signal sensitivity, e.g. a measured output relative to a nominal coil. When missing: turns / nominal turns of the construction.', min: MIN_RELATIVE_SENSITIVITY, max: 100, noun: 'a relative sensitivity' },
     },
     humSensitivity: {
-      spec: { type: 'number', description: 'Relative sensitivity to a mains field (turns × area; 1 = nominal coil). When missing: turns / nominal turns of the construction.', min: 0, max: 100, noun: 'a relative hum sensitivity' },
+      spec: { type: 'number', description: 'Relative sensitivity to a mains field (turns × area; 1 = nominal coil). When missing: turns / nominal turns of the construction.', min: MIN_RELATIVE_SENSITIVITY, max: 100, noun: 'a relative hum sensitivity' },
     },
     pickup: {
       spec: { type: 'string', description: 'Name of the pickup housing this coil (shared by the coils of a humbucker).', pattern: ID_PATTERN, patternText: ID_PATTERN_TEXT, maxLength: 32 },

@@ -110,7 +110,16 @@ async function choose(wiring: Wiring, start: boolean): Promise<void> {
 
 /* ---------- the list ---------- */
 
+/** A switch plan's render (`switch --render`): the list holds the positions' wirings in position order, each row naming its positions. */
+const positionsOf = new Map<string, string[]>();
+for (const position of report.positions ?? []) {
+  if (position.wiringId !== null) positionsOf.set(position.wiringId, [...(positionsOf.get(position.wiringId) ?? []), `position ${position.position}`]);
+}
+const listed: Wiring[] = positionsOf.size > 0 ? [...positionsOf.keys()].flatMap((id) => byKey.get(id) ?? []) : wirings;
+
 function rowOf(wiring: Wiring): ListRow {
+  const where = positionsOf.get(wiring.id);
+  const words = where === undefined ? wiring.description : `${where.join(', ')}: ${wiring.description}`;
   const metrics = reported.get(wiring.id);
   const level = metrics ? formatDb(metrics.levelDb) : '\u2014';
   const brightness = metrics ? `${scale.word(metrics.centroidHz)} (${formatHz(metrics.centroidHz)})` : '\u2014';
@@ -120,12 +129,12 @@ function rowOf(wiring: Wiring): ListRow {
     id: wiring.id,
     number: wiring.number,
     expression: wiring.expression,
-    cells: [wiring.description, level, brightness, peak, hum],
-    searchText: [wiring.id, wiring.expression, wiring.description, ...wiring.elementIds, brightness, hum].join(' '),
+    cells: [words, level, brightness, peak, hum],
+    searchText: [wiring.id, wiring.expression, words, ...wiring.elementIds, brightness, hum].join(' '),
   };
 }
 
-const list = createWiringList(byId('wiring-list'), wirings.map(rowOf), {
+const list = createWiringList(byId('wiring-list'), listed.map(rowOf), {
   play: (id) => {
     const wiring = byKey.get(id);
     if (!wiring) return;
@@ -144,7 +153,7 @@ const list = createWiringList(byId('wiring-list'), wirings.map(rowOf), {
 
 function search(): void {
   const shown = list.filter(byId<HTMLInputElement>('search').value);
-  byId('shown-count').textContent = `Showing ${shown} of ${wirings.length}`;
+  byId('shown-count').textContent = `Showing ${shown} of ${listed.length}`;
 }
 byId('search').addEventListener('input', search);
 

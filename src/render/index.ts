@@ -17,6 +17,7 @@ export {
 } from './wav-file.js';
 export type { AudioChannels, WavFormat, WavInfo, WavOptions } from './wav-file.js';
 export {
+  createDeferredSync,
   writeFileAtomic,
   writeFileAtomicSync,
   settleAtomicWrites,
@@ -27,6 +28,7 @@ export {
   STALE_TEMP_FILE_AGE_MS,
 } from './write-file-atomic.js';
 export type { AtomicFileStream } from './write-file-atomic.js';
+export type { DeferredSync } from './write-file-atomic.js';
 export { defaultOutputRoot, outputFolder, wavFileName, netlistFileName } from './output-folder.js';
 export { claimOutputFolder, ownNamesOf, releaseFolderLocksSync, FOLDER_MARKER, FOLDER_LOCK } from './folder-claim.js';
 export type { ClaimRequest, FolderClaim, FolderPurpose } from './folder-claim.js';
@@ -34,8 +36,9 @@ export { guitarFolderName } from './folder-name.js';
 export type { OutputFolder } from './output-folder.js';
 export { renderGuitar, removeScratchFoldersSync, RENDER_MODEL_VERSION, RESPONSE_POINTS } from './render-guitar.js';
 export type { HumMix, RenderEvents, RenderOutcome, RenderRequest, RenderedWiring } from './render-guitar.js';
-export { measureWiringAudio, measureWiringAudioSteps, measureRawAudio, referLevels, prepareReferenceSynthesis, REFERENCE_PHRASE, REFERENCE_SAMPLE_RATE_HZ, RENDER_TAIL_S } from './measure-wiring-audio.js';
+export { measureWiringAudio, measureRawAudio, referLevels, prepareReferenceSynthesis, REFERENCE_PHRASE, REFERENCE_SAMPLE_RATE_HZ, RENDER_TAIL_S } from './measure-wiring-audio.js';
 export type { AudioMetrics, RawAudioMetrics } from './measure-wiring-audio.js';
+export { measureFiguresOnThread, figuresThreadPays, FIGURES_THREAD_MIN_WIRINGS } from './measure-figures-on-thread.js';
 export { prepareWiringSynthesis, assertAudible, COIL_VOLTS_PER_METRE_PER_SECOND, HUM_HARMONICS } from './synthesize-wirings.js';
 export type { SynthesisOptions, WiringSynthesis } from './synthesize-wirings.js';
 export { planTrueLevelGain, planMatchedGains, PEAK_CEILING_DB } from './plan-gains.js';

@@ -1,19 +1,30 @@
 /**
- * The audio metrics of docs/design.md, from each wiring's render of the reference
- * phrase through the direct chain: levelDb (energy relative to the mean of
- * the single-element wirings), loudnessLufs (ITU-R BS.1770 integrated) and
- * centroidHz (Σ f·|X| / Σ |X| over 20 Hz–20 kHz of one Hann-windowed FFT of
- * the whole render). They are fixed by the guitar and its settings alone: the
- * reference render always uses the `strum` phrase at 48 kHz with one seed,
- * whatever phrase, rate or chain the audio files use.
+ * The audio metrics of docs/design.md, for each wiring's render of the
+ * reference phrase through the direct chain: levelDb (energy relative to the
+ * mean of the single-element wirings), loudnessLufs (ITU-R BS.1770 integrated)
+ * and centroidHz (Σ f·|X| / Σ |X| over 20 Hz–20 kHz of the Hann-windowed
+ * render). They are fixed by the guitar and its settings alone: the reference
+ * render always uses the `strum` phrase at 48 kHz with one seed, whatever
+ * phrase, rate or chain the audio files use.
+ *
+ * They come from the coils' signals and cross-spectra (src/analysis/
+ * measure-audio-figures.ts), with no render per wiring; measureRawAudio
+ * measures a render itself, the check those figures are held to.
  */
-import { type CircuitOverrides, phaseClassKey } from '../circuit/index.js';
-import { measureCentroid, measureEnergy, measureLevelDb, measureLoudness } from '../analysis/index.js';
+import type { CircuitOverrides } from '../circuit/index.js';
+import { type AudioFigureMeter, type RawAudioFigures, type SpectralBasis, measureFiguresByClass, measureCentroid, measureEnergy, measureLevelDb, measureLoudness, prepareAudioFigures } from '../analysis/index.js';
 import type { Guitar } from '../guitar/index.js';
-import { type Steps, runSteps } from '../math/index.js';
 import { builtInPhrase } from '../string/index.js';
 import type { Wiring } from '../wiring/index.js';
-import { type WiringSynthesis, prepareWiringSynthesis } from './synthesize-wirings.js';
+import {
+  type CoilSignals,
+  type WiringSynthesis,
+  COIL_VOLTS_PER_METRE_PER_SECOND,
+  coilSignalsOfSpectra,
+  coilSpectraOfSignals,
+  createWiringSynthesis,
+  renderCoilSignals,
+} from './synthesize-wirings.js';
 
 /** The reference performance for metrics (docs/design.md, phrases). */
 export const REFERENCE_PHRASE = 'strum';
@@ -21,16 +32,17 @@ export const REFERENCE_PHRASE = 'strum';
 export const REFERENCE_SAMPLE_RATE_HZ = 48_000;
 /** Seed of the reference render's pluck noise. */
 export const REFERENCE_SEED = 1;
+/**
+ * Version of the figures' method, recorded with each wiring's figures in a
+ * render's manifest: figures kept from a run with another method are measured
+ * again. 2: from the coils' cross-spectra (src/analysis/measure-audio-figures.ts).
+ */
+export const REFERENCE_FIGURES_VERSION = 2;
 /** Ring-out after the last note of a render, seconds (long enough to hear the decay; short enough that a strum fits a 2^17-point FFT at 48 kHz). */
 export const RENDER_TAIL_S = 2.5;
 
 /** What one wiring's reference render measures, before levels are referred to the single coils. */
-export interface RawAudioMetrics {
-  /** Σ x² of the render, V²·samples. */
-  readonly energy: number;
-  readonly loudnessLufs: number;
-  readonly centroidHz: number;
-}
+export type RawAudioMetrics = RawAudioFigures;
 
 export interface AudioMetrics {
   readonly levelDb: number;
@@ -38,7 +50,7 @@ export interface AudioMetrics {
   readonly centroidHz: number;
 }
 
-/** Measure one rendered signal. */
+/** Measure one rendered signal (time samples: the figures' definition applied to a render, for checks). */
 export function measureRawAudio(samples: Float32Array, sampleRateHz: number): RawAudioMetrics {
   return {
     energy: measureEnergy(samples),
@@ -47,14 +59,40 @@ export function measureRawAudio(samples: Float32Array, sampleRateHz: number): Ra
   };
 }
 
-/** The synthesis of the reference phrase for a guitar and its settings. */
-export function prepareReferenceSynthesis(guitar: Guitar, overrides: CircuitOverrides): WiringSynthesis {
-  return prepareWiringSynthesis(guitar, builtInPhrase(REFERENCE_PHRASE, guitar.strings.length), {
+/** The coils' signals for the reference phrase (the strings rendered once; shared by the figures and the reference synthesis). */
+export function renderReferenceCoils(guitar: Guitar): CoilSignals {
+  return renderCoilSignals(guitar, builtInPhrase(REFERENCE_PHRASE, guitar.strings.length), {
     sampleRateHz: REFERENCE_SAMPLE_RATE_HZ,
     seed: REFERENCE_SEED,
-    overrides,
     strings: { tailS: RENDER_TAIL_S },
   });
+}
+
+/**
+ * The same coil signals from a spectral basis of the reference performance
+ * (measureSpectralBasis with its defaults renders the very same strings and
+ * coil spectra), so a command that needs both renders the strings once.
+ * Another basis is not reused: the strings are rendered.
+ */
+export function referenceCoilsOf(guitar: Guitar, basis: SpectralBasis | undefined): CoilSignals {
+  if (!basis?.reference || basis.sampleRateHz !== REFERENCE_SAMPLE_RATE_HZ || basis.phraseName !== REFERENCE_PHRASE) return renderReferenceCoils(guitar);
+  // E_i in volts, as renderCoilSpectra scales them.
+  const spectra = basis.coilSpectra.map((spectrum) => {
+    const volts = new Float64Array(spectrum.length);
+    for (let k = 0; k < spectrum.length; k += 1) volts[k] = (spectrum[k] as number) * COIL_VOLTS_PER_METRE_PER_SECOND;
+    return volts;
+  });
+  return coilSignalsOfSpectra(spectra, basis.phraseSamples + basis.pickupDelay, basis.pickupDelay, basis.fftSize, basis.sampleRateHz);
+}
+
+/** The synthesis of the reference phrase for a guitar and its settings (prepareWiringSynthesis of `strum`). */
+export function prepareReferenceSynthesis(guitar: Guitar, overrides: CircuitOverrides, coils: CoilSignals = renderReferenceCoils(guitar)): WiringSynthesis {
+  return createWiringSynthesis(guitar, { ...coils, spectra: coilSpectraOfSignals(coils) }, overrides);
+}
+
+/** The audio figures of the reference phrase for a guitar and its settings. */
+export function prepareReferenceFigures(guitar: Guitar, overrides: CircuitOverrides, coils: CoilSignals = renderReferenceCoils(guitar)): AudioFigureMeter {
+  return prepareAudioFigures(guitar, coils, overrides);
 }
 
 /**
@@ -78,8 +116,10 @@ export function referLevels(
 
 /**
  * Audio metrics for `wanted` (plus the single-element wirings, which levels
- * refer to), computed in memory, nothing written. `onProgress` is told after
- * each wiring.
+ * refer to), from the coils' cross-spectra, nothing rendered or written.
+ * `onProgress` is told after each phase class; `basis`, a spectral basis of
+ * the reference performance the caller already has, saves rendering the
+ * strings again.
  */
 export function measureWiringAudio(
   guitar: Guitar,
@@ -87,34 +127,28 @@ export function measureWiringAudio(
   wanted: readonly Wiring[],
   overrides: CircuitOverrides,
   onProgress?: (done: number, total: number) => void,
+  basis?: SpectralBasis,
 ): Map<string, AudioMetrics> {
-  return runSteps(measureWiringAudioSteps(guitar, all, wanted, overrides, onProgress));
-}
-
-/** measureWiringAudio as steps (math/run-steps.ts): yields after each wiring's render. */
-export function* measureWiringAudioSteps(
-  guitar: Guitar,
-  all: readonly Wiring[],
-  wanted: readonly Wiring[],
-  overrides: CircuitOverrides,
-  onProgress?: (done: number, total: number) => void,
-): Steps<Map<string, AudioMetrics>> {
-  const synthesis = prepareReferenceSynthesis(guitar, overrides);
-  yield;
   const todo = new Map<string, Wiring>();
   for (const wiring of all) if (wiring.elements.length === 1) todo.set(wiring.id, wiring);
   for (const wiring of wanted) todo.set(wiring.id, wiring);
-  // Phase patterns of one shape share their transfers (see synthesize-wirings.ts; coupled coils: one phase class): take them together.
-  const keyOf = (wiring: Wiring): string => phaseClassKey(guitar, wiring.network);
-  const ordered = [...todo.values()].sort((a, b) => (keyOf(a) < keyOf(b) ? -1 : keyOf(a) > keyOf(b) ? 1 : 0));
-  const raw = new Map<string, RawAudioMetrics>();
-  const buffer = new Float32Array(synthesis.length);
-  let done = 0;
-  for (const wiring of ordered) {
-    raw.set(wiring.id, measureRawAudio(synthesis.synthesize(wiring.network, buffer), synthesis.sampleRateHz));
-    done += 1;
-    onProgress?.(done, todo.size);
-    yield;
-  }
-  return referLevels(all, raw);
+  const meter = prepareReferenceFigures(guitar, overrides, referenceCoilsOf(guitar, basis));
+  return referLevels(all, measureReferenceFigures(guitar, [...todo.values()], overrides, onProgress, meter));
+}
+
+/** Raw figures of `wirings` (taken phase class by phase class, which share their transfers), by wiring id. */
+export function measureReferenceFigures(
+  guitar: Guitar,
+  wirings: readonly Wiring[],
+  overrides: CircuitOverrides,
+  onProgress?: (done: number, total: number) => void,
+  meter: AudioFigureMeter = prepareReferenceFigures(guitar, overrides),
+): Map<string, RawAudioMetrics> {
+  const figures = measureFiguresByClass(
+    guitar,
+    meter,
+    wirings.map((wiring) => wiring.network),
+    onProgress,
+  );
+  return new Map(wirings.map((wiring, index) => [wiring.id, figures[index] as RawAudioMetrics]));
 }

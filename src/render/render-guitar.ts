@@ -33,6 +33,7 @@ import { WorkError } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
 import {
   type ListeningReport,
+  type ReportSwitchPosition,
   type ReportGroups,
   type ReportWiring,
   reportGuitar,
@@ -45,6 +46,7 @@ import {
   REFERENCE_PHRASE,
   REFERENCE_SAMPLE_RATE_HZ,
   REFERENCE_SEED,
+  REFERENCE_FIGURES_VERSION,
   RENDER_TAIL_S,
   referLevels,
 } from './measure-wiring-audio.js';
@@ -54,13 +56,13 @@ import { type OutputFolder, netlistFileName, wavFileName } from './output-folder
 import { gainToDb, planMatchedGains, planTrueLevelGain } from './plan-gains.js';
 import { MANIFEST_VERSION, type Manifest, hashOf, readManifest } from './render-manifest.js';
 import { type WavFormat, encodeWav } from './wav-file.js';
-import { removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
+import { createDeferredSync, removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
 import { type FileRecord, fileMatches, recordOf } from './file-record.js';
 import { maxOf } from '../math/index.js';
 import { writeListeningPage } from './write-listening-page.js';
 
-/** Bump when the sound of a render changes for the same inputs (string model, pickup, chain), so old files are redone. */
-export const RENDER_MODEL_VERSION = 2;
+/** Bump when the sound of a render changes for the same inputs (string model, pickup, chain), so old files are redone. 3: stiff strings (inharmonicity on by default). */
+export const RENDER_MODEL_VERSION = 3;
 /** File writes allowed to run in the background at once (each holds one encoded file in memory). */
 const MAX_PENDING_WRITES = 4;
 /** Least time between manifest saves while writing files, ms: an interrupted run loses at most this much record (the files themselves are always whole). */
@@ -94,6 +96,8 @@ export interface RenderRequest {
   readonly threads?: number;
   /** "Sounds alike" thresholds for the groups in the report (src/analysis defaults when absent). */
   readonly thresholds?: Partial<AlikeThresholds>;
+  /** A switch plan's positions in order (`switch --render`): the report and page label the wirings by position. */
+  readonly positions?: readonly ReportSwitchPosition[];
 }
 
 export interface RenderEvents {
@@ -159,6 +163,8 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   mkdirSync(scratch, { recursive: true });
   activeScratchFolders.add(scratch);
 
+  // Files are renamed into place without an fsync each; their folders are synced once at the end (write-file-atomic.ts).
+  const deferred = createDeferredSync();
   const manifest = readManifest<Entry>(folder.manifest);
   const entries: Record<string, Entry> = { ...manifest.entries };
   let lastSave = performance.now();
@@ -167,14 +173,14 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     // Entries in key order, not in the order runs happened to record them: a resumed render writes the same bytes as an uninterrupted one.
     const sorted = Object.fromEntries(Object.entries(entries).sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0)));
     const document: Manifest<Entry> = { version: MANIFEST_VERSION, entries: sorted };
-    await writeFileAtomic(folder.manifest, JSON.stringify(document));
+    await writeFileAtomic(folder.manifest, JSON.stringify(document), deferred);
     lastSave = performance.now();
   };
 
   const sound = soundOf(guitar);
   const base = { model: RENDER_MODEL_VERSION, sound, overrides: request.overrides };
   const metricsHashOf = (wiring: Wiring): string =>
-    hashOf({ ...base, expression: wiring.expression, phrase: REFERENCE_PHRASE, rate: REFERENCE_SAMPLE_RATE_HZ, seed: REFERENCE_SEED, tail: RENDER_TAIL_S });
+    hashOf({ ...base, expression: wiring.expression, phrase: REFERENCE_PHRASE, rate: REFERENCE_SAMPLE_RATE_HZ, seed: REFERENCE_SEED, tail: RENDER_TAIL_S, figures: REFERENCE_FIGURES_VERSION });
   const audioHashOf = (wiring: Wiring): string =>
     hashOf({
       ...base,
@@ -241,7 +247,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   let renderer: WiringRenderer | undefined;
   const processedAudio = (wiring: Wiring): Promise<Float32Array> => {
     renderer ??= createWiringRenderer(settings);
-    return renderer.processed(wiring.network, undefined, wiring.expression);
+    return renderer.processed(wiring.network, wiring.expression);
   };
   await saveManifest();
   // A wiring whose chain failed twice: what the others made is kept in the manifest, so the same command finishes the work.
@@ -249,6 +255,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   if (failures.length > 0) {
     rmSync(scratch, { recursive: true, force: true });
     activeScratchFolders.delete(scratch);
+    await deferred.flush();
     throw new WorkError(`${failures.join('; ')}; nothing written was lost, and running the same command again finishes the render`);
   }
   const audioMetrics = referLevels(request.all, raw);
@@ -303,7 +310,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
         });
         // Written in the background while the next wiring is prepared; the manifest records a file only once it is whole.
         await writes.add(async () => {
-          await writeFileAtomic(path, bytes);
+          await writeFileAtomic(path, bytes, deferred);
           Object.assign(entry, { fileHash, file: name, written: { wav: recordOf(bytes) } });
         });
         await saveManifest(false);
@@ -315,6 +322,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     // Keep the record of every file already whole, so a re-run skips them and finishes the rest.
     await writes.drain().catch(() => undefined);
     await saveManifest();
+    await deferred.flush();
     throw error;
   }
   await writes.drain();
@@ -326,7 +334,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   for (const wiring of selected) {
     const path = join(folder.netlistFolder, netlistFileName(wiring));
     const text = renderNetlist(guitar, wiring, request.overrides);
-    if (!existsSync(path) || readFileSync(path, 'utf8') !== text) await writes.add(() => writeFileAtomic(path, text));
+    if (!existsSync(path) || readFileSync(path, 'utf8') !== text) await writes.add(() => writeFileAtomic(path, text, deferred));
   }
   await writes.drain();
 
@@ -403,9 +411,11 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     responseFrequenciesHz: Array.from(responseGrid),
     wirings: reportWirings,
     groups: reportGroups(scope, distinct),
+    ...(request.positions === undefined ? {} : { positions: request.positions }),
   };
-  await writeFileAtomic(folder.reportJson, `${JSON.stringify(report, null, 2)}\n`);
+  await writeFileAtomic(folder.reportJson, `${JSON.stringify(report, null, 2)}\n`, deferred);
   await writeListeningPage(folder.page, report, { ...request, drive });
+  await deferred.flush();
   return { report, rows, written, skipped, commonGainDb, matchedLoudnessLufs, audioSeconds, distinct, scope };
 }
 

@@ -15,17 +15,19 @@ import type { Phrase } from '../string/index.js';
 import type { Network } from '../wiring/index.js';
 import type { ChainName } from './chain-name.js';
 import { renderEffectsChain } from './effects-chain.js';
+import { type AudioFigureMeter, measureFiguresByClass } from '../analysis/index.js';
 import {
   type RawAudioMetrics,
   REFERENCE_PHRASE,
   REFERENCE_SAMPLE_RATE_HZ,
   REFERENCE_SEED,
   RENDER_TAIL_S,
-  measureRawAudio,
+  prepareReferenceFigures,
   prepareReferenceSynthesis,
+  renderReferenceCoils,
 } from './measure-wiring-audio.js';
 import { PEAK_CEILING_DB } from './plan-gains.js';
-import { type WiringSynthesis, assertAudible, prepareWiringSynthesis } from './synthesize-wirings.js';
+import { type CoilSignals, type WiringSynthesis, assertAudible, prepareWiringSynthesis } from './synthesize-wirings.js';
 
 export interface HumMix {
   readonly mainsHz: 50 | 60;
@@ -51,7 +53,7 @@ export interface PassItem {
   /** The wiring's name (canonical expression), for messages. */
   readonly name?: string;
   readonly network: Network;
-  /** Measure the reference render (levels, loudness, centroid)? */
+  /** Measure the reference figures (levels, loudness, centroid; from the coils' cross-spectra, no render)? */
   readonly metrics: boolean;
   /** Make the file's audio and park it? */
   readonly audio: boolean;
@@ -68,24 +70,33 @@ export interface PassResult {
 }
 
 export interface WiringRenderer {
-  /** The reference render of a wiring (the metrics' input). */
-  reference(network: Network): Float32Array;
+  /** The reference figures of wirings (docs/design.md metrics, before levels are referred to the single coils), in their order. */
+  figures(networks: readonly Network[]): RawAudioMetrics[];
   /**
-   * The processed audio of a wiring (file phrase, hum, chain), before gain;
-   * reuses `direct` when it is the same performance. A failed chain render is
-   * tried once more; a second failure is a WorkError naming `name`.
+   * The processed audio of a wiring (file phrase, hum, chain), before gain.
+   * A failed chain render is tried once more; a second failure is a
+   * WorkError naming `name`.
    */
-  processed(network: Network, direct?: Float32Array, name?: string): Promise<Float32Array>;
+  processed(network: Network, name?: string): Promise<Float32Array>;
   readonly sampleRateHz: number;
 }
 
 /** Syntheses made on first need, so work that is all cached renders nothing. */
 export function createWiringRenderer(settings: AudioSettings): WiringRenderer {
+  // The reference phrase's coil signals serve both the figures and, when the files play the same performance, the files.
+  let coils: CoilSignals | undefined;
+  const referenceCoils = (): CoilSignals => (coils ??= renderReferenceCoils(settings.guitar));
   let reference: WiringSynthesis | undefined;
   const referenceSynthesis = (): WiringSynthesis => {
-    reference ??= prepareReferenceSynthesis(settings.guitar, settings.overrides);
+    reference ??= prepareReferenceSynthesis(settings.guitar, settings.overrides, referenceCoils());
     assertAudible(reference, 'controls.volume.setting');
     return reference;
+  };
+  let meter: AudioFigureMeter | undefined;
+  const referenceFigures = (): AudioFigureMeter => {
+    meter ??= prepareReferenceFigures(settings.guitar, settings.overrides, referenceCoils());
+    assertAudible(meter, 'controls.volume.setting');
+    return meter;
   };
   const sameAsReference =
     settings.phrase.name === REFERENCE_PHRASE && settings.sampleRateHz === REFERENCE_SAMPLE_RATE_HZ && settings.seed === REFERENCE_SEED;
@@ -103,10 +114,10 @@ export function createWiringRenderer(settings: AudioSettings): WiringRenderer {
   };
   return {
     sampleRateHz: settings.sampleRateHz,
-    reference: (network) => referenceSynthesis().synthesize(network),
-    async processed(network, direct, name) {
+    figures: (networks) => (networks.length === 0 ? [] : measureFiguresByClass(settings.guitar, referenceFigures(), networks)),
+    async processed(network, name) {
       const synthesis = fileSynthesis();
-      const audio = direct && sameAsReference ? Float32Array.from(direct) : synthesis.synthesize(network);
+      const audio = synthesis.synthesize(network);
       if (settings.hum) {
         const hum = synthesis.synthesizeHum(network, settings.hum.mainsHz, settings.hum.emfVolts);
         for (let n = 0; n < audio.length; n += 1) audio[n] = (audio[n] as number) + (hum[n] as number);
@@ -171,20 +182,19 @@ export async function runRenderPass(
 ): Promise<PassResult[]> {
   const renderer = createWiringRenderer(settings);
   const results: PassResult[] = [];
+  // Figures first, phase class by phase class (cheap: no render); then each wiring's file audio.
+  const measured = items.filter((item) => item.metrics);
+  const figures = renderer.figures(measured.map((item) => item.network));
+  const figuresOf = new Map(measured.map((item, index) => [item.id, figures[index] as RawAudioMetrics]));
   for (const item of items) {
-    let direct: Float32Array | undefined;
-    let metrics: RawAudioMetrics | undefined;
-    if (item.metrics) {
-      direct = renderer.reference(item.network);
-      metrics = measureRawAudio(direct, REFERENCE_SAMPLE_RATE_HZ);
-    }
+    const metrics = figuresOf.get(item.id);
     let audio: PassResult['audio'];
     let scratch: string | undefined;
     let failure: string | undefined;
     let processed: Float32Array | undefined;
     if (item.audio) {
       try {
-        processed = await renderer.processed(item.network, direct, item.name ?? item.id);
+        processed = await renderer.processed(item.network, item.name ?? item.id);
       } catch (error) {
         // One wiring's failure does not cost the others: it is reported, the rest carries on.
         if (!(error instanceof WorkError)) throw error;

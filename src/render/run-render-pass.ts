@@ -34,6 +34,21 @@ export const MIN_ITEMS_PER_THREAD: Readonly<Record<ChainName, number>> = Object.
   drive: 16,
 });
 
+/**
+ * What a wiring's reference figures cost against its file audio through the
+ * direct chain, as a weight: figures come from the coils' cross-spectra
+ * (about 0.1–0.4 ms a wiring) where file audio needs a synthesis, an inverse
+ * FFT and the file's measures (about 10–25 ms), so figures alone need about
+ * fifty times as many wirings to be worth a thread (measured with
+ * `npm run bench -- commands` on a 2-core machine).
+ */
+export const FIGURES_ITEM_WEIGHT = 0.02;
+
+/** Work of one item in units of one wiring's direct file audio. */
+function itemWeight(item: PassItem): number {
+  return item.audio ? 1 : item.metrics ? FIGURES_ITEM_WEIGHT : 0;
+}
+
 /** Threads to use by default: the machine's cores, at most two (the render's memory grows with each thread). */
 export function defaultThreadCount(): number {
   return Math.max(1, Math.min(2, availableParallelism()));
@@ -73,7 +88,7 @@ export function splitByShape(items: readonly PassItem[], parts: number): PassIte
     const key = shapeKey(item.network);
     groups.set(key, [...(groups.get(key) ?? []), item]);
   }
-  const weight = (group: readonly PassItem[]): number => group.reduce((sum, item) => sum + (item.metrics ? 1 : 0) + (item.audio ? 1 : 0), 0);
+  const weight = (group: readonly PassItem[]): number => group.reduce((sum, item) => sum + itemWeight(item), 0);
   const ordered = [...groups.values()].sort((a, b) => weight(b) - weight(a));
   const bins: PassItem[][] = Array.from({ length: parts }, () => []);
   const loads = new Array<number>(parts).fill(0);
@@ -119,7 +134,8 @@ export async function runRenderPassOnThreads(
   onStep?: () => void,
   minItemsPerThread = MIN_ITEMS_PER_THREAD[settings.chain],
 ): Promise<PassResult[]> {
-  const parts = Math.max(1, Math.min(threads, Math.floor(items.length / minItemsPerThread)));
+  const work = items.reduce((sum, item) => sum + itemWeight(item), 0);
+  const parts = Math.max(1, Math.min(threads, Math.floor(work / minItemsPerThread)));
   if (parts <= 1) return runRenderPass(settings, items, scratchFolder, () => onStep?.());
   const [own = [], ...others] = splitByShape(items, parts);
   const step = (): void => onStep?.();

@@ -103,6 +103,11 @@ export function storedCoilSamples(length: number, delay: number, fftSize: number
 /** The coil signals of a performance (for the listening page): the inverse FFT of each E_i, rounded to float32. */
 export function renderCoilSignals(guitar: Guitar, phrase: Phrase, options: Pick<SynthesisOptions, 'sampleRateHz' | 'seed' | 'strings'>): CoilSignals {
   const { spectra, length, delay, fftSize } = renderCoilSpectra(guitar, phrase, options);
+  return coilSignalsOfSpectra(spectra, length, delay, fftSize, options.sampleRateHz);
+}
+
+/** The coil signals from the coils' EMF spectra (volts, `renderCoilSpectra`): the inverse FFT of each E_i, rounded to float32. */
+export function coilSignalsOfSpectra(spectra: readonly Float64Array[], length: number, delay: number, fftSize: number, sampleRateHz: number): CoilSignals {
   const fft = realFft(fftSize);
   const time = new Float64Array(fftSize);
   const stored = storedCoilSamples(length, delay, fftSize);
@@ -110,7 +115,7 @@ export function renderCoilSignals(guitar: Guitar, phrase: Phrase, options: Pick<
     fft.inverse(spectrum, time);
     return Float32Array.from(time.subarray(0, stored));
   });
-  return { sampleRateHz: options.sampleRateHz, length, delay, fftSize, signals };
+  return { sampleRateHz, length, delay, fftSize, signals };
 }
 
 /** Each coil's spectrum E_i from its stored signal (zero-padded to the FFT frame): the page's way back to the synthesis. */
@@ -254,7 +259,7 @@ export function createWiringSynthesis(guitar: Guitar, coils: CoilSpectra, overri
 
 
 /** Refuse to render a guitar whose output is shorted (volume at 0): every file would be silence. */
-export function assertAudible(synthesis: WiringSynthesis, volumePath: string): void {
+export function assertAudible(synthesis: { readonly silent: boolean }, volumePath: string): void {
   if (synthesis.silent) {
     throw InputError.at(volumePath, 'a volume setting above 0 (at 0 the wiper shorts the output and every wiring is silent)', 0);
   }

@@ -7,6 +7,7 @@ import { WorkError } from '../errors/index.js';
 import {
   STALE_TEMP_FILE_AGE_MS,
   TEMP_FILE_PREFIX,
+  createDeferredSync,
   removeStaleTempFiles,
   writeFileAtomic,
   writeFileAtomicSync,
@@ -35,6 +36,24 @@ describe('writeFileAtomic', () => {
     writeFileAtomicSync(join(folder, 'w1.wav'), Uint8Array.from([1, 2, 3]));
     expect(Array.from(readFileSync(join(folder, 'w1.wav')))).toEqual([1, 2, 3]);
     expect(readdirSync(folder).sort()).toEqual(['report.json', 'w1.wav']);
+  });
+
+  it('with a deferred sync: whole files under their names at once, each folder counted, flush empties the list', async () => {
+    const deferred = createDeferredSync();
+    mkdirSync(join(folder, 'netlists'));
+    await writeFileAtomic(join(folder, 'a.cir'), 'first', deferred);
+    await writeFileAtomic(join(folder, 'a.cir'), 'second', deferred);
+    await writeFileAtomic(join(folder, 'netlists', 'b.cir'), Uint8Array.from([7, 8]), deferred);
+    expect(readFileSync(join(folder, 'a.cir'), 'utf8')).toBe('second');
+    expect(Array.from(readFileSync(join(folder, 'netlists', 'b.cir')))).toEqual([7, 8]);
+    expect(deferred.waiting).toBe(3);
+    await deferred.flush();
+    expect(deferred.waiting).toBe(0);
+    expect(readdirSync(folder).sort()).toEqual(['a.cir', 'netlists']);
+    // A folder that has gone by the time of the flush is a WorkError naming it.
+    await writeFileAtomic(join(folder, 'netlists', 'c.cir'), 'x', deferred);
+    rmSync(join(folder, 'netlists'), { recursive: true });
+    await expect(deferred.flush()).rejects.toThrow(/could not sync .*netlists/u);
   });
 
   it('fails with WorkError, leaves the destination alone and removes its temporary file', async () => {

@@ -4,6 +4,7 @@ export type {
   ReportGroups,
   ReportGuitar,
   ReportRender,
+  ReportSwitchPosition,
   ReportWiring,
 } from './listening-report.js';
 export { renderListeningPage } from './render-listening-page.js';

@@ -102,6 +102,19 @@ export interface ReportGroups {
   readonly groups: ReadonlyArray<{ readonly group: number; readonly members: readonly string[]; readonly expressions: readonly string[] }>;
 }
 
+/** One position of a switch kit, for a render of a switch plan (`coilbench switch --render`), in position order. */
+export interface ReportSwitchPosition {
+  /** Kit position, from 1. */
+  readonly position: number;
+  /** The kit's name for it: "1", or each switch's name and position for a kit of several switches. */
+  readonly name: string;
+  /** What the page and files show: "position 1: bridge_screw", "position 4: off". */
+  readonly label: string;
+  /** The wiring it gives (an id of `wirings`), or null when it connects no coil. */
+  readonly wiringId: string | null;
+  readonly expression: string | null;
+}
+
 export interface ListeningReport {
   readonly generator: string;
   readonly guitar: ReportGuitar;
@@ -111,4 +124,6 @@ export interface ListeningReport {
   readonly wirings: readonly ReportWiring[];
   /** Groups of alike wirings, when computed. */
   readonly groups?: ReportGroups;
+  /** The positions of a switch plan, in position order, when the render is of one. */
+  readonly positions?: readonly ReportSwitchPosition[];
 }

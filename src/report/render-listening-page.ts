@@ -184,6 +184,29 @@ function renderColumnHelp(report: ListeningReport): string {
   );
 }
 
+/**
+ * A switch plan's positions in position order (`switch --render`): each labelled "position N:
+ * wiring", with its wiring's row number and WAV file; empty for an ordinary render.
+ */
+function renderPositionsSection(report: ListeningReport): string {
+  const positions = report.positions;
+  if (positions === undefined || positions.length === 0) return '';
+  const byId = new Map(report.wirings.map((wiring) => [wiring.id, wiring]));
+  const items = positions.map((position) => {
+    const wiring = position.wiringId === null ? undefined : byId.get(position.wiringId);
+    const file = wiring?.wav ? ` · <a href="${escapeHtml(wiring.wav)}">${escapeHtml(wiring.wav)}</a>` : '';
+    const detail = wiring ? ` <span class="position-detail">(${escapeHtml(wiring.id)}, ${escapeHtml(wiring.description)})${file}</span>` : ' <span class="position-detail">(no coil connected)</span>';
+    return `<li data-position="${position.position}"><strong>${escapeHtml(position.label)}</strong>${detail}</li>`;
+  });
+  return `<section id="positions" aria-labelledby="positions-title">
+<h2 id="positions-title">Switch positions</h2>
+<p>The switch plan's positions in order, each with the wiring it gives. In the list below, each row names the positions that give its wiring.</p>
+<ol class="switch-positions">
+${items.join('\n')}
+</ol>
+</section>`;
+}
+
 /** The listening page for a report, as one HTML document: `data` is what the page plays from, `script` the bundled page script (dist/page.js). */
 export function renderListeningPage(report: ListeningReport, data: Omit<PageData, 'report'>, script: string): string {
   const { guitar, render } = report;
@@ -191,7 +214,8 @@ export function renderListeningPage(report: ListeningReport, data: Omit<PageData
   const durationS = data.coils.length / data.coils.sampleRateHz;
   const style = `${PAGE_STYLE}${PAGE_LIST_STYLE}`;
   const pageData: PageData = { ...data, report: compactReportForPage(report) };
-  return `${renderPageHead({ title: `${guitar.name} · listen to every wiring`, script, style, generator: report.generator })}
+  const switched = report.positions !== undefined && report.positions.length > 0;
+  return `${renderPageHead({ title: `${guitar.name} · ${switched ? 'listen to the switch positions' : 'listen to every wiring'}`, script, style, generator: report.generator })}
 <a class="skip" href="#wirings">Skip to the wirings</a>
 <header class="masthead">
 <p class="kicker">coilbench listening page</p>
@@ -209,8 +233,9 @@ export function renderListeningPage(report: ListeningReport, data: Omit<PageData
 <li><strong>Find one.</strong> Type words, a coil's name or an expression in <em>Find</em>, or type an expression such as <code>${escapeHtml(exampleExpression(data))}</code> and press <em>Play it</em>.</li>
 </ol>
 </section>
+${renderPositionsSection(report)}
 <section id="wirings" aria-labelledby="wirings-title">
-<h2 id="wirings-title">Every wiring</h2>
+<h2 id="wirings-title">${switched ? 'The positions\' wirings' : 'Every wiring'}</h2>
 ${renderKnobs({ ...data, report })}
 ${renderFinder(report, { ...data, report })}
 ${renderColumnHelp(report)}

@@ -11,11 +11,20 @@ export {
   t60ByPitchS,
   T60_AT_LOW_E_S,
   T60_AT_HIGH_E_S,
-  TYPICAL_INHARMONICITY,
-  TYPICAL_INHARMONICITY_SCALE_M,
   MAX_INHARMONICITY,
-  typicalInharmonicity,
 } from './string-options.js';
+export {
+  TYPICAL_INHARMONICITY,
+  TYPICAL_STRING_SET,
+  TYPICAL_STRING_SET_SCALE_M,
+  STEEL_YOUNGS_MODULUS_PA,
+  STEEL_DENSITY_KG_PER_M3,
+  typicalInharmonicity,
+  stiffStringInharmonicity,
+  stringMassPerLength,
+  stringTension,
+} from './typical-string-set.js';
+export type { StringWire } from './typical-string-set.js';
 export type { StringOptions, ResolvedStringOptions } from './string-options.js';
 export { designStringLoop, T60_LEVEL } from './design-string-loop.js';
 export type { StringLoop, StringLoopRequest } from './design-string-loop.js';

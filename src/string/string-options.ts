@@ -5,6 +5,7 @@
 import { InputError, type InputProblem, problemAt } from '../errors/index.js';
 import type { OpenString } from '../guitar/index.js';
 import type { PluckShape } from './render-excitation.js';
+import { TYPICAL_STRING_SET_SCALE_M, typicalInharmonicity } from './typical-string-set.js';
 
 export interface StringOptions {
   /** Sample rate, Hz: an integer from 8000 to 384000. Default 48000. */
@@ -36,45 +37,18 @@ export interface StringOptions {
   readonly pluckShape: PluckShape;
   /**
    * Inharmonicity coefficient B of each open string (Fletcher & Rossing
-   * ch. 2: f_n = n·f0·√(1 + B·n²)), 0 to MAX_INHARMONICITY: 'typical'
-   * (TYPICAL_INHARMONICITY by nearest open pitch, for the guitar's scale), one
-   * number for every string, or one per string lowest first. 0 (the default
-   * for now) turns stiffness off: the loop is then exactly the flexible-string one.
-   * A fretted note's B grows as 1/L² (L the vibrating length).
+   * §2.18: f_n = n·f0·√(1 + B·n²)), 0 to MAX_INHARMONICITY: 'typical' (the
+   * default: TYPICAL_INHARMONICITY, derived from a 0.010–0.046 in set in
+   * typical-string-set.ts, by nearest open pitch, for the guitar's scale),
+   * one number for every string, or one per string lowest first. 0 turns
+   * stiffness off: the loop is then exactly the flexible-string one. A
+   * fretted note's B grows as 1/L² (L the vibrating length).
    */
   readonly inharmonicity: 'typical' | number | readonly number[];
 }
 
-/**
- * Typical B of an open six-string electric guitar set (gauges 0.010–0.046 in,
- * wound E A D, plain G B E) on a 648 mm scale, lowest first (from memory:
- * B = π³·E·d⁴/(64·T·L²), Fletcher & Rossing ch. 2, with steel E = 200 GPa,
- * the core wire's diameter d for wound strings and the set's tensions of
- * 70–80 N). Their order agrees with Fastl & Völk (2012, "Inharmonicity of
- * sounds from electric guitars: physical flaw or musical asset?"): the low
- * wound strings have the most, and a plain G more than a wound D.
- */
-export const TYPICAL_INHARMONICITY: readonly { readonly openHz: number; readonly b: number }[] = Object.freeze([
-  { openHz: 82.4069, b: 3.0e-4 },
-  { openHz: 110.0, b: 1.3e-4 },
-  { openHz: 146.8324, b: 7.0e-5 },
-  { openHz: 195.9977, b: 1.1e-4 },
-  { openHz: 246.9417, b: 4.0e-5 },
-  { openHz: 329.6276, b: 1.3e-5 },
-]);
-/** Scale length the TYPICAL_INHARMONICITY values belong to, metres (common practice: 25.5 in). */
-export const TYPICAL_INHARMONICITY_SCALE_M = 0.648;
 /** Largest B accepted (from memory: a piano's shortest treble strings reach about 0.01; guitar strings are far below). */
 export const MAX_INHARMONICITY = 0.01;
-
-/** B of an open string at `openHz` on a `scaleM` scale from the typical table: nearest pitch (in log frequency), times (L_table/L)² (B ∝ 1/L²). */
-export function typicalInharmonicity(openHz: number, scaleM: number): number {
-  let best = TYPICAL_INHARMONICITY[0] ?? { openHz, b: 0 };
-  for (const entry of TYPICAL_INHARMONICITY) {
-    if (Math.abs(Math.log(entry.openHz / openHz)) < Math.abs(Math.log(best.openHz / openHz))) best = entry;
-  }
-  return best.b * (TYPICAL_INHARMONICITY_SCALE_M / scaleM) ** 2;
-}
 
 /** t60 of an open low E (82.4 Hz), seconds (from memory: an electric guitar's low E sustains several seconds). */
 export const T60_AT_LOW_E_S = 7;
@@ -94,7 +68,7 @@ export const DEFAULT_STRING_OPTIONS: StringOptions = Object.freeze({
   repluckDampS: 0.03,
   fadeOutS: 0.05,
   pluckShape: 'natural',
-  inharmonicity: 0,
+  inharmonicity: 'typical',
 });
 
 /** Options with per-string values expanded, lowest string first. */
@@ -129,7 +103,7 @@ const inRange = (value: unknown, low: number, high: number): value is number =>
 export function resolveStringOptions(
   options: Partial<StringOptions>,
   strings: readonly OpenString[],
-  scaleM: number = TYPICAL_INHARMONICITY_SCALE_M,
+  scaleM: number = TYPICAL_STRING_SET_SCALE_M,
 ): ResolvedStringOptions {
   const merged: StringOptions = { ...DEFAULT_STRING_OPTIONS, ...options };
   const problems: InputProblem[] = [];

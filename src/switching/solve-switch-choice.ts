@@ -18,8 +18,11 @@
  * proven.
  */
 import type { ShortlistWiring } from '../analysis/index.js';
-import type { Network } from '../wiring/index.js';
-import { type SwitchKit, countKitPositions } from './switch-kit.js';
+import type { Guitar } from '../guitar/index.js';
+import { type Network, printNetwork } from '../wiring/index.js';
+import { componentsAt } from './plan-positions.js';
+import { readPositionWiring } from './read-position-wiring.js';
+import { type SwitchKit, countKitPositions, enumerateKitPositions } from './switch-kit.js';
 import { type PositionWish, type SwitchPlanOptions, type SwitchPlanResult, solveSwitchPlan } from './solve-switch-plan.js';
 
 export interface ChoiceWiring extends ShortlistWiring {
@@ -50,13 +53,24 @@ export interface SwitchChoice {
 
 export function solveSwitchChoice(
   kit: SwitchKit,
-  elementCount: number,
+  guitar: Guitar,
   wirings: readonly ChoiceWiring[],
   distance: (a: number, b: number) => number,
   request: SwitchChoiceRequest,
   options: Partial<SwitchPlanOptions> = {},
 ): SwitchChoice {
   const positions = countKitPositions(kit);
+  const elementCount = guitar.elements.length;
+  const ids = guitar.elements.map((element) => element.id);
+  const kitPositions = enumerateKitPositions(kit);
+  const byExpression = new Map(wirings.map((wiring, w) => [wiring.expression, w]));
+  /** The wiring a found plan already gives at position p (its other positions free), tried first there: it needs no new lug wiring. */
+  const givenAt = (result: SwitchPlanResult | null, p: number): number | null => {
+    const position = kitPositions[p];
+    if (result?.plan == null || position === undefined) return null;
+    const reading = readPositionWiring(guitar, componentsAt(result.plan, position));
+    return reading.kind === 'wiring' ? (byExpression.get(printNetwork(reading.network, ids)) ?? null) : null;
+  };
   const candidates = wirings.flatMap((wiring, w) => (request.humCancelling && !wiring.humCancelling && !request.include.includes(w) ? [] : [w]));
   const include = [...new Set(request.include)];
   let proven = true;
@@ -73,7 +87,9 @@ export function solveSwitchChoice(
       if (p === positions) return include.every((w) => chosen.includes(w));
       const missing = include.filter((w) => !chosen.includes(w));
       if (missing.length > positions - p) return false;
-      const order = [...missing, ...candidates.filter((w) => !missing.includes(w))];
+      const given = givenAt(last, p);
+      const rest = candidates.filter((w) => !missing.includes(w));
+      const order = [...missing, ...(given !== null && rest.includes(given) ? [given, ...rest.filter((w) => w !== given)] : rest)];
       for (const w of order) {
         if (chosen.includes(w)) continue;
         if (chosen.some((other) => distance(w, other) < threshold)) continue;
@@ -86,10 +102,11 @@ export function solveSwitchChoice(
           return false;
         }
         chosen.push(w);
-        searches += 1;
         planSearches += 1;
         const wishes = Array.from({ length: positions }, (_, k): PositionWish => (k < chosen.length ? wishOf(chosen[k] as number) : { kind: 'free' }));
         const result = solveSwitchPlan(kit, elementCount, wishes, options);
+        // A search refused before its first step (the layouts cannot be kept together) costs next to nothing: not counted.
+        if (result.steps > 0) searches += 1;
         if (result.status === 'unknown') proven = false;
         if (result.status === 'found') {
           last = result;

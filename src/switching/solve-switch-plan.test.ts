@@ -150,8 +150,8 @@ describe('target partitions and the reading agree', () => {
   });
 });
 
-/** Small kits the exact search settles quickly (bigger ones are in the bench). */
-const SMALL_KITS = [
+/** Kits of every kind; the exact search settles each of them (the bench times the bigger ones). */
+const KITS = [
   ['toggle-2-position-1-pole'],
   ['toggle-2-position-2-pole'],
   ['toggle-3-position-2-pole'],
@@ -159,27 +159,53 @@ const SMALL_KITS = [
   ['lever-5-position-1-pole'],
   ['rotary-4-position-1-pole'],
   ['toggle-2-position-1-pole', 'push-pull-1-pole'],
+  ['lever-5-position-2-pole'],
+  ['lever-5-position-3-pole'],
+  ['lever-5-position-4-pole'],
+  ['lever-3-position-4-pole'],
+  ['rotary-6-position-2-pole'],
+  ['lever-5-position-2-pole', 'push-pull-1-pole'],
 ];
+const FOUR_POLE_LEVER = ['lever-5-position-4-pole'];
+const TWO_HUMBUCKERS = parseGuitarText(readFileSync(join(samples, 'two-humbucker.json'), 'utf8'));
+
+/** Property runs: the default keeps `npm test` short; COILBENCH_SWITCH_RUNS=500 (or more) is the heavy variant. */
+const RUNS = Number(process.env['COILBENCH_SWITCH_RUNS'] ?? 40);
+/** Steps allowed per search in the property (the command's default is 2 000 000; our choice: room to spare). */
+const PROPERTY_STEP_BUDGET = 5_000_000;
+
+/** A random lug wiring of the kit, its positions read off as wishes; the search must find a plan that reads back the same. */
+function searchFindsPlan(guitar: Guitar, kitTexts: readonly string[], seed: number, minWirings: number): void {
+  const kit = parseSwitchTexts(kitTexts);
+  const made = randomInterestingPlan(guitar, kit, createRandom(seed), minWirings);
+  if (made === null) return;
+  const result = solveSwitchPlan(kit, guitar.elements.length, made.wishes, { stepBudget: PROPERTY_STEP_BUDGET });
+  expect(result.status, made.wishes.map((wanted) => (wanted.kind === 'wiring' ? wanted.expression : wanted.kind)).join(' | ')).toBe('found');
+  const ids = guitar.elements.map((element) => element.id);
+  const read = readPlanPositions(guitar, result.plan as NonNullable<typeof result.plan>);
+  made.wishes.forEach((wanted, index) => {
+    const got = read[index]?.reading;
+    if (wanted.kind === 'wiring') expect(got?.kind === 'wiring' ? printNetwork(got.network, ids) : got?.kind).toBe(wanted.expression);
+    if (wanted.kind === 'off') expect(['off', 'unclean']).toContain(got?.kind);
+  });
+}
 
 describe('property: whenever a plan exists, the search finds one', () => {
-  it('random lug wirings of small kits, their positions read off as wishes', () => {
+  it('random lug wirings of kits of every kind, their positions read off as wishes', () => {
     fc.assert(
-      fc.property(fc.integer({ min: 0, max: SMALL_KITS.length - 1 }), fc.integer({ min: 1, max: 2 ** 30 }), fc.boolean(), (k, seed, humbucker) => {
-        const guitar = humbucker ? HUMBUCKER : THREE;
-        const kit = parseSwitchTexts(SMALL_KITS[k] as string[]);
-        const made = randomInterestingPlan(guitar, kit, createRandom(seed), 2);
-        if (made === null) return;
-        const result = solveSwitchPlan(kit, guitar.elements.length, made.wishes, { stepBudget: 5_000_000 });
-        expect(result.status).toBe('found');
-        const ids = guitar.elements.map((element) => element.id);
-        const read = readPlanPositions(guitar, result.plan as NonNullable<typeof result.plan>);
-        made.wishes.forEach((wanted, index) => {
-          const got = read[index]?.reading;
-          if (wanted.kind === 'wiring') expect(got?.kind === 'wiring' ? printNetwork(got.network, ids) : got?.kind).toBe(wanted.expression);
-          if (wanted.kind === 'off') expect(['off', 'unclean']).toContain(got?.kind);
-        });
+      fc.property(fc.integer({ min: 0, max: KITS.length - 1 }), fc.integer({ min: 1, max: 2 ** 30 }), fc.boolean(), (k, seed, humbucker) => {
+        searchFindsPlan(humbucker ? HUMBUCKER : THREE, KITS[k] as string[], seed, 2);
       }),
-      { numRuns: Number(process.env['COILBENCH_SWITCH_RUNS'] ?? 40), seed: 14 },
+      { numRuns: RUNS, seed: 14 },
+    );
+  });
+
+  it('five-position four-pole levers: three single coils and two four-conductor humbuckers, three or more different wirings', () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 2 ** 30 }), fc.boolean(), (seed, humbuckers) => {
+        searchFindsPlan(humbuckers ? TWO_HUMBUCKERS : THREE, FOUR_POLE_LEVER, seed, 3);
+      }),
+      { numRuns: RUNS, seed: 44 },
     );
   });
 });

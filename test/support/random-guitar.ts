@@ -38,7 +38,7 @@ export function randomGuitarFile(seed: number, options: RandomGuitarOptions = {}
     if (maybe(random, 0.7)) coil.winding = pick(random, ['cw', 'ccw']);
     if (maybe(random, 0.7)) coil.magnet = pick(random, ['north', 'south']);
     if (maybe(random, 0.3)) coil.sensitivity = Number(logUniform(random, 1e-3, 100).toPrecision(3));
-    if (maybe(random, 0.3)) coil.humSensitivity = maybe(random, 0.2) ? 0 : Number(logUniform(random, 1e-3, 100).toPrecision(3));
+    if (maybe(random, 0.3)) coil.humSensitivity = maybe(random, 0.2) ? 1e-3 : Number(logUniform(random, 1e-3, 100).toPrecision(3));
     return coil;
   });
   const knob = (): number => (maybe(random, 0.15) ? pick(random, [0, 10]) : Number((random() * 10).toFixed(1)));

@@ -76,7 +76,7 @@ export function randomGuitar(random: Random, elements: number): RandomGuitar {
       winding: random.pick(['cw', 'ccw']),
       magnet: random.pick(['north', 'south']),
       sensitivity: random.pick([100, random.logBetween(1e-3, 100)]),
-      humSensitivity: random.pick([0, 100, random.between(0, 100)]),
+      humSensitivity: random.pick([1e-3, 100, random.logBetween(1e-3, 100)]),
       ...extra,
     };
   };

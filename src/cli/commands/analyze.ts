@@ -33,7 +33,7 @@ import { readGuitarFile } from '../read-guitar.js';
 import { findOutputProblems } from '../guard-outputs.js';
 import { checkWorkSize, estimateAnalyze } from '../estimate-work.js';
 import { wiringCountFor } from '../../guitar/index.js';
-import { type AudioMetrics, REFERENCE_PHRASE, measureWiringAudioSteps } from '../../render/index.js';
+import { type AudioMetrics, REFERENCE_PHRASE, figuresThreadPays, measureFiguresOnThread, measureWiringAudio, referLevels } from '../../render/index.js';
 import { removeStaleTempFiles, writeFileAtomicSync } from '../../render/index.js';
 import { wiringRecord } from './wirings.js';
 import { appendAll } from '../../math/index.js';
@@ -114,7 +114,7 @@ export function registerAnalyze(program: Command, io: Io): void {
     .option('--csv <file>', 'also write the table as CSV to FILE')
     .option('--markdown', 'print a Markdown table')
     .option('--sort <column>', `order rows by ${sortNames().join('|')} (default id)`)
-    .option('--no-audio', 'skip level, loudness and brightness (they need each wiring rendered in memory)')
+    .option('--no-audio', 'skip level, loudness and brightness (the figures of the reference phrase)')
     .option('--yes', 'start even when the analysis is estimated past 10 minutes');
   addAlikeOptions(addCircuitOptions(command)).action(async (file: string, options: AnalyzeOptions) => {
     const guitar = readGuitarFile(file, io.cwd);
@@ -161,15 +161,20 @@ export function registerAnalyze(program: Command, io: Io): void {
       wirings.push(wiring);
       await pause();
     }
+    // Many wirings: their audio figures start on a second thread now, while this one measures the circuits.
+    const threaded = options.audio !== false && figuresThreadPays(wirings.length);
+    const progress = createProgress(io, undefined, { plainLines: big });
+    const onStep = (done: number, total: number): void => progress.step(done, total);
+    const pending = threaded ? measureFiguresOnThread(guitar, wirings, overrides, onStep) : null;
+    pending?.catch(() => undefined); // awaited below; a failure is reported there
     const basis = measureSpectralBasis(guitar);
     await pause();
     const solver = prepareCircuitMetrics(guitar, overrides, { drive: measureCoilDrive(basis) });
     const analysis: CircuitAnalysis = { load: solver.load, silent: solver.silent, points: solver.points, wirings: await runStepsPausing(solver.measureSteps(wirings), pause) };
     let audio: ReadonlyMap<string, AudioMetrics> | undefined;
     if (options.audio !== false && !analysis.silent) {
-      const progress = createProgress(io, undefined, { plainLines: big });
-      progress.stage('rendering', wirings.length);
-      audio = await runStepsPausing(measureWiringAudioSteps(guitar, wirings, wirings, overrides, (done, total) => progress.step(done, total)), pause);
+      progress.stage('measuring', wirings.length);
+      audio = pending ? referLevels(wirings, await pending) : measureWiringAudio(guitar, wirings, wirings, overrides, onStep, basis);
       progress.finish();
     }
     const distinct = await runStepsPausing(measureDistinctnessSteps(guitar, wirings, { overrides, thresholds, reuseBasis: basis }), pause);

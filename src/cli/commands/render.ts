@@ -49,7 +49,7 @@ import { readInputText } from '../read-input-file.js';
 import { checkWorkSize, estimateRender } from '../estimate-work.js';
 import { COILBENCH_VERSION } from '../version.js';
 import { appendAll } from '../../math/index.js';
-import { escapeMarkdown } from '../../report/index.js';
+import { type ReportSwitchPosition, escapeMarkdown } from '../../report/index.js';
 
 /** Sample rates a file may be written at, Hz (common practice for audio files). */
 export const SAMPLE_RATES_HZ: readonly number[] = Object.freeze([44_100, 48_000, 88_200, 96_000]);
@@ -236,7 +236,14 @@ export function renderInputs(file: string, phrase: string | undefined): string[]
 }
 
 /** Render a guitar file's wirings into a folder and write the reports; returns the outcome for the summary. */
-export async function runRender(file: string, guitar: Guitar, options: RenderOptionText, io: Io, defaultRoot?: string): Promise<{ outcome: RenderOutcome; root: string; seconds: number }> {
+export async function runRender(
+  file: string,
+  guitar: Guitar,
+  options: RenderOptionText,
+  io: Io,
+  defaultRoot?: string,
+  positions?: readonly ReportSwitchPosition[],
+): Promise<{ outcome: RenderOutcome; root: string; seconds: number }> {
   const all = enumerateWirings(guitar.elements);
   const parsed = parseRenderOptions(options, guitar, all, io);
   const root = resolve(io.cwd, options.output ?? defaultRoot ?? defaultOutputRoot('.', guitar.name));
@@ -260,7 +267,7 @@ export async function runRender(file: string, guitar: Guitar, options: RenderOpt
     note: (line) => io.stderr(`coilbench: ${line}\n`),
   });
   try {
-    const result = await renderIntoFolder(file, guitar, parsed, folder, all, io, options.wav !== false, big);
+    const result = await renderIntoFolder(file, guitar, parsed, folder, all, io, options.wav !== false, big, positions);
     claim.finish(listRenderedFiles(folder, result.outcome));
     return { ...result, root };
   } catch (error) {
@@ -309,6 +316,7 @@ async function renderIntoFolder(
   io: Io,
   writeWav: boolean,
   big: boolean,
+  positions: readonly ReportSwitchPosition[] | undefined,
 ): Promise<{ outcome: RenderOutcome; seconds: number }> {
   const progress = createProgress(io, undefined, { plainLines: big });
   const started = performance.now();
@@ -329,6 +337,7 @@ async function renderIntoFolder(
       generator: `coilbench ${COILBENCH_VERSION}`,
       thresholds: parsed.thresholds,
       writeWav,
+      ...(positions === undefined ? {} : { positions }),
     },
     { onStage: (stage, total) => progress.stage(stage, total), onStep: (done, total) => progress.step(done, total) },
   );

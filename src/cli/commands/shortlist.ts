@@ -218,7 +218,7 @@ export function registerShortlist(program: Command, io: Io): void {
     // Brightness is the one figure analyze, reports and the page give: the centroid of the strum render
     // (docs/design.md, centroidHz), measured for the chosen wirings only (and the single coils levels refer to).
     const chosen = shortlist.members.map((index) => wirings[index] as Wiring);
-    const audio = measureWiringAudio(guitar, wirings, chosen, overrides);
+    const audio = measureWiringAudio(guitar, wirings, chosen, overrides, undefined, basis);
     const rowOf = (index: number) => {
       const wiring = wirings[index] as Wiring;
       const figures = circuit.wirings[index] as WiringCircuitMetrics;

@@ -12,6 +12,7 @@ import { renderGraphNetlist } from '../../circuit/index.js';
 import { InputError, type InputProblem, WorkError, problemAt } from '../../errors/index.js';
 import { type Guitar, parseJsonText } from '../../guitar/index.js';
 import { defaultOutputRoot, writeFileAtomicSync } from '../../render/index.js';
+import { type ReportSwitchPosition, escapeMarkdown } from '../../report/index.js';
 import {
   type PositionWish,
   type SwitchKit,
@@ -291,17 +292,16 @@ async function renderPositions(
   const wirings = enumerateWirings(guitar.elements);
   const vocabulary = vocabularyOf(guitar);
   const ids: string[] = [];
-  const lines = ['# Switch positions', '', '| position | wiring | file |', '|---|---|---|'];
-  positions.forEach((position) => {
+  const several = plan.kit.switches.length > 1;
+  const labelled: ReportSwitchPosition[] = positions.map((position) => {
+    const number = position.position.index + 1;
+    const name = describeKitPosition(plan.kit, position.position);
     const text = describeReading(guitar, position.reading);
-    const label = describeKitPosition(plan.kit, position.position);
-    if (position.reading.kind !== 'wiring') {
-      lines.push(`| ${label} | ${text} | - |`);
-      return;
-    }
+    const where = several ? `position ${number} (${name})` : `position ${number}`;
+    if (position.reading.kind !== 'wiring') return { position: number, name, label: `${where}: ${text}`, wiringId: null, expression: null };
     const wiring = findWiring(text, wirings, vocabulary, 'position');
     if (!ids.includes(wiring.id)) ids.push(wiring.id);
-    lines.push(`| ${label} | ${wiring.expression} | ${wiring.id} |`);
+    return { position: number, name, label: `${where}: ${wiring.expression}`, wiringId: wiring.id, expression: wiring.expression };
   });
   if (ids.length === 0) throw InputError.at('--render', 'a plan with at least one position that connects coils', 'every position off');
   const { output, chain, phrase, volume, tone, cable, mains, levelThreshold, spectrumThreshold, brightnessThreshold } = options;
@@ -311,7 +311,14 @@ async function renderPositions(
     { output, chain, phrase, volume, tone, cable, mains, levelThreshold, spectrumThreshold, brightnessThreshold, only: ids },
     io,
     defaultOutputRoot('.', `${guitar.name} switch`),
+    labelled,
   );
+  const fileOf = new Map(rendered.outcome.rows.map((row) => [row.wiring.id, row.wav]));
+  const lines = ['# Switch positions', '', 'In position order; each file is the render of the wiring that position gives.', '', '| position | wiring | wiring number | file |', '|---|---|---|---|'];
+  for (const position of labelled) {
+    const wav = position.wiringId === null ? null : (fileOf.get(position.wiringId) ?? null);
+    lines.push(`| ${escapeMarkdown(position.label)} | ${escapeMarkdown(position.expression ?? 'off')} | ${position.wiringId ?? '-'} | ${wav === null ? '-' : escapeMarkdown(wav)} |`);
+  }
   writeFileAtomicSync(resolve(rendered.root, 'switch-positions.md'), `${lines.join('\n')}\n`);
   writeFileAtomicSync(resolve(rendered.root, 'switch-plan.txt'), sheet);
   writeFileAtomicSync(resolve(rendered.root, 'switch-plan.svg'), drawing);
@@ -359,7 +366,7 @@ async function runChoose(
   const kits = comparisonKits(kit);
   const choiceSteps = options.searchLimit === undefined ? CHOICE_SEARCH_STEPS : stepBudget;
   const allowShorted = guitar.pickups.every((pickup) => pickup.coupling === 0);
-  const choices = kits.map((candidate) => solveSwitchChoice(candidate, guitar.elements.length, list, distance, request, { stepBudget: choiceSteps, allowShorted }));
+  const choices = kits.map((candidate) => solveSwitchChoice(candidate, guitar, list, distance, request, { stepBudget: choiceSteps, allowShorted }));
   const mine = choices[0] as ReturnType<typeof solveSwitchChoice>;
   const rows = kits.map((candidate, k) => {
     const choice = choices[k] as ReturnType<typeof solveSwitchChoice>;
