@@ -14,6 +14,7 @@ import type { CircuitOverrides } from '../circuit/index.js';
 import type { Guitar } from '../guitar/index.js';
 import {
   type ChainContext,
+  type ChainDesign,
   type ChainName,
   type WiringSynthesis,
   coilSpectraOfSignals,
@@ -21,6 +22,7 @@ import {
   createWiringSynthesis,
   designEffectsChain,
   resolveChainOptions,
+  runChainDesign,
 } from '../render/portable/index.js';
 import type { Network } from '../wiring/index.js';
 import { type PageSound, decodeSignal } from './page-data.js';
@@ -141,12 +143,19 @@ export function createWiringEngine(data: PageSound): WiringEngine {
 }
 
 /**
- * Run `samples` through a chain in an OfflineAudioContext, the node render's
- * way (render-chain-design.ts): the input is followed by the design's
- * latency in zeros and the first `latencyFrames` of the output are dropped.
+ * Run `samples` through a chain, the node render's way (render-chain-design.ts,
+ * run-chain-design.ts): the compressor and plain gains in our own code, the
+ * other stages in the browser's OfflineAudioContext, where the input is
+ * followed by the design's latency in zeros and the first `latencyFrames` of
+ * the output are dropped.
  */
-export async function renderChainInBrowser(samples: Float32Array, sampleRateHz: number, chain: ChainName): Promise<Float32Array> {
-  const design = designEffectsChain(chain, resolveChainOptions({}), sampleRateHz);
+export function renderChainInBrowser(samples: Float32Array, sampleRateHz: number, chain: ChainName): Promise<Float32Array> {
+  return runChainDesign(samples, designEffectsChain(chain, resolveChainOptions({}), sampleRateHz), renderGraphInBrowser);
+}
+
+/** A design whose stages are all Web Audio nodes, rendered in the browser's OfflineAudioContext. */
+async function renderGraphInBrowser(samples: Float32Array, design: ChainDesign): Promise<Float32Array> {
+  const sampleRateHz = design.sampleRateHz;
   const frames = samples.length;
   const latency = design.latencyFrames;
   const context = new OfflineAudioContext({ numberOfChannels: 1, length: frames + latency, sampleRate: sampleRateHz });
