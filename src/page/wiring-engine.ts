@@ -7,7 +7,8 @@
  * and measured with the same loudness meter (src/analysis, ITU-R BS.1770).
  *
  * Knobs change the circuit (volume, tone, tone capacitor, cable) or the
- * chain; each setting gets its own synthesis, made on first need.
+ * chain; each circuit setting gets its own synthesis, retuned on first need
+ * from the first one (only the load is computed again).
  */
 import { measureLoudness } from '../analysis/index.js';
 import type { CircuitOverrides } from '../circuit/index.js';
@@ -76,8 +77,8 @@ export function renderKey(expression: string, knobs: Knobs): string {
   return `${expression}@${circuitKey(knobs)}|${knobs.chain}`;
 }
 
-/** Syntheses kept for recent knob settings (each holds a few FFT-sized buffers per coil; our own bound). */
-const SYNTHESES_KEPT = 3;
+/** Syntheses kept for recent knob settings (each holds its load and gain, a few FFT-sized buffers; our own bound). */
+const SYNTHESES_KEPT = 8;
 
 export interface WiringEngine {
   readonly sampleRateHz: number;
@@ -95,6 +96,7 @@ export function createWiringEngine(data: PageSound): WiringEngine {
   const signals = coils.signals.map(decodeSignal);
   const spectra = coilSpectraOfSignals({ ...coils, signals });
   const syntheses = new Map<string, WiringSynthesis>();
+  let base: WiringSynthesis | null = null;
   const synthesisFor = (knobs: Knobs): WiringSynthesis => {
     const key = circuitKey(knobs);
     let synthesis = syntheses.get(key);
@@ -103,7 +105,12 @@ export function createWiringEngine(data: PageSound): WiringEngine {
       syntheses.set(key, synthesis);
       return synthesis;
     }
-    synthesis = createWiringSynthesis(guitarWithKnobs(guitar, knobs), { ...coils, spectra }, overridesOf(knobs, data.overrides));
+    // The first setting prepares the coils at every FFT bin; every other one retunes it: only the load is computed
+    // again, and the open-circuit products of the wiring shape are shared (synthesize-wirings.ts).
+    const knobGuitar = guitarWithKnobs(guitar, knobs);
+    const overrides = overridesOf(knobs, data.overrides);
+    synthesis = base === null ? createWiringSynthesis(knobGuitar, { ...coils, spectra }, overrides) : base.retune(knobGuitar, overrides);
+    base ??= synthesis;
     syntheses.set(key, synthesis);
     while (syntheses.size > SYNTHESES_KEPT) syntheses.delete(syntheses.keys().next().value as string);
     return synthesis;
