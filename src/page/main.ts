@@ -7,10 +7,11 @@
  * guitar file reaches the document through textContent or attributes.
  */
 import { measureCentroid } from '../analysis/index.js';
-import { type ChainName, CHAIN_NAMES, encodeWav } from '../render/portable/index.js';
+import { encodeWav } from '../render/portable/index.js';
 import { type Wiring, enumerateWirings, makeWiring, parseWiring, printNetwork, canonicalize, vocabularyOf } from '../wiring/index.js';
 import type { ReportWiring } from '../report/index.js';
 import { createBlindTest } from './blind-test.js';
+import { connectKnobFields } from './knob-fields.js';
 import { type PageData, decodeCoilDrive, encodeSignal } from './page-data.js';
 import { loopsByDefault, matchesSearch, playbackGainDb, MATCHED_LOUDNESS_LUFS } from './page-math.js';
 import { brightnessScale, describePeak, formatDb, formatHz, humVerdict, HUM_VERDICT_WORDS } from './page-words.js';
@@ -23,9 +24,6 @@ import { type ListRow, createWiringList } from './wiring-list.js';
 
 /** Renders kept ready to play (each a few MB of float32; our own bound). */
 const RENDERS_KEPT = 24;
-/** Farads per nanofarad and picofarad (the knob fields' units). */
-const NANO = 1e-9;
-const PICO = 1e-12;
 
 
 const data = JSON.parse(byId('page-data').textContent ?? '{}') as PageData;
@@ -169,30 +167,11 @@ byId<HTMLFormElement>('expression-form').addEventListener('submit', (event) => {
 
 /* ---------- knobs ---------- */
 
-function readKnobs(): Knobs {
-  const volume = Number(byId<HTMLInputElement>('knob-volume').value);
-  const tone = guitar.controls.tone ? Number(byId<HTMLInputElement>('knob-tone').value) : null;
-  const capacitor = guitar.controls.tone ? Number(byId<HTMLInputElement>('knob-tone-capacitor').value) * NANO : null;
-  const cable = Number(byId<HTMLInputElement>('knob-cable').value) * PICO;
-  const chain = byId<HTMLSelectElement>('knob-chain').value as ChainName;
-  return {
-    volumeSetting: volume,
-    toneSetting: tone,
-    toneCapacitorF: capacitor !== null && capacitor > 0 ? capacitor : knobs.toneCapacitorF,
-    cableCapacitanceF: cable > 0 ? cable : knobs.cableCapacitanceF,
-    chain: CHAIN_NAMES.includes(chain) ? chain : knobs.chain,
-  };
-}
-
-function knobsChanged(): void {
-  knobs = readKnobs();
-  byId('knob-volume-value').textContent = knobs.volumeSetting.toFixed(1);
-  if (guitar.controls.tone) byId('knob-tone-value').textContent = (knobs.toneSetting ?? 0).toFixed(1);
+const knobFields = connectKnobFields(knobs, (now) => {
+  knobs = now;
   drawPlot();
   if (currentWiring) void choose(currentWiring, false);
-}
-byId('knobs').addEventListener('input', knobsChanged);
-byId('knobs').addEventListener('submit', (event) => event.preventDefault());
+});
 
 /* ---------- transport ---------- */
 
@@ -355,17 +334,6 @@ document.addEventListener('keydown', (event) => {
 
 /* ---------- start ---------- */
 
-const chainSelect = byId<HTMLSelectElement>('knob-chain');
-chainSelect.replaceChildren(
-  ...CHAIN_NAMES.map((name) => {
-    const option = document.createElement('option');
-    option.value = name;
-    option.textContent = name;
-    return option;
-  }),
-);
-chainSelect.value = knobs.chain;
-
 byId<HTMLInputElement>('loop-on').checked = loopsByDefault(engine.length / engine.sampleRateHz);
 applyLoop();
 search();
@@ -375,6 +343,17 @@ updateLabels();
 updateTime();
 byId<HTMLButtonElement>('transport-play').disabled = false;
 performance.mark('coilbench-ready');
+
+// The wiring Play starts first (the list's first row) is rendered now, so the first press sounds at once.
+const opening = byKey.get(list.shown()[0] ?? '');
+if (opening) {
+  currentWiring = opening;
+  list.setCurrent(opening.id, false);
+  void renderOf(opening, knobs).then(() => {
+    performance.mark('coilbench-first-sound');
+    updateLabels();
+  });
+}
 
 /** Float32 samples as base64 (the page's own coil-signal codec), for tests that compare hosts. */
 function samplesToBase64(samples: Float32Array): string {
@@ -389,7 +368,7 @@ function samplesToBase64(samples: Float32Array): string {
   soundingKeys: () => player.soundingKeys(),
   blindScore: () => blind.score(),
   wiringCount: () => wirings.length,
-  knobs: () => knobs,
+  knobs: () => knobFields.knobs(),
   /** Render `expression` at the knobs (render knobs overridden by `changes`): processed samples (base64 float32), loudness, centroid, peak. */
   async render(expression: string, changes: Partial<Knobs> = {}) {
     const network = canonicalize(parseWiring(expression, vocabulary, 'expression'));
@@ -402,6 +381,17 @@ function samplesToBase64(samples: Float32Array): string {
       peak: rendered.peak,
       matchedGainDb: playbackGainDb(rendered, true, trueGainDb),
     };
+  },
+  /**
+   * Make `expression` at the render's knobs with `changes` ready to sound, the way choosing it or moving a knob does
+   * (render, level measure, audio buffer), without playing it; resolves to the render's loudness. For the bench.
+   */
+  async prepare(expression: string, changes: Partial<Knobs> = {}): Promise<number> {
+    const network = canonicalize(parseWiring(expression, vocabulary, 'expression'));
+    const wiring = wirings.find((candidate) => candidate.expression === printNetwork(network, ids)) ?? makeWiring(network, ids, 0);
+    const render = await renderOf(wiring, { ...engine.renderKnobs, ...changes });
+    playableOf(render);
+    return render.loudnessLufs;
   },
   /** The direct signal of `expression` at the render's knobs (base64 float32): the synthesis alone, for the cross-host checks. */
   direct(expression: string): string {

@@ -140,11 +140,19 @@ export function createWiringEngine(data: PageSound): WiringEngine {
     renderKnobs,
     synthesize,
     async render(expression, network, knobs) {
+      // Each step is timed as a performance measure (`npm run bench -- page` reads them).
+      const started = performance.now();
       const direct = synthesize(network, knobs);
+      const synthesized = performance.now();
       const samples = knobs.chain === 'direct' ? direct : await renderChainInBrowser(direct, coils.sampleRateHz, knobs.chain);
+      const chained = performance.now();
       let peak = 0;
       for (let n = 0; n < samples.length; n += 1) peak = Math.max(peak, Math.abs(samples[n] as number));
-      return { key: renderKey(expression, knobs), samples, peak, loudnessLufs: measureLoudness([samples], coils.sampleRateHz) };
+      const loudnessLufs = measureLoudness([samples], coils.sampleRateHz);
+      performance.measure('coilbench-synthesize', { start: started, end: synthesized });
+      performance.measure('coilbench-chain', { start: synthesized, end: chained });
+      performance.measure('coilbench-loudness', { start: chained, end: performance.now() });
+      return { key: renderKey(expression, knobs), samples, peak, loudnessLufs };
     },
   };
 }

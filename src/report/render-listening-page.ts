@@ -26,6 +26,8 @@ import { renderBrightnessLegend } from './wiring-table.js';
 import { PAGE_LIST_STYLE } from './page-list-style.js';
 import { SUGGESTED_ROUNDS, loopsByDefault } from '../page/index.js';
 import type { PageData } from '../page/index.js';
+import type { CircuitOverrides } from '../circuit/index.js';
+import type { Guitar } from '../guitar/index.js';
 
 /** Playback volume the page starts at, linear (−10.5 dB; start low to protect hearing: common practice). */
 export const START_VOLUME = 0.3;
@@ -51,9 +53,12 @@ const CABLE_MAX_PF = 20_000;
 const FARADS_PER_NF = 1e-9;
 const FARADS_PER_PF = 1e-12;
 
-/** The knobs: volume and tone positions, tone capacitor, cable and chain, each applied while playing. */
-function renderKnobs(data: PageData): string {
-  const { guitar, overrides } = data;
+/**
+ * The knobs: volume and tone positions, tone capacitor, cable and chain, each applied while playing, shown at
+ * `guitar`'s settings with `overrides` (the listening page's guitar; on the comparison page, the baseline set's,
+ * applied to every set; src/page/knob-fields.ts reads them).
+ */
+export function renderKnobs(guitar: Guitar, overrides: CircuitOverrides, chain: string): string {
   const volume = overrides.volumeSetting ?? guitar.controls.volume.setting;
   const tone = guitar.controls.tone;
   const cablePf = Math.round((overrides.cableCapacitanceF ?? guitar.cable.capacitanceF) / FARADS_PER_PF);
@@ -66,7 +71,7 @@ function renderKnobs(data: PageData): string {
     `<label>Volume <input type="range" id="knob-volume" min="0.5" max="10" step="0.5" value="${volume}"> <output id="knob-volume-value">${volume.toFixed(1)}</output></label>` +
     toneFields +
     `<label>Cable <input type="number" id="knob-cable" min="${CABLE_MIN_PF}" max="${CABLE_MAX_PF}" step="${CABLE_STEP_PF}" value="${cablePf}"> pF</label>` +
-    `<label>Amplifier <select id="knob-chain" data-chain="${escapeHtml(data.report.render.chain)}"></select></label>` +
+    `<label>Amplifier <select id="knob-chain" data-chain="${escapeHtml(chain)}"></select></label>` +
     '</form>'
   );
 }
@@ -211,7 +216,7 @@ export function renderListeningPage(report: ListeningReport, data: Omit<PageData
 </section>
 <section id="wirings" aria-labelledby="wirings-title">
 <h2 id="wirings-title">Every wiring</h2>
-${renderKnobs({ ...data, report })}
+${renderKnobs(data.guitar, data.overrides, report.render.chain)}
 ${renderFinder(report, { ...data, report })}
 ${renderColumnHelp(report)}
 <div class="list-head" aria-hidden="true"><span></span><span>No.</span><span>Wiring</span><span>In words</span><span>Level</span><span>Brightness</span><span>Resonant peak</span><span>Hum</span><span></span></div>
