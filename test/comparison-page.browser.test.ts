@@ -26,6 +26,7 @@ import { enumerateWirings } from '../src/wiring/index.js';
 import type { ComparisonReport } from '../src/report/index.js';
 import { CHROMIUM, INSTALL_HINT, RUN_BROWSER_TESTS, launchChromium, openFolderPage } from './support/browser.js';
 import { referenceLoudness } from './support/ebur128-reference.js';
+import { residualDb } from './support/tone-measures.js';
 
 const OUTPUT_DIR = join(import.meta.dirname, '..', 'test-output');
 const samples = join(import.meta.dirname, '..', 'samples');
@@ -37,16 +38,6 @@ const LOUDNESS_LU = 0.5;
 const DIRECT_RESIDUAL_DB = -90;
 const HOSTILE_NAME = '<script>window.__pwned = 1</script>"><img src=x onerror="window.__pwned = 2">';
 
-/** Energy of `other − reference` relative to the energy of `reference`, dB. */
-function residualDb(reference: Float32Array, other: Float32Array): number {
-  let signal = 0;
-  let error = 0;
-  for (let n = 0; n < reference.length; n += 1) {
-    signal += (reference[n] as number) ** 2;
-    error += ((reference[n] as number) - (other[n] ?? 0)) ** 2;
-  }
-  return 10 * Math.log10(error / signal);
-}
 
 if (!RUN_BROWSER_TESTS) console.warn(`comparison page browser tests skipped: ${CHROMIUM} not found (${INSTALL_HINT})`);
 

@@ -36,6 +36,7 @@ import { enumerateWirings } from '../src/wiring/index.js';
 import { CHROMIUM, INSTALL_HINT, RUN_BROWSER_TESTS, type WatchedPage, launchChromium, openFolderPage } from './support/browser.js';
 import { makeExampleReport } from './support/example-report.js';
 import { referenceLoudness } from './support/ebur128-reference.js';
+import { residualDb } from './support/tone-measures.js';
 import { maxOf, minOf } from '../src/math/index.js';
 
 const SAMPLE_RATE_HZ = 22050;
@@ -64,15 +65,6 @@ interface PageRender {
   matchedGainDb: number;
 }
 
-function residualDb(reference: Float32Array, other: Float32Array): number {
-  let signal = 0;
-  let error = 0;
-  for (let n = 0; n < reference.length; n += 1) {
-    signal += (reference[n] as number) ** 2;
-    error += ((reference[n] as number) - (other[n] ?? 0)) ** 2;
-  }
-  return 10 * Math.log10(error / signal);
-}
 
 function readSample(name: string, rename?: string): Guitar {
   const raw = JSON.parse(readFileSync(join(import.meta.dirname, '..', 'samples', name), 'utf8')) as Record<string, unknown>;

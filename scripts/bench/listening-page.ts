@@ -3,9 +3,9 @@
  * the browser): its size for 3, 4 and 5 coils (47, 572, 9,997 wirings), and,
  * measured in chromium from file://:
  * - open to first sound: from the start of navigation to the moment the
- *   wiring Play starts first is rendered and ready to sound (the page's
+ *   wiring Play starts first is rendered and Play is enabled (the page's
  *   `coilbench-first-sound` mark), with the steps before it (data parsed,
- *   engine made, list built, page ready);
+ *   engine made) and the list of every wiring built after it;
  * - choose a wiring or move a knob to hearing it: the page's own path to
  *   the new sound (synthesis, chain, loudness for level matching, audio
  *   buffer; `coilbenchPage.prepare`), median
@@ -79,14 +79,14 @@ export async function benchListeningPage(): Promise<void> {
       const folder = mkdtempSync(join(work, 'page-'));
       writeFileSync(join(folder, 'index.html'), html);
       const { page } = await openFolderPage(browser, folder);
-      await page.waitForFunction(() => performance.getEntriesByName('coilbench-first-sound').length > 0, undefined, { timeout: 120_000 });
+      await page.waitForFunction(() => 'coilbenchPage' in window, undefined, { timeout: 120_000 });
       const marks = await page.evaluate(() =>
-        Object.fromEntries(['coilbench-data', 'coilbench-engine', 'coilbench-list', 'coilbench-ready', 'coilbench-first-sound'].map((name) => [name, performance.getEntriesByName(name)[0]?.startTime ?? Number.NaN])),
+        Object.fromEntries(['coilbench-data', 'coilbench-engine', 'coilbench-first-sound', 'coilbench-list'].map((name) => [name, performance.getEntriesByName(name)[0]?.startTime ?? Number.NaN])),
       );
-      line('  open to first sound (navigation start to first wiring ready)', both(marks['coilbench-first-sound'] ?? Number.NaN));
+      line('  open to first sound (navigation start to Play ready)', both(marks['coilbench-first-sound'] ?? Number.NaN));
       line(
-        '    of which: data parsed / engine / list / page ready at',
-        ['coilbench-data', 'coilbench-engine', 'coilbench-list', 'coilbench-ready'].map((name) => `${(marks[name] ?? Number.NaN).toFixed(0)}`).join(' / ') + ' ms',
+        '    data parsed / engine made / first sound / list built at',
+        ['coilbench-data', 'coilbench-engine', 'coilbench-first-sound', 'coilbench-list'].map((name) => `${(marks[name] ?? Number.NaN).toFixed(0)}`).join(' / ') + ' ms',
       );
       for (const [what, change] of CHANGES) {
         const picks = Array.from({ length: CHOICES }, (_, index) => change(index, wirings));

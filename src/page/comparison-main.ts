@@ -15,6 +15,7 @@
 import type { ComparisonEntry, ComparisonRow } from '../report/index.js';
 import { type Wiring, enumerateWirings } from '../wiring/index.js';
 import { createBlindTest } from './blind-test.js';
+import { RENDERS_KEPT, createRenderCache } from './render-cache.js';
 import { type ComparisonPageData, encodeSignal } from './page-data.js';
 import { loopsByDefault, playbackGainDb, MATCHED_LOUDNESS_LUFS } from './page-math.js';
 import { formatDb } from './page-words.js';
@@ -49,17 +50,16 @@ const trueGainDb = ((): number => {
 
 let matched = true;
 const ui = { row: report.rows[0]?.key ?? null, set: 0 };
-const renders = new Map<string, Promise<RenderedWiring>>();
-const played = new Map<string, RenderedWiring>();
 
 const player = createPlayer({
   sampleRateHz: first.sampleRateHz,
   volume: Number(byId<HTMLInputElement>('volume').value),
   gainDb: (playable) => {
-    const render = played.get(playable.key);
+    const render = cache.played(playable.key);
     return render ? playbackGainDb(render, matched || blind.isRunning(), trueGainDb) : 0;
   },
 });
+const cache = createRenderCache(RENDERS_KEPT, () => player.soundingKeys());
 
 /** The knobs' bar starts at the baseline set's render knobs; what the listener moves applies to every set. */
 const shownKnobs: Knobs = first.renderKnobs;
@@ -72,8 +72,6 @@ function knobsOf(id: string): Knobs | null {
   return engine ? knobsForSet(engine.renderKnobs, shownKnobs, movedKnobs) : null;
 }
 
-/** Renders kept ready to play (each a few MB of float32; our own bound). */
-const RENDERS_KEPT = 24;
 
 /** The render of entry `id` on its set's engine at the knobs (kept for the last RENDERS_KEPT settings and entries). */
 function renderOf(id: string): Promise<RenderedWiring> {
@@ -82,18 +80,7 @@ function renderOf(id: string): Promise<RenderedWiring> {
   const wiring = entry ? wiringsOfSet[entry.set]?.get(entry.wiringId) : undefined;
   const knobs = knobsOf(id);
   if (!entry || !engine || !wiring || !knobs) return Promise.reject(new Error(`no wiring ${id} on this page`));
-  const key = renderKey(id, knobs);
-  let pending = renders.get(key);
-  if (pending) return pending;
-  pending = engine.render(id, wiring.network, knobs).then((render) => ({ ...render, key }));
-  renders.set(key, pending);
-  pending.then((render) => played.set(key, render)).catch(() => renders.delete(key));
-  while (renders.size > RENDERS_KEPT) {
-    const oldest = renders.keys().next().value as string;
-    renders.delete(oldest);
-    if (!player.soundingKeys().includes(oldest)) played.delete(oldest);
-  }
-  return pending;
+  return cache.render(renderKey(id, knobs), () => engine.render(id, wiring.network, knobs));
 }
 
 function playableOf(render: RenderedWiring, sampleRateHz: number): Playable {

@@ -6,17 +6,13 @@
  * it), independently of the code under test.
  */
 import { describe, expect, it } from 'vitest';
-import { measureSineAmplitude } from '../../test/support/tone-measures.js';
+import { measureSineAmplitude, compressorStaticCurveDb } from '../../test/support/tone-measures.js';
 import { COMPRESSOR_KNEE_DB, COMPRESSOR_RATIO, COMPRESSOR_SETTINGS, COMPRESSOR_THRESHOLD_DB, measureCompressorMakeupDb } from './compressor-settings.js';
 import { renderEffectsChain } from './effects-chain.js';
 
-/** Output level for a steady input level, dB (Giannoulis et al. eq. 4, knee centred on T' = T + W/2). */
+/** The static curve with the compressed chain's settings (test/support/tone-measures.ts, from GMR eq. 4). */
 function staticCurveDb(inputDb: number): number {
-  const [threshold, knee, ratio] = [COMPRESSOR_THRESHOLD_DB, COMPRESSOR_KNEE_DB, COMPRESSOR_RATIO];
-  const centre = threshold + knee / 2;
-  if (inputDb <= threshold) return inputDb;
-  if (inputDb < threshold + knee) return inputDb + ((1 / ratio - 1) * (inputDb - threshold) ** 2) / (2 * knee);
-  return centre + (inputDb - centre) / ratio;
+  return compressorStaticCurveDb(inputDb, COMPRESSOR_THRESHOLD_DB, COMPRESSOR_KNEE_DB, COMPRESSOR_RATIO);
 }
 
 const TONE_HZ = 440;

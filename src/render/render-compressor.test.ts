@@ -8,19 +8,16 @@
  * A steady level is a constant (DC) input, so the detector sees one level.
  */
 import { describe, expect, it } from 'vitest';
+import { compressorStaticCurveDb } from '../../test/support/tone-measures.js';
 import { COMPRESSOR_KNEE_DB, COMPRESSOR_RATIO, COMPRESSOR_SETTINGS, COMPRESSOR_THRESHOLD_DB } from './compressor-settings.js';
 import { designCompressor, renderCompressor } from './render-compressor.js';
 
 const SAMPLE_RATE_HZ = 48_000;
 const design = designCompressor(COMPRESSOR_SETTINGS, SAMPLE_RATE_HZ);
 
-/** GMR eq. 4, knee centred on T' = T + W/2: output level for a steady input level, dB. */
+/** The static curve with the compressed chain's settings (test/support/tone-measures.ts, from GMR eq. 4). */
 function staticCurveDb(inputDb: number): number {
-  const [threshold, knee, ratio] = [COMPRESSOR_THRESHOLD_DB, COMPRESSOR_KNEE_DB, COMPRESSOR_RATIO];
-  const centre = threshold + knee / 2;
-  if (inputDb <= threshold) return inputDb;
-  if (inputDb < threshold + knee) return inputDb + ((1 / ratio - 1) * (inputDb - threshold) ** 2) / (2 * knee);
-  return centre + (inputDb - centre) / ratio;
+  return compressorStaticCurveDb(inputDb, COMPRESSOR_THRESHOLD_DB, COMPRESSOR_KNEE_DB, COMPRESSOR_RATIO);
 }
 
 const decibels = (ratio: number): number => 20 * Math.log10(ratio);
