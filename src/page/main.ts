@@ -32,14 +32,23 @@ const engine = createWiringEngine({ ...data, chain: report.render.chain });
 performance.mark('coilbench-engine');
 // The list of every wiring is built after the first wiring is ready to sound (see "start" below).
 let wirings: Wiring[] = [];
-const reported = new Map<string, ReportWiring>(report.wirings.map((wiring) => [wiring.id, wiring]));
+// The wirings' figures follow the page's script in the document (#page-wirings): read with the list.
+const reported = new Map<string, ReportWiring>();
 const byKey = new Map<string, Wiring>();
 const ids = guitar.elements.map((element) => element.id);
 const vocabulary = vocabularyOf(guitar);
-const scale = brightnessScale(report.wirings.map((wiring) => wiring.centroidHz));
-const singleLoudness = report.wirings.filter((wiring) => wiring.coils.length === 1).map((wiring) => wiring.loudnessLufs).filter(Number.isFinite);
-/** True level: one common gain putting the mean single coil at the matched loudness. */
-const trueGainDb = singleLoudness.length ? MATCHED_LOUDNESS_LUFS - singleLoudness.reduce((a, b) => a + b, 0) / singleLoudness.length : 0;
+let scale = brightnessScale([]);
+/** True level: one common gain putting the mean single coil at the matched loudness (set when the figures are read; until then Play is level matched). */
+let trueGainDb = 0;
+
+/** Read the wirings' figures: the brightness scale and the true-level gain follow from them. */
+function readFigures(): void {
+  const figures = JSON.parse(byId('page-wirings').textContent ?? '[]') as ReportWiring[];
+  for (const wiring of figures) reported.set(wiring.id, wiring);
+  scale = brightnessScale(figures.map((wiring) => wiring.centroidHz));
+  const singleLoudness = figures.filter((wiring) => wiring.coils.length === 1).map((wiring) => wiring.loudnessLufs).filter(Number.isFinite);
+  trueGainDb = singleLoudness.length ? MATCHED_LOUDNESS_LUFS - singleLoudness.reduce((a, b) => a + b, 0) / singleLoudness.length : 0;
+}
 
 let knobs: Knobs = engine.renderKnobs;
 let matched = true;
@@ -118,6 +127,7 @@ byId('search').addEventListener('input', search);
 
 /** Enumerate every wiring (the command line's enumerator) and build the list, the plot and the blind test's choices. */
 function buildList(): void {
+  readFigures();
   wirings = enumerateWirings(guitar.elements);
   for (const wiring of wirings) byKey.set(wiring.id, wiring);
   for (const wiring of wirings.filter((candidate) => candidate.elements.length === 1).slice(0, 4)) plotted.push(wiring.id);
@@ -345,9 +355,9 @@ updateLabels();
 updateTime();
 
 // First sound first: the wiring Play starts (the report's first wiring, the list's first row) is rendered before the
-// list of every wiring is built, so Play sounds as soon as the page can; the list follows in the next task.
-const first = report.wirings[0];
-const opening = first ? makeWiring(canonicalize(parseWiring(first.expression, vocabulary, 'report.wirings[0].expression')), ids, first.number) : null;
+// wirings' figures are read and the list of every wiring is built, so Play sounds as soon as the page can; the list
+// follows once the document is parsed (its figures come after this script).
+const opening = data.opening ? makeWiring(canonicalize(parseWiring(data.opening.expression, vocabulary, 'opening.expression')), ids, data.opening.number) : null;
 if (opening) currentWiring = opening;
 const openingRender = opening ? renderOf(opening, knobs) : Promise.resolve(null);
 void openingRender
@@ -357,12 +367,14 @@ void openingRender
     updateLabels();
   })
   .finally(() => {
-    setTimeout(() => {
+    const finish = (): void => {
       buildList();
       byId<HTMLButtonElement>('transport-play').disabled = false;
       exposeTestView();
       performance.mark('coilbench-ready');
-    }, 0);
+    };
+    if (document.readyState === 'loading') document.addEventListener('DOMContentLoaded', () => setTimeout(finish, 0), { once: true });
+    else setTimeout(finish, 0);
   });
 
 /** Float32 samples as base64 (the page's own coil-signal codec), for tests that compare hosts. */

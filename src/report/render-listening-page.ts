@@ -77,7 +77,7 @@ export function renderKnobs(guitar: Guitar, overrides: CircuitOverrides, chain: 
 }
 
 /** Search, and an expression to play. */
-function renderFinder(report: ListeningReport, data: PageData): string {
+function renderFinder(report: ListeningReport, data: Omit<PageData, 'opening'>): string {
   const ids = data.guitar.elements.map((element) => element.id);
   const [first, second] = [ids[0] ?? 'neck', ids[ids.length - 1] ?? 'bridge'];
   return (
@@ -190,12 +190,14 @@ function renderColumnHelp(report: ListeningReport): string {
 }
 
 /** The listening page for a report, as one HTML document: `data` is what the page plays from, `script` the bundled page script (dist/page.js). */
-export function renderListeningPage(report: ListeningReport, data: Omit<PageData, 'report'>, script: string): string {
+export function renderListeningPage(report: ListeningReport, data: Omit<PageData, 'report' | 'opening'>, script: string): string {
   const { guitar, render } = report;
   const name = escapeHtml(guitar.name);
   const durationS = data.coils.length / data.coils.sampleRateHz;
   const style = `${PAGE_STYLE}${PAGE_LIST_STYLE}`;
-  const pageData: PageData = { ...data, report: compactReportForPage(report) };
+  const compact = compactReportForPage(report);
+  const first = compact.wirings[0];
+  const pageData: PageData = { ...data, report: { ...compact, wirings: [] }, opening: first ? { expression: first.expression, number: first.number } : null };
   return `${renderPageHead({ title: `${guitar.name} · listen to every wiring`, script, style, generator: report.generator })}
 <a class="skip" href="#wirings">Skip to the wirings</a>
 <header class="masthead">
@@ -234,13 +236,14 @@ ${renderCautionsSection()}
 ${renderTransport(durationS, 'Press ▶ on any row to listen', renderLoopControls(durationS), true)}
 <script type="application/json" id="page-data">${serializeJsonForScript(pageData)}</script>
 <script>${script}</script>
+<script type="application/json" id="page-wirings">${serializeJsonForScript(compact.wirings)}</script>
 </body>
 </html>
 `;
 }
 
 /** An expression in the guitar's own coil names for the examples ("neck + ~bridge"). */
-function exampleExpression(data: Omit<PageData, 'report'>): string {
+function exampleExpression(data: Pick<PageData, 'guitar'>): string {
   const ids = data.guitar.elements.map((element) => element.id);
   if (ids.length < 2) return ids[0] ?? '';
   return `${ids[0]} + ~${ids[ids.length - 1]}`;
