@@ -42,6 +42,8 @@ export interface ShortlistWiring {
 export interface ShortlistRequest {
   /** How many wirings to choose, 1 or more. */
   readonly count: number;
+  /** Take `count` as a ceiling: when fewer wirings meet the filters, choose them all instead of refusing (for a default count the user did not type). */
+  readonly upTo?: boolean;
   readonly humCancelling: boolean;
   /** Element indices allowed, or null for all. */
   readonly elements: readonly number[] | null;
@@ -125,7 +127,8 @@ export function solveShortlist(
   const included = new Set(include);
   const candidates = wirings.flatMap((wiring, index) => (!included.has(index) && meets(wiring) === null ? [index] : [])).sort(byRank);
   const candidateCount = candidates.length + include.length;
-  if (candidateCount < request.count) throw InputError.at('count', tooFewMessage(request, candidateCount), request.count);
+  const count = request.upTo === true ? Math.min(request.count, candidateCount) : request.count;
+  if (candidateCount < count || count < 1) throw InputError.at('count', tooFewMessage(request, candidateCount), request.count);
   const orderedInclude = [...include].sort(byRank);
   const finish = (result: MaxMinSubsetResult, range: readonly [number, number] | null): Shortlist => ({
     members: [...result.members].sort(byRank),
@@ -135,7 +138,7 @@ export function solveShortlist(
     levelRangeDb: range,
   });
   if (request.levelWindowDb === null) {
-    const result = solveMaxMinSubset({ candidates, include: orderedInclude, size: request.count, distance }, settings);
+    const result = solveMaxMinSubset({ candidates, include: orderedInclude, size: count, distance }, settings);
     if (result === null) throw new RangeError('solveShortlist: no set found although enough candidates exist');
     return finish(result, null);
   }
@@ -152,7 +155,7 @@ export function solveShortlist(
       window,
     );
   }
-  const need = request.count - orderedInclude.length;
+  const need = count - orderedInclude.length;
   const byLevel = [...candidates].sort((a, b) => level(a) - level(b) || byRank(a, b));
   const levels = byLevel.map(level);
   const exact = candidates.length <= settings.exactLimit;
@@ -172,7 +175,7 @@ export function solveShortlist(
     const seeds = Array.from({ length: Math.min(HEURISTIC_SEEDS, compatible.length) }, (_, k) =>
       compatible[Math.round((k * (compatible.length - 1)) / Math.max(1, HEURISTIC_SEEDS - 1))] as number,
     );
-    const result = solveMaxMinSubset({ candidates, include: orderedInclude, size: request.count, distance, admissible: spread, seeds: [...new Set(seeds)] }, settings);
+    const result = solveMaxMinSubset({ candidates, include: orderedInclude, size: count, distance, admissible: spread, seeds: [...new Set(seeds)] }, settings);
     if (result !== null) {
       const chosenLevels = result.members.map(level);
       return finish(result, [minOf(chosenLevels), minOf(chosenLevels) + window]);
@@ -194,7 +197,7 @@ export function solveShortlist(
     previousEnd = end;
     const inWindow = byLevel.slice(begin, end).sort(byRank);
     const result = solveMaxMinSubset(
-      { candidates: inWindow, include: orderedInclude, size: request.count, distance, mustExceed: best ? best.result.minDistance : Number.NEGATIVE_INFINITY },
+      { candidates: inWindow, include: orderedInclude, size: count, distance, mustExceed: best ? best.result.minDistance : Number.NEGATIVE_INFINITY },
       settings,
     );
     if (result && (best === null || result.minDistance > best.result.minDistance)) best = { result, range: [start, start + window] };
@@ -203,7 +206,7 @@ export function solveShortlist(
     const span = smallestSpan(levels, includeLevels, need);
     throw InputError.at(
       'levelWindowDb',
-      `a wider window: no ${request.count} of the ${candidateCount} wirings lie within ${formatDb(window)} dB of each other (the closest ${request.count} span ${formatDb(span)} dB); widen the level window to at least that, or ask for fewer`,
+      `a wider window: no ${count} of the ${candidateCount} wirings lie within ${formatDb(window)} dB of each other (the closest ${count} span ${formatDb(span)} dB); widen the level window to at least that, or ask for fewer`,
       window,
     );
   }

@@ -39,6 +39,13 @@ describe('hum field with a gradient', () => {
     expect(humCategory(HUM_FLOOR_DB)).toBe('cancels');
   });
 
+  it('judges the category on the figure as printed (whole dB), so a printed −20 reads "cancels" and a printed −6 "reduces"', () => {
+    expect(humCategory(-19.6)).toBe('cancels');
+    expect(humCategory(-19.4)).toBe('reduces');
+    expect(humCategory(-5.6)).toBe('reduces');
+    expect(humCategory(-5.4)).toBe('noisy');
+  });
+
   it('with a gradient, rejection follows the dipole estimate 3s/r (docs/physics.md §6: s = 18 mm at r = 0.5 m ≈ 11 % ≈ −19 dB)', () => {
     const r = 0.5;
     const gradient = 3 / r;

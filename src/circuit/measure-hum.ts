@@ -116,9 +116,14 @@ export function humDecibels(hum: number, reference: number): number {
   return Math.max(HUM_FLOOR_DB, amplitudeDb(hum / reference));
 }
 
+/** Hum figures are printed to whole decibels (the model claims no finer); the category follows the printed figure, so "−20" never reads "reduces". */
+const HUM_PRINTED_STEP_DB = 1;
+
+/** Plain category of a hum figure, judged on the figure as printed (rounded to HUM_PRINTED_STEP_DB). */
 export function humCategory(humDb: number): HumCategory {
-  if (humDb <= HUM_CANCELLING_DB) return 'cancels';
-  return humDb <= HUM_REDUCING_DB ? 'reduces' : 'noisy';
+  const printed = Math.round(humDb / HUM_PRINTED_STEP_DB) * HUM_PRINTED_STEP_DB;
+  if (printed <= HUM_CANCELLING_DB) return 'cancels';
+  return printed <= HUM_REDUCING_DB ? 'reduces' : 'noisy';
 }
 
 export function isHumCancelling(humDb: number): boolean {

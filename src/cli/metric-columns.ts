@@ -8,6 +8,11 @@ import { HUM_FLOOR_DB, type WiringCircuitMetrics } from '../circuit/index.js';
 import type { Wiring } from '../wiring/index.js';
 
 /** Figures from the wiring's render of the reference phrase (docs/design.md metrics). */
+/** A hum figure as every table prints it: whole decibels, the floor as "<=-40" (the model claims no deeper rejection). */
+export function formatHumDb(hum: number | null): string {
+  return hum !== null && hum <= HUM_FLOOR_DB ? `<=${HUM_FLOOR_DB}` : fixed(hum, 0, true);
+}
+
 export interface WiringAudioMetrics {
   readonly levelDb: number;
   readonly loudnessLufs: number;
@@ -135,11 +140,7 @@ export const METRIC_COLUMNS: readonly MetricColumn[] = Object.freeze([
     key: 'humDb',
     title: 'hum dB',
     align: 'right',
-    text: (row) => {
-      if (silent(row)) return SILENT;
-      const hum = row.circuit.humDb;
-      return hum !== null && hum <= HUM_FLOOR_DB ? `<=${HUM_FLOOR_DB}` : fixed(hum, 0, true);
-    },
+    text: (row) => (silent(row) ? SILENT : formatHumDb(row.circuit.humDb)),
     value: (row) => row.circuit.humDb,
     table: true,
     markdown: true,

@@ -4,6 +4,7 @@ export {
   brightnessScale,
   describePeak,
   formatDb,
+  formatHumDb,
   formatHz,
   humVerdict,
   topologyInWords,

@@ -5,7 +5,8 @@ describe('page words', () => {
   it('marks hum: quiet at or below −20 dB (docs/design.md humCancelling), partly to −6 dB, noisy above', () => {
     expect(humVerdict(-32, true)).toBe('quiet');
     expect(humVerdict(-20, false)).toBe('quiet');
-    expect(humVerdict(-19.9, false)).toBe('partly');
+    expect(humVerdict(-19.6, false)).toBe('quiet'); // printed "−20": the mark follows the printed figure
+    expect(humVerdict(-19.4, false)).toBe('partly');
     expect(humVerdict(-6, false)).toBe('partly');
     expect(humVerdict(0, false)).toBe('noisy');
     expect(humVerdict(null, false)).toBe('quiet'); // −∞ dB arrives as null in JSON: no hum at all

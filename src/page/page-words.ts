@@ -5,6 +5,7 @@
  */
 import type { Topology } from '../wiring/index.js';
 import { maxOf, minOf } from '../math/index.js';
+import { HUM_FLOOR_DB, type HumCategory, humCategory } from '../circuit/measure-hum.js';
 
 const TOPOLOGY_WORDS: Readonly<Record<Topology, string>> = Object.freeze({
   single: 'alone',
@@ -18,17 +19,18 @@ export function topologyInWords(topology: Topology): string {
   return TOPOLOGY_WORDS[topology];
 }
 
-/** A wiring counts as hum cancelling at or below this hum, dB (docs/design.md, `humCancelling`). */
-export const HUM_CANCELLING_DB = -20;
-/** Below this (and above the cancelling mark) a wiring is "partly cancelling": half the hum amplitude or less, dB (our own threshold). */
-export const HUM_PARTLY_CANCELLING_DB = -6;
+/** The page's hum marks use the command line's thresholds and rounding (docs/design.md, `humCancelling`). */
+export { HUM_CANCELLING_DB, HUM_REDUCING_DB as HUM_PARTLY_CANCELLING_DB } from '../circuit/measure-hum.js';
 
 export type HumVerdict = 'quiet' | 'partly' | 'noisy';
 
+/** The page's word for each command-line hum category. */
+const HUM_CATEGORY_VERDICT: Readonly<Record<HumCategory, HumVerdict>> = Object.freeze({ cancels: 'quiet', reduces: 'partly', noisy: 'noisy' });
+
 /** Hum in words: quiet (hum cancelling), less hum (partly cancelling), noisy. Non-finite hum means none at all. */
 export function humVerdict(humDb: number | null, humCancelling: boolean): HumVerdict {
-  if (humCancelling || humDb === null || !Number.isFinite(humDb) || humDb <= HUM_CANCELLING_DB) return 'quiet';
-  return humDb <= HUM_PARTLY_CANCELLING_DB ? 'partly' : 'noisy';
+  if (humCancelling || humDb === null || !Number.isFinite(humDb)) return 'quiet';
+  return HUM_CATEGORY_VERDICT[humCategory(humDb)];
 }
 
 /** The mark shown for each verdict, and the words under it. */
@@ -112,6 +114,12 @@ export function formatDb(db: number | null, digits = 1): string {
   const fixed = Math.abs(db).toFixed(digits);
   if (Number(fixed) === 0) return `${(0).toFixed(digits)} dB`;
   return `${db < 0 ? MINUS : '+'}${fixed} dB`;
+}
+
+/** A hum figure in whole decibels (the model claims no finer), the floor as "≤ −40 dB" (it claims no deeper rejection). */
+export function formatHumDb(db: number | null): string {
+  if (db !== null && db <= HUM_FLOOR_DB) return `\u2264 ${formatDb(HUM_FLOOR_DB, 0)}`;
+  return formatDb(db, 0);
 }
 
 const HZ_PER_KHZ = 1000;

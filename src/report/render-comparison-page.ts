@@ -81,7 +81,7 @@ function renderRow(report: ComparisonReport, row: ComparisonRow, entries: Readon
     })) +
     changesCell(report, row, (d) => ({ text: `${d.spectrumDb.toFixed(1)} dB`, above: d.spectrumDb >= thresholds.spectrumDb })) +
     `<td class="changes">${resonances}</td>` +
-    changesCell(report, row, (d) => ({ text: signed(d.humDb, 1, ' dB'), above: false })) +
+    changesCell(report, row, (d) => ({ text: signed(d.humDb, 0, ' dB'), above: false })) +
     '<td><button type="button" data-action="blind-row">Blind test</button></td>' +
     '</tr>'
   );

@@ -11,6 +11,7 @@ import {
   HUM_VERDICT_WORDS,
   brightnessScale,
   formatDb,
+  formatHumDb,
   formatHz,
   humVerdict,
   describePeak,
@@ -61,7 +62,7 @@ function peakCell(wiring: ReportWiring): string {
 function humCell(wiring: ReportWiring): string {
   const verdict = humVerdict(wiring.humDb, wiring.humCancelling);
   const [mark, words] = HUM_VERDICT_WORDS[verdict];
-  const figure = words === '' ? formatDb(wiring.humDb) : `${words} ${formatDb(wiring.humDb)}`;
+  const figure = words === '' ? formatHumDb(wiring.humDb) : `${words} ${formatHumDb(wiring.humDb)}`;
   return (
     `<td class="hum"><span class="hum-mark hum-${verdict}"><span class="dot" aria-hidden="true"></span>${escapeHtml(mark)}</span>` +
     `<span class="figure">${escapeHtml(figure)}</span></td>`

@@ -122,7 +122,7 @@ function renderComparisonText(comparison: GuitarComparison, label: string): stri
     { title: 'spectrum dB', value: (w) => `${w.spectrumDb.toFixed(1)}${mark(w.spectrumAboveThreshold)}`, align: 'right' },
     {
       title: 'hum dB',
-      value: (w) => `${signed(w.humDb.change, 1)}${w.humDb.humCancelling[0] !== w.humDb.humCancelling[1] ? (w.humDb.humCancelling[1] ? ' now cancels' : ' no longer cancels') : ''}${mark(w.humDb.aboveThreshold)}`,
+      value: (w) => `${signed(w.humDb.change, 0)}${w.humDb.humCancelling[0] !== w.humDb.humCancelling[1] ? (w.humDb.humCancelling[1] ? ' now cancels' : ' no longer cancels') : ''}${mark(w.humDb.aboveThreshold)}`,
       align: 'right',
     },
     { title: 'distance', value: (w) => `${w.distance.toFixed(2)}×`, align: 'right' },

@@ -15,6 +15,7 @@ import { type Wiring, enumerateWirings, findWiring, vocabularyOf } from '../../w
 import { type AlikeOptionText, addAlikeOptions, describeThresholds, parseAlikeOptions } from '../alike-options.js';
 import { type CircuitOptionText, addCircuitOptions, parseCircuitOptions } from '../circuit-options.js';
 import { formatTable } from '../format-table.js';
+import { formatHumDb } from '../metric-columns.js';
 import { collectOption } from '../collect-option.js';
 import type { Io } from '../io.js';
 import { readGuitarFile } from '../read-guitar.js';
@@ -39,6 +40,8 @@ interface ShortlistOptions extends CircuitOptionText, AlikeOptionText {
 
 /** Largest shortlist asked for: a rotary switch has at most a dozen positions (common practice). */
 const MAX_COUNT = 12;
+/** Wirings chosen when --count is not given: the positions of a five-position lever switch, the commonest selector (common practice). */
+const DEFAULT_COUNT = 5;
 /** Widest level window accepted, dB (our choice: far wider than any real spread of wirings). */
 const MAX_WINDOW_DB = 60;
 
@@ -60,6 +63,8 @@ const CAUTION =
 
 export interface ShortlistPlan {
   readonly count: number;
+  /** True when --count was not given: `count` is then a ceiling. */
+  readonly countDefaulted: boolean;
   readonly humCancelling: boolean;
   readonly levelWindowDb: number | null;
   readonly include: readonly Wiring[];
@@ -70,7 +75,7 @@ export interface ShortlistPlan {
 /** Read the shortlist's own options; problems are appended, one per bad option. */
 function parsePlan(options: ShortlistOptions, guitar: Guitar, wirings: readonly Wiring[], problems: InputProblem[]): ShortlistPlan {
   let count = 0;
-  if (options.count === undefined) problems.push(problemAt('--count', `how many wirings to choose, 1 to ${MAX_COUNT}`, undefined));
+  if (options.count === undefined) count = Math.min(DEFAULT_COUNT, wirings.length);
   else {
     const value = Number(options.count.trim());
     if (!/^\s*\d+\s*$/u.test(options.count) || value < 1 || value > MAX_COUNT) problems.push(problemAt('--count', `a whole number from 1 to ${MAX_COUNT}`, options.count));
@@ -100,7 +105,7 @@ function parsePlan(options: ShortlistOptions, guitar: Guitar, wirings: readonly 
       appendAll(problems, error.problems);
     }
   }
-  return { count, humCancelling: options.humCancelling === true, levelWindowDb, include, elements };
+  return { count, countDefaulted: options.count === undefined, humCancelling: options.humCancelling === true, levelWindowDb, include, elements };
 }
 
 /** Solve the shortlist, with the core's constraint names turned into the options a user typed. */
@@ -123,6 +128,7 @@ export function solvePlannedShortlist(
   try {
     return solveShortlist(list, (a, b) => measureWiringDistance(profiles, a, profiles, b, thresholds), {
       count: plan.count,
+      upTo: plan.countDefaulted,
       humCancelling: plan.humCancelling,
       elements: plan.elements,
       elementIds: guitar.elements.map((element) => element.id),
@@ -178,7 +184,7 @@ export function registerShortlist(program: Command, io: Io): void {
     .command('shortlist')
     .description('the few wirings most different from each other, for a real switch, under your constraints')
     .argument('<guitar>', 'guitar file (JSON)')
-    .option('--count <K>', `how many wirings (1 to ${MAX_COUNT}), e.g. the positions of your switch`)
+    .option('--count <K>', `how many wirings (1 to ${MAX_COUNT}), e.g. the positions of your switch (default ${DEFAULT_COUNT}, a five-position lever)`)
     .option('--hum-cancelling', 'only wirings that cancel hum')
     .option('--level-window <dB>', 'every chosen wiring within this many dB of every other')
     .option('--include <wiring>', 'a wiring that must be in the list, like "neck + mid" or w4 (repeat for more)', collectOption, [])
@@ -230,7 +236,7 @@ export function registerShortlist(program: Command, io: Io): void {
     if (options.json) {
       const document = {
         guitar: guitar.name,
-        count: plan.count,
+        count: shortlist.members.length,
         constraints: {
           humCancelling: plan.humCancelling,
           levelWindowDb: plan.levelWindowDb,
@@ -258,7 +264,8 @@ export function registerShortlist(program: Command, io: Io): void {
     }
 
     const lines: string[] = [];
-    lines.push(`${guitar.name}: ${plan.count} of ${wirings.length} wirings, as different from each other as possible`);
+    const defaulted = plan.countDefaulted ? ` (--count not given: up to ${plan.count}, as for a five-position lever switch)` : '';
+    lines.push(`${guitar.name}: ${shortlist.members.length} of ${wirings.length} wirings, as different from each other as possible${defaulted}`);
     lines.push(`constraints: ${describeConstraints(plan, guitar)} (${shortlist.candidateCount} wirings qualify)`);
     const method = shortlist.method === 'exact' ? 'exact search (branch and bound)' : 'greedy farthest-point with swaps (a heuristic: the best set may be a little better)';
     const closest = pair ? ` (${wirings[pair[0]]?.id} and ${wirings[pair[1]]?.id})` : '';
@@ -273,8 +280,8 @@ export function registerShortlist(program: Command, io: Io): void {
         { title: 'level dB', value: (row) => signed(row.levelDb, 1), align: 'right' },
         { title: 'centroid Hz', value: (row) => row.centroidHz.toFixed(0), align: 'right' },
         { title: 'resonance Hz', value: (row) => (row.figures.resonanceHz === null ? '-' : row.figures.resonanceHz.toFixed(0)), align: 'right' },
-        { title: 'hum dB', value: (row) => (row.figures.humDb === null ? '-' : signed(row.figures.humDb, 1)), align: 'right' },
-        { title: 'hum cancelling', value: (row) => (row.figures.humCancelling ? 'yes' : '') },
+        { title: 'hum dB', value: (row) => formatHumDb(row.figures.humDb), align: 'right' },
+        { title: 'hum', value: (row) => row.figures.humCategory ?? '-' },
         { title: 'group', value: (row) => String(row.group), align: 'right' },
         { title: 'in words', value: (row) => row.wiring.description },
       ]),
@@ -292,7 +299,7 @@ export function registerShortlist(program: Command, io: Io): void {
       );
     }
     if (shortlist.minDistance < 1) {
-      io.stdout(`\nNote: some of these sound alike at these thresholds; fewer than ${plan.count} audibly different wirings meet the constraints.\n`);
+      io.stdout(`\nNote: some of these sound alike at these thresholds; fewer than ${shortlist.members.length} audibly different wirings meet the constraints.\n`);
     }
     io.stdout(`\nlevel: relative to the mean single coil; centroid: the spectral centroid of the strum, as in \`coilbench analyze\` (higher is brighter); group: as in \`coilbench analyze\`.\n${CAUTION}\n`);
     if (options.render) {
