@@ -273,6 +273,8 @@ byId<HTMLButtonElement>('transport-play').disabled = false;
   isPlaying: () => player.isPlaying(),
   currentId: () => idOfKey(player.current()?.key ?? null),
   soundingIds: () => player.soundingKeys().map(idOfKey),
+  /** The sounding renders' keys: entry id and knob settings. */
+  soundingKeys: () => player.soundingKeys(),
   knobs: () => movedKnobs,
   blindScore: () => blind.score(),
   /** Render entry `id` as the page plays it: processed samples (base64 float32), loudness, and the playback gain in each level mode. */
