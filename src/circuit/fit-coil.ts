@@ -11,6 +11,7 @@
  *   inductance, solved in closed form for C and a parallel loss resistance.
  */
 import { type CoilModel, coilImpedanceAt, createCoilPhasors, evaluateCoil } from './coil-model.js';
+import { fitLeastSquares } from '../math/index.js';
 import type { ImpedancePoint } from './parse-impedance-sweep.js';
 
 /** Which losses the sweep fit may use. */
@@ -36,13 +37,6 @@ export interface FittedCoil extends CoilModel {
 }
 
 const TWO_PI = 2 * Math.PI;
-/** Relative step for the forward-difference Jacobian in log parameters (about √ of float64 epsilon). */
-const JACOBIAN_STEP = 1e-7;
-/** Starting damping and its change per step (Marquardt 1963 uses factors of 10). */
-const INITIAL_DAMPING = 1e-3;
-const DAMPING_FACTOR = 10;
-/** Stop when a step improves the sum of squares by less than this fraction. */
-const CONVERGED_FRACTION = 1e-14;
 /** Starting guesses for the eddy share κ and the corner as a fraction of the peak frequency (a small grid; the best fit wins). */
 const START_SHARES = [0.1, 0.3, 0.5];
 const START_CORNER_FRACTIONS = [0.3, 1];
@@ -89,85 +83,9 @@ function residuals(theta: readonly number[], layout: Layout, sweep: readonly Imp
   return sum;
 }
 
-/** Solve the small dense system A·x = b (Gaussian elimination with partial pivoting); null when singular. */
-function solveLinear(a: number[][], b: number[]): number[] | null {
-  const n = b.length;
-  const m = a.map((row, i) => [...row, b[i] as number]);
-  for (let col = 0; col < n; col += 1) {
-    let pivot = col;
-    for (let row = col + 1; row < n; row += 1) if (Math.abs(m[row]![col]!) > Math.abs(m[pivot]![col]!)) pivot = row;
-    if (!(Math.abs(m[pivot]![col]!) > 0)) return null;
-    [m[col], m[pivot]] = [m[pivot]!, m[col]!];
-    for (let row = col + 1; row < n; row += 1) {
-      const factor = m[row]![col]! / m[col]![col]!;
-      for (let k = col; k <= n; k += 1) m[row]![k]! -= factor * m[col]![k]!;
-    }
-  }
-  const x = new Array<number>(n).fill(0);
-  for (let row = n - 1; row >= 0; row -= 1) {
-    let value = m[row]![n]!;
-    for (let k = row + 1; k < n; k += 1) value -= m[row]![k]! * (x[k] as number);
-    x[row] = value / m[row]![row]!;
-  }
-  return x;
-}
-
-/** Levenberg–Marquardt from `start`; returns the parameters and their sum of squares. */
+/** Levenberg–Marquardt (src/math/fit-least-squares.ts) from `start` on the sweep's residuals. */
 function minimise(start: number[], layout: Layout, sweep: readonly ImpedancePoint[], maxIterations: number): { theta: number[]; cost: number } {
-  const count = 2 * sweep.length;
-  const r = new Float64Array(count);
-  const trial = new Float64Array(count);
-  const shifted = new Float64Array(count);
-  let theta = [...start];
-  let cost = residuals(theta, layout, sweep, r);
-  let damping = INITIAL_DAMPING;
-  const n = theta.length;
-  for (let iteration = 0; iteration < maxIterations; iteration += 1) {
-    // J[k][j] = ∂r_k/∂θ_j by forward differences
-    const jacobian: Float64Array[] = [];
-    for (let j = 0; j < n; j += 1) {
-      const step = JACOBIAN_STEP * Math.max(1, Math.abs(theta[j] as number));
-      const moved = [...theta];
-      moved[j] = (moved[j] as number) + step;
-      residuals(moved, layout, sweep, shifted);
-      jacobian.push(Float64Array.from(shifted, (value, k) => (value - (r[k] as number)) / step));
-    }
-    const normal = Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => {
-      let sum = 0;
-      for (let k = 0; k < count; k += 1) sum += (jacobian[i]![k] as number) * (jacobian[j]![k] as number);
-      return sum;
-    }));
-    const gradient = Array.from({ length: n }, (_, i) => {
-      let sum = 0;
-      for (let k = 0; k < count; k += 1) sum += (jacobian[i]![k] as number) * (r[k] as number);
-      return -sum;
-    });
-    let improved = false;
-    for (let attempt = 0; attempt < 30 && !improved; attempt += 1) {
-      // (JᵀJ + λ·diag(JᵀJ))·δ = −Jᵀr (Marquardt's scaling)
-      const damped = normal.map((row, i) => row.map((value, j) => (i === j ? value * (1 + damping) : value)));
-      const delta = solveLinear(damped, gradient);
-      if (delta === null) {
-        damping *= DAMPING_FACTOR;
-        continue;
-      }
-      const candidate = theta.map((value, i) => value + (delta[i] as number));
-      const candidateCost = residuals(candidate, layout, sweep, trial);
-      if (Number.isFinite(candidateCost) && candidateCost < cost) {
-        const gain = (cost - candidateCost) / cost;
-        theta = candidate;
-        cost = candidateCost;
-        r.set(trial);
-        damping = Math.max(damping / DAMPING_FACTOR, 1e-12);
-        improved = true;
-        if (gain < CONVERGED_FRACTION) return { theta, cost };
-      } else {
-        damping *= DAMPING_FACTOR;
-      }
-    }
-    if (!improved) break;
-  }
-  return { theta, cost };
+  return fitLeastSquares((theta, out) => residuals(theta, layout, sweep, out), start, 2 * sweep.length, { maxIterations });
 }
 
 /** Fit the coil model to a measured impedance sweep (sorted by frequency, at least a dozen points). */

@@ -65,3 +65,5 @@ export { parseImpedanceSweep, MIN_SWEEP_POINTS } from './parse-impedance-sweep.j
 export type { CoilLossModel, FittedCoil, PeakMeasurement, SweepFitOptions } from './fit-coil.js';
 export { fitCoilToPeak, fitCoilToSweep, measureUnloadedPeak, DEFAULT_SWEEP_FIT_OPTIONS } from './fit-coil.js';
 export { renderSampleSweep, SAMPLE_SWEEP_COIL, SAMPLE_SWEEP_POINTS } from './sample-coil-sweep.js';
+export type { LoadedResponse, LoadFitOptions, LoadFittedCoil, LoadRatioPoint } from './fit-coil-to-loads.js';
+export { coilLoadRatioAt, fitCoilToLoadedResponses, withInstrument, DEFAULT_INSTRUMENT_OHMS, DEFAULT_LOAD_FIT_OPTIONS } from './fit-coil-to-loads.js';

@@ -20,27 +20,31 @@ export interface ConstructionDefaults {
 
 /**
  * Rod-magnet single coil: 8000 turns at 2.5 H (turns within the 7000–10 000
- * quoted by Koch [P61]; 2.5 H within the 2.2–3 H of §1.3); small eddy share,
- * high corner (alnico rods conduct poorly; from memory).
- * Steel-pole coil over a bar magnet (one coil of a humbucker): 5000 turns at
- * 2.3 H (from memory; two in series ≈ 4.7 H, common practice, §1.3); eddy
- * share 0.4 (40–50 % of L from core and eddy effects, from memory, §1.3),
- * corner 3 kHz (from memory).
+ * quoted by Koch [P61]; 2.5 H within the 2.2–3 H of §1.3). Steel-pole coil
+ * over a bar magnet (one coil of a humbucker): 5000 turns at 2.3 H (from
+ * memory; two in series ≈ 4.7 H, common practice, §1.3).
+ * Eddy branch (share κ, corner f_e): fitted to published exciter-coil
+ * measurements of real pickups (strayr/pickupAnalyseR-data; test/data/published/,
+ * docs/physics.md §1.6), DC resistance held at its measured value, both loads
+ * fitted together and rounded to two figures — rod magnets from a bridge
+ * single coil on rod magnets with a steel base plate (κ 0.232, f_e 1275 Hz),
+ * steel poles from a humbucker (κ 0.320, f_e 2608 Hz). One pickup each; a
+ * single coil without a base plate probably loses less (from memory).
  */
 export const CONSTRUCTION_DEFAULTS: Readonly<Record<CoilConstruction, ConstructionDefaults>> = Object.freeze({
   'rod magnets': Object.freeze({
     nominalTurns: 8000,
     nominalInductanceH: 2.5,
-    eddyShare: 0.15,
-    eddyCornerHz: 8000,
-    source: 'turns: Koch [P61]; losses: from memory',
+    eddyShare: 0.23,
+    eddyCornerHz: 1300,
+    source: 'turns: Koch [P61]; losses: fitted to a published measurement (docs/physics.md §1.6)',
   }),
   'steel poles': Object.freeze({
     nominalTurns: 5000,
     nominalInductanceH: 2.3,
-    eddyShare: 0.4,
-    eddyCornerHz: 3000,
-    source: 'from memory (docs/physics.md §1.3)',
+    eddyShare: 0.32,
+    eddyCornerHz: 2600,
+    source: 'turns: from memory (docs/physics.md §1.3); losses: fitted to a published measurement (docs/physics.md §1.6)',
   }),
 });
 

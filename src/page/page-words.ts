@@ -5,7 +5,7 @@
  */
 import type { Topology } from '../wiring/index.js';
 import { maxOf, minOf } from '../math/index.js';
-import { HUM_FLOOR_DB, type HumCategory, humCategory } from '../circuit/measure-hum.js';
+import { HUM_FLOOR_DB, type HumCategory, humCategory } from '../circuit/index.js';
 
 const TOPOLOGY_WORDS: Readonly<Record<Topology, string>> = Object.freeze({
   single: 'alone',
@@ -20,7 +20,7 @@ export function topologyInWords(topology: Topology): string {
 }
 
 /** The page's hum marks use the command line's thresholds and rounding (docs/design.md, `humCancelling`). */
-export { HUM_CANCELLING_DB, HUM_REDUCING_DB as HUM_PARTLY_CANCELLING_DB } from '../circuit/measure-hum.js';
+export { HUM_CANCELLING_DB, HUM_REDUCING_DB as HUM_PARTLY_CANCELLING_DB } from '../circuit/index.js';
 
 export type HumVerdict = 'quiet' | 'partly' | 'noisy';
 

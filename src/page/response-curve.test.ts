@@ -2,7 +2,7 @@
  * The page's plotted curve is the response as the strings drive it when the
  * page carries the drive: its dot is the report's resonance (the same
  * definition, measure-resonance.ts, read on the analysis grid) and sits on
- * the curve. The drive travels as plain numbers through the page's JSON.
+ * the curve (a drawn point of it). The drive travels as plain numbers through the page's JSON.
  */
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
@@ -17,8 +17,6 @@ import { responseCurve } from './response-curve.js';
 const SAMPLE = join(import.meta.dirname, '..', '..', 'samples', 'humbucker-two-single-coil.json');
 /** The curve's 96 points and the analysis grid's 200 refine to the same peak; 0.1 % covers the refinement's stopping tolerance many times over. */
 const FREQUENCY_TOLERANCE = 1e-3;
-/** Between two curve points the curve is drawn straight in ln f; the refined peak may stand this far above that line (dB). */
-const DOT_ABOVE_CURVE_DB = 0.5;
 
 describe('responseCurve with the page data drive', () => {
   const guitar = parseGuitarText(readFileSync(SAMPLE, 'utf8'), 'humbucker-two-single-coil.json');
@@ -42,12 +40,13 @@ describe('responseCurve with the page data drive', () => {
       if (curve.peakHz === null || curve.peakDb === null || figures?.resonanceHz == null) return;
       dots += 1;
       expect(Math.abs(curve.peakHz / figures.resonanceHz - 1), wiring.expression).toBeLessThan(FREQUENCY_TOLERANCE);
-      const above = curve.frequenciesHz.findIndex((hz) => hz >= (curve.peakHz as number));
-      const [lowHz, highHz] = [curve.frequenciesHz[above - 1] as number, curve.frequenciesHz[above] as number];
-      const t = Math.log((curve.peakHz as number) / lowHz) / Math.log(highHz / lowHz);
-      const line = (curve.responseDb[above - 1] as number) * (1 - t) + (curve.responseDb[above] as number) * t;
-      expect(curve.peakDb - line, wiring.expression).toBeGreaterThanOrEqual(-1e-9);
-      expect(curve.peakDb - line, wiring.expression).toBeLessThan(DOT_ABOVE_CURVE_DB);
+      // The dot is a drawn point of the curve (the refined peak is inserted between the grid points), and its neighbours lie below it.
+      const at = curve.frequenciesHz.indexOf(curve.peakHz);
+      expect(at, wiring.expression).toBeGreaterThan(0);
+      expect(curve.responseDb[at], wiring.expression).toBe(curve.peakDb);
+      expect(curve.responseDb[at - 1] as number, wiring.expression).toBeLessThanOrEqual(curve.peakDb + 1e-9);
+      expect(curve.responseDb[at + 1] as number, wiring.expression).toBeLessThanOrEqual(curve.peakDb + 1e-9);
+      expect(curve.frequenciesHz.every((hz, i) => i === 0 || hz > (curve.frequenciesHz[i - 1] as number)), wiring.expression).toBe(true);
     });
     expect(dots).toBeGreaterThanOrEqual(2);
   });

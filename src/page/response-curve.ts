@@ -12,7 +12,7 @@ import { type CircuitOverrides, type CoilDrive, logSpacedFrequencies, measureRes
 import type { Guitar } from '../guitar/index.js';
 import type { Network } from '../wiring/index.js';
 
-/** Points of a plotted curve (log-spaced over the audio band; the render's report uses the same count). */
+/** Points of a plotted curve (log-spaced over the audio band; the render's report uses the same count), plus the resonant peak's own point. */
 export const CURVE_POINTS = 96;
 
 export interface ResponseCurve {
@@ -27,10 +27,18 @@ export function responseCurve(guitar: Guitar, overrides: CircuitOverrides, netwo
   const circuit = prepareCircuit(guitar, grid, overrides);
   const response = measureResponseDb(circuit, network, drive);
   const resonance = measureResonance(circuit, network, drive === undefined ? {} : { drive });
-  return {
-    frequenciesHz: Array.from(grid),
-    responseDb: response ? Array.from(response) : [],
-    peakHz: resonance.resonanceHz,
-    peakDb: resonance.resonanceHz === null ? null : resonance.peakDb,
-  };
+  const frequenciesHz = Array.from(grid);
+  const responseDb = response ? Array.from(response) : [];
+  const peakHz = resonance.resonanceHz;
+  const peakDb = peakHz === null ? null : resonance.peakDb;
+  // The refined peak lies between grid points; drawn as a point of its own it keeps the dot on the curve
+  // however sharp the peak (a straight chord between grid points can cut a sharp peak by most of a decibel).
+  if (peakHz !== null && peakDb !== null && responseDb.length === frequenciesHz.length) {
+    const at = frequenciesHz.findIndex((hz) => hz >= peakHz);
+    if (at > 0 && frequenciesHz[at] !== peakHz) {
+      frequenciesHz.splice(at, 0, peakHz);
+      responseDb.splice(at, 0, peakDb);
+    }
+  }
+  return { frequenciesHz, responseDb, peakHz, peakDb };
 }
