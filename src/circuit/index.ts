@@ -14,8 +14,8 @@ export {
 export type { CoilModel, CoilPhasors } from './coil-model.js';
 export { coilImpedanceAt, coilModelOf, coilSeriesImpedance, createCoilPhasors, evaluateCoil } from './coil-model.js';
 export type { PreparedCircuit } from './prepare-circuit.js';
-export { prepareCircuit } from './prepare-circuit.js';
-export { solveTransfers } from './solve-transfers.js';
+export { prepareCircuit, retuneCircuit } from './prepare-circuit.js';
+export { solveLoadGain, solveSourceFactors, solveTransfers } from './solve-transfers.js';
 export type { CoilDrive } from './coil-drive.js';
 export { coilDriveAt, drivePairIndex, drivenPowerAt, incoherentCoilDrive, sampleCoilDrive } from './coil-drive.js';
 export type { DrivenResponse, DrivenResponseInputs } from './driven-response.js';
