@@ -7,13 +7,17 @@
  * element count (OEIS A006351 networks times phase patterns, summed over the
  * subsets of elements).
  *
- * The circuit figures are computed for every guitar; the full `analyze`
- * command (audio figures and groups, in-process through `main`) for a small
- * subset, since one such run costs about a second. Past failures, shrunk,
- * live in test/property-regressions/ and run first.
+ * The circuit figures are computed for every guitar; the audio figures
+ * (each wiring rendered: level, loudness, centroid, checked raw) for a
+ * subset, since they are the costly part (about a second per small guitar
+ * on a busy 2-core machine); and the whole `analyze` command (in-process
+ * through `main`, JSON read back) for a few. Past failures, shrunk, live in
+ * test/property-regressions/ and run first.
  *
- * Default: 2,000 guitars (900/700/370/27/3 with 1/2/3/4/5 elements) and 3
- * full analyze runs (1 or 2 elements). COILBENCH_PROPERTY_SCALE multiplies both;
+ * Default: 2,000 guitars (900/700/370/27/3 with 1/2/3/4/5 elements); 24 of
+ * them more through the audio figures (10/10/4 with 1/2/3 elements: 258
+ * wirings rendered when none is silent) and 3 through the whole analyze
+ * command. COILBENCH_PROPERTY_SCALE multiplies every count;
  * COILBENCH_PROPERTY_SEED changes the seed.
  */
 import { readFileSync, readdirSync, writeFileSync } from 'node:fs';
@@ -33,6 +37,8 @@ const SEED = countFromEnvironment('COILBENCH_PROPERTY_SEED', 4242);
 /** Guitars per element count (1 to 5) in the default run: cheap ones many, costly ones few. */
 const PER_ELEMENT_COUNT = [900, 700, 370, 27, 3].map((count) => count * SCALE);
 const FULL_ANALYZE_RUNS = 3 * SCALE;
+/** Guitars through the audio figures per element count (1 to 3): each wiring rendered, so small guitars. */
+const AUDIO_RUNS = [10, 10, 4].map((count) => count * SCALE);
 /** Wirings of 1 to 5 elements (OEIS A006351 series–parallel networks × 2^(n−1) phase patterns, summed over subsets). */
 const EXPECTED_WIRINGS = [1, 6, 47, 572, 9997];
 /** Fields of a wiring's circuit figures that may be null without a `…Reason` when the guitar is not silent (docs: measure-circuit-metrics.ts). */
@@ -94,9 +100,43 @@ describe('random valid guitars through analyze', () => {
     });
     expect(tried).toBeGreaterThanOrEqual(2000 * SCALE);
     expect(failures, failures.join('\n')).toEqual([]);
-  });
+  }, 300_000 * SCALE); // about 20 s on an idle 2-core machine; a minute or more under load
 
-  it(`${FULL_ANALYZE_RUNS} random guitars through the whole analyze command: exit 0, finite audio figures`, async () => {
+  it(`${AUDIO_RUNS.reduce((a, b) => a + b, 0)} random guitars through the audio figures: every raw level, loudness and centroid finite`, () => {
+    const random = seededRandom(SEED + 2);
+    const failures: string[] = [];
+    let rendered = 0;
+    let silent = 0;
+    AUDIO_RUNS.forEach((count, index) => {
+      for (let n = 0; n < count; n += 1) {
+        const { document } = randomGuitar(random, index + 1);
+        try {
+          const guitar = parseGuitar(document);
+          const wirings = enumerateWirings(guitar.elements);
+          // analyze renders nothing when the volume at 0 leaves the output silent; neither does this check.
+          if (measureCircuitMetrics(guitar, wirings.slice(0, 1)).silent) {
+            silent += 1;
+            continue;
+          }
+          // Raw audio figures, before JSON could hide a NaN as null.
+          for (const [id, figures] of measureWiringAudio(guitar, wirings, wirings, {})) {
+            rendered += 1;
+            for (const [name, value] of Object.entries(figures)) {
+              if (!Number.isFinite(value)) failures.push(`${id}: ${name} = ${value} in ${JSON.stringify(document).slice(0, 300)}`);
+            }
+          }
+        } catch (error) {
+          failures.push(`threw ${error instanceof Error ? error.message : String(error)} in ${JSON.stringify(document).slice(0, 300)}`);
+        }
+      }
+    });
+    console.log(`audio figures: ${AUDIO_RUNS.reduce((a, b) => a + b, 0)} random guitars, ${silent} silent (volume at 0), ${rendered} wirings rendered`);
+    expect(failures.slice(0, 5), failures.slice(0, 5).join('\n')).toEqual([]);
+    // Most random guitars sound (the volume is at 0 in only a few): the check must have rendered many wirings.
+    expect(rendered, `${silent} silent guitars`).toBeGreaterThanOrEqual(100 * SCALE);
+  }, 300_000 * SCALE);
+
+  it(`${FULL_ANALYZE_RUNS} random guitars through the whole analyze command: exit 0, every figure a number`, async () => {
     const random = seededRandom(SEED + 1);
     const failures: string[] = [];
     for (let n = 0; n < FULL_ANALYZE_RUNS; n += 1) {
@@ -109,15 +149,7 @@ describe('random valid guitars through analyze', () => {
         continue;
       }
       const report = JSON.parse(io.out()) as { silent: boolean; wirings: Array<Record<string, unknown>> };
-      const guitar = parseGuitar(document);
       if (report.silent) continue;
-      // Raw audio figures, before JSON could hide a NaN as null.
-      const wirings = enumerateWirings(guitar.elements);
-      for (const [id, figures] of measureWiringAudio(guitar, wirings, wirings, {})) {
-        for (const [name, value] of Object.entries(figures)) {
-          if (!Number.isFinite(value)) failures.push(`${id}: ${name} = ${value} in ${JSON.stringify(document).slice(0, 300)}`);
-        }
-      }
       for (const row of report.wirings) {
         for (const name of ['levelDb', 'loudnessLufs', 'centroidHz', 'peakDb', 'humDb']) {
           if (typeof row[name] !== 'number') failures.push(`${String(row.id)}: ${name} is ${String(row[name])}`);

@@ -38,7 +38,7 @@ interface Run {
 }
 
 /** Wall time of the reference computation, ms (median of 5). */
-function referenceMs(): number {
+export function referenceMs(): number {
   const fft = realFft(REFERENCE_SIZE);
   const spectrum = new Float64Array(REFERENCE_SIZE + 2).map((_, index) => Math.sin(index));
   const out = new Float64Array(REFERENCE_SIZE);

@@ -1,9 +1,12 @@
 /**
  * Six wiring elements (samples/three-humbucker.json, 228,386 wirings): the
- * `wirings` table and JSON, and `render --only w1`, each in a fresh process
- * (wall time and peak memory), beside the same commands on the four-element
- * sample as the reference run. Goals: `wirings` under 15 s and 1 GB,
- * `render --only w1` under 30 s (printed, never asserted).
+ * `wirings` table and JSON, `analyze --no-audio --csv` (streamed: rows
+ * written as computed) and `render --only w1`, each in a fresh process
+ * (wall time, processor time and peak memory), beside the same commands on
+ * the four-element sample as the reference run. Goals: `wirings` under 15 s
+ * and 1 GB, `analyze --no-audio` under 1 GB whatever its time, `render
+ * --only w1` under 30 s (printed, never asserted). `npm run bench --
+ * six-elements` runs this section alone (the analyze takes minutes).
  */
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
@@ -35,11 +38,15 @@ export function benchSixElements(): void {
     const cases: Array<[string, string[]]> = [
       ['wirings (table)', ['wirings']],
       ['wirings --json', ['wirings', '--json']],
+      ['analyze --no-audio --csv', ['analyze', '--no-audio', '--csv']],
       ['render --only w1 (direct)', ['render', '--only', 'w1', '--chain', 'direct']],
     ];
     for (const [label, argv] of cases) {
-      const withOutput = (guitar: string, name: string): string[] =>
-        argv[0] === 'render' ? [argv[0], guitar, ...argv.slice(1), '-o', join(folder, name)] : [argv[0] as string, guitar, ...argv.slice(1)];
+      const withOutput = (guitar: string, name: string): string[] => {
+        if (argv[0] === 'render') return [argv[0], guitar, ...argv.slice(1), '-o', join(folder, name)];
+        if (argv.includes('--csv')) return [argv[0] as string, guitar, ...argv.slice(1), join(folder, `${name}.csv`)];
+        return [argv[0] as string, guitar, ...argv.slice(1)];
+      };
       const four = runInChild(withOutput('samples/two-humbucker.json', 'four'));
       const six = runInChild(withOutput('samples/three-humbucker.json', 'six'));
       line(

@@ -17,6 +17,7 @@
  * spectral distance is computed. Each wiring's nearest neighbour is found
  * the same way, widening the search only as far as the best distance found.
  */
+import { type Steps, runSteps } from '../math/index.js';
 import type { AlikeThresholds } from './alike-thresholds.js';
 import type { SpectralProfiles } from './measure-spectral-profiles.js';
 import { distanceLowerBound, measureWiringDistance } from './measure-wiring-difference.js';
@@ -50,6 +51,11 @@ export interface WiringGroups {
  * their members.
  */
 export function groupAlikeWirings(profiles: SpectralProfiles, thresholds: AlikeThresholds, rank?: readonly number[]): WiringGroups {
+  return runSteps(groupAlikeWiringsSteps(profiles, thresholds, rank));
+}
+
+/** groupAlikeWirings as steps (math/run-steps.ts): yields after each wiring's comparisons. */
+export function* groupAlikeWiringsSteps(profiles: SpectralProfiles, thresholds: AlikeThresholds, rank?: readonly number[]): Steps<WiringGroups> {
   const count = profiles.count;
   const rankOf = (index: number): number => rank?.[index] ?? index;
   const levels = profiles.levelsDb;
@@ -76,6 +82,7 @@ export function groupAlikeWirings(profiles: SpectralProfiles, thresholds: AlikeT
       if (distanceLowerBound(profiles, a, profiles, b, thresholds) >= 1) continue;
       if (measureWiringDistance(profiles, a, profiles, b, thresholds) < 1) parent[find(a)] = find(b);
     }
+    yield;
   }
 
   const nearest = new Int32Array(count).fill(-1);
@@ -95,6 +102,7 @@ export function groupAlikeWirings(profiles: SpectralProfiles, thresholds: AlikeT
         }
       }
     }
+    yield;
   }
 
   const components = new Map<number, number[]>();

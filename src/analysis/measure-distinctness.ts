@@ -8,10 +8,11 @@ import type { CircuitOverrides } from '../circuit/index.js';
 import type { Guitar } from '../guitar/index.js';
 import type { Network } from '../wiring/index.js';
 import { type AlikeThresholds, resolveAlikeThresholds } from './alike-thresholds.js';
-import { type WiringGroups, groupAlikeWirings } from './group-alike-wirings.js';
+import { type Steps, runSteps } from '../math/index.js';
+import { type WiringGroups, groupAlikeWiringsSteps } from './group-alike-wirings.js';
 import { type SpectralBasis, type SpectralBasisOptions, measureSpectralBasis } from './measure-spectral-basis.js';
 import { type SpectralProfiles, measureSpectralProfiles } from './measure-spectral-profiles.js';
-import { type WiringSpectra, solveWiringSpectra } from './solve-wiring-spectra.js';
+import { type WiringSpectra, solveWiringSpectraSteps } from './solve-wiring-spectra.js';
 
 export interface DistinctnessOptions {
   readonly thresholds: Partial<AlikeThresholds>;
@@ -34,10 +35,24 @@ export function measureDistinctness(
   wirings: readonly { readonly network: Network; readonly number?: number }[],
   options: Partial<DistinctnessOptions> = {},
 ): Distinctness {
+  return runSteps(measureDistinctnessSteps(guitar, wirings, options));
+}
+
+/** Wirings solved between two yields of measureDistinctnessSteps. */
+const WIRINGS_PER_STEP = 64;
+
+/** measureDistinctness as steps (math/run-steps.ts): yields every few wirings and during grouping. */
+export function* measureDistinctnessSteps(
+  guitar: Guitar,
+  wirings: readonly { readonly network: Network; readonly number?: number }[],
+  options: Partial<DistinctnessOptions> = {},
+): Steps<Distinctness> {
   const thresholds = resolveAlikeThresholds(options.thresholds);
   const basis = options.reuseBasis ?? measureSpectralBasis(guitar, options.basis);
-  const spectra = solveWiringSpectra(guitar, basis, wirings, options.overrides);
+  yield;
+  const spectra = yield* solveWiringSpectraSteps(guitar, basis, wirings, options.overrides, WIRINGS_PER_STEP);
   const profiles = measureSpectralProfiles(spectra);
-  const groups = groupAlikeWirings(profiles, thresholds, wirings.map((wiring, index) => wiring.number ?? index));
+  yield;
+  const groups = yield* groupAlikeWiringsSteps(profiles, thresholds, wirings.map((wiring, index) => wiring.number ?? index));
   return { thresholds, spectra, profiles, groups };
 }

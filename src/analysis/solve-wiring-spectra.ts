@@ -23,6 +23,7 @@
  */
 import { type CircuitOverrides, phaseClassKey, phaseClassNetwork, phaseClassSigns, prepareCircuit, solveTransfers } from '../circuit/index.js';
 import type { Guitar } from '../guitar/index.js';
+import { type Steps, runSteps } from '../math/index.js';
 import { type Network, leaf } from '../wiring/index.js';
 import { designExcitationSpread } from './design-excitation-spread.js';
 import { LEVEL_FLOOR_DB } from './measure-energy.js';
@@ -57,17 +58,40 @@ export function energyLevelDb(energy: number, reference: number): number {
   return Math.max(LEVEL_FLOOR_DB, DECIBELS_PER_DECADE * Math.log10(energy / reference));
 }
 
+/** One wiring's figures from the band spectra (what a streaming caller keeps). */
+export interface WiringSpectrumFigures {
+  /** Energy of the output, 0 Hz to Nyquist, in (coil spectrum units)². */
+  readonly energy: number;
+  /** 10·log10(energy / referenceEnergy), never below LEVEL_FLOOR_DB. */
+  readonly levelDb: number;
+  /** Power-weighted centroid over the band range, Hz (0 when nothing is there). */
+  readonly brightnessHz: number;
+}
+
 /**
- * Band spectra, levels and brightness of `wirings` on `guitar`, with the
- * what-if overrides applied to the circuit. `basis` must come from the same
- * guitar (its coils, strings and positions). Throws InputError for a bad override.
+ * The band-spectrum solver of a guitar: shape tables are solved once per
+ * phase class and kept until `forgetShapes` (a streaming caller forgets them
+ * after each network structure, so memory stays bounded).
  */
-export function solveWiringSpectra(
-  guitar: Guitar,
-  basis: SpectralBasis,
-  wirings: readonly { readonly network: Network }[],
-  overrides?: CircuitOverrides,
-): WiringSpectra {
+export interface WiringSpectraSolver {
+  readonly silent: boolean;
+  readonly bandCount: number;
+  /** Mean energy of the single-element wirings (each element alone). */
+  readonly referenceEnergy: number;
+  /** The wiring's rows: band energies [0, bandCount), excitation [bandCount, 2·bandCount), outer energy, first moment. Valid until the next call. */
+  readonly solveRows: (network: Network) => Float64Array;
+  /** Level and brightness from rows `solveRows` returned. */
+  readonly figuresFromRows: (rows: Float64Array) => WiringSpectrumFigures;
+  readonly figuresOf: (network: Network) => WiringSpectrumFigures;
+  readonly forgetShapes: () => void;
+}
+
+/**
+ * Prepare the band spectra of `guitar`'s wirings, with the what-if overrides
+ * applied to the circuit. `basis` must come from the same guitar (its coils,
+ * strings and positions). Throws InputError for a bad override.
+ */
+export function prepareWiringSpectra(guitar: Guitar, basis: SpectralBasis, overrides?: CircuitOverrides): WiringSpectraSolver {
   const { layout, cross } = basis;
   const coilCount = guitar.coils.length;
   if (cross.coilCount !== coilCount) throw new RangeError(`solveWiringSpectra: the basis has ${cross.coilCount} coils, the guitar ${coilCount}`);
@@ -160,25 +184,65 @@ export function solveWiringSpectra(
     referenceEnergy += total / guitar.elements.length;
   }
 
+  const figuresFromRows = (values: Float64Array): WiringSpectrumFigures => {
+    let inBand = 0;
+    for (let b = 0; b < bandCount; b += 1) inBand += values[b] as number;
+    const energy = inBand + (values[outerRow] as number);
+    return { energy, levelDb: energyLevelDb(energy, referenceEnergy), brightnessHz: inBand > 0 ? Math.max(0, (values[momentRow] as number) / inBand) : 0 };
+  };
+  return {
+    silent: prepared.load.silent,
+    bandCount,
+    referenceEnergy,
+    solveRows: solve,
+    figuresFromRows,
+    figuresOf: (network) => figuresFromRows(solve(network)),
+    forgetShapes: () => shapes.clear(),
+  };
+}
+
+/**
+ * Band spectra, levels and brightness of `wirings` on `guitar`, with the
+ * what-if overrides applied to the circuit. `basis` must come from the same
+ * guitar (its coils, strings and positions). Throws InputError for a bad override.
+ */
+export function solveWiringSpectra(
+  guitar: Guitar,
+  basis: SpectralBasis,
+  wirings: readonly { readonly network: Network }[],
+  overrides?: CircuitOverrides,
+): WiringSpectra {
+  return runSteps(solveWiringSpectraSteps(guitar, basis, wirings, overrides));
+}
+
+/** solveWiringSpectra as steps (math/run-steps.ts): yields after every `perStep` wirings. */
+export function* solveWiringSpectraSteps(
+  guitar: Guitar,
+  basis: SpectralBasis,
+  wirings: readonly { readonly network: Network }[],
+  overrides?: CircuitOverrides,
+  perStep = Number.POSITIVE_INFINITY,
+): Steps<WiringSpectra> {
+  const solver = prepareWiringSpectra(guitar, basis, overrides);
+  const { bandCount, referenceEnergy } = solver;
+  const excitationRow = bandCount;
   const count = wirings.length;
   const energies = new Float64Array(count);
   const bandEnergies = new Float64Array(count * bandCount);
   const excitation = new Float64Array(count * bandCount);
   const brightnessHz = new Float64Array(count);
   const levelsDb = new Float64Array(count);
-  wirings.forEach(({ network }, w) => {
-    const values = solve(network);
-    let inBand = 0;
+  for (const [w, { network }] of wirings.entries()) {
+    if (w > 0 && w % perStep === 0) yield;
+    const values = solver.solveRows(network);
     for (let b = 0; b < bandCount; b += 1) {
-      const value = values[b] as number;
-      bandEnergies[w * bandCount + b] = value;
+      bandEnergies[w * bandCount + b] = values[b] as number;
       excitation[w * bandCount + b] = values[excitationRow + b] as number;
-      inBand += value;
     }
-    const total = inBand + (values[outerRow] as number);
-    energies[w] = total;
-    brightnessHz[w] = inBand > 0 ? Math.max(0, (values[momentRow] as number) / inBand) : 0;
-    levelsDb[w] = energyLevelDb(total, referenceEnergy);
-  });
-  return { basis, count, bandCount, silent: prepared.load.silent, energies, bandEnergies, excitation, brightnessHz, referenceEnergy, levelsDb };
+    const figures = solver.figuresFromRows(values);
+    energies[w] = figures.energy;
+    brightnessHz[w] = figures.brightnessHz;
+    levelsDb[w] = figures.levelDb;
+  }
+  return { basis, count, bandCount, silent: solver.silent, energies, bandEnergies, excitation, brightnessHz, referenceEnergy, levelsDb };
 }

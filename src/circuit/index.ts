@@ -14,8 +14,8 @@ export {
 export type { CoilModel, CoilPhasors } from './coil-model.js';
 export { coilImpedanceAt, coilModelOf, coilSeriesImpedance, createCoilPhasors, evaluateCoil } from './coil-model.js';
 export type { PreparedCircuit } from './prepare-circuit.js';
-export { prepareCircuit } from './prepare-circuit.js';
-export { solveTransfers } from './solve-transfers.js';
+export { prepareCircuit, retuneCircuit } from './prepare-circuit.js';
+export { solveLoadGain, solveSourceFactors, solveTransfers } from './solve-transfers.js';
 export type { CoilDrive } from './coil-drive.js';
 export { coilDriveAt, drivePairIndex, drivenPowerAt, incoherentCoilDrive, sampleCoilDrive } from './coil-drive.js';
 export type { DrivenResponse, DrivenResponseInputs } from './driven-response.js';
@@ -44,8 +44,8 @@ export {
   HUM_REDUCING_DB,
 } from './measure-hum.js';
 export { measureResponseDb, RESPONSE_FLOOR_DB } from './measure-response.js';
-export type { CircuitAnalysis, CircuitMetricsOptions, WiringCircuitMetrics } from './measure-circuit-metrics.js';
-export { measureCircuitMetrics, measureGraphCircuitMetrics, DEFAULT_CIRCUIT_METRICS_OPTIONS } from './measure-circuit-metrics.js';
+export type { CircuitAnalysis, CircuitMetricsOptions, CircuitMetricsSolver, WiringCircuitMetrics } from './measure-circuit-metrics.js';
+export { measureCircuitMetrics, measureGraphCircuitMetrics, prepareCircuitMetrics, DEFAULT_CIRCUIT_METRICS_OPTIONS } from './measure-circuit-metrics.js';
 export { amplitudeDb } from './decibels.js';
 export type { CoilPlacement, Lead, WiringLayout } from './layout-wiring.js';
 export { layoutWiring, networkResistanceOhms, HOT_NODE, GROUND_NODE } from './layout-wiring.js';

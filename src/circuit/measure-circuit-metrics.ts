@@ -14,6 +14,7 @@
  * relative phase in the shape (phase-class.ts).
  */
 import type { Guitar } from '../guitar/index.js';
+import { type Steps, runSteps } from '../math/index.js';
 import type { Network } from '../wiring/index.js';
 import { phaseClassKey, phaseClassNetwork, phaseClassSigns } from './phase-class.js';
 import type { CircuitLoad, CircuitOverrides } from './circuit-load.js';
@@ -74,18 +75,36 @@ const SILENT_METRICS: WiringCircuitMetrics = Object.freeze({
   humCancelling: false,
 });
 
-/** Resonance, peak, Q and hum of each wiring, in the order given. Throws InputError for a bad override. */
-export function measureCircuitMetrics(
-  guitar: Guitar,
-  wirings: readonly { readonly network: Network }[],
-  overrides?: CircuitOverrides,
-  options: Partial<CircuitMetricsOptions> = {},
-): CircuitAnalysis {
+/**
+ * The one-off part of the circuit figures (circuit on the grid, drive, hum
+ * reference), then `measure` for any batch of wirings: each batch's figures
+ * are the same numbers a single call over every wiring gives, so a caller
+ * can work through 228,386 wirings a few at a time in bounded memory.
+ */
+export interface CircuitMetricsSolver {
+  readonly load: CircuitLoad;
+  /** True when the volume at 0 leaves nothing at the output: every figure is null. */
+  readonly silent: boolean;
+  readonly points: number;
+  /** Figures of `wirings`, in the order given (the phase patterns of one shape share its transfers). */
+  readonly measure: (wirings: readonly { readonly network: Network }[]) => WiringCircuitMetrics[];
+  /** The same as steps (math/run-steps.ts): yields after each shape. */
+  readonly measureSteps: (wirings: readonly { readonly network: Network }[]) => Steps<WiringCircuitMetrics[]>;
+  /** Figures of connections of coil leads (nodal analysis), in the order given. */
+  readonly measureGraphs: (graphs: readonly CircuitGraph[]) => WiringCircuitMetrics[];
+}
+
+/** Prepare the circuit figures of `guitar`. Throws InputError for a bad override. */
+export function prepareCircuitMetrics(guitar: Guitar, overrides?: CircuitOverrides, options: Partial<CircuitMetricsOptions> = {}): CircuitMetricsSolver {
   const { points } = { ...DEFAULT_CIRCUIT_METRICS_OPTIONS, ...options };
   if (!Number.isInteger(points) || points < 3) throw new RangeError(`measureCircuitMetrics: points must be an integer ≥ 3, got ${points}`);
   const prepared = prepareCircuit(guitar, analysisFrequencies(points), overrides);
   if (prepared.load.silent) {
-    return { load: prepared.load, silent: true, points, wirings: wirings.map(() => SILENT_METRICS) };
+    const silent = (wirings: readonly { readonly network: Network }[]): WiringCircuitMetrics[] => wirings.map(() => SILENT_METRICS);
+    const silentSteps = function* (wirings: readonly { readonly network: Network }[]): Steps<WiringCircuitMetrics[]> {
+      return silent(wirings);
+    };
+    return { load: prepared.load, silent: true, points, measure: silent, measureSteps: silentSteps, measureGraphs: (graphs) => graphs.map(() => SILENT_METRICS) };
   }
   const drive = options.drive ?? incoherentCoilDrive(guitar.coils.length);
   if (drive.coilCount !== guitar.coils.length) throw new RangeError(`measureCircuitMetrics: the drive has ${drive.coilCount} coils, the guitar ${guitar.coils.length}`);
@@ -94,41 +113,65 @@ export function measureCircuitMetrics(
   const reference = measureHumReference(prepared);
   const mains = fixedProbeAt(prepared, prepared.load.mainsHz);
   const humWeights = humFieldWeights(guitar, prepared.load);
-  // wirings grouped by network shape, shapes in order of first appearance
-  const byShape = new Map<string, number[]>();
-  wirings.forEach(({ network }, index) => {
-    const key = phaseClassKey(guitar, network);
-    const members = byShape.get(key);
-    if (members === undefined) byShape.set(key, [index]);
-    else members.push(index);
-  });
   const phases = new Float64Array(guitar.coils.length);
-  const metrics = new Array<WiringCircuitMetrics>(wirings.length);
-  for (const members of byShape.values()) {
-    const inPhase = phaseClassNetwork(guitar, (wirings[members[0] as number] as { network: Network }).network);
-    solveTransfers(prepared, inPhase, transfers);
-    const atMains = solveTransfers(mains, inPhase, probeTransfers(prepared));
-    const mainsTransfers = Float64Array.from(atMains.flatMap((transfer) => [transfer[0] as number, transfer[1] as number]));
-    for (const index of members) {
-      const network = (wirings[index] as { network: Network }).network;
-      const resonance = measureResonance(prepared, network, { drive, sampledDrive, inPhaseTransfers: transfers });
-      phaseClassSigns(guitar, network, phases);
-      // H = Σ_i m_i·h_i·B(x_i)·T_i = Σ_i p_i·m_i·h_i·B(x_i)·T_i⁰ (measure-hum.ts)
-      let re = 0;
-      let im = 0;
-      for (let c = 0; c < phases.length; c += 1) {
-        const weight = (phases[c] as number) * (humWeights[c] as number);
-        re += weight * (mainsTransfers[2 * c] as number);
-        im += weight * (mainsTransfers[2 * c + 1] as number);
+  const measureSteps = function* (wirings: readonly { readonly network: Network }[]): Steps<WiringCircuitMetrics[]> {
+    // wirings grouped by network shape, shapes in order of first appearance
+    const byShape = new Map<string, number[]>();
+    wirings.forEach(({ network }, index) => {
+      const key = phaseClassKey(guitar, network);
+      const members = byShape.get(key);
+      if (members === undefined) byShape.set(key, [index]);
+      else members.push(index);
+    });
+    const metrics = new Array<WiringCircuitMetrics>(wirings.length);
+    for (const members of byShape.values()) {
+      const inPhase = phaseClassNetwork(guitar, (wirings[members[0] as number] as { network: Network }).network);
+      solveTransfers(prepared, inPhase, transfers);
+      const atMains = solveTransfers(mains, inPhase, probeTransfers(prepared));
+      const mainsTransfers = Float64Array.from(atMains.flatMap((transfer) => [transfer[0] as number, transfer[1] as number]));
+      for (const index of members) {
+        const network = (wirings[index] as { network: Network }).network;
+        const resonance = measureResonance(prepared, network, { drive, sampledDrive, inPhaseTransfers: transfers });
+        phaseClassSigns(guitar, network, phases);
+        // H = Σ_i m_i·h_i·B(x_i)·T_i = Σ_i p_i·m_i·h_i·B(x_i)·T_i⁰ (measure-hum.ts)
+        let re = 0;
+        let im = 0;
+        for (let c = 0; c < phases.length; c += 1) {
+          const weight = (phases[c] as number) * (humWeights[c] as number);
+          re += weight * (mainsTransfers[2 * c] as number);
+          im += weight * (mainsTransfers[2 * c + 1] as number);
+        }
+        const humDb = humDecibels(Math.hypot(re, im), reference);
+        const category = humCategory(humDb);
+        metrics[index] = { ...resonance, humDb, humCategory: category, humCancelling: category === 'cancels' };
       }
-      const humDb = humDecibels(Math.hypot(re, im), reference);
-      const category = humCategory(humDb);
-      metrics[index] = { ...resonance, humDb, humCategory: category, humCancelling: category === 'cancels' };
+      yield;
     }
-  }
-  return { load: prepared.load, silent: false, points, wirings: metrics };
+    return metrics;
+  };
+  const measureGraphs = (graphs: readonly CircuitGraph[]): WiringCircuitMetrics[] =>
+    graphs.map((graph) => {
+      const graphTransfers = solveNodalTransfers(prepared, graph);
+      const resonance = measureGraphResonance(prepared, graph, { drive, sampledDrive, inPhaseTransfers: graphTransfers });
+      // H = Σ_i m_i·h_i·B(x_i)·T_i (measure-hum.ts); the graph's T_i carry their signs
+      const atMains = solveNodalTransfers(mains, graph, probeTransfers(prepared));
+      const humDb = humDecibels(humMagnitudeAt(humWeights, atMains, 0), reference);
+      const category = humCategory(humDb);
+      return { ...resonance, humDb, humCategory: category, humCancelling: category === 'cancels' };
+    });
+  return { load: prepared.load, silent: false, points, measure: (wirings) => runSteps(measureSteps(wirings)), measureSteps, measureGraphs };
 }
 
+/** Resonance, peak, Q and hum of each wiring, in the order given. Throws InputError for a bad override. */
+export function measureCircuitMetrics(
+  guitar: Guitar,
+  wirings: readonly { readonly network: Network }[],
+  overrides?: CircuitOverrides,
+  options: Partial<CircuitMetricsOptions> = {},
+): CircuitAnalysis {
+  const solver = prepareCircuitMetrics(guitar, overrides, options);
+  return { load: solver.load, silent: solver.silent, points: solver.points, wirings: solver.measure(wirings) };
+}
 
 /**
  * The same figures for connections of coil leads written out joint by joint
@@ -143,24 +186,6 @@ export function measureGraphCircuitMetrics(
   overrides?: CircuitOverrides,
   options: Partial<CircuitMetricsOptions> = {},
 ): CircuitAnalysis {
-  const { points } = { ...DEFAULT_CIRCUIT_METRICS_OPTIONS, ...options };
-  if (!Number.isInteger(points) || points < 3) throw new RangeError(`measureGraphCircuitMetrics: points must be an integer ≥ 3, got ${points}`);
-  const prepared = prepareCircuit(guitar, analysisFrequencies(points), overrides);
-  if (prepared.load.silent) return { load: prepared.load, silent: true, points, wirings: graphs.map(() => SILENT_METRICS) };
-  const drive = options.drive ?? incoherentCoilDrive(guitar.coils.length);
-  if (drive.coilCount !== guitar.coils.length) throw new RangeError(`measureGraphCircuitMetrics: the drive has ${drive.coilCount} coils, the guitar ${guitar.coils.length}`);
-  const sampledDrive = sampleCoilDrive(drive, prepared.frequenciesHz);
-  const reference = measureHumReference(prepared);
-  const mains = fixedProbeAt(prepared, prepared.load.mainsHz);
-  const humWeights = humFieldWeights(guitar, prepared.load);
-  const metrics = graphs.map((graph): WiringCircuitMetrics => {
-    const transfers = solveNodalTransfers(prepared, graph);
-    const resonance = measureGraphResonance(prepared, graph, { drive, sampledDrive, inPhaseTransfers: transfers });
-    // H = Σ_i m_i·h_i·B(x_i)·T_i (measure-hum.ts); the graph's T_i carry their signs
-    const atMains = solveNodalTransfers(mains, graph, probeTransfers(prepared));
-    const humDb = humDecibels(humMagnitudeAt(humWeights, atMains, 0), reference);
-    const category = humCategory(humDb);
-    return { ...resonance, humDb, humCategory: category, humCancelling: category === 'cancels' };
-  });
-  return { load: prepared.load, silent: false, points, wirings: metrics };
+  const solver = prepareCircuitMetrics(guitar, overrides, options);
+  return { load: solver.load, silent: solver.silent, points: solver.points, wirings: solver.measureGraphs(graphs) };
 }

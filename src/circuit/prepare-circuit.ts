@@ -53,14 +53,9 @@ export interface PreparedCircuit {
   readonly workspace: Workspace;
 }
 
-/** Fill the per-frequency arrays of `target` for the given frequencies. */
+/** Fill the per-frequency arrays of `target` for the given frequencies: the coils' Thevenin pairs, then the load. */
 function fillGrid(target: PreparedCircuit, frequenciesHz: ArrayLike<number>): void {
-  const { guitar, load } = target;
-  const bleed = load.trebleBleed;
-  const tone = load.tone;
-  const outConductance = (load.volume.bottomOhms > 0 ? 1 / load.volume.bottomOhms : 0) + 1 / load.ampResistanceOhms;
-  const outCapacitance = load.cableCapacitanceF + load.ampCapacitanceF;
-  const topConductance = load.volume.topOhms > 0 ? 1 / load.volume.topOhms : 0;
+  const { guitar } = target;
   const phasors = createCoilPhasors();
   for (let f = 0; f < frequenciesHz.length; f += 1) {
     const omega = TWO_PI * (frequenciesHz[f] as number);
@@ -77,6 +72,22 @@ function fillGrid(target: PreparedCircuit, frequenciesHz: ArrayLike<number>): vo
       impedance[re] = phasors.impedanceRe;
       impedance[im] = phasors.impedanceIm;
     }
+  }
+  fillLoad(target, frequenciesHz);
+}
+
+/** Fill the load's per-frequency admittances of `target` (they follow the knobs; the coils' pairs do not). */
+function fillLoad(target: PreparedCircuit, frequenciesHz: ArrayLike<number>): void {
+  const { load } = target;
+  const bleed = load.trebleBleed;
+  const tone = load.tone;
+  const outConductance = (load.volume.bottomOhms > 0 ? 1 / load.volume.bottomOhms : 0) + 1 / load.ampResistanceOhms;
+  const outCapacitance = load.cableCapacitanceF + load.ampCapacitanceF;
+  const topConductance = load.volume.topOhms > 0 ? 1 / load.volume.topOhms : 0;
+  for (let f = 0; f < frequenciesHz.length; f += 1) {
+    const omega = TWO_PI * (frequenciesHz[f] as number);
+    const re = 2 * f;
+    const im = re + 1;
     if (tone) {
       // jωC/(1 + jωC·R)
       const b = omega * tone.capacitorF;
@@ -156,6 +167,34 @@ export function prepareCircuit(guitar: Guitar, frequenciesHz: Float64Array, over
   const prepared = allocate(guitar, load, Float64Array.from(frequenciesHz));
   fillGrid(prepared, prepared.frequenciesHz);
   return prepared;
+}
+
+/**
+ * `prepared` with other controls, cable or amplifier (`guitar` shares
+ * `prepared.guitar`'s coils array and differs elsewhere, e.g. another tone
+ * capacitor; `overrides` are new what-ifs): the coils' Thevenin pairs depend
+ * on the coils alone, so they are shared, and only the load's admittances
+ * are computed again (a few operations per frequency instead of every
+ * coil's model). A guitar with another coils array is prepared from scratch.
+ */
+export function retuneCircuit(prepared: PreparedCircuit, guitar: Guitar, overrides?: CircuitOverrides): PreparedCircuit {
+  if (guitar.coils !== prepared.guitar.coils) return prepareCircuit(guitar, prepared.frequenciesHz, overrides);
+  const load = resolveCircuitLoad(guitar, overrides);
+  const length = 2 * prepared.frequenciesHz.length;
+  const retuned: PreparedCircuit = {
+    guitar,
+    load,
+    frequenciesHz: prepared.frequenciesHz,
+    coilSource: prepared.coilSource,
+    coilImpedance: prepared.coilImpedance,
+    hotAdmittance: new Float64Array(length),
+    bridgeAdmittance: load.volume.topOhms > 0 ? new Float64Array(length) : null,
+    outAdmittance: new Float64Array(length),
+    // The solver's scratch buffers are shared (solves run one at a time); probes belong to one load, so they are not.
+    workspace: { ...makeWorkspace(guitar), buffers: prepared.workspace.buffers },
+  };
+  fillLoad(retuned, retuned.frequenciesHz);
+  return retuned;
 }
 
 /** The one-frequency copy of `prepared`, retuned to `frequencyHz` (for metrics between grid points). */

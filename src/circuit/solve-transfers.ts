@@ -158,6 +158,9 @@ function multiplyInPlace(target: Float64Array, factor: Float64Array, length: num
  * coils the wiring does not use, and for every coil when the volume is at 0.
  * Writes into `out` when given (no allocation per call once warmed up).
  *
+ * T_i = S_i·G: the wiring's open-circuit source factors S_i
+ * (`solveSourceFactors`) times the load's gain G (`solveLoadGain`).
+ *
  * A wiring that holds both coils of a coupled pair (coil-coupling.ts) has no
  * series–parallel reduction: it is solved by nodal analysis of its layout
  * (solve-nodal.ts), with the same conventions.
@@ -169,20 +172,61 @@ export function solveTransfers(prepared: PreparedCircuit, network: Network, out?
   const length = 2 * prepared.frequenciesHz.length;
   const coils = prepared.guitar.coils.length;
   const result = out ?? Array.from({ length: coils }, () => new Float64Array(length));
-  let fits = result.length === coils;
-  for (let c = 0; fits && c < coils; c += 1) fits = (result[c] as Float64Array).length === length;
+  const workspace = prepared.workspace;
+  workspace.top = 0;
+  const impedance = acquire(workspace, length);
+  const used = solveSourceFactorsInto(prepared, network, result, impedance);
+  if (prepared.load.silent) {
+    for (const array of result) array.fill(0);
+    workspace.top = 0;
+    return result;
+  }
+  solveLoadGain(prepared, impedance, impedance);
+  for (let c = 0; c < coils; c += 1) if (used[c] === 1) multiplyInPlace(result[c] as Float64Array, impedance, length);
+  workspace.top = 0;
+  return result;
+}
+
+/**
+ * The wiring as a Thevenin source seen from its two output leads, before
+ * any load (steps 1 and 2 above): per coil the factor S_i(f) taking its
+ * string EMF to the open-circuit voltage (p_i included; zeros for unused
+ * coils), written into `out`, and the wiring's impedance Z(f) into
+ * `impedance`. Neither depends on the knobs, cable or amplifier. Returns
+ * which coils the wiring uses (1) or not (0), a buffer valid until the next
+ * solve. Only for series–parallel wirings (`usesCoupledCoils` false).
+ */
+export function solveSourceFactors(prepared: PreparedCircuit, network: Network, out: Float64Array[], impedance: Float64Array): Uint8Array {
+  if (usesCoupledCoils(prepared.guitar, network)) throw new RangeError('solveSourceFactors: a wiring with both coils of a coupled pair has no series–parallel source; use solveTransfers');
+  prepared.workspace.top = 0;
+  const used = solveSourceFactorsInto(prepared, network, out, impedance);
+  prepared.workspace.top = 0;
+  return used;
+}
+
+function solveSourceFactorsInto(prepared: PreparedCircuit, network: Network, out: Float64Array[], impedance: Float64Array): Uint8Array {
+  const length = 2 * prepared.frequenciesHz.length;
+  const coils = prepared.guitar.coils.length;
+  let fits = out.length === coils && impedance.length === length;
+  for (let c = 0; fits && c < coils; c += 1) fits = (out[c] as Float64Array).length === length;
   if (!fits) throw new RangeError(`solveTransfers: out must hold ${coils} arrays of length ${length}`);
   const workspace = prepared.workspace;
   workspace.used.fill(0);
-  workspace.top = 0;
-  const state: SolveState = { prepared, out: result, length, coilCount: 0, boundaryCount: 0 };
-  const impedance = acquire(workspace, length);
+  const state: SolveState = { prepared, out, length, coilCount: 0, boundaryCount: 0 };
   evaluate(state, network, impedance);
-  if (prepared.load.silent) {
-    for (const array of result) array.fill(0);
-    return result;
-  }
-  // The load: G = v_o/V, written over the impedance buffer.
+  for (let c = 0; c < coils; c += 1) if (workspace.used[c] === 0) (out[c] as Float64Array).fill(0);
+  return workspace.used;
+}
+
+/**
+ * The load's gain G(f) = v_o/V for a wiring of impedance Z(f) (step 3 above),
+ * written into `gain` (which may be `impedance` itself). All zeros when the
+ * volume is at 0. One complex solve per frequency: the part of a transfer
+ * that follows the knobs, cable and amplifier.
+ */
+export function solveLoadGain(prepared: PreparedCircuit, impedance: Float64Array, gain: Float64Array): Float64Array {
+  const length = 2 * prepared.frequenciesHz.length;
+  if (prepared.load.silent) return gain.fill(0);
   const hot = prepared.hotAdmittance;
   const outY = prepared.outAdmittance;
   const bridge = prepared.bridgeAdmittance;
@@ -216,13 +260,8 @@ export function solveTransfers(prepared: PreparedCircuit, network: Network, out?
       di = hr * oi + hi * or + (br * ti + bi * tr);
     }
     const dn = dr * dr + di * di;
-    impedance[i] = (nr * dr + ni * di) / dn;
-    impedance[i + 1] = (ni * dr - nr * di) / dn;
+    gain[i] = (nr * dr + ni * di) / dn;
+    gain[i + 1] = (ni * dr - nr * di) / dn;
   }
-  for (let s = 0; s < state.coilCount; s += 1) {
-    multiplyInPlace(result[workspace.coilStack[s] as number] as Float64Array, impedance, length);
-  }
-  for (let c = 0; c < coils; c += 1) if (workspace.used[c] === 0) (result[c] as Float64Array).fill(0);
-  workspace.top = 0;
-  return result;
+  return gain;
 }

@@ -23,8 +23,8 @@ const RENDER_SECONDS_PER_AUDIO_SECOND = 0.046;
 const ANALYZE_AUDIO_SECONDS_PER_WIRING = 0.0007;
 /** Seconds per wiring of a render that writes no WAV (figures, circuit figures, response curve, netlist: about 2 ms; `npm run bench -- commands` with BENCH_BIG=1). */
 const RENDER_NO_WAV_SECONDS_PER_WIRING = 0.002;
-/** Seconds of circuit figures and groups per wiring in `analyze --no-audio` (about 0.25 ms; 9,997 wirings in about 2.5 s measured by the property suite's timing). */
-const ANALYZE_CIRCUIT_SECONDS_PER_WIRING = 0.00025;
+/** Seconds of circuit figures, level and groups per wiring in `analyze --no-audio` (about 1.5 ms: the six-element sample's 228,386 wirings took 326 s of processor time on a loaded 2-core machine; coupled humbucker coils go through the slower nodal solver). */
+const ANALYZE_CIRCUIT_SECONDS_PER_WIRING = 0.0015;
 /** Work longer than this is announced first, seconds. */
 export const ANNOUNCE_SECONDS = 30;
 /** Writing more than this is announced first, bytes (1 GB). */

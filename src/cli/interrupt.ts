@@ -5,15 +5,18 @@
  * to resume, and exits with status 130. The clean-up never throws: a worker
  * thread still writing into the scratch folder is retried, and whatever it
  * cannot remove is removed by the next run. A second Ctrl-C while the first
- * is being handled exits at once.
+ * is being handled exits at once. Writes in flight are let reach a safe
+ * point first (settleAtomicWrites: at most SETTLE_LIMIT_MS), so none creates
+ * its temporary file after the clean-up.
  *
- * Limits: Node runs signal handlers between tasks, so during a long
- * synchronous computation (a big `analyze`) the interrupt takes effect when
- * that step ends; nothing is being written then, so nothing can be left half
- * done.
+ * Node runs signal handlers between tasks, so long computations pause
+ * every PAUSE_INTERVAL_MS (pause-for-signals.ts) to let the handler in.
  */
-import { releaseFolderLocksSync, removePendingTempFilesSync, removeScratchFoldersSync } from '../render/index.js';
+import { releaseFolderLocksSync, removePendingTempFilesSync, removeScratchFoldersSync, settleAtomicWrites } from '../render/index.js';
 import { EXIT_INTERRUPTED } from './describe-error.js';
+
+/** Most time an interrupt waits for writes in flight to reach a safe point, ms (each is one open, write, fsync or rename: milliseconds; judgement). */
+const SETTLE_LIMIT_MS = 2000;
 
 /** The message printed on interruption. */
 export const INTERRUPTED_MESSAGE =
@@ -61,9 +64,14 @@ export function installInterruptHandlers(
       return;
     }
     interrupting = true;
-    const clean = removeLeftoversSync();
-    target.writeError(`\n${INTERRUPTED_MESSAGE}${clean ? '' : ' (some scratch files were still in use; the next run removes them)'}\n`);
-    target.exit(EXIT_INTERRUPTED);
+    const finish = (): void => {
+      const clean = removeLeftoversSync();
+      target.writeError(`\n${INTERRUPTED_MESSAGE}${clean ? '' : ' (some scratch files were still in use; the next run removes them)'}\n`);
+      target.exit(EXIT_INTERRUPTED);
+    };
+    // Writes in flight first reach a safe point (their temporary file removed or renamed), then the rest is removed.
+    const limit = new Promise<void>((resolve) => setTimeout(resolve, SETTLE_LIMIT_MS).unref());
+    void Promise.race([settleAtomicWrites(), limit]).then(finish, finish);
   };
   target.on('SIGINT', handle);
   target.on('SIGTERM', handle);

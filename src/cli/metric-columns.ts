@@ -15,8 +15,9 @@ export function formatHumDb(hum: number | null): string {
 
 export interface WiringAudioMetrics {
   readonly levelDb: number;
-  readonly loudnessLufs: number;
-  readonly centroidHz: number;
+  /** Null when the wiring was not rendered (a streamed analysis of six elements: level from band spectra, stream-analysis.ts). */
+  readonly loudnessLufs: number | null;
+  readonly centroidHz: number | null;
 }
 
 /**
@@ -247,10 +248,20 @@ function csvField(value: CellValue): string {
   return /[",\r\n]/u.test(text) ? `"${text.replace(/"/gu, '""')}"` : text;
 }
 
+/** The CSV header line (no line end). */
+export function renderCsvHeader(columns: readonly MetricColumn[] = METRIC_COLUMNS): string {
+  return columns.map((column) => csvField(column.key)).join(',');
+}
+
+/** One CSV row (no line end). */
+export function renderCsvRow(row: AnalyzedWiring, columns: readonly MetricColumn[] = METRIC_COLUMNS): string {
+  return columns.map((column) => csvField(column.value(row))).join(',');
+}
+
 /** CSV text with every column, header first, CRLF line ends (RFC 4180). */
 export function renderCsv(rows: readonly AnalyzedWiring[], columns: readonly MetricColumn[] = METRIC_COLUMNS): string {
-  const lines = [columns.map((column) => csvField(column.key)).join(',')];
-  for (const row of rows) lines.push(columns.map((column) => csvField(column.value(row))).join(','));
+  const lines = [renderCsvHeader(columns)];
+  for (const row of rows) lines.push(renderCsvRow(row, columns));
   return `${lines.join('\r\n')}\r\n`;
 }
 
@@ -258,11 +269,21 @@ function markdownCell(text: string): string {
   return escapeMarkdown(text);
 }
 
-/** A Markdown (GitHub-flavoured) table of the Markdown columns. */
-export function renderMarkdownTable(rows: readonly AnalyzedWiring[], columns: readonly MetricColumn[] = METRIC_COLUMNS): string {
+/** The header and rule lines of the Markdown table (no line end after the rule). */
+export function renderMarkdownHeader(columns: readonly MetricColumn[] = METRIC_COLUMNS): string {
   const shown = columns.filter((column) => column.markdown);
   const header = `| ${shown.map((column) => column.title.replace(/\|/gu, '\\|')).join(' | ')} |`; // our own titles: only the cell separator escaped
   const rule = `|${shown.map((column) => (column.align === 'right' ? ' ---: ' : ' --- ')).join('|')}|`;
-  const body = rows.map((row) => `| ${shown.map((column) => markdownCell(column.text(row))).join(' | ')} |`);
-  return [header, rule, ...body].join('\n') + '\n';
+  return `${header}\n${rule}`;
+}
+
+/** One row of the Markdown table (no line end). */
+export function renderMarkdownRow(row: AnalyzedWiring, columns: readonly MetricColumn[] = METRIC_COLUMNS): string {
+  return `| ${columns.filter((column) => column.markdown).map((column) => markdownCell(column.text(row))).join(' | ')} |`;
+}
+
+/** A Markdown (GitHub-flavoured) table of the Markdown columns. */
+export function renderMarkdownTable(rows: readonly AnalyzedWiring[], columns: readonly MetricColumn[] = METRIC_COLUMNS): string {
+  const body = rows.map((row) => renderMarkdownRow(row, columns));
+  return [renderMarkdownHeader(columns), ...body].join('\n') + '\n';
 }

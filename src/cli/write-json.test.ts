@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { writeJson } from './write-json.js';
+import { mapIterable, writeJson, writeJsonPausing } from './write-json.js';
 
 const written = (value: unknown): { text: string; writes: number } => {
   let text = '';
@@ -31,5 +31,20 @@ describe('writeJson', () => {
     const { text, writes } = written({ wirings: long });
     expect(writes).toBeGreaterThan(3);
     expect(JSON.parse(text)).toEqual({ wirings: long });
+  });
+
+  it('prints a streamed array (items made as they are written) exactly as JSON.stringify prints the array, pausing between items', async () => {
+    const items = Array.from({ length: 1000 }, (_, i) => ({ id: `w${i + 1}`, coils: ['a'], n: i / 7 }));
+    for (const value of [items, items.slice(0, 3), []]) {
+      const document = { guitar: 'g', count: value.length, wirings: value };
+      let text = '';
+      let pauses = 0;
+      await writeJsonPausing({ ...document, wirings: mapIterable(value, (item) => ({ ...item })) }, (part) => (text += part), async () => {
+        pauses += 1;
+      });
+      expect(text).toBe(`${JSON.stringify(document, null, 2)}\n`);
+      expect(pauses).toBeGreaterThanOrEqual(value.length);
+      expect(written({ wirings: mapIterable(value, (item) => item) }).text).toBe(`${JSON.stringify({ wirings: value }, null, 2)}\n`);
+    }
   });
 });

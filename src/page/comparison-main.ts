@@ -6,18 +6,23 @@
  * another set on a row while it plays switches sets at the same point in the
  * phrase (one player, one clock, the player's crossfade), at matched level
  * (each render's own measured loudness) unless the listener asks for true
- * level; the blind test hides which set is which. Every string from the
+ * level; the blind test hides which set is which. The knobs (the listening
+ * page's, knob-fields.ts) apply to every set: a knob the listener moves
+ * replaces each set's own setting, the others stay as each set was rendered.
+ * Every string from the
  * guitar files reaches the document through textContent or attributes.
  */
 import type { ComparisonEntry, ComparisonRow } from '../report/index.js';
 import { type Wiring, enumerateWirings } from '../wiring/index.js';
 import { createBlindTest } from './blind-test.js';
+import { RENDERS_KEPT, createRenderCache } from './render-cache.js';
 import { type ComparisonPageData, encodeSignal } from './page-data.js';
 import { loopsByDefault, playbackGainDb, MATCHED_LOUDNESS_LUFS } from './page-math.js';
 import { formatDb } from './page-words.js';
 import { type Playable, createPlayer } from './player.js';
 import { byId, connectTransport } from './transport-bar.js';
-import { type RenderedWiring, type WiringEngine, createWiringEngine } from './wiring-engine.js';
+import { connectKnobFields, knobsForSet } from './knob-fields.js';
+import { type Knobs, type RenderedWiring, type WiringEngine, createWiringEngine, renderKey } from './wiring-engine.js';
 
 
 const data = JSON.parse(byId('comparison-data').textContent ?? '{}') as ComparisonPageData;
@@ -45,30 +50,37 @@ const trueGainDb = ((): number => {
 
 let matched = true;
 const ui = { row: report.rows[0]?.key ?? null, set: 0 };
-const renders = new Map<string, Promise<RenderedWiring>>();
-const played = new Map<string, RenderedWiring>();
 
 const player = createPlayer({
   sampleRateHz: first.sampleRateHz,
   volume: Number(byId<HTMLInputElement>('volume').value),
   gainDb: (playable) => {
-    const render = played.get(playable.key);
+    const render = cache.played(playable.key);
     return render ? playbackGainDb(render, matched || blind.isRunning(), trueGainDb) : 0;
   },
 });
+const cache = createRenderCache(RENDERS_KEPT, () => player.soundingKeys());
 
-/** The render of entry `id` on its set's engine at the render's knobs (made once, kept: a comparison has few rows). */
+/** The knobs' bar starts at the baseline set's render knobs; what the listener moves applies to every set. */
+const shownKnobs: Knobs = first.renderKnobs;
+let movedKnobs: Knobs = shownKnobs;
+
+/** The knobs entry `id`'s set renders at now. */
+function knobsOf(id: string): Knobs | null {
+  const entry = entries.get(id);
+  const engine = entry ? engines[entry.set] : undefined;
+  return engine ? knobsForSet(engine.renderKnobs, shownKnobs, movedKnobs) : null;
+}
+
+
+/** The render of entry `id` on its set's engine at the knobs (kept for the last RENDERS_KEPT settings and entries). */
 function renderOf(id: string): Promise<RenderedWiring> {
-  let pending = renders.get(id);
-  if (pending) return pending;
   const entry = entries.get(id);
   const engine = entry ? engines[entry.set] : undefined;
   const wiring = entry ? wiringsOfSet[entry.set]?.get(entry.wiringId) : undefined;
-  if (!entry || !engine || !wiring) return Promise.reject(new Error(`no wiring ${id} on this page`));
-  pending = engine.render(id, wiring.network, engine.renderKnobs).then((render) => ({ ...render, key: id }));
-  renders.set(id, pending);
-  pending.then((render) => played.set(id, render)).catch(() => renders.delete(id));
-  return pending;
+  const knobs = knobsOf(id);
+  if (!entry || !engine || !wiring || !knobs) return Promise.reject(new Error(`no wiring ${id} on this page`));
+  return cache.render(renderKey(id, knobs), () => engine.render(id, wiring.network, knobs));
 }
 
 function playableOf(render: RenderedWiring, sampleRateHz: number): Playable {
@@ -192,6 +204,19 @@ connectTransport({
   changed: () => updateLabels(),
 });
 
+/* ---------- knobs ---------- */
+
+/** The entry id a render key names (renderKey: `<id>@<knobs>`). */
+function idOfKey(key: string | null): string | null {
+  return key === null ? null : key.slice(0, key.indexOf('@'));
+}
+
+connectKnobFields(shownKnobs, (now) => {
+  movedKnobs = now;
+  const id = blind.isRunning() ? idOfKey(player.current()?.key ?? null) : entryOf(ui.row, ui.set);
+  if (id !== null && player.current() !== null) void choose(id, false);
+});
+
 /* ---------- blind test ---------- */
 
 const blind = createBlindTest({
@@ -246,8 +271,11 @@ byId<HTMLButtonElement>('transport-play').disabled = false;
 (window as unknown as { coilbenchComparison: unknown }).coilbenchComparison = Object.freeze({
   position: () => player.position(),
   isPlaying: () => player.isPlaying(),
-  currentId: () => player.current()?.key ?? null,
-  soundingIds: () => player.soundingKeys(),
+  currentId: () => idOfKey(player.current()?.key ?? null),
+  soundingIds: () => player.soundingKeys().map(idOfKey),
+  /** The sounding renders' keys: entry id and knob settings. */
+  soundingKeys: () => player.soundingKeys(),
+  knobs: () => movedKnobs,
   blindScore: () => blind.score(),
   /** Render entry `id` as the page plays it: processed samples (base64 float32), loudness, and the playback gain in each level mode. */
   async render(id: string) {

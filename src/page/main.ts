@@ -7,10 +7,12 @@
  * guitar file reaches the document through textContent or attributes.
  */
 import { measureCentroid } from '../analysis/index.js';
-import { type ChainName, CHAIN_NAMES, encodeWav } from '../render/portable/index.js';
+import { encodeWav } from '../render/portable/index.js';
 import { type Wiring, enumerateWirings, makeWiring, parseWiring, printNetwork, canonicalize, vocabularyOf } from '../wiring/index.js';
 import type { ReportWiring } from '../report/index.js';
 import { createBlindTest } from './blind-test.js';
+import { RENDERS_KEPT, createRenderCache } from './render-cache.js';
+import { connectKnobFields } from './knob-fields.js';
 import { type PageData, decodeCoilDrive, encodeSignal } from './page-data.js';
 import { loopsByDefault, matchesSearch, playbackGainDb, MATCHED_LOUDNESS_LUFS } from './page-math.js';
 import { brightnessScale, describePeak, formatDb, formatHz, humVerdict, HUM_VERDICT_WORDS } from './page-words.js';
@@ -19,13 +21,8 @@ import { TICK_MS, byId, connectTransport } from './transport-bar.js';
 import { createResponsePlot } from './response-plot.js';
 import { responseCurve } from './response-curve.js';
 import { type Knobs, type RenderedWiring, createWiringEngine, overridesOf, guitarWithKnobs, renderKey } from './wiring-engine.js';
-import { type ListRow, createWiringList } from './wiring-list.js';
+import { type ListRow, type WiringList, createWiringList } from './wiring-list.js';
 
-/** Renders kept ready to play (each a few MB of float32; our own bound). */
-const RENDERS_KEPT = 24;
-/** Farads per nanofarad and picofarad (the knob fields' units). */
-const NANO = 1e-9;
-const PICO = 1e-12;
 
 
 const data = JSON.parse(byId('page-data').textContent ?? '{}') as PageData;
@@ -33,50 +30,44 @@ const { guitar, report } = data;
 performance.mark('coilbench-data');
 const engine = createWiringEngine({ ...data, chain: report.render.chain });
 performance.mark('coilbench-engine');
-const wirings: Wiring[] = enumerateWirings(guitar.elements);
-const reported = new Map<string, ReportWiring>(report.wirings.map((wiring) => [wiring.id, wiring]));
-const byKey = new Map<string, Wiring>(wirings.map((wiring) => [wiring.id, wiring]));
+// The list of every wiring is built after the first wiring is ready to sound (see "start" below).
+let wirings: Wiring[] = [];
+// The wirings' figures follow the page's script in the document (#page-wirings): read with the list.
+const reported = new Map<string, ReportWiring>();
+const byKey = new Map<string, Wiring>();
 const ids = guitar.elements.map((element) => element.id);
 const vocabulary = vocabularyOf(guitar);
-const scale = brightnessScale(report.wirings.map((wiring) => wiring.centroidHz));
-const singleLoudness = report.wirings.filter((wiring) => wiring.coils.length === 1).map((wiring) => wiring.loudnessLufs).filter(Number.isFinite);
-/** True level: one common gain putting the mean single coil at the matched loudness. */
-const trueGainDb = singleLoudness.length ? MATCHED_LOUDNESS_LUFS - singleLoudness.reduce((a, b) => a + b, 0) / singleLoudness.length : 0;
+let scale = brightnessScale([]);
+/** True level: one common gain putting the mean single coil at the matched loudness (set when the figures are read; until then Play is level matched). */
+let trueGainDb = 0;
+
+/** Read the wirings' figures: the brightness scale and the true-level gain follow from them. */
+function readFigures(): void {
+  const figures = JSON.parse(byId('page-wirings').textContent ?? '[]') as ReportWiring[];
+  for (const wiring of figures) reported.set(wiring.id, wiring);
+  scale = brightnessScale(figures.map((wiring) => wiring.centroidHz));
+  const singleLoudness = figures.filter((wiring) => wiring.coils.length === 1).map((wiring) => wiring.loudnessLufs).filter(Number.isFinite);
+  trueGainDb = singleLoudness.length ? MATCHED_LOUDNESS_LUFS - singleLoudness.reduce((a, b) => a + b, 0) / singleLoudness.length : 0;
+}
 
 let knobs: Knobs = engine.renderKnobs;
 let matched = true;
 let currentWiring: Wiring | null = null;
 let previous: { wiring: Wiring; loudness: number } | null = null;
-const plotted: string[] = wirings.filter((wiring) => wiring.elements.length === 1).slice(0, 4).map((wiring) => wiring.id);
-const renders = new Map<string, Promise<RenderedWiring>>();
-const played = new Map<string, RenderedWiring>();
+const plotted: string[] = [];
 
 const player = createPlayer({
   sampleRateHz: engine.sampleRateHz,
   volume: Number(byId<HTMLInputElement>('volume').value),
   gainDb: (playable) => {
-    const render = played.get(playable.key);
+    const render = cache.played(playable.key);
     return render ? playbackGainDb(render, matched || blind.isRunning(), trueGainDb) : 0;
   },
 });
+const cache = createRenderCache(RENDERS_KEPT, () => player.soundingKeys());
 
 function renderOf(wiring: Wiring, at: Knobs): Promise<RenderedWiring> {
-  const key = renderKey(wiring.expression, at);
-  let pending = renders.get(key);
-  if (pending) {
-    renders.delete(key);
-    renders.set(key, pending);
-    return pending;
-  }
-  pending = engine.render(wiring.expression, wiring.network, at);
-  renders.set(key, pending);
-  pending.then((render) => played.set(key, render)).catch(() => renders.delete(key));
-  while (renders.size > RENDERS_KEPT) {
-    const oldest = renders.keys().next().value as string;
-    renders.delete(oldest);
-    if (!player.soundingKeys().includes(oldest)) played.delete(oldest);
-  }
-  return pending;
+  return cache.render(renderKey(wiring.expression, at), () => engine.render(wiring.expression, wiring.network, at));
 }
 
 function playableOf(render: RenderedWiring): Playable {
@@ -91,11 +82,11 @@ let request = 0;
 async function choose(wiring: Wiring, start: boolean): Promise<void> {
   const mine = (request += 1);
   if (currentWiring && currentWiring.id !== wiring.id) {
-    const before = played.get(renderKey(currentWiring.expression, knobs));
+    const before = cache.played(renderKey(currentWiring.expression, knobs));
     if (before) previous = { wiring: currentWiring, loudness: before.loudnessLufs };
   }
   currentWiring = wiring;
-  list.setCurrent(wiring.id, false);
+  list?.setCurrent(wiring.id, false);
   byId('now-detail').textContent = 'rendering\u2026';
   try {
     const render = await renderOf(wiring, knobs);
@@ -115,7 +106,8 @@ const positionsOf = new Map<string, string[]>();
 for (const position of report.positions ?? []) {
   if (position.wiringId !== null) positionsOf.set(position.wiringId, [...(positionsOf.get(position.wiringId) ?? []), `position ${position.position}`]);
 }
-const listed: Wiring[] = positionsOf.size > 0 ? [...positionsOf.keys()].flatMap((id) => byKey.get(id) ?? []) : wirings;
+/** The rows of the list: every wiring, or a switch plan's positions' wirings (set when the list is built). */
+let listed: Wiring[] = [];
 
 function rowOf(wiring: Wiring): ListRow {
   const where = positionsOf.get(wiring.id);
@@ -134,30 +126,52 @@ function rowOf(wiring: Wiring): ListRow {
   };
 }
 
-const list = createWiringList(byId('wiring-list'), listed.map(rowOf), {
-  play: (id) => {
-    const wiring = byKey.get(id);
-    if (!wiring) return;
-    if (currentWiring?.id === id && player.isPlaying()) player.pause();
-    else void choose(wiring, true);
-  },
-  plot: (id, on) => {
-    const at = plotted.indexOf(id);
-    if (on && at < 0) plotted.push(id);
-    if (!on && at >= 0) plotted.splice(at, 1);
-    drawPlot();
-    fillBlindChoices();
-  },
-  plotted: (id) => plotted.includes(id),
-});
+let list: WiringList | null = null;
 
 function search(): void {
+  if (!list) return;
   const shown = list.filter(byId<HTMLInputElement>('search').value);
   byId('shown-count').textContent = `Showing ${shown} of ${listed.length}`;
 }
 byId('search').addEventListener('input', search);
 
-performance.mark('coilbench-list');
+/** Enumerate every wiring (the command line's enumerator) and build the list, the plot and the blind test's choices. */
+function buildList(): void {
+  readFigures();
+  wirings = enumerateWirings(guitar.elements);
+  for (const wiring of wirings) byKey.set(wiring.id, wiring);
+  listed = positionsOf.size > 0 ? [...positionsOf.keys()].flatMap((id) => byKey.get(id) ?? []) : wirings;
+  for (const wiring of wirings.filter((candidate) => candidate.elements.length === 1).slice(0, 4)) plotted.push(wiring.id);
+  list = createWiringList(byId('wiring-list'), listed.map(rowOf), {
+    play: (id) => {
+      const wiring = byKey.get(id);
+      if (!wiring) return;
+      if (currentWiring?.id === id && player.isPlaying()) player.pause();
+      else void choose(wiring, true);
+    },
+    plot: (id, on) => {
+      const at = plotted.indexOf(id);
+      if (on && at < 0) plotted.push(id);
+      if (!on && at >= 0) plotted.splice(at, 1);
+      drawPlot();
+      fillBlindChoices();
+    },
+    plotted: (id) => plotted.includes(id),
+  });
+  // The wiring prepared before the list existed is the list's first row: take the list's own record of it.
+  const opened = currentWiring ? wirings.find((wiring) => wiring.expression === currentWiring?.expression) : undefined;
+  if (opened) {
+    currentWiring = opened;
+    list.setCurrent(opened.id, false);
+  }
+  search();
+  drawPlot();
+  fillBlindChoices();
+  updateLabels();
+  performance.mark('coilbench-list');
+}
+
+
 
 /* ---------- typing an expression ---------- */
 
@@ -178,37 +192,18 @@ byId<HTMLFormElement>('expression-form').addEventListener('submit', (event) => {
 
 /* ---------- knobs ---------- */
 
-function readKnobs(): Knobs {
-  const volume = Number(byId<HTMLInputElement>('knob-volume').value);
-  const tone = guitar.controls.tone ? Number(byId<HTMLInputElement>('knob-tone').value) : null;
-  const capacitor = guitar.controls.tone ? Number(byId<HTMLInputElement>('knob-tone-capacitor').value) * NANO : null;
-  const cable = Number(byId<HTMLInputElement>('knob-cable').value) * PICO;
-  const chain = byId<HTMLSelectElement>('knob-chain').value as ChainName;
-  return {
-    volumeSetting: volume,
-    toneSetting: tone,
-    toneCapacitorF: capacitor !== null && capacitor > 0 ? capacitor : knobs.toneCapacitorF,
-    cableCapacitanceF: cable > 0 ? cable : knobs.cableCapacitanceF,
-    chain: CHAIN_NAMES.includes(chain) ? chain : knobs.chain,
-  };
-}
-
-function knobsChanged(): void {
-  knobs = readKnobs();
-  byId('knob-volume-value').textContent = knobs.volumeSetting.toFixed(1);
-  if (guitar.controls.tone) byId('knob-tone-value').textContent = (knobs.toneSetting ?? 0).toFixed(1);
+const knobFields = connectKnobFields(knobs, (now) => {
+  knobs = now;
   drawPlot();
   if (currentWiring) void choose(currentWiring, false);
-}
-byId('knobs').addEventListener('input', knobsChanged);
-byId('knobs').addEventListener('submit', (event) => event.preventDefault());
+});
 
 /* ---------- transport ---------- */
 
 function levelNote(): string {
   if (blind.isRunning()) return 'Blind test: level matched, names hidden.';
   const wiring = currentWiring;
-  const render = wiring ? played.get(renderKey(wiring.expression, knobs)) : undefined;
+  const render = wiring ? cache.played(renderKey(wiring.expression, knobs)) : undefined;
   if (!wiring || !render) return matched ? 'Level matched.' : 'True level.';
   let note = `${matched ? 'Level matched' : 'True level'}. This render: ${render.loudnessLufs.toFixed(1).replace('-', '\u2212')} LUFS before playback gain`;
   if (previous && previous.wiring.id !== wiring.id && Number.isFinite(previous.loudness) && Number.isFinite(render.loudnessLufs)) {
@@ -235,7 +230,7 @@ function togglePlayback(): void {
     player.pause();
     return;
   }
-  const wiring = currentWiring ?? byKey.get(list.shown()[0] ?? '');
+  const wiring = currentWiring ?? byKey.get(list?.shown()[0] ?? '');
   if (wiring) void choose(wiring, true);
 }
 const updateTime = connectTransport({
@@ -295,7 +290,7 @@ function drawPlot(): void {
 }
 document.querySelector('[data-action="clear-plot"]')?.addEventListener('click', () => {
   plotted.splice(0);
-  list.refresh();
+  list?.refresh();
   drawPlot();
 });
 
@@ -337,6 +332,7 @@ function fillBlindChoices(): void {
 /* ---------- keyboard ---------- */
 
 function step(delta: number): void {
+  if (!list) return;
   const shown = list.shown();
   if (shown.length === 0) return;
   const index = currentWiring ? shown.indexOf(currentWiring.id) : -1;
@@ -364,64 +360,84 @@ document.addEventListener('keydown', (event) => {
 
 /* ---------- start ---------- */
 
-const chainSelect = byId<HTMLSelectElement>('knob-chain');
-chainSelect.replaceChildren(
-  ...CHAIN_NAMES.map((name) => {
-    const option = document.createElement('option');
-    option.value = name;
-    option.textContent = name;
-    return option;
-  }),
-);
-chainSelect.value = knobs.chain;
-
 byId<HTMLInputElement>('loop-on').checked = loopsByDefault(engine.length / engine.sampleRateHz);
 applyLoop();
-search();
-drawPlot();
-fillBlindChoices();
 updateLabels();
 updateTime();
-byId<HTMLButtonElement>('transport-play').disabled = false;
-performance.mark('coilbench-ready');
+
+// First sound first: the wiring Play starts (the report's first wiring, the list's first row) is rendered before the
+// wirings' figures are read and the list of every wiring is built, so Play sounds as soon as the page can; the list
+// follows once the document is parsed (its figures come after this script).
+const opening = data.opening ? makeWiring(canonicalize(parseWiring(data.opening.expression, vocabulary, 'opening.expression')), ids, data.opening.number) : null;
+if (opening) currentWiring = opening;
+const openingRender = opening ? renderOf(opening, knobs) : Promise.resolve(null);
+void openingRender
+  .then(() => {
+    byId<HTMLButtonElement>('transport-play').disabled = false;
+    performance.mark('coilbench-first-sound');
+    updateLabels();
+  })
+  .finally(() => {
+    const finish = (): void => {
+      buildList();
+      byId<HTMLButtonElement>('transport-play').disabled = false;
+      exposeTestView();
+      performance.mark('coilbench-ready');
+    };
+    if (document.readyState === 'loading') document.addEventListener('DOMContentLoaded', () => setTimeout(finish, 0), { once: true });
+    else setTimeout(finish, 0);
+  });
 
 /** Float32 samples as base64 (the page's own coil-signal codec), for tests that compare hosts. */
 function samplesToBase64(samples: Float32Array): string {
   return encodeSignal(samples);
 }
 
-/** Read-only view and test hooks: the page's own rendering path, for the cross-host checks. */
-(window as unknown as { coilbenchPage: unknown }).coilbenchPage = Object.freeze({
-  position: () => player.position(),
-  isPlaying: () => player.isPlaying(),
-  currentExpression: () => currentWiring?.expression ?? null,
-  soundingKeys: () => player.soundingKeys(),
-  blindScore: () => blind.score(),
-  wiringCount: () => wirings.length,
-  knobs: () => knobs,
-  /** Render `expression` at the knobs (render knobs overridden by `changes`): processed samples (base64 float32), loudness, centroid, peak. */
-  async render(expression: string, changes: Partial<Knobs> = {}) {
-    const network = canonicalize(parseWiring(expression, vocabulary, 'expression'));
-    const at = { ...engine.renderKnobs, ...changes };
-    const rendered = await engine.render(printNetwork(network, ids), network, at);
-    return {
-      samples: samplesToBase64(rendered.samples),
-      loudnessLufs: rendered.loudnessLufs,
-      centroidHz: measureCentroid(rendered.samples, engine.sampleRateHz),
-      peak: rendered.peak,
-      matchedGainDb: playbackGainDb(rendered, true, trueGainDb),
-    };
-  },
-  /** The direct signal of `expression` at the render's knobs (base64 float32): the synthesis alone, for the cross-host checks. */
-  direct(expression: string): string {
-    const network = canonicalize(parseWiring(expression, vocabulary, 'expression'));
-    return samplesToBase64(engine.synthesize(network, engine.renderKnobs));
-  },
-  /** Playback gain the page gives the render of `expression` at the current knobs, dB (null before it is rendered). */
-  gainDb: (expression: string) => {
-    const render = played.get(renderKey(expression, knobs));
-    return render ? playbackGainDb(render, matched || blind.isRunning(), trueGainDb) : null;
-  },
-  loudnessOf: (expression: string) => played.get(renderKey(expression, knobs))?.loudnessLufs ?? null,
-  matchesSearch,
-});
+/** Read-only view and test hooks: the page's own rendering path, for the cross-host checks (set once the list is built). */
+function exposeTestView(): void {
+  (window as unknown as { coilbenchPage: unknown }).coilbenchPage = Object.freeze({
+    position: () => player.position(),
+    isPlaying: () => player.isPlaying(),
+    currentExpression: () => currentWiring?.expression ?? null,
+    soundingKeys: () => player.soundingKeys(),
+    blindScore: () => blind.score(),
+    wiringCount: () => wirings.length,
+    knobs: () => knobFields.knobs(),
+    /** Render `expression` at the knobs (render knobs overridden by `changes`): processed samples (base64 float32), loudness, centroid, peak. */
+    async render(expression: string, changes: Partial<Knobs> = {}) {
+      const network = canonicalize(parseWiring(expression, vocabulary, 'expression'));
+      const at = { ...engine.renderKnobs, ...changes };
+      const rendered = await engine.render(printNetwork(network, ids), network, at);
+      return {
+        samples: samplesToBase64(rendered.samples),
+        loudnessLufs: rendered.loudnessLufs,
+        centroidHz: measureCentroid(rendered.samples, engine.sampleRateHz),
+        peak: rendered.peak,
+        matchedGainDb: playbackGainDb(rendered, true, trueGainDb),
+      };
+    },
+    /**
+     * Make `expression` at the render's knobs with `changes` ready to sound, the way choosing it or moving a knob does
+     * (render, level measure, audio buffer), without playing it; resolves to the render's loudness. For the bench.
+     */
+    async prepare(expression: string, changes: Partial<Knobs> = {}): Promise<number> {
+      const network = canonicalize(parseWiring(expression, vocabulary, 'expression'));
+      const wiring = wirings.find((candidate) => candidate.expression === printNetwork(network, ids)) ?? makeWiring(network, ids, 0);
+      const render = await renderOf(wiring, { ...engine.renderKnobs, ...changes });
+      playableOf(render);
+      return render.loudnessLufs;
+    },
+    /** The direct signal of `expression` at the render's knobs (base64 float32): the synthesis alone, for the cross-host checks. */
+    direct(expression: string): string {
+      const network = canonicalize(parseWiring(expression, vocabulary, 'expression'));
+      return samplesToBase64(engine.synthesize(network, engine.renderKnobs));
+    },
+    /** Playback gain the page gives the render of `expression` at the current knobs, dB (null before it is rendered). */
+    gainDb: (expression: string) => {
+      const render = cache.played(renderKey(expression, knobs));
+      return render ? playbackGainDb(render, matched || blind.isRunning(), trueGainDb) : null;
+    },
+    loudnessOf: (expression: string) => cache.played(renderKey(expression, knobs))?.loudnessLufs ?? null,
+    matchesSearch,
+  });
+}

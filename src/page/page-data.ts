@@ -44,7 +44,15 @@ export function decodeCoilDrive(drive: PageCoilDrive): CoilDrive {
 }
 
 export interface PageData {
+  /**
+   * The report, without its wirings: those are carried apart, in
+   * `<script type="application/json" id="page-wirings">` after the page's
+   * script, and read once the first wiring is ready to sound (so a page of
+   * thousands of wirings sounds before it has read their figures).
+   */
   readonly report: ListeningReport;
+  /** The wiring Play starts first (the report's first wiring: the list's first row), or null for none. */
+  readonly opening: { readonly expression: string; readonly number: number } | null;
   /** The parsed guitar (the page enumerates its wirings and solves its circuit). */
   readonly guitar: Guitar;
   /** Knob and cable settings the render used. */

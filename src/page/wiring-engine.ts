@@ -7,13 +7,15 @@
  * and measured with the same loudness meter (src/analysis, ITU-R BS.1770).
  *
  * Knobs change the circuit (volume, tone, tone capacitor, cable) or the
- * chain; each setting gets its own synthesis, made on first need.
+ * chain; each circuit setting gets its own synthesis, retuned on first need
+ * from the first one (only the load is computed again).
  */
 import { measureLoudness } from '../analysis/index.js';
 import type { CircuitOverrides } from '../circuit/index.js';
 import type { Guitar } from '../guitar/index.js';
 import {
   type ChainContext,
+  type ChainDesign,
   type ChainName,
   type WiringSynthesis,
   coilSpectraOfSignals,
@@ -21,6 +23,7 @@ import {
   createWiringSynthesis,
   designEffectsChain,
   resolveChainOptions,
+  runChainDesign,
 } from '../render/portable/index.js';
 import type { Network } from '../wiring/index.js';
 import { type PageSound, decodeSignal } from './page-data.js';
@@ -74,8 +77,8 @@ export function renderKey(expression: string, knobs: Knobs): string {
   return `${expression}@${circuitKey(knobs)}|${knobs.chain}`;
 }
 
-/** Syntheses kept for recent knob settings (each holds a few FFT-sized buffers per coil; our own bound). */
-const SYNTHESES_KEPT = 3;
+/** Syntheses kept for recent knob settings (each holds its load and gain, a few FFT-sized buffers; our own bound). */
+const SYNTHESES_KEPT = 8;
 
 export interface WiringEngine {
   readonly sampleRateHz: number;
@@ -93,6 +96,7 @@ export function createWiringEngine(data: PageSound): WiringEngine {
   const signals = coils.signals.map(decodeSignal);
   const spectra = coilSpectraOfSignals({ ...coils, signals });
   const syntheses = new Map<string, WiringSynthesis>();
+  let base: WiringSynthesis | null = null;
   const synthesisFor = (knobs: Knobs): WiringSynthesis => {
     const key = circuitKey(knobs);
     let synthesis = syntheses.get(key);
@@ -101,7 +105,12 @@ export function createWiringEngine(data: PageSound): WiringEngine {
       syntheses.set(key, synthesis);
       return synthesis;
     }
-    synthesis = createWiringSynthesis(guitarWithKnobs(guitar, knobs), { ...coils, spectra }, overridesOf(knobs, data.overrides));
+    // The first setting prepares the coils at every FFT bin; every other one retunes it: only the load is computed
+    // again, and the open-circuit products of the wiring shape are shared (synthesize-wirings.ts).
+    const knobGuitar = guitarWithKnobs(guitar, knobs);
+    const overrides = overridesOf(knobs, data.overrides);
+    synthesis = base === null ? createWiringSynthesis(knobGuitar, { ...coils, spectra }, overrides) : base.retune(knobGuitar, overrides);
+    base ??= synthesis;
     syntheses.set(key, synthesis);
     while (syntheses.size > SYNTHESES_KEPT) syntheses.delete(syntheses.keys().next().value as string);
     return synthesis;
@@ -131,22 +140,37 @@ export function createWiringEngine(data: PageSound): WiringEngine {
     renderKnobs,
     synthesize,
     async render(expression, network, knobs) {
+      // Each step is timed as a performance measure (`npm run bench -- page` reads them).
+      const started = performance.now();
       const direct = synthesize(network, knobs);
+      const synthesized = performance.now();
       const samples = knobs.chain === 'direct' ? direct : await renderChainInBrowser(direct, coils.sampleRateHz, knobs.chain);
+      const chained = performance.now();
       let peak = 0;
       for (let n = 0; n < samples.length; n += 1) peak = Math.max(peak, Math.abs(samples[n] as number));
-      return { key: renderKey(expression, knobs), samples, peak, loudnessLufs: measureLoudness([samples], coils.sampleRateHz) };
+      const loudnessLufs = measureLoudness([samples], coils.sampleRateHz);
+      performance.measure('coilbench-synthesize', { start: started, end: synthesized });
+      performance.measure('coilbench-chain', { start: synthesized, end: chained });
+      performance.measure('coilbench-loudness', { start: chained, end: performance.now() });
+      return { key: renderKey(expression, knobs), samples, peak, loudnessLufs };
     },
   };
 }
 
 /**
- * Run `samples` through a chain in an OfflineAudioContext, the node render's
- * way (render-chain-design.ts): the input is followed by the design's
- * latency in zeros and the first `latencyFrames` of the output are dropped.
+ * Run `samples` through a chain, the node render's way (render-chain-design.ts,
+ * run-chain-design.ts): the compressor and plain gains in our own code, the
+ * other stages in the browser's OfflineAudioContext, where the input is
+ * followed by the design's latency in zeros and the first `latencyFrames` of
+ * the output are dropped.
  */
-export async function renderChainInBrowser(samples: Float32Array, sampleRateHz: number, chain: ChainName): Promise<Float32Array> {
-  const design = designEffectsChain(chain, resolveChainOptions({}), sampleRateHz);
+export function renderChainInBrowser(samples: Float32Array, sampleRateHz: number, chain: ChainName): Promise<Float32Array> {
+  return runChainDesign(samples, designEffectsChain(chain, resolveChainOptions({}), sampleRateHz), renderGraphInBrowser);
+}
+
+/** A design whose stages are all Web Audio nodes, rendered in the browser's OfflineAudioContext. */
+async function renderGraphInBrowser(samples: Float32Array, design: ChainDesign): Promise<Float32Array> {
+  const sampleRateHz = design.sampleRateHz;
   const frames = samples.length;
   const latency = design.latencyFrames;
   const context = new OfflineAudioContext({ numberOfChannels: 1, length: frames + latency, sampleRate: sampleRateHz });

@@ -11,8 +11,9 @@
  *   → tone stack → speaker cabinet → output trim.
  * - compressed: input gain → compressor → tone stack → speaker cabinet.
  *
- * Timing: the renderer removes the fixed delays (`latencyFrames`), so no
- * chain adds a fixed latency. What remains is the filters' phase response,
+ * Timing: the renderer removes the fixed delays (`latencyFrames`: the
+ * oversampled clipper's; the compressor has none), so no chain adds a fixed
+ * latency. What remains is the filters' phase response,
  * the same for every wiring: a group delay of 4.6 ms at 82 Hz, 3.1 ms at
  * 110 Hz and under 0.5 ms from 220 Hz up (computed from the cookbook
  * coefficients).
@@ -30,7 +31,9 @@
  *   WaveShaperNode resolves its input to 2⁻²⁴ of its ±1 range (float32),
  *   a floor near −130 dB re saturation.
  * - compressed: 14.85 dB of makeup gain below the threshold; pick attacks
- *   pass the 5 ms attack partly uncompressed (a 0.3 V pluck peaked at 0.9).
+ *   pass the 5 ms attack partly uncompressed. The compressor is our own code
+ *   (render-compressor.ts), the same in every host; the other stages are
+ *   Web Audio nodes (run-chain-design.ts).
  * The pipeline applies one common gain after the chain so the loudest
  * wiring does not clip in the file.
  */
@@ -77,18 +80,6 @@ export const RENDER_QUANTUM_FRAMES = 128;
  * checked by effects-chain.test.ts).
  */
 export const OVERSAMPLED_SHAPER_LATENCY_FRAMES = RENDER_QUANTUM_FRAMES;
-/**
- * Look-ahead of the DynamicsCompressorNode, s: the W3C specification's 6 ms
- * pre-delay; node-web-audio-api 1.0.9 rounds it up to whole render quanta
- * (384 frames at 44.1 and 48 kHz; checked by effects-chain.test.ts).
- */
-export const COMPRESSOR_LOOKAHEAD_S = 0.006;
-
-/** The compressor's delay in frames at `sampleRateHz`: ⌈0.006·fs / 128⌉ · 128. */
-export function measureCompressorLatencyFrames(sampleRateHz: number): number {
-  return Math.ceil((COMPRESSOR_LOOKAHEAD_S * sampleRateHz) / RENDER_QUANTUM_FRAMES) * RENDER_QUANTUM_FRAMES;
-}
-
 function biquads(filters: readonly BiquadSpec[]): ChainStage[] {
   return filters.map((filter) => ({ kind: 'biquad', filter, purpose: filter.purpose }));
 }
@@ -122,15 +113,17 @@ export function designEffectsChain(name: ChainName, options: ChainOptions, sampl
       stages = [inputStage, { kind: 'compressor', settings: COMPRESSOR_SETTINGS, purpose: 'compressor' }, ...biquads(TONE_STACK), ...biquads(SPEAKER_CABINET)];
       break;
   }
-  return Object.freeze({ name, sampleRateHz, stages: Object.freeze(stages), latencyFrames: measureDesignLatencyFrames(stages, sampleRateHz) });
+  return Object.freeze({ name, sampleRateHz, stages: Object.freeze(stages), latencyFrames: measureDesignLatencyFrames(stages) });
 }
 
-/** Total fixed delay of `stages`, frames (biquads and gains have none; their phase response is not a fixed delay). */
-export function measureDesignLatencyFrames(stages: readonly ChainStage[], sampleRateHz: number): number {
+/**
+ * Total fixed delay of `stages`, frames (biquads and gains have none: their phase response is not a fixed delay; nor
+ * has the compressor, which looks at no sample ahead, render-compressor.ts).
+ */
+export function measureDesignLatencyFrames(stages: readonly ChainStage[]): number {
   let frames = 0;
   for (const stage of stages) {
     if (stage.kind === 'shaper' && stage.oversample !== 'none') frames += OVERSAMPLED_SHAPER_LATENCY_FRAMES;
-    if (stage.kind === 'compressor') frames += measureCompressorLatencyFrames(sampleRateHz);
   }
   return frames;
 }

@@ -2,8 +2,8 @@
  * Steady-state gain of each chain for quiet sines, measured on the rendered
  * output, against the magnitude response computed from the same biquad
  * coefficients with the Audio EQ Cookbook formulas (R. Bristow-Johnson) —
- * an independent computation of what node-web-audio-api's BiquadFilterNode,
- * WaveShaperNode and DynamicsCompressorNode do.
+ * an independent computation of what node-web-audio-api's BiquadFilterNode
+ * and WaveShaperNode do, and of our own compressor (render-compressor.ts).
  */
 import { describe, expect, it } from 'vitest';
 import { makeSine, measureSineAmplitude } from '../../test/support/tone-measures.js';

@@ -1,6 +1,6 @@
 /**
- * The compressed chain's DynamicsCompressorNode settings, and the gain the
- * node adds by itself.
+ * The compressed chain's compressor settings (run by render-compressor.ts,
+ * our own code in every host), and the makeup gain it adds.
  *
  * Levels here are dB relative to 1 (one volt at the amplifier input when the
  * chain's input is in volts, see ChainOptions.inputGain): a plucked string
@@ -9,10 +9,10 @@
  * guitar compressor pedal does (common practice: ratio 3–5:1, attack 5–20 ms,
  * release 0.1–0.3 s for guitar).
  *
- * Static curve (W3C Web Audio API 1.0 §DynamicsCompressorNode, with the knee
- * as node-web-audio-api 1.0.9 computes it after D. Giannoulis, M. Massberg,
- * J. D. Reiss, "Digital Dynamic Range Compressor Design — A Tutorial and
- * Analysis", J. Audio Eng. Soc. 60(6), 2012, eq. 4): with T the threshold, W
+ * Static curve (D. Giannoulis, M. Massberg, J. D. Reiss, "Digital Dynamic
+ * Range Compressor Design — A Tutorial and Analysis", J. Audio Eng. Soc.
+ * 60(6), 2012, eq. 4, with the knee placed from T to T + W as the W3C Web
+ * Audio API 1.0 places a DynamicsCompressorNode's): with T the threshold, W
  * the knee, R the ratio and T' = T + W/2,
  *   y = x                                   for x ≤ T
  *   y = x + (1/R − 1)·(x − T)² / (2W)        for T < x < T + W
@@ -27,14 +27,14 @@ export const COMPRESSOR_KNEE_DB = 6;
 /** Ratio above the knee, dB in per dB out (common practice for guitar: 3–5). */
 export const COMPRESSOR_RATIO = 4;
 /**
- * Attack time constant, s (common practice for guitar: 5–20 ms, lets some of the pick attack through; we take the
- * fast end: with 10 ms a 0.3 V pluck's first peak came out 1.7× louder than with 5 ms).
+ * Attack time constant τ_A, s (common practice for guitar: 5–20 ms, lets some of the pick attack through; we take the
+ * fast end, which keeps the first peak of a firm pluck closest to its sustain).
  */
 export const COMPRESSOR_ATTACK_S = 0.005;
-/** Release time constant, s (common practice for guitar: 0.1–0.3 s). */
+/** Release time constant τ_R, s (common practice for guitar: 0.1–0.3 s). */
 export const COMPRESSOR_RELEASE_S = 0.25;
 
-/** W3C Web Audio API 1.0 §DynamicsCompressorNode: makeup gain = (1 / full-range gain)^0.6. */
+/** Makeup gain = (1 / full-range gain)^0.6: the W3C Web Audio API 1.0 §DynamicsCompressorNode rule, which we keep as our choice. */
 const MAKEUP_EXPONENT = 0.6;
 
 export interface CompressorSettings {
@@ -54,9 +54,9 @@ export const COMPRESSOR_SETTINGS: CompressorSettings = Object.freeze({
 });
 
 /**
- * The makeup gain, dB, the node applies to everything (W3C Web Audio API 1.0:
- * full-range gain = the static curve at 0 dB; makeup = (1/full-range gain)^0.6).
- * With the knee centred at T' = T + W/2 (node-web-audio-api 1.0.9): full-range
+ * The makeup gain M, dB, the compressor applies to everything (the W3C Web
+ * Audio API 1.0 rule: full-range gain = the static curve at 0 dB; makeup =
+ * (1/full-range gain)^0.6). With the knee centred at T' = T + W/2: full-range
  * gain = T' − T'/R dB. For the settings above: T' = −33 dB, full-range gain
  * −24.75 dB, makeup +14.85 dB — the gain of signals below the threshold.
  */

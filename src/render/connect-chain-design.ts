@@ -2,9 +2,10 @@
  * A chain design (chain-design.ts) as a Web Audio graph, in any host: the
  * command line runs it in node-web-audio-api's OfflineAudioContext
  * (render-chain-design.ts), the listening page in the browser's own
- * (src/page/render-wiring-audio.ts). One stage, one node, in order (W3C Web
- * Audio API 1.0: GainNode, BiquadFilterNode, WaveShaperNode,
- * DynamicsCompressorNode).
+ * (src/page/wiring-engine.ts), each through runChainDesign
+ * (run-chain-design.ts), which keeps the compressor out of the graph. One
+ * stage, one node, in order (W3C Web Audio API 1.0: GainNode,
+ * BiquadFilterNode, WaveShaperNode).
  */
 import { webAudioQ } from './biquad-design.js';
 import type { ChainDesign, ChainStage } from './chain-design.js';
@@ -19,13 +20,6 @@ export interface ChainContext<Node> {
   createGain(): Node & { readonly gain: Param };
   createBiquadFilter(): Node & { type: string; readonly frequency: Param; readonly Q: Param; readonly gain: Param };
   createWaveShaper(): Node & { curve: Float32Array<ArrayBuffer> | null; oversample: string };
-  createDynamicsCompressor(): Node & {
-    readonly threshold: Param;
-    readonly knee: Param;
-    readonly ratio: Param;
-    readonly attack: Param;
-    readonly release: Param;
-  };
 }
 
 /** One node for one stage, its values set. */
@@ -50,15 +44,10 @@ export function createStageNode<Node>(context: ChainContext<Node>, stage: ChainS
       node.oversample = stage.oversample;
       return node;
     }
-    case 'compressor': {
-      const node = context.createDynamicsCompressor();
-      node.threshold.value = stage.settings.thresholdDb;
-      node.knee.value = stage.settings.kneeDb;
-      node.ratio.value = stage.settings.ratio;
-      node.attack.value = stage.settings.attackS;
-      node.release.value = stage.settings.releaseS;
-      return node;
-    }
+    case 'compressor':
+      // Our own code in every host (render-compressor.ts), never a DynamicsCompressorNode: run-chain-design.ts
+      // computes it between the graph's parts.
+      throw new Error('connectChainDesign: a compressor stage is not a Web Audio node; run the design with runChainDesign');
   }
 }
 

@@ -9,12 +9,12 @@
  *   speaker-cabinet.ts).
  * - drive: drive gain, asymmetric soft clipper with 4× oversampling
  *   (drive-curve.ts), tone stack, cabinet.
- * - compressed: a 4:1 compressor (compressor-settings.ts) before the clean
- *   stages.
+ * - compressed: a 4:1 compressor (compressor-settings.ts, our own code in
+ *   render-compressor.ts) before the clean stages.
  *
  * The output has the input's length and lines up with it sample for sample
- * (the fixed delays of node-web-audio-api's oversampler and compressor
- * look-ahead are removed). Two renders of the same input are identical.
+ * (the fixed delay of node-web-audio-api's oversampler is removed; the
+ * compressor looks at no sample ahead). Two renders of the same input are identical.
  */
 import { InputError } from '../errors/index.js';
 import { designEffectsChain } from './chain-design.js';

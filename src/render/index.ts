@@ -20,11 +20,14 @@ export {
   createDeferredSync,
   writeFileAtomic,
   writeFileAtomicSync,
+  settleAtomicWrites,
+  openFileAtomicSync,
   removeStaleTempFiles,
   removePendingTempFilesSync,
   TEMP_FILE_PREFIX,
   STALE_TEMP_FILE_AGE_MS,
 } from './write-file-atomic.js';
+export type { AtomicFileStream } from './write-file-atomic.js';
 export type { DeferredSync } from './write-file-atomic.js';
 export { defaultOutputRoot, outputFolder, wavFileName, netlistFileName } from './output-folder.js';
 export { claimOutputFolder, ownNamesOf, releaseFolderLocksSync, FOLDER_MARKER, FOLDER_LOCK } from './folder-claim.js';

@@ -23,6 +23,7 @@ import type { OfflineAudioContext } from 'node-web-audio-api';
 import type { ChainDesign } from './chain-design.js';
 import { type ChainContext, connectChainDesign } from './connect-chain-design.js';
 import { type BufferSource, type RenderingContext, awaitRenderedBuffer } from './await-rendered-buffer.js';
+import { runChainDesign } from './run-chain-design.js';
 
 type Context = InstanceType<typeof OfflineAudioContext>;
 type ContextClass = typeof OfflineAudioContext;
@@ -58,10 +59,21 @@ export async function prepareChainContext(samples: Float32Array, design: ChainDe
 
 /**
  * Render mono `samples` through `design` at its sample rate. The output has
- * the input's length and timing. `onBufferSource` is told where the result
- * came from (the stress test counts the races).
+ * the input's length and timing. The compressor and plain gains are computed
+ * by run-chain-design.ts (the same code the listening page runs), the other
+ * stages in node-web-audio-api. `onBufferSource` is told where each graph
+ * render's result came from (the stress test counts the races).
  */
-export async function renderChainDesign(
+export function renderChainDesign(
+  samples: Float32Array,
+  design: ChainDesign,
+  onBufferSource?: (source: BufferSource) => void,
+): Promise<Float32Array> {
+  return runChainDesign(samples, design, (part, partDesign) => renderGraphDesign(part, partDesign, onBufferSource));
+}
+
+/** Render mono `samples` through a design whose stages are all Web Audio nodes, in node-web-audio-api. */
+export async function renderGraphDesign(
   samples: Float32Array,
   design: ChainDesign,
   onBufferSource?: (source: BufferSource) => void,

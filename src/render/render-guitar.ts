@@ -170,7 +170,9 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   let lastSave = performance.now();
   const saveManifest = async (force = true): Promise<void> => {
     if (!force && performance.now() - lastSave < MANIFEST_SAVE_INTERVAL_MS) return;
-    const document: Manifest<Entry> = { version: MANIFEST_VERSION, entries };
+    // Entries in key order, not in the order runs happened to record them: a resumed render writes the same bytes as an uninterrupted one.
+    const sorted = Object.fromEntries(Object.entries(entries).sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0)));
+    const document: Manifest<Entry> = { version: MANIFEST_VERSION, entries: sorted };
     await writeFileAtomic(folder.manifest, JSON.stringify(document), deferred);
     lastSave = performance.now();
   };

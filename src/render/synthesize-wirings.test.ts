@@ -10,10 +10,11 @@
  */
 import { describe, expect, it } from 'vitest';
 import { parseGuitarText } from '../guitar/index.js';
-import { prepareCircuit, solveTransfers } from '../circuit/index.js';
+import { prepareCircuit, solveTransfers, usesCoupledCoils } from '../circuit/index.js';
 import { computeCoilSpectra, pickupDelaySamples } from '../pickup/index.js';
 import { type Phrase, renderPhrase } from '../string/index.js';
 import { enumerateWirings } from '../wiring/index.js';
+import { maxOf } from '../math/index.js';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { COIL_VOLTS_PER_METRE_PER_SECOND, prepareWiringSynthesis } from './synthesize-wirings.js';
@@ -62,5 +63,55 @@ describe('a phrase with a note at t = 0', () => {
     let leadIn = 0;
     for (let n = 0; n < delay; n += 1) leadIn += (rendered[n] as number) ** 2;
     expect(leadIn).toBeGreaterThan(RELATIVE_TOLERANCE * frameEnergy);
+  });
+});
+
+/**
+ * A knob move retunes the synthesis (only the load is solved again, the open-circuit products are shared): every
+ * eleventh wiring of the two-humbucker sample (coupled coils included, solved by nodal analysis) at other knobs must sound
+ * as a synthesis prepared from scratch at those knobs (whose coils' Thevenin pairs are computed anew). The page's
+ * knob renders are also checked against the Node render in chromium (test/listening-page.browser.test.ts).
+ */
+describe('retuning a synthesis to other knobs', () => {
+  const four = parseGuitarText(readFileSync(join(import.meta.dirname, '..', '..', 'samples', 'two-humbucker.json'), 'utf8'), 'two-humbucker.json');
+  const phrase: Phrase = { name: 'one note', notes: [{ timeS: 0, string: 5, fret: 0, velocity: 1 }] };
+  const options = { sampleRateHz: 22_050, seed: 1, overrides: {}, strings: { tailS: 0.2 } };
+  const knobs = { volumeSetting: 6, toneSetting: 3, cableCapacitanceF: 1.2e-9 };
+  const tone = four.controls.tone;
+  if (tone === null || tone === undefined) throw new Error('the sample has a tone control');
+  const otherCapacitor = { ...four, controls: { ...four.controls, tone: { ...tone, capacitorF: 47e-9 } } };
+
+  it('sounds as a synthesis prepared at those knobs, every eleventh wiring, within 1e-12 of its peak', () => {
+    const first = prepareWiringSynthesis(four, phrase, options);
+    const fresh = prepareWiringSynthesis(otherCapacitor, phrase, { ...options, overrides: knobs });
+    const retuned = first.retune(otherCapacitor, knobs);
+    let worst = 0;
+    let coupled = 0;
+    for (const wiring of enumerateWirings(four.elements).filter((_, index) => index % 11 === 0)) {
+      if (usesCoupledCoils(four, wiring.network)) coupled += 1;
+      first.synthesize(wiring.network); // leave the shared products of another setting behind, as a page does
+      const expected = fresh.synthesize(wiring.network);
+      const got = retuned.synthesize(wiring.network);
+      let peak = 0;
+      let error = 0;
+      for (let n = 0; n < expected.length; n += 1) {
+        peak = Math.max(peak, Math.abs(expected[n] as number));
+        error = Math.max(error, Math.abs((expected[n] as number) - (got[n] as number)));
+      }
+      if (peak > 0) worst = Math.max(worst, error / peak);
+    }
+    expect(worst).toBeLessThan(1e-12);
+    expect(coupled).toBeGreaterThan(0); // the nodal path was taken too
+  });
+
+  it('changes the sound (volume 6, tone 3, 47 nF darken the neck humbucker)', () => {
+    const first = prepareWiringSynthesis(four, phrase, options);
+    const wiring = enumerateWirings(four.elements)[0];
+    if (wiring === undefined) throw new Error('no wiring');
+    const before = Float32Array.from(first.synthesize(wiring.network));
+    const after = first.retune(otherCapacitor, knobs).synthesize(wiring.network);
+    let difference = 0;
+    for (let n = 0; n < before.length; n += 1) difference = Math.max(difference, Math.abs((before[n] as number) - (after[n] as number)));
+    expect(difference).toBeGreaterThan(1e-4 * maxOf(Array.from(before, Math.abs)));
   });
 });

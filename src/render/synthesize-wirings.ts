@@ -15,11 +15,15 @@ import {
   phaseClassNetwork,
   phaseClassSigns,
   prepareCircuit,
+  retuneCircuit,
+  solveLoadGain,
+  solveSourceFactors,
   solveTransfers,
+  usesCoupledCoils,
 } from '../circuit/index.js';
 import { InputError } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
-import { nextPowerOfTwo, realFft } from '../math/index.js';
+import { type RealFft, nextPowerOfTwo, realFft } from '../math/index.js';
 import { computeCoilSpectra, pickupDelaySamples } from '../pickup/index.js';
 import { type Phrase, type StringOptions, renderPhrase } from '../string/index.js';
 import type { Network } from '../wiring/index.js';
@@ -59,6 +63,14 @@ export interface WiringSynthesis {
   synthesize(network: Network, out?: Float32Array): Float32Array;
   /** Hum the wiring adds for a mains field inducing `emfVolts` (peak) in a nominal coil, as samples to add to its output. */
   synthesizeHum(network: Network, mainsHz: number, emfVolts: number, out?: Float32Array): Float32Array;
+  /**
+   * The same performance with other knobs, cable or tone capacitor: `guitar`
+   * shares this guitar's coils array (only its controls differ), `overrides`
+   * are the new what-ifs. Shares the coil spectra, the FFT and the coils'
+   * Thevenin pairs (circuit/prepare-circuit.ts, retuneCircuit), so a knob
+   * move costs the load alone. The two syntheses share buffers: use one at a time.
+   */
+  retune(guitar: Guitar, overrides: CircuitOverrides): WiringSynthesis;
 }
 
 /**
@@ -158,57 +170,132 @@ export interface CoilSpectra {
  * signals it carries, `coilSpectraOfSignals`).
  */
 export function createWiringSynthesis(guitar: Guitar, coils: CoilSpectra, overrides: CircuitOverrides): WiringSynthesis {
-  const { spectra, length, delay, fftSize, sampleRateHz } = coils;
-  const options = { sampleRateHz, overrides };
-  const fft = realFft(fftSize);
+  const fft = realFft(coils.fftSize);
   const binsHz = new Float64Array(fft.bins);
-  for (let k = 0; k < fft.bins; k += 1) binsHz[k] = (k * options.sampleRateHz) / fftSize;
-  const circuit = prepareCircuit(guitar, binsHz, options.overrides);
-  const transfers = guitar.coils.map(() => new Float64Array(2 * fft.bins));
-  const output = new Float64Array(2 * fft.bins);
-  const time = new Float64Array(fftSize);
+  for (let k = 0; k < fft.bins; k += 1) binsHz[k] = (k * coils.sampleRateHz) / coils.fftSize;
+  const parts = createSharedParts(guitar, coils, fft);
+  return synthesisOn(parts, guitar, prepareCircuit(guitar, binsHz, overrides), overrides);
+}
 
-  // A wiring's phases only flip the signs of its coils' transfers (T_i carries p_i; coupled
-  // coils keep their relative phase, circuit/phase-class.ts), so the products T_i·E_i of the
-  // class representative are kept for the last class rendered, and each phase pattern of that
-  // class costs a signed sum and one inverse FFT.
-  const products = guitar.coils.map(() => new Float64Array(2 * fft.bins));
-  const used = new Uint8Array(guitar.coils.length);
-  let cachedShape = '';
-  const solveShape = (network: Network): void => {
-    const shape = phaseClassKey(guitar, network);
-    if (shape === cachedShape) return;
-    solveTransfers(circuit, phaseClassNetwork(guitar, network), transfers);
-    transfers.forEach((transfer, coil) => {
-      const emf = spectra[coil] as Float64Array;
-      const product = products[coil] as Float64Array;
-      let any = 0;
-      // P_i(f) = T_i(f)·E_i(f), complex product per bin.
-      for (let k = 0; k < product.length; k += 2) {
-        const tr = transfer[k] as number;
-        const ti = transfer[k + 1] as number;
-        const er = emf[k] as number;
-        const ei = emf[k + 1] as number;
-        product[k] = tr * er - ti * ei;
-        product[k + 1] = tr * ei + ti * er;
-        if (tr !== 0 || ti !== 0) any = 1;
-      }
-      used[coil] = any;
-    });
-    cachedShape = shape;
+/**
+ * What every knob setting of one guitar's synthesis shares: the coil spectra,
+ * the FFT and its buffers, and the open-circuit products of the last wiring
+ * shape. A wiring's transfers are T_i = S_i·G (solve-transfers.ts): the
+ * source factors S_i and the wiring's impedance depend on the coils alone,
+ * the load's gain G on the knobs, cable and amplifier. So the products
+ * P_i = S_i·E_i are kept across knob settings, and a knob move costs G (one
+ * complex solve per frequency), Y = G·Σ p_i·P_i and one inverse FFT.
+ */
+interface SharedParts {
+  readonly coils: CoilSpectra;
+  readonly fft: RealFft;
+  readonly output: Float64Array;
+  readonly time: Float64Array;
+  readonly signs: Float64Array;
+  /** Scratch for the source factors S_i. */
+  readonly factors: Float64Array[];
+  /** P_i = S_i·E_i of the shape `shape`, its coils in use, and the wiring's impedance Z. */
+  readonly products: Float64Array[];
+  readonly used: Uint8Array;
+  readonly impedance: Float64Array;
+  shape: string;
+}
+
+function createSharedParts(guitar: Guitar, coils: CoilSpectra, fft: RealFft): SharedParts {
+  const complexLength = 2 * fft.bins;
+  return {
+    coils,
+    fft,
+    output: new Float64Array(complexLength),
+    time: new Float64Array(coils.fftSize),
+    signs: new Float64Array(guitar.coils.length),
+    factors: guitar.coils.map(() => new Float64Array(complexLength)),
+    products: guitar.coils.map(() => new Float64Array(complexLength)),
+    used: new Uint8Array(guitar.coils.length),
+    impedance: new Float64Array(complexLength),
+    shape: '',
   };
-  const signs = new Float64Array(guitar.coils.length);
+}
+
+/** P_i(f) = A_i(f)·E_i(f), complex product per bin, for every coil whose A_i is not all zero; marks those coils in `used`. */
+function multiplySpectra(factors: readonly Float64Array[], spectra: readonly Float64Array[], products: readonly Float64Array[], used: Uint8Array): void {
+  factors.forEach((factor, coil) => {
+    const emf = spectra[coil] as Float64Array;
+    const product = products[coil] as Float64Array;
+    let any = 0;
+    for (let k = 0; k < product.length; k += 2) {
+      const tr = factor[k] as number;
+      const ti = factor[k + 1] as number;
+      const er = emf[k] as number;
+      const ei = emf[k + 1] as number;
+      product[k] = tr * er - ti * ei;
+      product[k + 1] = tr * ei + ti * er;
+      if (tr !== 0 || ti !== 0) any = 1;
+    }
+    used[coil] = any;
+  });
+}
+
+/** The synthesis of `guitar` on `circuit` (prepared for `overrides`), sharing `parts` with the guitar's other knob settings. */
+function synthesisOn(parts: SharedParts, guitar: Guitar, circuit: PreparedCircuit, overrides: CircuitOverrides): WiringSynthesis {
+  const { coils, fft, output, time, signs } = parts;
+  const { spectra, length, fftSize, sampleRateHz } = coils;
+  const complexLength = 2 * fft.bins;
+
+  // The load's gain G for the shape whose impedance was last solved (this knob setting's own).
+  const gain = new Float64Array(complexLength);
+  let gainShape = '';
+  // Wirings holding both coils of a coupled pair have no series–parallel source (solve-transfers.ts): their
+  // products T_i·E_i are made from the whole transfers, per knob setting.
+  let coupled: { readonly shape: string; readonly products: Float64Array[]; readonly used: Uint8Array } | null = null;
 
   const synthesize = (network: Network, out = new Float32Array(length)): Float32Array => {
-    solveShape(network);
+    // A wiring's phases only flip the signs of its coils' transfers (T_i carries p_i; coupled coils keep their
+    // relative phase, circuit/phase-class.ts): each phase pattern of a class costs a signed sum and one inverse FFT.
+    const shape = phaseClassKey(guitar, network);
+    const classNetwork = phaseClassNetwork(guitar, network);
     phaseClassSigns(guitar, network, signs);
-    // Y(f) = Σ_i p_i·T_i(f)·E_i(f) with T_i of the unsigned network.
     output.fill(0);
-    products.forEach((product, coil) => {
-      if (!used[coil]) return;
-      const sign = signs[coil] as number;
-      for (let k = 0; k < output.length; k += 1) output[k] = (output[k] as number) + sign * (product[k] as number);
-    });
+    if (usesCoupledCoils(guitar, classNetwork)) {
+      if (coupled === null || coupled.shape !== shape) {
+        const products = coupled?.products ?? guitar.coils.map(() => new Float64Array(complexLength));
+        const used = coupled?.used ?? new Uint8Array(guitar.coils.length);
+        multiplySpectra(solveTransfers(circuit, classNetwork, parts.factors), spectra, products, used);
+        coupled = { shape, products, used };
+      }
+      // Y(f) = Σ_i p_i·T_i(f)·E_i(f) with T_i of the unsigned network.
+      const { products, used } = coupled;
+      products.forEach((product, coil) => {
+        if (!used[coil]) return;
+        const sign = signs[coil] as number;
+        for (let k = 0; k < complexLength; k += 1) output[k] = (output[k] as number) + sign * (product[k] as number);
+      });
+    } else {
+      if (parts.shape !== shape) {
+        parts.shape = '';
+        solveSourceFactors(circuit, classNetwork, parts.factors, parts.impedance);
+        multiplySpectra(parts.factors, spectra, parts.products, parts.used);
+        parts.shape = shape;
+      }
+      if (gainShape !== shape) {
+        solveLoadGain(circuit, parts.impedance, gain);
+        gainShape = shape;
+      }
+      // Y(f) = G(f)·Σ_i p_i·S_i(f)·E_i(f): the sources summed, then the load (T_i = S_i·G).
+      parts.products.forEach((product, coil) => {
+        if (!parts.used[coil]) return;
+        const sign = signs[coil] as number;
+        for (let k = 0; k < complexLength; k += 1) output[k] = (output[k] as number) + sign * (product[k] as number);
+      });
+      for (let k = 0; k < complexLength; k += 2) {
+        const yr = output[k] as number;
+        const yi = output[k + 1] as number;
+        const gr = gain[k] as number;
+        const gi = gain[k + 1] as number;
+        output[k] = yr * gr - yi * gi;
+        output[k + 1] = yr * gi + yi * gr;
+      }
+    }
     fft.inverse(output, time);
     // The pickup spectra are delayed by `delay` samples so that every coil stays causal; sample n is time (n − delay)/fs of the phrase.
     for (let n = 0; n < length; n += 1) out[n] = time[n] as number;
@@ -220,7 +307,7 @@ export function createWiringSynthesis(guitar: Guitar, coils: CoilSpectra, overri
     let probe = humCircuit.get(mainsHz);
     if (!probe) {
       const frequencies = Float64Array.from(HUM_HARMONICS.map(([harmonic]) => harmonic * mainsHz));
-      const prepared = prepareCircuit(guitar, frequencies, options.overrides);
+      const prepared = prepareCircuit(guitar, frequencies, overrides);
       probe = { prepared, transfers: guitar.coils.map(() => new Float64Array(2 * frequencies.length)) };
       humCircuit.set(mainsHz, probe);
     }
@@ -237,7 +324,7 @@ export function createWiringSynthesis(guitar: Guitar, coils: CoilSpectra, overri
         re += weight * (transfer[2 * index] as number);
         im += weight * (transfer[2 * index + 1] as number);
       });
-      const omega = (2 * Math.PI * harmonic * mainsHz) / options.sampleRateHz;
+      const omega = (2 * Math.PI * harmonic * mainsHz) / sampleRateHz;
       const phase = Math.atan2(im, re);
       const peak = emfVolts * amplitude * Math.hypot(re, im);
       for (let n = 0; n < length; n += 1) out[n] = (out[n] as number) + peak * Math.sin(omega * n + phase);
@@ -247,16 +334,16 @@ export function createWiringSynthesis(guitar: Guitar, coils: CoilSpectra, overri
 
   return {
     guitar,
-    sampleRateHz: options.sampleRateHz,
+    sampleRateHz,
     length,
     fftSize,
     circuit,
     silent: circuit.load.silent,
     synthesize,
     synthesizeHum,
+    retune: (retunedGuitar, retunedOverrides) => synthesisOn(parts, retunedGuitar, retuneCircuit(circuit, retunedGuitar, retunedOverrides), retunedOverrides),
   };
 }
-
 
 /** Refuse to render a guitar whose output is shorted (volume at 0): every file would be silence. */
 export function assertAudible(synthesis: { readonly silent: boolean }, volumePath: string): void {

@@ -59,6 +59,29 @@ function failure(path: string, error: unknown): WorkError {
   return new WorkError(`could not write ${path}: ${reason(error)}`, { cause: error });
 }
 
+/**
+ * Set once an interrupt is being handled: no new asynchronous write starts
+ * and those in flight remove their temporary file at their next step (see
+ * settleAtomicWrites).
+ */
+let stopping = false;
+/** One promise per asynchronous write in flight, resolved once its temporary file is gone or renamed. */
+const unsettled = new Set<Promise<void>>();
+/** What a write returns once writing has stopped: the process is about to exit, so nothing after it runs. */
+const NEVER = new Promise<never>(() => undefined);
+
+/**
+ * Stop asynchronous atomic writes for an interrupt and wait until none has
+ * a temporary file being created: the interrupt handler removes the pending
+ * temporary files, and a file the thread pool was still opening could
+ * otherwise appear just after that removal (seen under load by the kill
+ * tests). Writes started later never begin.
+ */
+export async function settleAtomicWrites(): Promise<void> {
+  stopping = true;
+  await Promise.allSettled([...unsettled]);
+}
+
 /** Folders whose fsync is put off until flush() (see the file comment). */
 export interface DeferredSync {
   /** Files renamed into place and not yet made durable. */
@@ -105,23 +128,42 @@ export function createDeferredSync(): DeferredSync {
  * is not fsynced before its rename; `deferred.flush()` syncs its folder later.
  */
 export async function writeFileAtomic(path: string, data: Uint8Array | string, deferred?: DeferredSync): Promise<void> {
+  if (stopping) return NEVER;
   const temporary = temporaryPathFor(path);
   pending.add(temporary);
+  let markSettled: () => void = () => undefined;
+  const settled = new Promise<void>((resolve) => {
+    markSettled = resolve;
+  });
+  unsettled.add(settled);
   let handle: FileHandle | null = null;
+  let stopped = false;
+  const checkStopping = (): void => {
+    if (stopping) {
+      stopped = true;
+      throw new Error('interrupted');
+    }
+  };
   try {
     handle = await open(temporary, 'wx');
+    checkStopping();
     await handle.writeFile(data);
+    checkStopping();
     if (!deferred) await handle.sync();
     await handle.close();
     handle = null;
+    checkStopping();
     await rename(temporary, path);
     deferred?.note(path);
   } catch (error) {
     await handle?.close().catch(() => undefined);
     await rm(temporary, { force: true }).catch(() => undefined);
+    if (stopped || stopping) return NEVER;
     throw failure(path, error);
   } finally {
     pending.delete(temporary);
+    unsettled.delete(settled);
+    markSettled();
   }
 }
 
@@ -151,6 +193,82 @@ export function writeFileAtomicSync(path: string, data: Uint8Array | string): vo
   } finally {
     pending.delete(temporary);
   }
+}
+
+/** A file written piece by piece under a temporary name, renamed into place by `commit`. */
+export interface AtomicFileStream {
+  /** Append text (UTF-8); gathered and written in chunks. */
+  readonly write: (text: string) => void;
+  /** Flush, fsync and rename over the destination. Throws WorkError on failure, leaving no temporary file. */
+  readonly commit: () => void;
+  /** Remove the temporary file (after a failure or an interruption); never throws. */
+  readonly abandon: () => void;
+}
+
+/** Characters gathered before each write of an AtomicFileStream. */
+const STREAM_CHUNK_CHARACTERS = 1 << 16;
+
+/**
+ * Open `path` for writing piece by piece, atomically: the pieces go to a
+ * temporary file in the same folder (removed by removePendingTempFilesSync
+ * on Ctrl-C, by removeStaleTempFiles after a kill), and only `commit` puts
+ * the whole file in place. For outputs too big to hold as one string.
+ */
+export function openFileAtomicSync(path: string): AtomicFileStream {
+  const temporary = temporaryPathFor(path);
+  pending.add(temporary);
+  let descriptor: number | null = null;
+  let chunk = '';
+  const fail = (error: unknown): WorkError => {
+    if (descriptor !== null) {
+      try {
+        closeSync(descriptor);
+      } catch {
+        // already failing; the original error is the one to report
+      }
+      descriptor = null;
+    }
+    rmSync(temporary, { force: true });
+    pending.delete(temporary);
+    return failure(path, error);
+  };
+  const flush = (): void => {
+    if (descriptor === null) throw new Error(`openFileAtomicSync: ${path} is already committed or abandoned`);
+    const bytes = Buffer.from(chunk, 'utf8');
+    chunk = '';
+    for (let written = 0; written < bytes.length; ) written += writeSync(descriptor, bytes, written, bytes.length - written);
+  };
+  try {
+    descriptor = openSync(temporary, 'wx');
+  } catch (error) {
+    throw fail(error);
+  }
+  return {
+    write: (text) => {
+      chunk += text;
+      if (chunk.length < STREAM_CHUNK_CHARACTERS) return;
+      try {
+        flush();
+      } catch (error) {
+        throw fail(error);
+      }
+    },
+    commit: () => {
+      try {
+        flush();
+        fsyncSync(descriptor as number);
+        closeSync(descriptor as number);
+        descriptor = null;
+        renameSync(temporary, path);
+        pending.delete(temporary);
+      } catch (error) {
+        throw fail(error);
+      }
+    },
+    abandon: () => {
+      fail(undefined);
+    },
+  };
 }
 
 /** Remove the temporary files of writes still in progress in this process (for a SIGINT handler). Returns how many. */

@@ -1,6 +1,11 @@
+/** The knobs' bar, on both pages (added to page-style.ts's rules). */
+export const KNOBS_STYLE = `
+.knobs { display: flex; flex-wrap: wrap; gap: 0.6rem 1.4rem; align-items: center; background: var(--card); border: 1px solid var(--line); border-radius: 0.6rem; padding: 0.6rem 0.9rem; margin: 0.6rem 0; }
+`;
+
 /** The look of the listening page's knobs, finder and virtualised list (added to page-style.ts's rules). */
-export const PAGE_LIST_STYLE = `
-.knobs, .finder { display: flex; flex-wrap: wrap; gap: 0.6rem 1.4rem; align-items: center; background: var(--card); border: 1px solid var(--line); border-radius: 0.6rem; padding: 0.6rem 0.9rem; margin: 0.6rem 0; }
+export const PAGE_LIST_STYLE = `${KNOBS_STYLE}
+.finder { display: flex; flex-wrap: wrap; gap: 0.6rem 1.4rem; align-items: center; background: var(--card); border: 1px solid var(--line); border-radius: 0.6rem; padding: 0.6rem 0.9rem; margin: 0.6rem 0; }
 .finder .expression { display: flex; flex-wrap: wrap; gap: 0.5rem; align-items: center; }
 .finder input[type="search"], .finder input[type="text"] { min-width: 16rem; border: 1px solid var(--line); border-radius: 0.35rem; padding: 0.25rem 0.4rem; background: var(--paper); }
 .list-head, .wiring-row { display: grid; grid-template-columns: 2.2rem 3rem minmax(9rem, 1.3fr) minmax(10rem, 2fr) 5rem 9rem 12rem 9rem 4rem; gap: 0.5rem; align-items: center; padding: 0 0.5rem; }

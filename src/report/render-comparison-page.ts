@@ -15,7 +15,8 @@ import type { ComparisonDifference, ComparisonEntry, ComparisonReport, Compariso
 import { escapeHtml, serializeJsonForScript } from './escape-html.js';
 import { renderCautionsSection, renderGlossarySection } from './page-sections.js';
 import { PAGE_STYLE } from './page-style.js';
-import { renderBlindSection, renderTransport } from './render-listening-page.js';
+import { renderBlindSection, renderKnobs, renderTransport } from './render-listening-page.js';
+import { KNOBS_STYLE } from './page-list-style.js';
 import type { ComparisonPageData, PageSound } from '../page/index.js';
 
 /** Extra rules for the comparison table's set buttons (appended to the listening page's style). */
@@ -115,7 +116,7 @@ function renderSetsList(report: ComparisonReport): string {
 
 /** The comparison page for a report, as one HTML document: `sounds` are the sets' sounds (in `report.sets` order), `script` the bundled comparison script (dist/comparison-page.js). */
 export function renderComparisonPage(report: ComparisonReport, sounds: readonly PageSound[], script: string): string {
-  const style = `${PAGE_STYLE}${COMPARISON_STYLE}`;
+  const style = `${PAGE_STYLE}${KNOBS_STYLE}${COMPARISON_STYLE}`;
   const { thresholds } = report;
   const first = report.sets[0];
   const render = first?.render;
@@ -141,12 +142,14 @@ ${renderSetsList(report)}
 <h2 id="start-title">Start here</h2>
 <ol>
 <li><strong>Switch sets while it plays.</strong> Press ${escapeHtml(report.sets.map((set) => set.label).join(' or '))} on a row: the sound moves to that set at the same point in the phrase, at the same loudness. Keys: Space plays and pauses, ${escapeHtml(report.sets.map((set) => set.label).join(', '))} switch sets, ↑ ↓ change wiring.</li>
+<li><strong>Turn the knobs.</strong> Volume, tone, tone capacitor, cable and amplifier apply to every set at once, while it plays.</li>
 <li><strong>Biggest changes first.</strong> <em>Change</em> is the largest difference over its just-noticeable threshold: 1× is just noticeable (level ${escapeHtml(String(thresholds.levelDb))} dB, spectrum ${escapeHtml(String(thresholds.spectrumDb))} dB, brightness ${escapeHtml(String(thresholds.brightnessPercent))} %). Bold figures reach their threshold.</li>
 <li><strong>Trust your ears, not the numbers.</strong> Press <em>Blind test</em> on a row to hear the two sets without knowing which is which.</li>
 </ol>
 </section>
 <section id="compared" aria-labelledby="compared-title">
 <h2 id="compared-title">Every wiring, set against set</h2>
+${sounds[0] ? renderKnobs(sounds[0].guitar, sounds[0].overrides, render?.chain ?? sounds[0].chain) : ''}
 <div class="scroll table-wrap">
 ${renderTable(report)}
 </div>

@@ -19,7 +19,7 @@ describe('renderListeningPage', () => {
   const guitar = parseGuitar({ ...raw, name: HOSTILE_NAME });
   const report = makeExampleReport(guitar.elements.map((element) => element.id), HOSTILE_NAME);
   const signal = Float32Array.from([0.5, -0.25, 1e-9, 3.4e38, -0]);
-  const data: Omit<PageData, 'report'> = {
+  const data: Omit<PageData, 'report' | 'opening'> = {
     guitar,
     overrides: {},
     hum: null,
@@ -32,12 +32,17 @@ describe('renderListeningPage', () => {
     const carried = JSON.parse(json) as PageData;
     expect(carried.coils.signals.map((text) => Array.from(decodeSignal(text)))).toEqual(guitar.coils.map(() => Array.from(signal)));
     expect(carried.guitar.name).toBe(HOSTILE_NAME);
-    expect(carried.report.wirings.length).toBe(47);
+    // The wirings' figures come after the page's script, so the first wiring can sound before they are read.
+    const wirings = JSON.parse(/<script type="application\/json" id="page-wirings">([\s\S]*?)<\/script>/u.exec(html)?.[1] ?? '[]') as unknown[];
+    expect(wirings.length).toBe(47);
+    expect(carried.report.wirings.length).toBe(0);
+    expect(carried.opening).toEqual({ expression: report.wirings[0]?.expression, number: report.wirings[0]?.number });
+    expect(html.indexOf('id="page-wirings"')).toBeGreaterThan(html.indexOf(SCRIPT));
   });
 
   it('shows every string from the guitar file as text, and runs only its own script, pinned by hash', () => {
     expect(html).not.toContain('<img');
-    expect(html.match(/<script\b/gu)?.length).toBe(2);
+    expect(html.match(/<script\b/gu)?.length).toBe(3); // the data, the script, the wirings' figures
     const policy = (/http-equiv="Content-Security-Policy" content="([^"]*)"/u.exec(html)?.[1] ?? '').replaceAll('&#39;', "'").replaceAll('&#x27;', "'");
     const hash = createHash('sha256').update(SCRIPT, 'utf8').digest('base64');
     expect(policy).toContain(`'sha256-${hash}'`);

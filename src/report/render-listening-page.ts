@@ -26,6 +26,8 @@ import { renderBrightnessLegend } from './wiring-table.js';
 import { PAGE_LIST_STYLE } from './page-list-style.js';
 import { SUGGESTED_ROUNDS, loopsByDefault } from '../page/index.js';
 import type { PageData } from '../page/index.js';
+import type { CircuitOverrides } from '../circuit/index.js';
+import type { Guitar } from '../guitar/index.js';
 
 /** Playback volume the page starts at, linear (−10.5 dB; start low to protect hearing: common practice). */
 export const START_VOLUME = 0.3;
@@ -51,9 +53,12 @@ const CABLE_MAX_PF = 20_000;
 const FARADS_PER_NF = 1e-9;
 const FARADS_PER_PF = 1e-12;
 
-/** The knobs: volume and tone positions, tone capacitor, cable and chain, each applied while playing. */
-function renderKnobs(data: PageData): string {
-  const { guitar, overrides } = data;
+/**
+ * The knobs: volume and tone positions, tone capacitor, cable and chain, each applied while playing, shown at
+ * `guitar`'s settings with `overrides` (the listening page's guitar; on the comparison page, the baseline set's,
+ * applied to every set; src/page/knob-fields.ts reads them).
+ */
+export function renderKnobs(guitar: Guitar, overrides: CircuitOverrides, chain: string): string {
   const volume = overrides.volumeSetting ?? guitar.controls.volume.setting;
   const tone = guitar.controls.tone;
   const cablePf = Math.round((overrides.cableCapacitanceF ?? guitar.cable.capacitanceF) / FARADS_PER_PF);
@@ -66,13 +71,13 @@ function renderKnobs(data: PageData): string {
     `<label>Volume <input type="range" id="knob-volume" min="0.5" max="10" step="0.5" value="${volume}"> <output id="knob-volume-value">${volume.toFixed(1)}</output></label>` +
     toneFields +
     `<label>Cable <input type="number" id="knob-cable" min="${CABLE_MIN_PF}" max="${CABLE_MAX_PF}" step="${CABLE_STEP_PF}" value="${cablePf}"> pF</label>` +
-    `<label>Amplifier <select id="knob-chain" data-chain="${escapeHtml(data.report.render.chain)}"></select></label>` +
+    `<label>Amplifier <select id="knob-chain" data-chain="${escapeHtml(chain)}"></select></label>` +
     '</form>'
   );
 }
 
 /** Search, and an expression to play. */
-function renderFinder(report: ListeningReport, data: PageData): string {
+function renderFinder(report: ListeningReport, data: Omit<PageData, 'opening'>): string {
   const ids = data.guitar.elements.map((element) => element.id);
   const [first, second] = [ids[0] ?? 'neck', ids[ids.length - 1] ?? 'bridge'];
   return (
@@ -208,13 +213,17 @@ ${items.join('\n')}
 }
 
 /** The listening page for a report, as one HTML document: `data` is what the page plays from, `script` the bundled page script (dist/page.js). */
-export function renderListeningPage(report: ListeningReport, data: Omit<PageData, 'report'>, script: string): string {
+export function renderListeningPage(report: ListeningReport, data: Omit<PageData, 'report' | 'opening'>, script: string): string {
   const { guitar, render } = report;
   const name = escapeHtml(guitar.name);
   const durationS = data.coils.length / data.coils.sampleRateHz;
   const style = `${PAGE_STYLE}${PAGE_LIST_STYLE}`;
-  const pageData: PageData = { ...data, report: compactReportForPage(report) };
+  const compact = compactReportForPage(report);
   const switched = report.positions !== undefined && report.positions.length > 0;
+  // The wiring that sounds first: position 1's on a switch plan's page, else the report's first.
+  const firstPosition = switched ? report.positions?.find((position) => position.wiringId !== null) : undefined;
+  const first = (firstPosition ? compact.wirings.find((wiring) => wiring.id === firstPosition.wiringId) : undefined) ?? compact.wirings[0];
+  const pageData: PageData = { ...data, report: { ...compact, wirings: [] }, opening: first ? { expression: first.expression, number: first.number } : null };
   return `${renderPageHead({ title: `${guitar.name} · ${switched ? 'listen to the switch positions' : 'listen to every wiring'}`, script, style, generator: report.generator })}
 <a class="skip" href="#wirings">Skip to the wirings</a>
 <header class="masthead">
@@ -236,7 +245,7 @@ export function renderListeningPage(report: ListeningReport, data: Omit<PageData
 ${renderPositionsSection(report)}
 <section id="wirings" aria-labelledby="wirings-title">
 <h2 id="wirings-title">${switched ? 'The positions\' wirings' : 'Every wiring'}</h2>
-${renderKnobs({ ...data, report })}
+${renderKnobs(data.guitar, data.overrides, report.render.chain)}
 ${renderFinder(report, { ...data, report })}
 ${renderColumnHelp(report)}
 <div class="list-head" aria-hidden="true"><span></span><span>No.</span><span>Wiring</span><span>In words</span><span>Level</span><span>Brightness</span><span>Resonant peak</span><span>Hum</span><span></span></div>
@@ -254,13 +263,14 @@ ${renderCautionsSection()}
 ${renderTransport(durationS, 'Press ▶ on any row to listen', renderLoopControls(durationS), true)}
 <script type="application/json" id="page-data">${serializeJsonForScript(pageData)}</script>
 <script>${script}</script>
+<script type="application/json" id="page-wirings">${serializeJsonForScript(compact.wirings)}</script>
 </body>
 </html>
 `;
 }
 
 /** An expression in the guitar's own coil names for the examples ("neck + ~bridge"). */
-function exampleExpression(data: Omit<PageData, 'report'>): string {
+function exampleExpression(data: Pick<PageData, 'guitar'>): string {
   const ids = data.guitar.elements.map((element) => element.id);
   if (ids.length < 2) return ids[0] ?? '';
   return `${ids[0]} + ~${ids[ids.length - 1]}`;

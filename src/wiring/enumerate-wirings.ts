@@ -146,58 +146,127 @@ function combinations(items: readonly number[], size: number): number[][] {
   return out;
 }
 
+/** One canonical structure of a subset (every element in phase), with what its wirings share. */
+export interface PlannedStructure {
+  readonly structure: Network;
+  readonly topology: Topology;
+  /** The structure in words, before the phases are added. */
+  readonly words: string;
+}
+
 /**
- * Every distinct wiring of these elements, in the stable order, numbered w1, w2, …
- * The order is produced directly (no sort over all wirings): subsets by size
- * then as lists; inside a subset, structures by topology rank, then phase
- * patterns by how many elements are out of phase, then structure order, then
- * the out-of-phase set as a list.
+ * The wirings of one subset of elements, in the stable order, as plain
+ * numbers: wiring k of the subset is structure `structureOf[k]` with the
+ * elements of bit mask `invertedOf[k]` out of phase (bit i = element index
+ * i). Lets a caller work structure by structure (every phase pattern of a
+ * structure shares its circuit solution) and still report in the stable
+ * order, without holding the subset's wiring records.
  */
-export function enumerateWirings(elements: readonly Pick<WiringElement, 'id'>[]): Wiring[] {
-  const ids = elements.map((element) => element.id);
+export interface WiringSubsetPlan {
+  /** Element indices used, ascending. */
+  readonly used: readonly number[];
+  /** Their ids, in declaration order. */
+  readonly usedIds: readonly string[];
+  readonly structures: readonly PlannedStructure[];
+  readonly structureOf: Int32Array;
+  readonly invertedOf: Int32Array;
+  /** Number of the subset's first wiring (w1 is 1). */
+  readonly firstNumber: number;
+}
+
+/**
+ * The subsets of `elementCount` elements in the stable order, each with its
+ * wirings planned (see WiringSubsetPlan). The order is produced directly
+ * (no sort over all wirings): subsets by size then as lists; inside a
+ * subset, structures by topology rank, then phase patterns by how many
+ * elements are out of phase, then structure order, then the out-of-phase
+ * set as a list. Memory: one subset's plan at a time (176,128 wirings for
+ * the full set of six elements, 8 bytes each).
+ */
+export function* planWiringSubsets(ids: readonly string[]): Generator<WiringSubsetPlan> {
   const catalogue = new StructureCatalogue();
   const masks: Array<{ mask: number; used: number[] }> = [];
   for (let mask = 1; mask < 1 << ids.length; mask += 1) masks.push({ mask, used: bitsOf(mask) });
   masks.sort((a, b) => a.used.length - b.used.length || compareLists(a.used, b.used));
-  const wirings: Wiring[] = [];
+  let firstNumber = 1;
   for (const { mask, used } of masks) {
     const flippable = used.slice(1); // the earliest-declared element stays in phase
-    const usedIds = used.map((index) => ids[index] ?? '?');
-    const structures = catalogue
+    const ranked = catalogue
       .any(mask)
       .map((structure, order) => {
         const topology = topologyOf(structure);
         return { structure, order, topology, rank: TOPOLOGY_RANK[topology], words: describeShape(structure, ids) };
       })
       .sort((a, b) => a.rank - b.rank || a.order - b.order);
-    const ranks = [...new Set(structures.map((entry) => entry.rank))];
+    const patternCount = 2 ** flippable.length;
+    const total = ranked.length * patternCount;
+    const structureOf = new Int32Array(total);
+    const invertedOf = new Int32Array(total);
+    let slot = 0;
+    const ranks = [...new Set(ranked.map((entry) => entry.rank))];
+    let start = 0;
     for (const rank of ranks) {
-      const ofRank = structures.filter((entry) => entry.rank === rank);
+      let stop = start;
+      while (stop < ranked.length && ranked[stop]?.rank === rank) stop += 1;
       for (let count = 0; count <= flippable.length; count += 1) {
-        const patterns = combinations(flippable, count);
-        for (const { structure, topology, words } of ofRank) {
-          for (const inverted of patterns) {
-            const network = withPhases(structure, new Set(inverted));
-            const number = wirings.length + 1;
-            wirings.push(
-              Object.freeze({
-                id: `w${number}`,
-                number,
-                network,
-                expression: printNetwork(network, ids),
-                elements: used,
-                elementIds: usedIds,
-                topology,
-                outOfPhase: inverted.map((index) => ids[index] ?? '?'),
-                description: describePhases(words, used, inverted, ids),
-              }),
-            );
+        const patterns = combinations(flippable, count).map((inverted) => inverted.reduce((bits, element) => bits | (1 << element), 0));
+        for (let s = start; s < stop; s += 1) {
+          for (const bits of patterns) {
+            structureOf[slot] = s;
+            invertedOf[slot] = bits;
+            slot += 1;
           }
         }
       }
+      start = stop;
     }
+    yield { used, usedIds: used.map((index) => ids[index] ?? '?'), structures: ranked.map(({ structure, topology, words }) => ({ structure, topology, words })), structureOf, invertedOf, firstNumber };
+    firstNumber += total;
   }
-  return wirings;
+}
+
+/** The network of slot `slot` of a subset plan (without the words of its record). */
+export function networkOfPlan(plan: WiringSubsetPlan, slot: number): Network {
+  const planned = plan.structures[plan.structureOf[slot] as number] as PlannedStructure;
+  const bits = plan.invertedOf[slot] as number;
+  return bits === 0 ? planned.structure : withPhases(planned.structure, new Set(plan.used.filter((element) => (bits >> element) & 1)));
+}
+
+/** The wiring record of slot `slot` of a subset plan (numbered from the plan's first number). */
+export function wiringOfPlan(plan: WiringSubsetPlan, slot: number, ids: readonly string[]): Wiring {
+  const planned = plan.structures[plan.structureOf[slot] as number] as PlannedStructure;
+  const bits = plan.invertedOf[slot] as number;
+  const inverted = plan.used.filter((element) => (bits >> element) & 1);
+  const network = withPhases(planned.structure, new Set(inverted));
+  const number = plan.firstNumber + slot;
+  return Object.freeze({
+    id: `w${number}`,
+    number,
+    network,
+    expression: printNetwork(network, ids),
+    elements: plan.used,
+    elementIds: plan.usedIds,
+    topology: planned.topology,
+    outOfPhase: inverted.map((index) => ids[index] ?? '?'),
+    description: describePhases(planned.words, plan.used, inverted, ids),
+  });
+}
+
+/**
+ * Every distinct wiring of these elements, one at a time in the stable
+ * order (w1, w2, …), holding one subset's plan at a time: six elements'
+ * 228,386 wirings stream in bounded memory.
+ */
+export function* iterateWirings(elements: readonly Pick<WiringElement, 'id'>[]): Generator<Wiring> {
+  const ids = elements.map((element) => element.id);
+  for (const plan of planWiringSubsets(ids)) {
+    for (let slot = 0; slot < plan.structureOf.length; slot += 1) yield wiringOfPlan(plan, slot, ids);
+  }
+}
+
+/** Every distinct wiring of these elements, in the stable order, numbered w1, w2, … (iterateWirings, gathered). */
+export function enumerateWirings(elements: readonly Pick<WiringElement, 'id'>[]): Wiring[] {
+  return Array.from(iterateWirings(elements));
 }
 
 /** Build the reported record for a canonical network. */

@@ -5,7 +5,8 @@ export { printNetwork, SERIES_SYMBOL, PARALLEL_SYMBOL, OUT_OF_PHASE_SYMBOL } fro
 export { parseWiring } from './parse-wiring.js';
 export type { WiringVocabulary } from './parse-wiring.js';
 export { describeWiring, listInWords } from './describe-wiring.js';
-export { enumerateWirings, countWirings, makeWiring } from './enumerate-wirings.js';
+export { enumerateWirings, iterateWirings, planWiringSubsets, wiringOfPlan, networkOfPlan, countWirings, makeWiring } from './enumerate-wirings.js';
+export type { PlannedStructure, WiringSubsetPlan } from './enumerate-wirings.js';
 export type { Wiring } from './wiring.js';
 export { vocabularyOf, findWiring } from './vocabulary.js';
 export { coilPhases, shapeKey, withoutPhases } from './network-phases.js';

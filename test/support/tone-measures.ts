@@ -159,3 +159,25 @@ export function filterCascade(input: ArrayLike<number>, sections: readonly Coeff
   }
   return signal;
 }
+
+/** Energy of `other − reference` relative to the energy of `reference`, dB (how far a second host's render is from the first's). */
+export function residualDb(reference: Float32Array, other: Float32Array): number {
+  let signal = 0;
+  let error = 0;
+  for (let n = 0; n < reference.length; n += 1) {
+    signal += (reference[n] as number) ** 2;
+    error += ((reference[n] as number) - (other[n] ?? 0)) ** 2;
+  }
+  return 10 * Math.log10(error / signal);
+}
+
+/**
+ * The compressor's static curve, written out from its source (D. Giannoulis, M. Massberg, J. D. Reiss, J. Audio Eng.
+ * Soc. 60(6), 2012, eq. 4, knee from T to T + W, centred on T' = T + W/2): output level for a steady input level, dB.
+ */
+export function compressorStaticCurveDb(inputDb: number, threshold: number, knee: number, ratio: number): number {
+  const centre = threshold + knee / 2;
+  if (inputDb <= threshold) return inputDb;
+  if (inputDb < threshold + knee) return inputDb + ((1 / ratio - 1) * (inputDb - threshold) ** 2) / (2 * knee);
+  return centre + (inputDb - centre) / ratio;
+}

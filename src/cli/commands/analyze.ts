@@ -7,13 +7,13 @@ import {
   HUM_CANCELLING_DB,
   HUM_FLOOR_DB,
   HUM_REDUCING_DB,
-  measureCircuitMetrics,
-  measureGraphCircuitMetrics,
+  type CircuitAnalysis,
+  prepareCircuitMetrics,
 } from '../../circuit/index.js';
-import { measureCoilDrive, measureDistinctness, measureSpectralBasis } from '../../analysis/index.js';
+import { measureCoilDrive, measureDistinctnessSteps, measureSpectralBasis } from '../../analysis/index.js';
 import { InputError, type InputProblem, problemAt } from '../../errors/index.js';
 import { formatEngineering } from '../../units/index.js';
-import { enumerateWirings } from '../../wiring/index.js';
+import { iterateWirings, type Wiring } from '../../wiring/index.js';
 import { type AlikeOptionText, addAlikeOptions, parseAlikeOptions } from '../alike-options.js';
 import { type CircuitOptionText, addCircuitOptions, parseCircuitOptions } from '../circuit-options.js';
 import { formatTable } from '../format-table.js';
@@ -27,6 +27,7 @@ import {
   sortNames,
   sortRows,
 } from '../metric-columns.js';
+import { createPause, runStepsPausing } from '../pause-for-signals.js';
 import { createProgress } from '../progress.js';
 import { readGuitarFile } from '../read-guitar.js';
 import { findOutputProblems } from '../guard-outputs.js';
@@ -38,6 +39,7 @@ import { wiringRecord } from './wirings.js';
 import { collectOption } from '../collect-option.js';
 import { networkRow, parseNetworkOptions } from '../network-option.js';
 import { appendAll } from '../../math/index.js';
+import { MAX_WIRINGS_IN_MEMORY, streamAnalysis, streamedAnalysisProblems } from '../stream-analysis.js';
 
 interface AnalyzeOptions extends CircuitOptionText, AlikeOptionText {
   /** false with --no-audio: skip the figures that need each wiring's render. */
@@ -137,11 +139,43 @@ export function registerAnalyze(program: Command, io: Io): void {
     if (options.csv !== undefined && options.csv.trim() === '') problems.push(problemAt('--csv', 'a file name', options.csv));
     else if (options.csv !== undefined) appendAll(problems, findOutputProblems([file], [{ option: '--csv', path: options.csv, kind: 'file' }], io.cwd));
     const networks = parseNetworkOptions(guitar, options.network ?? [], problems);
+    const total = wiringCountFor(guitar.elements.length);
+    const streamed = total > MAX_WIRINGS_IN_MEMORY;
+    if (streamed) appendAll(problems, streamedAnalysisProblems(options.audio !== false, options.sort, total));
+    if (streamed && networks.length > 0) {
+      problems.push(problemAt('--network', `a guitar of at most ${MAX_WIRINGS_IN_MEMORY.toLocaleString('en-US')} wirings (above that analyze streams its rows and takes no connection lists yet)`, `${total.toLocaleString('en-US')} wirings`));
+    }
     if (problems.length > 0) throw new InputError(problems);
 
-    const estimate = estimateAnalyze(wiringCountFor(guitar.elements.length), options.audio !== false);
+    const estimate = estimateAnalyze(total, options.audio !== false);
     const big = checkWorkSize(io, options.audio === false ? 'analysis (no audio)' : 'analysis', estimate, { yes: options.yes === true, picked: false });
-    const wirings = enumerateWirings(guitar.elements);
+    if (streamed) {
+      const basis = measureSpectralBasis(guitar);
+      const circuit = prepareCircuitMetrics(guitar, overrides, { drive: measureCoilDrive(basis) });
+      await streamAnalysis({
+        io,
+        guitar,
+        circuit,
+        basis,
+        overrides,
+        total,
+        csv: options.csv,
+        format: options.json ? 'json' : options.markdown ? 'markdown' : 'table',
+        big,
+        settings: settingsRecord(circuit.load, circuit.points),
+        settingsLine: describeLoad(circuit.load),
+        footnotes: FOOTNOTES,
+        silentNote: SILENT_NOTE,
+      });
+      return;
+    }
+    // Every long step pauses now and then, so Ctrl-C and SIGTERM are answered during the work (pause-for-signals.ts).
+    const pause = createPause();
+    const wirings: Wiring[] = [];
+    for (const wiring of iterateWirings(guitar.elements)) {
+      wirings.push(wiring);
+      await pause();
+    }
     // Many wirings: their audio figures start on a second thread now, while this one measures the circuits.
     const threaded = options.audio !== false && figuresThreadPays(wirings.length);
     const progress = createProgress(io, undefined, { plainLines: big });
@@ -149,14 +183,16 @@ export function registerAnalyze(program: Command, io: Io): void {
     const pending = threaded ? measureFiguresOnThread(guitar, wirings, overrides, onStep) : null;
     pending?.catch(() => undefined); // awaited below; a failure is reported there
     const basis = measureSpectralBasis(guitar);
-    const analysis = measureCircuitMetrics(guitar, wirings, overrides, { drive: measureCoilDrive(basis) });
+    await pause();
+    const solver = prepareCircuitMetrics(guitar, overrides, { drive: measureCoilDrive(basis) });
+    const analysis: CircuitAnalysis = { load: solver.load, silent: solver.silent, points: solver.points, wirings: await runStepsPausing(solver.measureSteps(wirings), pause) };
     let audio: ReadonlyMap<string, AudioMetrics> | undefined;
     if (options.audio !== false && !analysis.silent) {
       progress.stage('measuring', wirings.length);
       audio = pending ? referLevels(wirings, await pending) : measureWiringAudio(guitar, wirings, wirings, overrides, onStep, basis);
       progress.finish();
     }
-    const distinct = measureDistinctness(guitar, wirings, { overrides, thresholds, reuseBasis: basis });
+    const distinct = await runStepsPausing(measureDistinctnessSteps(guitar, wirings, { overrides, thresholds, reuseBasis: basis }), pause);
     const unsorted: AnalyzedWiring[] = wirings.map((wiring, index) => ({
       wiring,
       circuit: analysis.wirings[index] as AnalyzedWiring['circuit'],
@@ -165,7 +201,7 @@ export function registerAnalyze(program: Command, io: Io): void {
     }));
     if (networks.length > 0) {
       const graphs = networks.map((network) => network.graph);
-      const circuits = measureGraphCircuitMetrics(guitar, graphs, overrides, { drive: measureCoilDrive(basis) }).wirings;
+      const circuits = solver.measureGraphs(graphs);
       const sounds = options.audio !== false && !analysis.silent ? measureGraphAudio(guitar, wirings, graphs, overrides, basis) : null;
       networks.forEach((network, index) => {
         unsorted.push({

@@ -1,9 +1,11 @@
 import type { Command } from 'commander';
-import { enumerateWirings, type Wiring } from '../../wiring/index.js';
-import { writeTable } from '../format-table.js';
+import { wiringCountFor } from '../../guitar/index.js';
+import { iterateWirings, type Wiring } from '../../wiring/index.js';
+import { writeTablePausing } from '../format-table.js';
 import type { Io } from '../io.js';
 import { readGuitarFile } from '../read-guitar.js';
-import { writeJson } from '../write-json.js';
+import { createPause } from '../pause-for-signals.js';
+import { mapIterable, writeJsonPausing } from '../write-json.js';
 import type { RowWiring } from '../metric-columns.js';
 
 /** The `--json` record of a wiring (contract in docs/design.md). */
@@ -24,16 +26,18 @@ export function registerWirings(program: Command, io: Io): void {
     .description('list every distinct wiring of the coils')
     .argument('<guitar>', 'guitar file (JSON)')
     .option('--json', 'print one JSON document on stdout')
-    .action((file: string, options: { json?: boolean }) => {
+    .action(async (file: string, options: { json?: boolean }) => {
       const guitar = readGuitarFile(file, io.cwd);
-      const wirings = enumerateWirings(guitar.elements);
+      const count = wiringCountFor(guitar.elements.length);
+      // Streamed one wiring at a time (six elements give 228,386), pausing so Ctrl-C is answered.
+      const wirings: Iterable<Wiring> = { [Symbol.iterator]: () => iterateWirings(guitar.elements) };
+      const pause = createPause();
       if (options.json) {
-        // Written in chunks: six elements give 228,386 wirings.
-        writeJson({ guitar: guitar.name, count: wirings.length, wirings: wirings.map(wiringRecord) }, io.stdout);
+        await writeJsonPausing({ guitar: guitar.name, count, wirings: mapIterable(wirings, wiringRecord) }, io.stdout, pause);
         return;
       }
-      io.stdout(`${guitar.name}: ${wirings.length} distinct wirings\n\n`);
-      writeTable(
+      io.stdout(`${guitar.name}: ${count} distinct wirings\n\n`);
+      await writeTablePausing(
         wirings,
         [
           { title: '#', value: (w) => w.id, align: 'right' },
@@ -44,6 +48,7 @@ export function registerWirings(program: Command, io: Io): void {
           { title: 'in words', value: (w) => w.description },
         ],
         io.stdout,
+        pause,
       );
     });
 }
