@@ -224,4 +224,10 @@ describe('coilbench analyze --network', () => {
     expect(io.out()).toBe('');
     expect(existsSync(csv)).toBe(false);
   });
+
+  it('refuses --network on a guitar whose analysis streams (six elements)', async () => {
+    const { status, err } = await run('analyze', 'three-humbucker.json', '--no-audio', '--network', 'neck_slug.finish = hot, neck_slug.start = ground');
+    expect(status).toBe(2);
+    expect(err).toMatch(/^coilbench: --network: expected a guitar of at most 9,997 wirings .*, got "[\d,]+ wirings"\n$/u);
+  });
 });
