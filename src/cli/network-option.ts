@@ -8,6 +8,7 @@
 import { type CircuitGraph, connectsHotToGround, parseConnections } from '../circuit/index.js';
 import { InputError, type InputProblem, problemAt } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
+import { appendAll } from '../math/index.js';
 import type { RowWiring } from './metric-columns.js';
 
 export interface NetworkOption {
@@ -30,7 +31,7 @@ export function parseNetworkOptions(guitar: Guitar, texts: readonly string[], pr
       parsed.push({ text: text.split(',').map((joint) => joint.split('=').map((terminal) => terminal.trim()).join(' = ')).join(', '), graph });
     } catch (error) {
       if (!(error instanceof InputError)) throw error;
-      problems.push(...error.problems);
+      appendAll(problems, error.problems);
     }
   });
   return parsed;
