@@ -4,29 +4,15 @@
  * wirings' networks, posts a message after each phase class, then the
  * figures as one Float64Array (energy, loudness, centroid per wiring, in the
  * order given). Errors are posted back as data so the parent can rethrow
- * them with their class.
+ * them with their class. Load it only as a thread's entry: at import it
+ * takes the thread's workerData as its job (its types live in figures-job.ts).
  */
 import { parentPort, workerData } from 'node:worker_threads';
 import { measureFiguresByClass } from '../analysis/index.js';
-import type { CircuitOverrides } from '../circuit/index.js';
 import { InputError } from '../errors/index.js';
-import type { Guitar } from '../guitar/index.js';
-import type { Network } from '../wiring/index.js';
 import { prepareReferenceFigures } from './measure-wiring-audio.js';
+import { FIGURES_PER_WIRING, type FiguresJob, type FiguresMessage } from './figures-job.js';
 
-export interface FiguresJob {
-  readonly guitar: Guitar;
-  readonly overrides: CircuitOverrides;
-  readonly networks: readonly Network[];
-}
-
-/** Numbers per wiring in the result: energy, loudnessLufs, centroidHz. */
-export const FIGURES_PER_WIRING = 3;
-
-export type FiguresMessage =
-  | { readonly kind: 'step'; readonly done: number; readonly total: number }
-  | { readonly kind: 'done'; readonly figures: Float64Array }
-  | { readonly kind: 'failed'; readonly message: string; readonly problems?: InputError['problems'] };
 
 const port = parentPort;
 if (port) {

@@ -9,7 +9,7 @@ import type { CircuitOverrides } from '../circuit/index.js';
 import { InputError, WorkError } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
 import type { Wiring } from '../wiring/index.js';
-import { FIGURES_PER_WIRING, type FiguresJob, type FiguresMessage } from './figures-worker.js';
+import { FIGURES_PER_WIRING, type FiguresJob, type FiguresMessage } from './figures-job.js';
 import type { RawAudioMetrics } from './measure-wiring-audio.js';
 import { defaultThreadCount, startWorkerModule } from './run-render-pass.js';
 

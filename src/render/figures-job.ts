@@ -1,0 +1,23 @@
+/**
+ * What the audio-figures thread (figures-worker.ts) is given and posts back:
+ * kept apart from the worker's entry module, which starts working as soon as
+ * it is imported in a thread.
+ */
+import type { CircuitOverrides } from '../circuit/index.js';
+import type { InputError } from '../errors/index.js';
+import type { Guitar } from '../guitar/index.js';
+import type { Network } from '../wiring/index.js';
+
+export interface FiguresJob {
+  readonly guitar: Guitar;
+  readonly overrides: CircuitOverrides;
+  readonly networks: readonly Network[];
+}
+
+/** Numbers per wiring in the result: energy, loudnessLufs, centroidHz. */
+export const FIGURES_PER_WIRING = 3;
+
+export type FiguresMessage =
+  | { readonly kind: 'step'; readonly done: number; readonly total: number }
+  | { readonly kind: 'done'; readonly figures: Float64Array }
+  | { readonly kind: 'failed'; readonly message: string; readonly problems?: InputError['problems'] };
