@@ -24,6 +24,7 @@ import { type CircuitGraph, graphOfNetwork } from './circuit-graph.js';
 import { usesCoupledCoils } from './coil-coupling.js';
 import type { PreparedCircuit, Workspace } from './prepare-circuit.js';
 import { solveNodalTransfers } from './solve-nodal.js';
+import { multiplyComplexInPlace } from '../math/index.js';
 
 /** Graphs of networks already laid out, so repeated solves (probes between grid points) reuse them. */
 const graphs = new WeakMap<Network, { readonly guitar: Guitar; readonly graph: CircuitGraph }>();
@@ -126,7 +127,7 @@ function evaluate(state: SolveState, node: Network, impedance: Float64Array): vo
       y[i] = (ar * br + ai * bi) / norm;
       y[i + 1] = (ai * br - ar * bi) / norm;
     }
-    for (let s = from; s < to; s += 1) multiplyInPlace(out[workspace.coilStack[s] as number] as Float64Array, y, length);
+    for (let s = from; s < to; s += 1) multiplyComplexInPlace(out[workspace.coilStack[s] as number] as Float64Array, y, length);
   }
   // Z = 1/ΣY
   for (let i = 0; i < length; i += 2) {
@@ -138,17 +139,6 @@ function evaluate(state: SolveState, node: Network, impedance: Float64Array): vo
   }
   state.boundaryCount = firstBoundary;
   workspace.top = mark;
-}
-
-function multiplyInPlace(target: Float64Array, factor: Float64Array, length: number): void {
-  for (let i = 0; i < length; i += 2) {
-    const ar = target[i] as number;
-    const ai = target[i + 1] as number;
-    const br = factor[i] as number;
-    const bi = factor[i + 1] as number;
-    target[i] = ar * br - ai * bi;
-    target[i + 1] = ar * bi + ai * br;
-  }
 }
 
 /**
@@ -182,7 +172,7 @@ export function solveTransfers(prepared: PreparedCircuit, network: Network, out?
     return result;
   }
   solveLoadGain(prepared, impedance, impedance);
-  for (let c = 0; c < coils; c += 1) if (used[c] === 1) multiplyInPlace(result[c] as Float64Array, impedance, length);
+  for (let c = 0; c < coils; c += 1) if (used[c] === 1) multiplyComplexInPlace(result[c] as Float64Array, impedance, length);
   workspace.top = 0;
   return result;
 }

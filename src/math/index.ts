@@ -7,3 +7,4 @@ export { runSteps } from './run-steps.js';
 export type { Steps } from './run-steps.js';
 export { fitLeastSquares, solveLinear } from './fit-least-squares.js';
 export type { LeastSquaresOptions, LeastSquaresResult, ResidualFunction } from './fit-least-squares.js';
+export { multiplyComplexInPlace } from './multiply-complex.js';

@@ -23,7 +23,7 @@ import {
 } from '../circuit/index.js';
 import { InputError } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
-import { type RealFft, nextPowerOfTwo, realFft } from '../math/index.js';
+import { type RealFft, multiplyComplexInPlace, nextPowerOfTwo, realFft } from '../math/index.js';
 import { computeCoilSpectra, pickupDelaySamples } from '../pickup/index.js';
 import { type Phrase, type StringOptions, renderPhrase } from '../string/index.js';
 import type { Network } from '../wiring/index.js';
@@ -287,14 +287,7 @@ function synthesisOn(parts: SharedParts, guitar: Guitar, circuit: PreparedCircui
         const sign = signs[coil] as number;
         for (let k = 0; k < complexLength; k += 1) output[k] = (output[k] as number) + sign * (product[k] as number);
       });
-      for (let k = 0; k < complexLength; k += 2) {
-        const yr = output[k] as number;
-        const yi = output[k + 1] as number;
-        const gr = gain[k] as number;
-        const gi = gain[k + 1] as number;
-        output[k] = yr * gr - yi * gi;
-        output[k + 1] = yr * gi + yi * gr;
-      }
+      multiplyComplexInPlace(output, gain, complexLength);
     }
     fft.inverse(output, time);
     // The pickup spectra are delayed by `delay` samples so that every coil stays causal; sample n is time (n − delay)/fs of the phrase.
