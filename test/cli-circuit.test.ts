@@ -7,7 +7,7 @@ import { captureIo, main } from '../src/cli/index.js';
 import { prepareCircuit, solveTransfers } from '../src/circuit/index.js';
 import { parseGuitarText } from '../src/guitar/index.js';
 import { enumerateWirings } from '../src/wiring/index.js';
-import { readPrintRows } from './support/ngspice-sweep.js';
+import { readPrintRows, summedTransferAt } from './support/ngspice-sweep.js';
 
 const samples = join(import.meta.dirname, '..', 'samples');
 const SAMPLE_FILES = ['three-single-coil.json', 'humbucker-two-single-coil.json', 'two-humbucker.json', 'two-lead-humbucker.json'];
@@ -219,12 +219,7 @@ describe('netlists in plain ngspice (Debian ngspice, `ngspice -b`)', () => {
     const frequencies = Float64Array.from(rows.map((cells) => cells[1] as number));
     const transfers = solveTransfers(prepareCircuit(guitar, frequencies), wiring?.network ?? { kind: 'element', element: 0, inverted: false });
     rows.forEach((cells, k) => {
-      let re = 0;
-      let im = 0;
-      for (const transfer of transfers) {
-        re += transfer[2 * k] as number;
-        im += transfer[2 * k + 1] as number;
-      }
+      const { re, im } = summedTransferAt(transfers, k);
       expect(Math.abs(20 * Math.log10(Math.hypot(re, im)) - (cells[2] as number))).toBeLessThan(0.001);
       const phase = (Math.atan2(im, re) * 180) / Math.PI;
       const difference = ((phase - (cells[3] as number) + 540) % 360) - 180;

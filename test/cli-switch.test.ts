@@ -15,7 +15,7 @@ import { prepareCircuit, solveTransfers } from '../src/circuit/index.js';
 import { parseGuitarText } from '../src/guitar/index.js';
 import { escapeHtml } from '../src/report/index.js';
 import { enumerateWirings } from '../src/wiring/index.js';
-import { readPrintRows } from './support/ngspice-sweep.js';
+import { readPrintRows, summedTransferAt } from './support/ngspice-sweep.js';
 
 const samples = join(import.meta.dirname, '..', 'samples');
 const STANDARD = ['neck', 'neck // mid', 'mid', 'mid // bridge', 'bridge'].flatMap((text) => ['--wiring', text]);
@@ -145,12 +145,7 @@ describe('coilbench switch', () => {
     const frequencies = Float64Array.from(rows.map((cells) => cells[1] as number));
     const transfers = solveTransfers(prepareCircuit(guitar, frequencies), wiring?.network ?? { kind: 'element', element: 0, inverted: false });
     rows.forEach((cells, k) => {
-      let re = 0;
-      let im = 0;
-      for (const transfer of transfers) {
-        re += transfer[2 * k] as number;
-        im += transfer[2 * k + 1] as number;
-      }
+      const { re, im } = summedTransferAt(transfers, k);
       expect(Math.abs(20 * Math.log10(Math.hypot(re, im)) - (cells[2] as number))).toBeLessThan(0.01);
     });
   });

@@ -30,3 +30,14 @@ export function readPrintRows(stdout: string): number[][] {
     .map((line) => line.trim().split(/\s+/u).map(Number))
     .filter((cells) => cells.length === 4 && cells.every(Number.isFinite));
 }
+
+/** The wiring's output at grid index `k`: the sum of its coils' interleaved complex transfers (what v(out) is with every coil's source at 1 V). */
+export function summedTransferAt(transfers: readonly Float64Array[], k: number): { readonly re: number; readonly im: number } {
+  let re = 0;
+  let im = 0;
+  for (const transfer of transfers) {
+    re += transfer[2 * k] as number;
+    im += transfer[2 * k + 1] as number;
+  }
+  return { re, im };
+}
