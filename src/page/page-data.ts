@@ -8,6 +8,7 @@
 import type { CircuitOverrides, CoilDrive } from '../circuit/index.js';
 import type { Guitar } from '../guitar/index.js';
 import type { ComparisonReport, ListeningReport } from '../report/index.js';
+import { decodeBase64, encodeBase64 } from './base64.js';
 
 /** Each coil's EMF for the rendered phrase, float32 little-endian, base64. */
 export interface PageCoilSignals {
@@ -91,18 +92,11 @@ const FLOAT32_BYTES = 4;
 
 /** Samples → base64 of their float32 bytes (little-endian, as every supported host stores them). */
 export function encodeSignal(samples: Float32Array): string {
-  const bytes = new Uint8Array(samples.buffer, samples.byteOffset, samples.length * FLOAT32_BYTES);
-  const CHUNK = 0x8000; // characters per String.fromCharCode call (stays under argument limits)
-  let binary = '';
-  // bounded spread: at most CHUNK values at a time.
-  for (let i = 0; i < bytes.length; i += CHUNK) binary += String.fromCharCode(...bytes.subarray(i, i + CHUNK));
-  return btoa(binary);
+  return encodeBase64(new Uint8Array(samples.buffer, samples.byteOffset, samples.length * FLOAT32_BYTES));
 }
 
 /** base64 of float32 bytes → samples. */
 export function decodeSignal(base64: string): Float32Array {
-  const binary = atob(base64);
-  const bytes = new Uint8Array(binary.length);
-  for (let i = 0; i < binary.length; i += 1) bytes[i] = binary.charCodeAt(i);
-  return new Float32Array(bytes.buffer, 0, Math.floor(bytes.length / FLOAT32_BYTES));
+  const bytes = decodeBase64(base64);
+  return new Float32Array(bytes.buffer, bytes.byteOffset, Math.floor(bytes.length / FLOAT32_BYTES));
 }
