@@ -49,8 +49,9 @@ import {
   REFERENCE_FIGURES_VERSION,
   RENDER_TAIL_S,
   referLevels,
+  referenceCoilsOf,
 } from './measure-wiring-audio.js';
-import { type AudioSettings, type HumMix, type PassItem, type WiringRenderer, createWiringRenderer } from './render-pass.js';
+import { type AudioSettings, type HumMix, type PassItem, type WiringRenderer, createWiringRenderer, isReferencePerformance } from './render-pass.js';
 import { defaultThreadCount, runRenderPassOnThreads } from './run-render-pass.js';
 import { type OutputFolder, netlistFileName, wavFileName } from './output-folder.js';
 import { gainToDb, planMatchedGains, planTrueLevelGain } from './plan-gains.js';
@@ -67,6 +68,13 @@ export const RENDER_MODEL_VERSION = 3;
 const MAX_PENDING_WRITES = 4;
 /** Least time between manifest saves while writing files, ms: an interrupted run loses at most this much record (the files themselves are always whole). */
 const MANIFEST_SAVE_INTERVAL_MS = 250;
+/**
+ * Processed audio a render holds in memory between its passes, bytes; the
+ * rest is parked in scratch files. 32 MB holds the 47 wirings of three
+ * coils (about 0.5 MB each for a 2.6 s phrase at 48 kHz) and keeps a render
+ * of thousands of wirings within its memory bound.
+ */
+const PARK_IN_MEMORY_BYTES = 32 * 2 ** 20;
 /** Points of the response curves drawn on the listening page (log-spaced, 20 Hz–20 kHz). */
 export const RESPONSE_POINTS = 96;
 
@@ -193,7 +201,12 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
       tail: RENDER_TAIL_S,
     });
 
+  // The strings of the reference phrase, rendered once: the figures, the reference synthesis, the groups and the page all use them.
+  const basis = measureSpectralBasis(guitar);
+  const referenceCoils = referenceCoilsOf(guitar, basis);
   const settings: AudioSettings = {
+    referenceCoils,
+    parkInMemoryBytes: PARK_IN_MEMORY_BYTES,
     guitar,
     overrides: request.overrides,
     phrase: request.phrase,
@@ -211,6 +224,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   const needed = groupByShape(guitar, request.all.filter((wiring) => wiring.elements.length === 1 || selectedIds.has(wiring.id)));
   const raw = new Map<string, RawAudioMetrics>();
   const scratchFiles = new Map<string, string>();
+  const inMemory = new Map<string, Float32Array>();
   const items: PassItem[] = [];
   const hashes = new Map<string, { metricsHash: string; audioHash: string }>();
   for (const wiring of needed) {
@@ -239,8 +253,9 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
       raw.set(result.id, result.metrics);
       Object.assign(entry, { metricsHash: hash.metricsHash, metrics: result.metrics });
     }
-    if (result.audio && result.scratch && hash) {
-      scratchFiles.set(result.id, result.scratch);
+    if (result.audio && (result.scratch || result.samples) && hash) {
+      if (result.scratch) scratchFiles.set(result.id, result.scratch);
+      if (result.samples) inMemory.set(result.id, result.samples);
       Object.assign(entry, { audioHash: hash.audioHash, audio: result.audio, fileHash: undefined, written: undefined });
     }
   }
@@ -297,7 +312,9 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
         skipped += 1;
       } else {
         const parked = scratchFiles.get(wiring.id);
-        const audio = parked ? readScratch(parked) : await processedAudio(wiring);
+        const held = inMemory.get(wiring.id);
+        inMemory.delete(wiring.id);
+        const audio = held ?? (parked ? readScratch(parked) : await processedAudio(wiring));
         for (let n = 0; n < audio.length; n += 1) audio[n] = (audio[n] as number) * gain;
         const bytes = encodeWav(audio, {
           sampleRateHz: request.sampleRateHz,
@@ -342,7 +359,6 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   // every wiring, or (when only some of more than MAX_WIRINGS_GROUPED_FOR_SOME are asked for) among the
   // chosen ones and the single elements, so that one wiring of a six-element guitar costs one wiring, not 228,386.
   const scope = distinctScope(request.all, request.selected);
-  const basis = measureSpectralBasis(guitar);
   const drive = measureCoilDrive(basis);
   const circuit = measureCircuitMetrics(guitar, selected, request.overrides, { drive });
   const circuitById = new Map(selected.map((wiring, index) => [wiring.id, circuit.wirings[index] as WiringCircuitMetrics]));
@@ -414,7 +430,8 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     ...(request.positions === undefined ? {} : { positions: request.positions }),
   };
   await writeFileAtomic(folder.reportJson, `${JSON.stringify(report, null, 2)}\n`, deferred);
-  await writeListeningPage(folder.page, report, { ...request, drive });
+  const referencePerformance = isReferencePerformance(request.phrase, request.sampleRateHz, request.seed);
+  await writeListeningPage(folder.page, report, { ...request, drive, ...(referencePerformance ? { coils: referenceCoils } : {}) });
   await deferred.flush();
   return { report, rows, written, skipped, commonGainDb, matchedLoudnessLufs, audioSeconds, distinct, scope };
 }
