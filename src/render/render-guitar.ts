@@ -13,22 +13,8 @@
 import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { performance } from 'node:perf_hooks';
 import { basename, join, relative } from 'node:path';
-import {
-  type CircuitOverrides,
-  type WiringCircuitMetrics,
-  logSpacedFrequencies,
-  measureCircuitMetrics,
-  measureResponseDb,
-  phaseClassKey,
-  phaseClassNetwork,
-  prepareCircuit,
-  renderNetlist,
-  sampleCoilDrive,
-  solveTransfers,
-  AUDIO_BAND_HIGH_HZ,
-  AUDIO_BAND_LOW_HZ,
-} from '../circuit/index.js';
-import { type AlikeThresholds, type Distinctness, measureCoilDrive, measureDistinctness, measureSpectralBasis } from '../analysis/index.js';
+import { type CircuitOverrides, type WiringCircuitMetrics, phaseClassKey, renderNetlist } from '../circuit/index.js';
+import { type AlikeThresholds, type Distinctness, measureSpectralBasis } from '../analysis/index.js';
 import { WorkError } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
 import {
@@ -61,6 +47,7 @@ import { createDeferredSync, removeStaleTempFiles, writeFileAtomic } from './wri
 import { type FileRecord, fileMatches, recordOf } from './file-record.js';
 import { maxOf } from '../math/index.js';
 import { writeListeningPage } from './write-listening-page.js';
+import { type PendingAnalysis, prepareRenderAnalysis } from './render-analysis-thread.js';
 
 /** Bump when the sound of a render changes for the same inputs (string model, pickup, chain), so old files are redone. 3: stiff strings (inharmonicity on by default). */
 export const RENDER_MODEL_VERSION = 3;
@@ -75,8 +62,6 @@ const MANIFEST_SAVE_INTERVAL_MS = 250;
  * of thousands of wirings within its memory bound.
  */
 const PARK_IN_MEMORY_BYTES = 32 * 2 ** 20;
-/** Points of the response curves drawn on the listening page (log-spaced, 20 Hz–20 kHz). */
-export const RESPONSE_POINTS = 96;
 
 export type { HumMix };
 
@@ -106,6 +91,8 @@ export interface RenderRequest {
   readonly thresholds?: Partial<AlikeThresholds>;
   /** A switch plan's positions in order (`switch --render`): the report and page label the wirings by position. */
   readonly positions?: readonly ReportSwitchPosition[];
+  /** Run the analysis (circuit figures, groups, response curves) on a thread of its own (default: when the machine has a second core). */
+  readonly analysisThread?: boolean;
 }
 
 export interface RenderEvents {
@@ -161,6 +148,21 @@ function soundOf(guitar: Guitar): unknown {
 
 
 export async function renderGuitar(request: RenderRequest, events: RenderEvents = {}): Promise<RenderOutcome> {
+  // The analysis (circuit figures, groups, response curves) needs no audio: it starts now, on its own
+  // thread where there is a second core, and loads its code while the strings are rendered.
+  const scope = distinctScope(request.all, request.selected);
+  const analysis = prepareRenderAnalysis(
+    { guitar: request.guitar, overrides: request.overrides, selected: request.selected.map((wiring) => wiring.network), scope, thresholds: request.thresholds },
+    request.analysisThread ?? defaultThreadCount() > 1,
+  );
+  try {
+    return await renderWith(request, events, analysis, scope);
+  } finally {
+    await analysis.cancel();
+  }
+}
+
+async function renderWith(request: RenderRequest, events: RenderEvents, analysis: PendingAnalysis, scope: readonly Wiring[]): Promise<RenderOutcome> {
   const { guitar, folder } = request;
   for (const path of [folder.root, folder.wavFolder, folder.netlistFolder]) {
     mkdirSync(path, { recursive: true });
@@ -201,8 +203,9 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
       tail: RENDER_TAIL_S,
     });
 
-  // The strings of the reference phrase, rendered once: the figures, the reference synthesis, the groups and the page all use them.
+  // The strings of the reference phrase, rendered once: the figures, the reference synthesis, the analysis and the page all use them.
   const basis = measureSpectralBasis(guitar);
+  analysis.start(basis);
   const referenceCoils = referenceCoilsOf(guitar, basis);
   const settings: AudioSettings = {
     referenceCoils,
@@ -358,16 +361,9 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   // Circuit metrics (read from the response as the strings drive it) for the rendered wirings; groups for
   // every wiring, or (when only some of more than MAX_WIRINGS_GROUPED_FOR_SOME are asked for) among the
   // chosen ones and the single elements, so that one wiring of a six-element guitar costs one wiring, not 228,386.
-  const scope = distinctScope(request.all, request.selected);
-  const drive = measureCoilDrive(basis);
-  const circuit = measureCircuitMetrics(guitar, selected, request.overrides, { drive });
+  const { drive, circuit, distinct, responseFrequenciesHz: responseGrid, responsesDb } = await analysis.result();
   const circuitById = new Map(selected.map((wiring, index) => [wiring.id, circuit.wirings[index] as WiringCircuitMetrics]));
-  const distinct = measureDistinctness(guitar, scope, { overrides: request.overrides, thresholds: request.thresholds, reuseBasis: basis });
   const groupById = new Map(scope.map((wiring, index) => [wiring.id, distinct.groups.groupOf[index] ?? null]));
-  const responseGrid = logSpacedFrequencies(AUDIO_BAND_LOW_HZ, AUDIO_BAND_HIGH_HZ, RESPONSE_POINTS);
-  const responseCircuit = prepareCircuit(guitar, responseGrid, request.overrides);
-  const transfers = guitar.coils.map(() => new Float64Array(2 * RESPONSE_POINTS));
-  const responseDrive = sampleCoilDrive(drive, responseGrid);
 
   const rows: RenderedWiring[] = selected.map((wiring) => {
     const audio = audioMetrics.get(wiring.id);
@@ -380,9 +376,8 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
       wav: request.writeWav === false ? null : relative(folder.root, join(folder.wavFolder, wavFileName(wiring))).split('\\').join('/'),
     };
   });
-  const reportWirings: ReportWiring[] = rows.map((row) => {
-    solveTransfers(responseCircuit, phaseClassNetwork(guitar, row.wiring.network), transfers);
-    const response = measureResponseDb(responseCircuit, row.wiring.network, drive, { sampledDrive: responseDrive, inPhaseTransfers: transfers });
+  const reportWirings: ReportWiring[] = rows.map((row, index) => {
+    const response = responsesDb[index] ?? null;
     return {
       id: row.wiring.id,
       number: row.wiring.number,
