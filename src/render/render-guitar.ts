@@ -520,6 +520,8 @@ function groupByShape(guitar: Guitar, wirings: readonly Wiring[]): Wiring[] {
 
 function readScratch(path: string): Float32Array {
   const bytes = readFileSync(path);
+  // A file read whole gets a buffer of its own, aligned for float32; copied only if it is not.
+  if (bytes.byteOffset % Float32Array.BYTES_PER_ELEMENT === 0) return new Float32Array(bytes.buffer, bytes.byteOffset, bytes.byteLength / Float32Array.BYTES_PER_ELEMENT);
   const copy = new Uint8Array(bytes.byteLength);
   copy.set(bytes);
   return new Float32Array(copy.buffer);
