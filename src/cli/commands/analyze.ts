@@ -12,7 +12,7 @@ import {
 } from '../../circuit/index.js';
 import { measureCoilDrive, measureDistinctnessSteps, measureSpectralBasis } from '../../analysis/index.js';
 import { InputError, type InputProblem, problemAt } from '../../errors/index.js';
-import { formatEngineering } from '../../units/index.js';
+import { formatCount, formatEngineering } from '../../units/index.js';
 import { iterateWirings, type Wiring } from '../../wiring/index.js';
 import { type AlikeOptionText, addAlikeOptions, parseAlikeOptions } from '../alike-options.js';
 import { type CircuitOptionText, addCircuitOptions, parseCircuitOptions } from '../circuit-options.js';
@@ -143,7 +143,7 @@ export function registerAnalyze(program: Command, io: Io): void {
     const streamed = total > MAX_WIRINGS_IN_MEMORY;
     if (streamed) appendAll(problems, streamedAnalysisProblems(options.audio !== false, options.sort, total));
     if (streamed && networks.length > 0) {
-      problems.push(problemAt('--network', `a guitar of at most ${MAX_WIRINGS_IN_MEMORY.toLocaleString('en-US')} wirings (above that analyze streams its rows and takes no connection lists yet)`, `${total.toLocaleString('en-US')} wirings`));
+      problems.push(problemAt('--network', `a guitar of at most ${formatCount(MAX_WIRINGS_IN_MEMORY)} wirings (above that analyze streams its rows and takes no connection lists yet)`, `${formatCount(total)} wirings`));
     }
     if (problems.length > 0) throw new InputError(problems);
 
