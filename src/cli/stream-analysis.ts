@@ -19,7 +19,7 @@ import type { CircuitMetricsSolver, CircuitOverrides } from '../circuit/index.js
 import { type InputProblem, problemAt } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
 import { formatCount } from '../units/index.js';
-import { type AtomicFileStream, openFileAtomicSync, removeStaleTempFiles } from '../render/index.js';
+import { type AtomicFileStream, openFileAtomicSync, removeStaleTempFiles } from '../render/measuring/index.js';
 import { invertAll, planWiringSubsets, printNetwork, type Network } from '../wiring/index.js';
 import { wiringRecord } from './commands/wirings.js';
 import { renderTableLine } from './format-table.js';

@@ -33,12 +33,13 @@ import { readGuitarFile } from '../read-guitar.js';
 import { findOutputProblems } from '../guard-outputs.js';
 import { checkWorkSize, estimateAnalyze } from '../estimate-work.js';
 import { wiringCountFor } from '../../guitar/index.js';
-import { type AudioMetrics, REFERENCE_PHRASE, figuresThreadPays, measureFiguresOnThread, measureGraphAudio, measureWiringAudio, referLevels } from '../../render/index.js';
-import { removeStaleTempFiles, writeFileAtomicSync } from '../../render/index.js';
+import { type AudioMetrics, REFERENCE_PHRASE, figuresThreadPays, measureFiguresOnThread, measureGraphAudio, measureWiringAudio, referLevels } from '../../render/measuring/index.js';
+import { removeStaleTempFiles, writeFileAtomicSync } from '../../render/measuring/index.js';
 import { wiringRecord } from './wirings.js';
 import { collectOption } from '../collect-option.js';
 import { networkRow, parseNetworkOptions } from '../network-option.js';
 import { appendAll } from '../../math/index.js';
+import { writeJson } from '../../report/text/index.js';
 import { MAX_WIRINGS_IN_MEMORY, streamAnalysis, streamedAnalysisProblems } from '../stream-analysis.js';
 
 interface AnalyzeOptions extends CircuitOptionText, AlikeOptionText {
@@ -238,7 +239,7 @@ export function registerAnalyze(program: Command, io: Io): void {
         groups: groupsRecord(wirings, distinct),
       };
       if (analysis.silent) document.note = SILENT_NOTE;
-      io.stdout(`${JSON.stringify(document, null, 2)}\n`);
+      writeJson(document, io.stdout); // in chunks: a few MB for 9,997 wirings never held as one string
       return;
     }
     const listed = networks.length === 0 ? '' : ` and ${networks.length} connection list${networks.length === 1 ? '' : 's'}`;
