@@ -19,8 +19,12 @@ export interface RealFft {
    * read as x[n]·window[n] when a window is given.
    */
   forwardPacked(input: ArrayLike<number>, out: Float64Array, window?: ArrayLike<number>): Float64Array;
-  /** Inverse transform of a half spectrum (Hermitian symmetry assumed) into a new or given real signal of length N. */
-  inverse(halfSpectrum: Float64Array, out?: Float64Array): Float64Array;
+  /**
+   * Inverse transform of a half spectrum (Hermitian symmetry assumed) into a
+   * new or given real signal of length N. With `scale`, the spectrum is read
+   * as halfSpectrum[i]·scale (the same numbers as scaling a copy first).
+   */
+  inverse(halfSpectrum: Float64Array, out?: Float64Array, scale?: number): Float64Array;
 }
 
 const cache = new Map<number, RealFft>();
@@ -149,7 +153,7 @@ export function realFft(size: number): RealFft {
       }
       return out;
     },
-    inverse(halfSpectrum, out = new Float64Array(size)) {
+    inverse(halfSpectrum, out = new Float64Array(size), scale = 1) {
       // A real signal of length N from one complex inverse FFT of length N/2
       // (the standard packing; e.g. Numerical Recipes, 3rd ed., §12.3):
       // with M = N/2, E[k] = (X[k] + conj(X[M−k]))/2 is the spectrum of the
@@ -157,10 +161,11 @@ export function realFft(size: number): RealFft {
       // ones (W = e^{−j2π/N}); z = IDFT_M(E + jO) gives x[2m] = Re z[m],
       // x[2m+1] = Im z[m].
       for (let k = 0; k < half; k += 1) {
-        const ar = halfSpectrum[2 * k] as number;
-        const ai = halfSpectrum[2 * k + 1] as number;
-        const br = halfSpectrum[2 * (half - k)] as number; // X[M−k], conjugated below
-        const bi = -(halfSpectrum[2 * (half - k) + 1] as number);
+        // x·1 = x exactly, so an unscaled inverse is unchanged to the last bit
+        const ar = (halfSpectrum[2 * k] as number) * scale;
+        const ai = (halfSpectrum[2 * k + 1] as number) * scale;
+        const br = (halfSpectrum[2 * (half - k)] as number) * scale; // X[M−k], conjugated below
+        const bi = -((halfSpectrum[2 * (half - k) + 1] as number) * scale);
         const er = (ar + br) / 2;
         const ei = (ai + bi) / 2;
         const dr = (ar - br) / 2;
