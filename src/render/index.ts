@@ -34,7 +34,8 @@ export { claimOutputFolder, ownNamesOf, releaseFolderLocksSync, FOLDER_MARKER, F
 export type { ClaimRequest, FolderClaim, FolderPurpose } from './folder-claim.js';
 export { guitarFolderName } from './folder-name.js';
 export type { OutputFolder } from './output-folder.js';
-export { renderGuitar, RENDER_MODEL_VERSION, RESPONSE_POINTS } from './render-guitar.js';
+export { renderGuitar, RENDER_MODEL_VERSION } from './render-guitar.js';
+export { RESPONSE_POINTS } from './render-analysis.js';
 export { removeScratchFoldersSync } from './scratch-folders.js';
 export { writeJsonFileAtomicSync } from './write-json-file.js';
 export type { HumMix, RenderEvents, RenderOutcome, RenderRequest, RenderedWiring } from './render-guitar.js';

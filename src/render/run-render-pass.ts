@@ -109,13 +109,15 @@ export async function runRenderPassOnThreads(
   const parts = Math.max(1, Math.min(threads, Math.floor(work / minItemsPerThread)));
   if (parts <= 1) return runRenderPass(settings, items, scratchFolder, () => onStep?.());
   const [own = [], ...others] = splitByShape(items, parts);
+  // The in-memory allowance is the render's, shared by its threads.
+  const shared: AudioSettings = { ...settings, parkInMemoryBytes: Math.floor((settings.parkInMemoryBytes ?? 0) / parts) };
   const step = (): void => onStep?.();
   const workers: Worker[] = [];
   let batches: PassResult[][];
   try {
     batches = await Promise.all([
-      ...others.map((chunk) => runInWorker({ settings, items: chunk, scratchFolder }, step, workers)),
-      runRenderPass(settings, own, scratchFolder, step),
+      ...others.map((chunk) => runInWorker({ settings: shared, items: chunk, scratchFolder }, step, workers)),
+      runRenderPass(shared, own, scratchFolder, step),
     ]);
   } catch (error) {
     await Promise.all(workers.map((worker) => worker.terminate()));
