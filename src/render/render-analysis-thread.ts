@@ -9,7 +9,7 @@ import type { Worker } from 'node:worker_threads';
 import type { SpectralBasis } from '../analysis/index.js';
 import { InputError, WorkError } from '../errors/index.js';
 import { type RenderAnalysis, type RenderAnalysisJob, measureRenderAnalysis } from './render-analysis.js';
-import { startWorkerModule } from './run-render-pass.js';
+import { startWorkerModule } from './worker-threads.js';
 
 /** The worker's answer: the analysis without its basis (the parent has it), or its failure as data. */
 export type RenderAnalysisMessage =

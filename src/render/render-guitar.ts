@@ -38,12 +38,15 @@ import {
   referenceCoilsOf,
 } from './measure-wiring-audio.js';
 import { type AudioSettings, type HumMix, type PassItem, type WiringRenderer, createWiringRenderer, isReferencePerformance } from './render-pass.js';
-import { defaultThreadCount, runRenderPassOnThreads } from './run-render-pass.js';
+import { runRenderPassOnThreads } from './run-render-pass.js';
+import { defaultThreadCount } from './worker-threads.js';
 import { type OutputFolder, netlistFileName, wavFileName } from './output-folder.js';
 import { gainToDb, planMatchedGains, planTrueLevelGain } from './plan-gains.js';
 import { MANIFEST_VERSION, type Manifest, hashOf, readManifest } from './render-manifest.js';
 import { type WavFormat, encodeWav } from './wav-file.js';
 import { createDeferredSync, removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
+import { writeJsonFileAtomicSync } from './write-json-file.js';
+import { activeScratchFolders } from './scratch-folders.js';
 import { type FileRecord, fileMatches, recordOf } from './file-record.js';
 import { maxOf } from '../math/index.js';
 import { writeListeningPage } from './write-listening-page.js';
@@ -424,7 +427,7 @@ async function renderWith(request: RenderRequest, events: RenderEvents, analysis
     groups: reportGroups(scope, distinct),
     ...(request.positions === undefined ? {} : { positions: request.positions }),
   };
-  await writeFileAtomic(folder.reportJson, `${JSON.stringify(report, null, 2)}\n`, deferred);
+  writeJsonFileAtomicSync(folder.reportJson, report); // in chunks: 38 MB for 9,997 wirings (write-json-file.ts)
   const referencePerformance = isReferencePerformance(request.phrase, request.sampleRateHz, request.seed);
   await writeListeningPage(folder.page, report, { ...request, drive, ...(referencePerformance ? { coils: referenceCoils } : {}) });
   await deferred.flush();
@@ -487,25 +490,6 @@ function createWriteQueue(limit: number): { add(write: () => Promise<void>): Pro
       await settle();
     },
   };
-}
-
-/** Attempts to remove a scratch folder that a worker thread is still writing into (Node's rmSync retries ENOTEMPTY and EBUSY). */
-const SCRATCH_REMOVE_RETRIES = 5;
-
-/** Scratch folders of renders in progress, so an interrupt handler can remove their parked audio. */
-const activeScratchFolders = new Set<string>();
-
-/** Remove the parked audio of every render in progress (for a SIGINT handler; the next run starts afresh). */
-export function removeScratchFoldersSync(): void {
-  for (const folder of activeScratchFolders) {
-    // A worker thread may still be adding a file: retry (ENOTEMPTY), and leave the rest to the next run rather than throw.
-    try {
-      rmSync(folder, { recursive: true, force: true, maxRetries: SCRATCH_REMOVE_RETRIES });
-    } catch {
-      // best effort while exiting; the next run removes the folder first
-    }
-  }
-  activeScratchFolders.clear();
 }
 
 /** Wirings reordered so those sharing a network shape (a phase class, with coupled coils) are adjacent (stable within one). */
