@@ -383,6 +383,8 @@ void openingRender
       byId<HTMLButtonElement>('transport-play').disabled = false;
       exposeTestView();
       performance.mark('coilbench-ready');
+      // The coils the first sound did not need get their spectra now, not at the first wiring that uses them.
+      setTimeout(() => engine.prepareSpectra(), 0);
     };
     if (document.readyState === 'loading') document.addEventListener('DOMContentLoaded', () => setTimeout(finish, 0), { once: true });
     else setTimeout(finish, 0);

@@ -106,6 +106,8 @@ export interface WiringEngine {
   synthesize(network: Network, knobs: Knobs): Float32Array;
   /** The processed signal through the knobs' chain, with its peak and loudness. */
   render(expression: string, network: Network, knobs: Knobs): Promise<RenderedWiring>;
+  /** Compute every coil's spectrum not computed yet (for idle time after the first sound). */
+  prepareSpectra(): void;
 }
 
 export function createWiringEngine(data: PageSound): WiringEngine {
@@ -155,6 +157,9 @@ export function createWiringEngine(data: PageSound): WiringEngine {
     length: coils.length,
     renderKnobs,
     synthesize,
+    prepareSpectra: () => {
+      for (let coil = 0; coil < spectra.length; coil += 1) void spectra[coil];
+    },
     async render(expression, network, knobs) {
       // Each step is timed as a performance measure (`npm run bench -- page` reads them).
       const started = performance.now();
