@@ -1,7 +1,8 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { measureSpectralBasis } from '../analysis/index.js';
+import { measureFiguresByClass, measureSpectralBasis } from '../analysis/index.js';
+import { prepareReferenceFigures } from './measure-wiring-audio.js';
 import { parseGuitarText } from '../guitar/index.js';
 import { enumerateWirings } from '../wiring/index.js';
 import { prepareRenderAnalysis } from './render-analysis-thread.js';
@@ -17,13 +18,17 @@ const job: RenderAnalysisJob = {
 };
 
 describe('prepareRenderAnalysis', () => {
-  it('gives the same analysis on a worker thread as in this thread, to the last bit', async () => {
+  it('gives the same analysis and audio figures on a worker thread as in this thread, to the last bit', async () => {
     const basis = measureSpectralBasis(guitar);
     const here = prepareRenderAnalysis(job, false);
     const there = prepareRenderAnalysis(job, true);
-    there.start(basis);
-    here.start(basis);
+    const figuresOf = wirings.slice(0, 12).map((wiring) => wiring.network);
+    there.start(basis, figuresOf);
+    here.start(basis, figuresOf);
     const [own, threaded] = await Promise.all([here.result(), there.result()]);
+    // The audio figures are those the render's own first pass measures from the strings rendered afresh.
+    expect(own.figures).toEqual(measureFiguresByClass(guitar, prepareReferenceFigures(guitar, job.overrides), figuresOf));
+    expect(threaded.figures).toEqual(own.figures);
     expect(threaded.distinct.spectra.basis).toBe(basis);
     expect(threaded.circuit).toEqual(own.circuit);
     expect(threaded.drive).toEqual(own.drive);

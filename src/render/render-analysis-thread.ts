@@ -9,6 +9,7 @@ import type { Worker } from 'node:worker_threads';
 import type { SpectralBasis } from '../analysis/index.js';
 import { InputError, WorkError } from '../errors/index.js';
 import { type RenderAnalysis, type RenderAnalysisJob, measureRenderAnalysis } from './render-analysis.js';
+import type { Network } from '../wiring/index.js';
 import { startWorkerModule } from './worker-threads.js';
 
 /** The worker's answer: the analysis without its basis (the parent has it), or its failure as data. */
@@ -17,8 +18,8 @@ export type RenderAnalysisMessage =
   | { readonly kind: 'failed'; readonly message: string; readonly problems?: InputError['problems'] };
 
 export interface PendingAnalysis {
-  /** Hand over the reference performance's spectral basis; the analysis starts. */
-  start(basis: SpectralBasis): void;
+  /** Hand over the reference performance's spectral basis (and the wirings whose audio figures are wanted); the analysis starts. */
+  start(basis: SpectralBasis, figures?: readonly Network[]): void;
   /** The analysis (after `start`). */
   result(): Promise<RenderAnalysis>;
   /** Stop the thread, if any (after a failure elsewhere). */
@@ -29,13 +30,15 @@ export interface PendingAnalysis {
 export function prepareRenderAnalysis(job: RenderAnalysisJob, thread: boolean): PendingAnalysis {
   if (!thread) {
     let basis: SpectralBasis | undefined;
+    let wanted: readonly Network[] = [];
     return {
-      start: (given) => {
+      start: (given, figures = []) => {
         basis = given;
+        wanted = figures;
       },
       result: async () => {
         if (!basis) throw new Error('prepareRenderAnalysis: result() before start()');
-        return measureRenderAnalysis(job, basis);
+        return measureRenderAnalysis(job, basis, wanted);
       },
       cancel: async () => undefined,
     };
@@ -64,9 +67,9 @@ export function prepareRenderAnalysis(job: RenderAnalysisJob, thread: boolean): 
   // Not awaited until `result`: a failure meanwhile must not be an unhandled rejection.
   answer.catch(() => undefined);
   return {
-    start: (basis) => {
+    start: (basis, figures = []) => {
       given = basis;
-      worker.postMessage(basis);
+      worker.postMessage({ basis, figures });
     },
     result: () => answer,
     cancel: async () => {

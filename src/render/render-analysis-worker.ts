@@ -1,12 +1,14 @@
 /**
  * Worker-thread entry for a render's analysis (render-analysis.ts): takes
  * the job from its parent as workerData, waits for the spectral basis the
- * parent measures meanwhile, then posts the analysis. Errors are posted back
+ * parent measures meanwhile (and the wirings whose audio figures it wants),
+ * then posts the analysis. Errors are posted back
  * as data so the parent can rethrow them with their class. Load it only as a
  * thread's entry: at import it takes the thread's workerData as its job.
  */
 import { parentPort, workerData } from 'node:worker_threads';
 import type { SpectralBasis } from '../analysis/index.js';
+import type { Network } from '../wiring/index.js';
 import { InputError } from '../errors/index.js';
 import { type RenderAnalysisJob, measureRenderAnalysis } from './render-analysis.js';
 import type { RenderAnalysisMessage } from './render-analysis-thread.js';
@@ -14,9 +16,9 @@ import type { RenderAnalysisMessage } from './render-analysis-thread.js';
 const port = parentPort;
 if (port) {
   const job = workerData as RenderAnalysisJob;
-  port.once('message', (basis: SpectralBasis) => {
+  port.once('message', ({ basis, figures }: { basis: SpectralBasis; figures: readonly Network[] }) => {
     try {
-      const analysis = measureRenderAnalysis(job, basis);
+      const analysis = measureRenderAnalysis(job, basis, figures);
       // The basis is the parent's own: it is not sent back.
       const distinct = { ...analysis.distinct, spectra: { ...analysis.distinct.spectra, basis: undefined } };
       port.postMessage({ kind: 'done', analysis: { ...analysis, distinct } } satisfies RenderAnalysisMessage);

@@ -2,10 +2,12 @@
  * What a render reports besides its audio: the circuit figures of the
  * rendered wirings (read from the response as the strings drive it), the
  * groups of alike wirings, and each rendered wiring's response curve for the
- * listening page. It is a pure function of the guitar, its settings and the
- * reference performance's spectral basis, so it is the same on any thread;
- * a render runs it on a thread of its own (render-analysis-thread.ts) while
- * it renders the audio.
+ * listening page; and, when asked, the audio figures of wirings (those a
+ * render's manifest does not hold yet, so that the thread rendering audio
+ * does nothing else). It is a pure function of the guitar, its settings and
+ * the reference performance's spectral basis, so it is the same on any
+ * thread; a render runs it on a thread of its own (render-analysis-thread.ts)
+ * while it renders the audio.
  */
 import {
   type CircuitAnalysis,
@@ -21,7 +23,9 @@ import {
   sampleCoilDrive,
   solveTransfers,
 } from '../circuit/index.js';
-import { type AlikeThresholds, type Distinctness, type SpectralBasis, measureCoilDrive, measureDistinctness } from '../analysis/index.js';
+import { type AlikeThresholds, type Distinctness, type SpectralBasis, measureCoilDrive, measureDistinctness, measureFiguresByClass } from '../analysis/index.js';
+import { type RawAudioMetrics, prepareReferenceFigures, referenceCoilsOf } from './measure-wiring-audio.js';
+import { assertAudible } from './synthesize-wirings.js';
 import type { Guitar } from '../guitar/index.js';
 import type { Network } from '../wiring/index.js';
 
@@ -40,6 +44,8 @@ export interface RenderAnalysisJob {
 
 /** A render's analysis; `distinct.spectra.basis` is the basis it was given. */
 export interface RenderAnalysis {
+  /** Raw audio figures of the wirings asked for (`figures` of measureRenderAnalysis), in their order. */
+  readonly figures: readonly RawAudioMetrics[];
   readonly drive: CoilDrive;
   readonly circuit: CircuitAnalysis;
   readonly distinct: Distinctness;
@@ -48,8 +54,14 @@ export interface RenderAnalysis {
   readonly responsesDb: readonly (Float64Array | null)[];
 }
 
-export function measureRenderAnalysis(job: RenderAnalysisJob, basis: SpectralBasis): RenderAnalysis {
+export function measureRenderAnalysis(job: RenderAnalysisJob, basis: SpectralBasis, figuresOf: readonly Network[] = []): RenderAnalysis {
   const { guitar, overrides } = job;
+  let figures: RawAudioMetrics[] = [];
+  if (figuresOf.length > 0) {
+    const meter = prepareReferenceFigures(guitar, overrides, referenceCoilsOf(guitar, basis));
+    assertAudible(meter, 'controls.volume.setting');
+    figures = measureFiguresByClass(guitar, meter, figuresOf);
+  }
   const drive = measureCoilDrive(basis);
   const circuit = measureCircuitMetrics(guitar, job.selected.map((network) => ({ network })), overrides, { drive });
   const distinct = measureDistinctness(guitar, job.scope, { overrides, thresholds: job.thresholds, reuseBasis: basis });
@@ -62,5 +74,5 @@ export function measureRenderAnalysis(job: RenderAnalysisJob, basis: SpectralBas
     const response = measureResponseDb(responseCircuit, network, drive, { sampledDrive, inPhaseTransfers: transfers });
     return response;
   });
-  return { drive, circuit, distinct, responseFrequenciesHz: grid, responsesDb };
+  return { figures, drive, circuit, distinct, responseFrequenciesHz: grid, responsesDb };
 }

@@ -183,8 +183,10 @@ async function renderWith(request: RenderRequest, events: RenderEvents, analysis
   let lastSave = performance.now();
   const saveManifest = async (force = true): Promise<void> => {
     if (!force && performance.now() - lastSave < MANIFEST_SAVE_INTERVAL_MS) return;
-    // Entries in key order, not in the order runs happened to record them: a resumed render writes the same bytes as an uninterrupted one.
-    const sorted = Object.fromEntries(Object.entries(entries).sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0)));
+    // Entries, and each entry's fields, in key order, not in the order runs happened to record them (the figures may
+    // arrive after the audio): a resumed render writes the same bytes as an uninterrupted one.
+    const byKey = <T>([a]: [string, T], [b]: [string, T]): number => (a < b ? -1 : a > b ? 1 : 0);
+    const sorted = Object.fromEntries(Object.entries(entries).sort(byKey).map(([key, entry]) => [key, Object.fromEntries(Object.entries(entry).sort(byKey)) as Entry]));
     const document: Manifest<Entry> = { version: MANIFEST_VERSION, entries: sorted };
     await writeFileAtomic(folder.manifest, JSON.stringify(document), deferred);
     lastSave = performance.now();
@@ -208,7 +210,6 @@ async function renderWith(request: RenderRequest, events: RenderEvents, analysis
 
   // The strings of the reference phrase, rendered once: the figures, the reference synthesis, the analysis and the page all use them.
   const basis = measureSpectralBasis(guitar);
-  analysis.start(basis);
   const referenceCoils = referenceCoilsOf(guitar, basis);
   const settings: AudioSettings = {
     referenceCoils,
@@ -246,11 +247,16 @@ async function renderWith(request: RenderRequest, events: RenderEvents, analysis
     if (!metricsCached || wantAudio) items.push({ id: wiring.id, name: wiring.expression, network: wiring.network, metrics: !metricsCached, audio: wantAudio });
   }
   const expressionOf = new Map(needed.map((wiring) => [wiring.id, wiring.expression]));
-  events.onStage?.('rendering', items.length);
+  // While there is audio to render, the analysis measures the audio figures too (the audio threads do nothing else);
+  // with none (--no-wav, or every file kept) they are measured in the first pass beside the analysis.
+  const figuresInAnalysis = items.some((item) => item.audio) ? items.filter((item) => item.metrics) : [];
+  analysis.start(basis, figuresInAnalysis.map((item) => item.network));
+  const passItems = figuresInAnalysis.length === 0 ? items : items.filter((item) => item.audio).map((item) => ({ ...item, metrics: false }));
+  events.onStage?.('rendering', passItems.length);
   let step = 0;
-  const results = await runRenderPassOnThreads(settings, items, scratch, request.threads ?? defaultThreadCount(), () => {
+  const results = await runRenderPassOnThreads(settings, passItems, scratch, request.threads ?? defaultThreadCount(), () => {
     step += 1;
-    events.onStep?.(step, items.length);
+    events.onStep?.(step, passItems.length);
   });
   for (const result of results) {
     const entry = entries[expressionOf.get(result.id) ?? ''] as Entry;
@@ -279,7 +285,6 @@ async function renderWith(request: RenderRequest, events: RenderEvents, analysis
     await deferred.flush();
     throw new WorkError(`${failures.join('; ')}; nothing written was lost, and running the same command again finishes the render`);
   }
-  const audioMetrics = referLevels(request.all, raw);
 
   // Gains: one for all files, or one per file to a common loudness.
   const selected = request.selected;
@@ -364,7 +369,15 @@ async function renderWith(request: RenderRequest, events: RenderEvents, analysis
   // Circuit metrics (read from the response as the strings drive it) for the rendered wirings; groups for
   // every wiring, or (when only some of more than MAX_WIRINGS_GROUPED_FOR_SOME are asked for) among the
   // chosen ones and the single elements, so that one wiring of a six-element guitar costs one wiring, not 228,386.
-  const { drive, circuit, distinct, responseFrequenciesHz: responseGrid, responsesDb } = await analysis.result();
+  const { figures, drive, circuit, distinct, responseFrequenciesHz: responseGrid, responsesDb } = await analysis.result();
+  figuresInAnalysis.forEach((item, index) => {
+    const metrics = figures[index] as RawAudioMetrics;
+    const hash = hashes.get(item.id);
+    raw.set(item.id, metrics);
+    if (hash) Object.assign(entries[expressionOf.get(item.id) ?? ''] as Entry, { metricsHash: hash.metricsHash, metrics });
+  });
+  if (figuresInAnalysis.length > 0) await saveManifest();
+  const audioMetrics = referLevels(request.all, raw);
   const circuitById = new Map(selected.map((wiring, index) => [wiring.id, circuit.wirings[index] as WiringCircuitMetrics]));
   const groupById = new Map(scope.map((wiring, index) => [wiring.id, distinct.groups.groupOf[index] ?? null]));
 
