@@ -29,7 +29,7 @@
 import type { BiquadCoefficients, BiquadSpec } from './biquad-design.js';
 import { webAudioQ } from './biquad-design.js';
 import { roundedCosSin, roundedPow10 } from './correctly-rounded.js';
-import { flushFloat32, flushFloat64 } from './float32-audio.js';
+import { FLOAT32_MIN_NORMAL, flushFloat32, flushFloat64 } from './float32-audio.js';
 
 /** W3C Web Audio API 1.0 §BiquadFilterNode: α_QdB = sin w0 / (2·10^(Q/20)), Q in dB. */
 const Q_DB_PER_DECADE = 20;
@@ -119,44 +119,43 @@ function computeNodeBiquad(spec: BiquadSpec, sampleRateHz: number): BiquadCoeffi
 }
 
 /**
- * Smallest nonzero state magnitude for which the plain float64 step is the
- * flushing thread's step exactly: with every nonzero x, x[n−1], x[n−2],
- * y[n−1], y[n−2] at least 2⁻⁹⁰⁰ and the coefficients at least 2⁻⁶⁰ in size
- * (a lowpass at 1 Hz and 192 kHz has b0 ≈ 2⁻³²), each product is at least
- * 2⁻⁹⁶⁰ and each partial sum zero or a multiple of 2⁻¹⁰¹³, never subnormal
- * (our bound; float64 has 53 bits, emin −1022). Below it, after about a
- * second of exact silence, a slower step flushes every product and sum.
- */
-const EXACT_STATE_FLOOR = 2 ** -900;
-
-/** True when a nonzero `value` is below EXACT_STATE_FLOOR in size. */
-function isTiny(value: number): boolean {
-  return value !== 0 && value < EXACT_STATE_FLOOR && value > -EXACT_STATE_FLOOR;
-}
-
-/**
  * Run `samples` through one section from rest, as the node does (float32
  * input and output flushed, float64 state; float32-audio.ts). Writes into
  * `out` (a new array by default; may be `samples` itself).
+ *
+ * Two loops, the same arithmetic. The first is the plain step: exact as
+ * long as every input sample and every y[n] is zero or at least 2⁻¹²⁶ in
+ * size, for then no product (coefficients are at least 2⁻⁶⁰ in size: a
+ * lowpass at 1 Hz and 192 kHz has b0 ≈ 2⁻³²) and no partial sum (a multiple
+ * of 2⁻²³⁹) comes near the subnormals, and nothing needs flushing. At the
+ * first sample where that fails (after a fraction of a second of exact
+ * silence, or on a subnormal input) the second loop takes over from the
+ * same state and flushes every read, product, sum and write.
  */
 export function renderBiquad(samples: Float32Array, coefficients: BiquadCoefficients, out: Float32Array = new Float32Array(samples.length)): Float32Array {
   const { b0, b1, b2, a1, a2 } = coefficients;
+  const frames = samples.length;
   let x1 = 0;
   let x2 = 0;
   let y1 = 0;
   let y2 = 0;
-  for (let n = 0; n < samples.length; n += 1) {
+  let n = 0;
+  for (; n < frames; n += 1) {
+    const x = samples[n] as number;
+    const y = b0 * x + b1 * x1 + b2 * x2 - a1 * y1 - a2 * y2;
+    if ((Math.abs(y) < FLOAT32_MIN_NORMAL || Math.abs(x) < FLOAT32_MIN_NORMAL) && (y !== 0 || x !== 0)) break;
+    x2 = x1;
+    x1 = x;
+    y2 = y1;
+    y1 = y;
+    out[n] = y; // rounded to float32 on storing
+  }
+  for (; n < frames; n += 1) {
     const x = flushFloat32(samples[n] as number);
-    let y: number;
-    if (isTiny(y1) || isTiny(y2)) {
-      // Every product and partial sum flushed, left to right as above.
-      y = flushFloat64(flushFloat64(b0 * x) + flushFloat64(b1 * x1));
-      y = flushFloat64(y + flushFloat64(b2 * x2));
-      y = flushFloat64(y - flushFloat64(a1 * y1));
-      y = flushFloat64(y - flushFloat64(a2 * y2));
-    } else {
-      y = b0 * x + b1 * x1 + b2 * x2 - a1 * y1 - a2 * y2;
-    }
+    let y = flushFloat64(flushFloat64(b0 * x) + flushFloat64(b1 * x1));
+    y = flushFloat64(y + flushFloat64(b2 * x2));
+    y = flushFloat64(y - flushFloat64(a1 * y1));
+    y = flushFloat64(y - flushFloat64(a2 * y2));
     x2 = x1;
     x1 = x;
     y2 = y1;
