@@ -27,7 +27,8 @@ import { minOf, appendAll } from '../math/index.js';
  * chain (measured with `npm run bench` on a 2-core machine: 47 wirings through
  * the drive chain take 3.3–3.6 s on one thread and 2.7–3.0 s on two; direct,
  * one thread was faster, and so was clean: 47 wirings took 3.1–3.7 s of CPU
- * and 145–155 MB on one thread against 4.4–5.0 s and 200–240 MB on two).
+ * and 145–155 MB on one thread against 4.4–5.0 s and 200–240 MB on two, four
+ * runs each with the machine busy, load average 14).
  */
 export const MIN_ITEMS_PER_THREAD: Readonly<Record<ChainName, number>> = Object.freeze({
   direct: 50,
