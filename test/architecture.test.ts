@@ -5,7 +5,7 @@
  * other folders import a folder only through its index.ts.
  */
 import { readFileSync, readdirSync, statSync } from 'node:fs';
-import { join, relative } from 'node:path';
+import { dirname, join, relative, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
 
 const src = join(import.meta.dirname, '..', 'src');
@@ -58,4 +58,24 @@ describe('architecture', () => {
     }
     expect(offenders).toEqual([]);
   });
+
+  // Start-up: an ES module loads every module its imports name, so a command pays for what its
+  // barrels pull in. The entry and `analyze` must not reach the render pipeline, the chain or the pages.
+  it('keeps the render pipeline, the effects chain and the pages out of the entry and analyze', () => {
+    const reached = new Set<string>();
+    const visit = (file: string): void => {
+      if (reached.has(file)) return;
+      reached.add(file);
+      for (const match of readFileSync(file, 'utf8').matchAll(/^(?:import|export)\s[^;]*?from '(\.[^']+)'/gmu)) {
+        visit(resolve(dirname(file), (match[1] ?? '').replace(/\.js$/u, '.ts')));
+      }
+    };
+    visit(join(src, 'cli', 'main.ts'));
+    const fromMain = reached.size;
+    visit(join(src, 'cli', 'commands', 'analyze.ts'));
+    const heavy = ['render/render-guitar.ts', 'render/render-pass.ts', 'render/effects-chain.ts', 'report/render-listening-page.ts', 'switching/index.ts'];
+    expect([...reached].map((file) => relative(src, file)).filter((file) => heavy.includes(file))).toEqual([]);
+    expect(fromMain).toBeLessThan(20);
+  });
 });
+

@@ -18,8 +18,9 @@
  *
  * The children run a bundle of src/cli.ts made here with esbuild (the same
  * code, about a second less start-up than the TypeScript loader on a busy
- * machine); a 47-wiring direct render stays on one thread, so no worker
- * file is needed. COILBENCH_KILL_MOMENTS changes the number of moments
+ * machine), with the render's analysis thread bundled beside it (a 47-wiring
+ * direct render keeps its audio on one thread, but measures its groups and
+ * circuit figures on a second). COILBENCH_KILL_MOMENTS changes the number of moments
  * (default 10), COILBENCH_KILL_SEED the moments.
  */
 import { type ChildProcess, spawn } from 'node:child_process';
@@ -38,7 +39,10 @@ const GUITAR = join(import.meta.dirname, '..', 'samples', 'three-single-coil.jso
 const REPOSITORY = join(import.meta.dirname, '..');
 const CLI_SOURCE = join(REPOSITORY, 'src', 'cli.ts');
 /** Inside the repository, so the bundle finds the package folder (samples, dist/page.js) as the real CLI does. */
-const BUNDLE = join(REPOSITORY, 'test-output', `kill-cli-${process.pid}.mjs`);
+const BUNDLE_FOLDER = join(REPOSITORY, 'test-output', `kill-cli-${process.pid}`);
+const BUNDLE = join(BUNDLE_FOLDER, 'cli.mjs');
+/** Worker entries the CLI starts beside its own file (src/render), bundled the same way. */
+const WORKER_SOURCES = ['render-analysis-worker', 'render-worker', 'figures-worker'].map((name) => join(REPOSITORY, 'src', 'render', `${name}.ts`));
 /** The render under test: all 47 wirings, through the fastest chain. */
 const RENDER_OPTIONS = ['--chain', 'direct'];
 const TIMEOUT_MS = 600_000;
@@ -122,6 +126,7 @@ describe('interruption at random moments', () => {
   beforeAll(async () => {
     mkdirSync(dirname(BUNDLE), { recursive: true });
     await build({ entryPoints: [CLI_SOURCE], bundle: true, platform: 'node', format: 'esm', packages: 'external', outfile: BUNDLE, logLevel: 'warning' });
+    await build({ entryPoints: WORKER_SOURCES, bundle: true, platform: 'node', format: 'esm', packages: 'external', outdir: BUNDLE_FOLDER, logLevel: 'warning' });
     let began = performance.now();
     const check = start(['check', GUITAR]);
     expect(await check.exited, check.stderr()).toBe(0);
@@ -136,7 +141,7 @@ describe('interruption at random moments', () => {
     analyzeMs = performance.now() - began;
     referenceCsv = readFileSync(join(work, 'reference.csv'));
   }, TIMEOUT_MS);
-  afterAll(() => rmSync(BUNDLE, { force: true }));
+  afterAll(() => rmSync(BUNDLE_FOLDER, { recursive: true, force: true }));
 
   /** The checks after a stopped run: no corrupt file; after a handled SIGINT no leftovers and the message. */
   function expectStoppedCleanly(signal: 'SIGINT' | 'SIGKILL', status: number | null, stderr: string, folder: string, at: string): void {

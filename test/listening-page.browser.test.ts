@@ -27,7 +27,7 @@ import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { measureCentroid, measureLoudness } from '../src/analysis/index.js';
 import { type Guitar, parseGuitar } from '../src/guitar/index.js';
-import { decodeSignal } from '../src/page/index.js';
+import { decodeSignal, describePeak, formatDb } from '../src/page/index.js';
 import { guitarWithKnobs, overridesOf, type Knobs } from '../src/page/wiring-engine.js';
 import { type ChainName, prepareWiringSynthesis, renderEffectsChain } from '../src/render/index.js';
 import { renderPageFor } from '../src/render/write-listening-page.js';
@@ -207,6 +207,14 @@ describe.skipIf(!RUN_BROWSER_TESTS)('the listening page in chromium: one engine,
     });
     // The position runs on through the switch as the clock does (loop is on; the phrase is longer than the wait).
     expect(Math.abs(jump.after - jump.before - jump.elapsed)).toBeLessThan(SWITCH_TOLERANCE_S + 0.02);
+    // The rows show the figures the page carries as columns (wiring-figures.ts): level and resonant peak of the report.
+    const example = makeExampleReport(guitar.elements.map((element) => element.id), guitar.name);
+    for (const id of ['w1', 'w5']) {
+      const figures = example.wirings.find((wiring) => wiring.id === id);
+      const text = (await page.locator(`.wiring-row[data-wiring="${id}"]`).textContent()) ?? '';
+      expect(text).toContain(formatDb(figures?.levelDb ?? Number.NaN));
+      expect(text).toContain(describePeak(figures?.resonanceHz ?? null, figures?.peakDb ?? null));
+    }
     expect(await page.evaluate(() => (window as unknown as { __pwned?: number }).__pwned)).toBeUndefined();
     expect(await page.locator('#guitar-name').textContent()).toBe(HOSTILE);
     expect(outside).toEqual([]);

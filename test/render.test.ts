@@ -216,6 +216,9 @@ describe('coilbench render: options', () => {
   });
 });
 
+/** Two renders from the TypeScript sources, each with its analysis thread compiling them again: minutes on a loaded 2-core machine. */
+const KILLED_RENDER_TIMEOUT_MS = 180_000;
+
 describe('coilbench render: interruption', () => {
   it('a killed render leaves no truncated file, and the next run completes the set', async () => {
     const target = scratchFolder();
@@ -243,7 +246,7 @@ describe('coilbench render: interruption', () => {
     expect(files.filter((name) => name.endsWith('.wav'))).toHaveLength(47);
     expect(files.filter((name) => name.includes('.tmp'))).toEqual([]);
     for (const name of files.filter((file) => file.endsWith('.wav'))) expect(readWav(join(target, 'wav', name)).samples.length).toBeGreaterThan(48_000);
-  });
+  }, KILLED_RENDER_TIMEOUT_MS);
 });
 
 describe('coilbench render --no-wav', () => {

@@ -5,7 +5,8 @@
  * maximum resident set size, which covers its worker threads). At least three
  * runs per case: median and range.
  *
- * The five-coil analyze (9,997 wirings) runs only with BENCH_BIG=1.
+ * The five-coil cases (9,997 wirings: analyze --json, analyze --csv, render
+ * --no-wav) run only with BENCH_BIG=1; every case prints its peak memory.
  *
  * Ratios against a reference computation in this process make figures taken
  * on a busy machine comparable: the reference (inverse FFTs of 2^17 points,
@@ -120,6 +121,7 @@ export function benchCommands(): void {
   // Five coils: only when asked for (BENCH_BIG=1).
   if (process.env.BENCH_BIG === '1') {
     cases.push({ label: '9,997 wirings, analyze', args: () => ['analyze', five, '--json', '--yes'], audioSeconds: () => null });
+    cases.push({ label: '9,997 wirings, analyze --csv', args: (folder) => ['analyze', five, '--csv', `${folder}.csv`, '--yes'], audioSeconds: () => null });
     cases.push({ label: '9,997 wirings, render --no-wav (page and reports)', args: (folder) => ['render', five, '--no-wav', '--yes', '-o', folder], audioSeconds: () => null });
   }
   // BENCH_CASES: a regular expression choosing cases by label (e.g. "47 wirings").

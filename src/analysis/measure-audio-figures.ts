@@ -147,13 +147,52 @@ function locateBins(grid: Float64Array, binHz: number, first: number, last: numb
  * S̃_ab,m = Σ_k w_k·φ_m(f_k)·A_a(k)·conj(A_b(k)) over every bin of half
  * spectra `spectra` (realFft layout, N = size) for the pairs a ≤ b, added
  * into `out` at 2·(pair·points + m) (interleaved complex).
+ *
+ * Bins run in order of frequency, so grid point m gathers first the upper
+ * hat weights of the bins below it (interval m − 1), then the lower ones of
+ * the bins above it (interval m). Each pair's two open sums live in local
+ * accumulators while the bins stay in one grid interval and are written out
+ * when the interval changes: every table entry receives the same additions
+ * in the same order as adding into the table bin by bin, so the same bits.
  */
 function foldCrossSpectra(spectra: readonly Float64Array[], size: number, located: { node: Int32Array; weight: Float64Array }, points: number, out: Float64Array): void {
   const coils = spectra.length;
+  const pairs = (coils * (coils + 1)) / 2;
   const bins = size / 2 + 1;
+  // Per pair: the open sums of grid points m (low) and m + 1 (high), real and imaginary.
+  const low = new Float64Array(2 * pairs);
+  const high = new Float64Array(2 * pairs);
+  let open = -1;
+  const close = (): void => {
+    for (let pair = 0; pair < pairs; pair += 1) {
+      const at = 2 * (pair * points + open);
+      out[at] = low[2 * pair] as number;
+      out[at + 1] = low[2 * pair + 1] as number;
+      out[at + 2] = high[2 * pair] as number;
+      out[at + 3] = high[2 * pair + 1] as number;
+    }
+  };
   for (let k = 0; k < bins; k += 1) {
-    const parseval = (k === 0 || k === bins - 1 ? 1 : 2) / size;
     const m = located.node[k] as number;
+    if (m !== open) {
+      if (open >= 0) close();
+      // The new interval's lower point is the old one's upper point when they touch; every other
+      // point starts from what the table already holds.
+      for (let pair = 0; pair < pairs; pair += 1) {
+        const at = 2 * (pair * points + m);
+        if (m === open + 1 && open >= 0) {
+          low[2 * pair] = high[2 * pair] as number;
+          low[2 * pair + 1] = high[2 * pair + 1] as number;
+        } else {
+          low[2 * pair] = out[at] as number;
+          low[2 * pair + 1] = out[at + 1] as number;
+        }
+        high[2 * pair] = out[at + 2] as number;
+        high[2 * pair + 1] = out[at + 3] as number;
+      }
+      open = m;
+    }
+    const parseval = (k === 0 || k === bins - 1 ? 1 : 2) / size;
     const upper = located.weight[k] as number;
     const lowWeight = parseval * (1 - upper);
     const highWeight = parseval * upper;
@@ -169,15 +208,15 @@ function foldCrossSpectra(spectra: readonly Float64Array[], size: number, locate
         // A_a·conj(A_b) = (ar + j·ai)(br − j·bi)
         const pr = ar * br + ai * bi;
         const pi = ai * br - ar * bi;
-        const at = 2 * (pair * points + m);
-        out[at] = (out[at] as number) + lowWeight * pr;
-        out[at + 1] = (out[at + 1] as number) + lowWeight * pi;
-        out[at + 2] = (out[at + 2] as number) + highWeight * pr;
-        out[at + 3] = (out[at + 3] as number) + highWeight * pi;
+        low[2 * pair] = (low[2 * pair] as number) + lowWeight * pr;
+        low[2 * pair + 1] = (low[2 * pair + 1] as number) + lowWeight * pi;
+        high[2 * pair] = (high[2 * pair] as number) + highWeight * pr;
+        high[2 * pair + 1] = (high[2 * pair + 1] as number) + highWeight * pi;
         pair += 1;
       }
     }
   }
+  if (open >= 0) close();
 }
 
 /**
@@ -198,16 +237,11 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
 
   const fft = realFft(fftSize);
   const binHz = sampleRateHz / fftSize;
-  const frame = new Float64Array(fftSize);
   const allBins = locateBins(grid, binHz, 0, fft.bins - 1);
 
-  // Energy: S̃ over the whole synthesis frame.
+  // Energy: S̃ over the whole synthesis frame (forwardPacked zero pads each signal to N itself).
   const energyTable = new Float64Array(2 * pairCount * points);
-  const spectra = coils.signals.map((signal) => {
-    frame.fill(0);
-    for (let n = 0; n < signal.length && n < fftSize; n += 1) frame[n] = signal[n] as number;
-    return Float64Array.from(fft.forwardPacked(frame, new Float64Array(2 * fft.bins)));
-  });
+  const spectra = coils.signals.map((signal) => fft.forwardPacked(signal, new Float64Array(2 * fft.bins)));
   foldCrossSpectra(spectra, fftSize, allBins, points, energyTable);
 
   // Loudness: K-weighted coil signals over the render, cut into gating blocks.
@@ -241,13 +275,14 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
   const firstBin = Math.ceil(DEFAULT_CENTROID_OPTIONS.lowHz / binHz);
   const lastBin = Math.min(Math.floor(DEFAULT_CENTROID_OPTIONS.highHz / binHz), fft.bins - 1);
   const bandBins = Math.max(0, lastBin - firstBin + 1);
-  const bandLocation = locateBins(grid, binHz, firstBin, lastBin);
+  // The band's bins lie on the grid where every bin does (locateBins walks the grid the same way from any first bin).
+  const bandLocation = { node: allBins.node.subarray(firstBin, lastBin + 1), weight: allBins.weight.subarray(firstBin, lastBin + 1) };
   const window = new Float64Array(length);
   // Symmetric Hann, w[n] = 0.5 − 0.5·cos(2πn/(L − 1)) (measure-centroid.ts).
   for (let n = 0; n < length; n += 1) window[n] = length > 1 ? (1 - Math.cos((2 * Math.PI * n) / (length - 1))) / 2 : 1;
   const windowed = coils.signals.map((signal) => {
     const spectrum = fft.forwardPacked(signal.subarray(0, length), new Float64Array(2 * fft.bins), window);
-    return Float64Array.from(spectrum.subarray(2 * firstBin, 2 * (lastBin + 1)));
+    return spectrum.slice(2 * firstBin, 2 * (lastBin + 1));
   });
 
   // Per phase class: transfers at the grid and the quadratic forms' terms per pair.

@@ -399,20 +399,66 @@ function difference(x: Float64Array, a: number, b: number, part: 0 | 1): number 
  * volume is at 0 or hot is ground. Writes into `out` when given.
  */
 export function solveNodalTransfers(prepared: PreparedCircuit, graph: CircuitGraph, out?: Float64Array[]): Float64Array[] {
-  const frequencies = prepared.frequenciesHz;
-  const length = 2 * frequencies.length;
+  const result = checkedOutput(prepared, out);
+  const plan = planFor(prepared, graph, true);
+  if (plan === null || prepared.load.silent || plan.coils.length === 0) return result;
+  solvePlan(prepared, plan, true, result, null);
+  return result;
+}
+
+/**
+ * The connection `graph` as a Thevenin source seen from hot and ground with
+ * the controls, cable and amplifier disconnected: per coil the factor S_i(f)
+ * taking its string EMF to the open-circuit voltage at hot (written into
+ * `out`, zeros for coils the graph leaves out), and the impedance Z(f)
+ * between hot and ground with the EMFs off (written into `impedance`).
+ * The loaded transfers are then T_i = S_i·G with the load's gain G of Z
+ * (`solveLoadGain`, solve-transfers.ts; Thevenin's theorem: the load sees
+ * only V = Σ S_i·E_i behind Z), so a knob move costs G alone. One adjoint
+ * solve per frequency gives both: with A the nodal matrix of the coils and
+ * x = A⁻¹·u_hot, Z = x_hot (1 A into hot) and S_i = xᵀ·b_i (A = Aᵀ).
+ * Where the coils leave hot with no path to ground (an open circuit) every
+ * S_i is 0 and Z is Infinity (real part).
+ */
+export function solveNodalSourceFactors(prepared: PreparedCircuit, graph: CircuitGraph, out: Float64Array[], impedance: Float64Array): void {
+  const result = checkedOutput(prepared, out);
+  if (impedance.length !== 2 * prepared.frequenciesHz.length) throw new RangeError(`solveNodalSourceFactors: impedance must have length ${2 * prepared.frequenciesHz.length}`);
+  impedance.fill(0);
+  if (graph.hot === graph.ground) {
+    planGraph(prepared, graph, 'coils'); // validates the graph
+    return;
+  }
+  const plan = planFor(prepared, graph, false);
+  if (plan === null) {
+    for (let i = 0; i < impedance.length; i += 2) impedance[i] = Infinity;
+    return;
+  }
+  solvePlan(prepared, plan, false, result, impedance);
+}
+
+function checkedOutput(prepared: PreparedCircuit, out: Float64Array[] | undefined): Float64Array[] {
+  const length = 2 * prepared.frequenciesHz.length;
   const coilCount = prepared.guitar.coils.length;
   const result = out ?? Array.from({ length: coilCount }, () => new Float64Array(length));
   let fits = result.length === coilCount;
   for (let c = 0; fits && c < coilCount; c += 1) fits = (result[c] as Float64Array).length === length;
   if (!fits) throw new RangeError(`solveNodalTransfers: out must hold ${coilCount} arrays of length ${length}`);
   for (const array of result) array.fill(0);
-  const plan = planFor(prepared, graph, true);
-  if (plan === null || prepared.load.silent || plan.coils.length === 0) return result;
+  return result;
+}
 
+/**
+ * Per frequency: stamp the plan (with the load when `withLoad`), solve A·x = u
+ * for the output node (out when loaded, hot otherwise), write each coil's
+ * T_i = w·m·xᵀ·b_i into `result`, and x at the output (the impedance seen
+ * there) into `impedance` when given.
+ */
+function solvePlan(prepared: PreparedCircuit, plan: NodalPlan, withLoad: boolean, result: Float64Array[], impedance: Float64Array | null): void {
+  const frequencies = prepared.frequenciesHz;
   const n = plan.unknowns;
   const { matrix, rhs } = workspaceFor(prepared, n);
-  const { hot, out: output, coils, groups } = plan;
+  const { hot, coils, groups } = plan;
+  const output = withLoad ? plan.out : hot;
   const bridge = prepared.bridgeAdmittance;
   const branch = plan.branch;
   const drop = plan.drop;
@@ -421,14 +467,20 @@ export function solveNodalTransfers(prepared: PreparedCircuit, graph: CircuitGra
     const im = re + 1;
     matrix.fill(0, 0, 2 * n * n);
     rhs.fill(0, 0, 2 * n);
-    // The load.
-    add(matrix, n, hot, hot, prepared.hotAdmittance[re] as number, prepared.hotAdmittance[im] as number);
-    add(matrix, n, output, output, prepared.outAdmittance[re] as number, prepared.outAdmittance[im] as number);
-    if (bridge !== null) stampAdmittance(matrix, n, hot, output, bridge[re] as number, bridge[im] as number);
+    if (withLoad) {
+      // The load.
+      add(matrix, n, hot, hot, prepared.hotAdmittance[re] as number, prepared.hotAdmittance[im] as number);
+      add(matrix, n, output, output, prepared.outAdmittance[re] as number, prepared.outAdmittance[im] as number);
+      if (bridge !== null) stampAdmittance(matrix, n, hot, output, bridge[re] as number, bridge[im] as number);
+    }
     stampCoils(matrix, n, prepared, plan, f, TWO_PI * (frequencies[f] as number));
     // Adjoint solve: A·x = u_out.
     rhs[2 * output] = 1;
     solveDense(matrix, rhs, n);
+    if (impedance !== null) {
+      impedance[re] = rhs[2 * output] as number;
+      impedance[im] = rhs[2 * output + 1] as number;
+    }
     // d_j = x_finish − x_start per coil.
     for (let j = 0; j < coils.length; j += 1) {
       const coil = coils[j] as ActiveCoil;
@@ -470,7 +522,6 @@ export function solveNodalTransfers(prepared: PreparedCircuit, graph: CircuitGra
       target[im] = coil.stringSign * ti;
     }
   }
-  return result;
 }
 
 /**

@@ -23,7 +23,7 @@ import type { Network } from '../wiring/index.js';
 import { type CircuitGraph, graphOfNetwork } from './circuit-graph.js';
 import { usesCoupledCoils } from './coil-coupling.js';
 import type { PreparedCircuit, Workspace } from './prepare-circuit.js';
-import { solveNodalTransfers } from './solve-nodal.js';
+import { solveNodalSourceFactors, solveNodalTransfers } from './solve-nodal.js';
 import { multiplyComplexInPlace } from '../math/index.js';
 
 /** Graphs of networks already laid out, so repeated solves (probes between grid points) reuse them. */
@@ -182,15 +182,26 @@ export function solveTransfers(prepared: PreparedCircuit, network: Network, out?
  * any load (steps 1 and 2 above): per coil the factor S_i(f) taking its
  * string EMF to the open-circuit voltage (p_i included; zeros for unused
  * coils), written into `out`, and the wiring's impedance Z(f) into
- * `impedance`. Neither depends on the knobs, cable or amplifier. Returns
- * which coils the wiring uses (1) or not (0), a buffer valid until the next
- * solve. Only for series–parallel wirings (`usesCoupledCoils` false).
+ * `impedance`. Neither depends on the knobs, cable or amplifier; the loaded
+ * transfers are T_i = S_i·G (`solveLoadGain`). A wiring holding both coils
+ * of a coupled pair has no series–parallel reduction: its S_i and Z come
+ * from nodal analysis of its layout with the load left off
+ * (`solveNodalSourceFactors`, solve-nodal.ts; Thevenin's theorem holds for
+ * coupled coils as for any linear network). Returns which coils the wiring
+ * uses (1) or not (0), a buffer valid until the next solve.
  */
 export function solveSourceFactors(prepared: PreparedCircuit, network: Network, out: Float64Array[], impedance: Float64Array): Uint8Array {
-  if (usesCoupledCoils(prepared.guitar, network)) throw new RangeError('solveSourceFactors: a wiring with both coils of a coupled pair has no series–parallel source; use solveTransfers');
-  prepared.workspace.top = 0;
+  const workspace = prepared.workspace;
+  if (usesCoupledCoils(prepared.guitar, network)) {
+    const graph = graphFor(prepared.guitar, network);
+    solveNodalSourceFactors(prepared, graph, out, impedance);
+    workspace.used.fill(0);
+    for (const placed of graph.coils) if (placed.start !== null && placed.finish !== null) workspace.used[placed.coil] = 1;
+    return workspace.used;
+  }
+  workspace.top = 0;
   const used = solveSourceFactorsInto(prepared, network, out, impedance);
-  prepared.workspace.top = 0;
+  workspace.top = 0;
   return used;
 }
 

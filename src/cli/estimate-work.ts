@@ -13,6 +13,7 @@ import { statfsSync } from 'node:fs';
 import { dirname } from 'node:path';
 import { InputError, WorkError, escapeForMessage } from '../errors/index.js';
 import type { Io } from './io.js';
+import { formatCount } from '../units/index.js';
 
 /** Longest folder name shown in a message, characters. */
 const MAX_SHOWN_PATH = 120;
@@ -92,7 +93,7 @@ export function isTooBig(estimate: WorkEstimate): boolean {
 /** One line describing the estimate. */
 export function describeEstimate(what: string, estimate: WorkEstimate): string {
   const disk = estimate.bytes > 0 ? `, ${formatBytes(estimate.bytes)} of files (${formatBytes(estimate.peakBytes)} on disk while working)` : '';
-  return `${what} of ${estimate.wirings.toLocaleString('en-US')} wirings: ${formatDuration(estimate.seconds)} on a 2-core machine (estimate)${disk}`;
+  return `${what} of ${formatCount(estimate.wirings)} wirings: ${formatDuration(estimate.seconds)} on a 2-core machine (estimate)${disk}`;
 }
 
 /** Bytes free for this user on the file system that holds `path` (or its nearest existing parent); undefined when unknown. */

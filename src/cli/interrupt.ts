@@ -12,7 +12,7 @@
  * Node runs signal handlers between tasks, so long computations pause
  * every PAUSE_INTERVAL_MS (pause-for-signals.ts) to let the handler in.
  */
-import { releaseFolderLocksSync, removePendingTempFilesSync, removeScratchFoldersSync, settleAtomicWrites } from '../render/index.js';
+import { releaseFolderLocksSync, removePendingTempFilesSync, removeScratchFoldersSync, settleAtomicWrites } from '../render/leftovers/index.js';
 import { EXIT_INTERRUPTED } from './describe-error.js';
 
 /** Most time an interrupt waits for writes in flight to reach a safe point, ms (each is one open, write, fsync or rename: milliseconds; judgement). */

@@ -3,7 +3,7 @@
  * figure (level, loudness, centroid, group), add its field to
  * `AnalyzedWiring` and one entry to `METRIC_COLUMNS`.
  */
-import { escapeMarkdown } from '../report/index.js';
+import { escapeMarkdown } from '../report/text/index.js';
 import { HUM_FLOOR_DB, type WiringCircuitMetrics } from '../circuit/index.js';
 import type { Wiring } from '../wiring/index.js';
 

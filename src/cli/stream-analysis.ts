@@ -18,7 +18,8 @@ import { type SpectralBasis, measureWiringFigures } from '../analysis/index.js';
 import type { CircuitMetricsSolver, CircuitOverrides } from '../circuit/index.js';
 import { type InputProblem, problemAt } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
-import { type AtomicFileStream, openFileAtomicSync, removeStaleTempFiles } from '../render/index.js';
+import { formatCount } from '../units/index.js';
+import { type AtomicFileStream, openFileAtomicSync, removeStaleTempFiles } from '../render/measuring/index.js';
 import { invertAll, planWiringSubsets, printNetwork, type Network } from '../wiring/index.js';
 import { wiringRecord } from './commands/wirings.js';
 import { renderTableLine } from './format-table.js';
@@ -31,7 +32,7 @@ import { createProgress } from './progress.js';
 export const MAX_WIRINGS_IN_MEMORY = 9997;
 
 /** Why the streamed analysis has no groups. */
-export const STREAMED_GROUPS_NOTE = `groups of alike wirings are computed for up to ${MAX_WIRINGS_IN_MEMORY.toLocaleString('en-US')} wirings (five elements): they compare pairs of wirings, which grows with the square of the count`;
+export const STREAMED_GROUPS_NOTE = `groups of alike wirings are computed for up to ${formatCount(MAX_WIRINGS_IN_MEMORY)} wirings (five elements): they compare pairs of wirings, which grows with the square of the count`;
 /** Why the streamed analysis has no loudness or rendered centroid. */
 export const STREAMED_AUDIO_NOTE =
   'level comes from the band spectra of the reference phrase (the same energy a render measures); loudness and the rendered centroid need each wiring rendered and are left out; brightnessHz (JSON) is the power-weighted centroid of the band spectra';
@@ -166,7 +167,7 @@ export async function streamAnalysis(request: StreamAnalysisRequest): Promise<vo
     emit(`\n  ],\n${tail.join(',\n')}\n}\n`);
   } else {
     const separator = format === 'markdown' ? ' ' : '\n';
-    emit(`\n${request.footnotes.join(separator)}\n\nNot computed for ${total.toLocaleString('en-US')} wirings: ${STREAMED_GROUPS_NOTE}; ${STREAMED_AUDIO_NOTE}.\n`);
+    emit(`\n${request.footnotes.join(separator)}\n\nNot computed for ${formatCount(total)} wirings: ${STREAMED_GROUPS_NOTE}; ${STREAMED_AUDIO_NOTE}.\n`);
   }
   io.stdout(out);
 }
@@ -174,18 +175,18 @@ export async function streamAnalysis(request: StreamAnalysisRequest): Promise<vo
 /** What a streamed analysis cannot do, as input problems (exit 2, before any work). */
 export function streamedAnalysisProblems(audio: boolean, sort: string | undefined, total: number): InputProblem[] {
   const problems: InputProblem[] = [];
-  const count = total.toLocaleString('en-US');
+  const count = formatCount(total);
   if (audio) {
     problems.push(
       problemAt(
         '--no-audio',
-        `--no-audio above ${MAX_WIRINGS_IN_MEMORY.toLocaleString('en-US')} wirings (loudness and centroid need each wiring rendered; level, resonance, peak, Q and hum come without; hear a few with render --only)`,
+        `--no-audio above ${formatCount(MAX_WIRINGS_IN_MEMORY)} wirings (loudness and centroid need each wiring rendered; level, resonance, peak, Q and hum come without; hear a few with render --only)`,
         `audio figures for ${count} wirings`,
       ),
     );
   }
   if (sort !== undefined) {
-    problems.push(problemAt('--sort', `no --sort above ${MAX_WIRINGS_IN_MEMORY.toLocaleString('en-US')} wirings (rows are written as they are computed; sort the --csv file instead)`, `--sort ${sort} for ${count} wirings`));
+    problems.push(problemAt('--sort', `no --sort above ${formatCount(MAX_WIRINGS_IN_MEMORY)} wirings (rows are written as they are computed; sort the --csv file instead)`, `--sort ${sort} for ${count} wirings`));
   }
   return problems;
 }

@@ -5,7 +5,7 @@
  * is reported at once, each with its path.
  */
 import { InputError, type InputProblem, problemAt } from '../errors/index.js';
-import { formatEngineering, hzToMidi, noteName, parseNoteName, parseQuantity } from '../units/index.js';
+import { formatCount, formatEngineering, hzToMidi, noteName, parseNoteName, parseQuantity } from '../units/index.js';
 import { CONSTRUCTION_DEFAULTS, eddyResistanceFromCorner, turnsFromInductance } from './coil-construction.js';
 import type {
   Amp,
@@ -192,8 +192,8 @@ export function parseGuitar(raw: unknown): Guitar {
     throw new InputError([
       {
         path: 'coils',
-        expected: `at most ${MAX_WIRING_ELEMENTS} wiring elements (coils on their own leads plus two-lead pickups; ${MAX_WIRING_ELEMENTS} give ${wiringCountFor(MAX_WIRING_ELEMENTS).toLocaleString('en-US')} wirings)`,
-        got: `${elements.length} elements, which would give ${count.toLocaleString('en-US')} wirings`,
+        expected: `at most ${MAX_WIRING_ELEMENTS} wiring elements (coils on their own leads plus two-lead pickups; ${MAX_WIRING_ELEMENTS} give ${formatCount(wiringCountFor(MAX_WIRING_ELEMENTS))} wirings)`,
+        got: `${elements.length} elements, which would give ${formatCount(count)} wirings`,
       },
     ]);
   }

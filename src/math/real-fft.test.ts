@@ -1,3 +1,4 @@
+import FFT from 'fft.js';
 import { describe, expect, it } from 'vitest';
 import { createRandom } from './random.js';
 import { realFft } from './real-fft.js';
@@ -48,6 +49,22 @@ describe('realFft', () => {
       }
       fft.forwardPacked(x.slice(0, 2), out);
       for (let k = 0; k <= size / 2; k += 1) expect(out[2 * k]).toBeCloseTo(dft([x[0] ?? 0, x[1] ?? 0, ...new Array(size - 2).fill(0)], k)[0], 12);
+    }
+  });
+
+  // Reference: fft.js 4.0.4 built by its own constructor. realFft builds its engines' twiddle
+  // tables itself (one table shared by the full- and half-size engines) and must give its bits.
+  it("gives the bits of fft.js's own engine", () => {
+    const random = createRandom(5);
+    for (const size of [4, 8, 32, 512, 4096]) {
+      const x = Float64Array.from({ length: size }, () => random() * 2 - 1);
+      const fft = realFft(size);
+      fft.forwardPacked(x, new Float64Array(2 * fft.bins)); // the half-size engine first, so the full one comes after it
+      const reference = new FFT(size);
+      const full = reference.createComplexArray() as number[];
+      reference.realTransform(full, Array.from(x));
+      const spectrum = fft.forward(x);
+      for (let i = 0; i < 2 * fft.bins; i += 1) expect(Object.is(spectrum[i], full[i]), `size ${size}, index ${i}`).toBe(true);
     }
   });
 

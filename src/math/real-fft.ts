@@ -19,8 +19,12 @@ export interface RealFft {
    * read as x[n]·window[n] when a window is given.
    */
   forwardPacked(input: ArrayLike<number>, out: Float64Array, window?: ArrayLike<number>): Float64Array;
-  /** Inverse transform of a half spectrum (Hermitian symmetry assumed) into a new or given real signal of length N. */
-  inverse(halfSpectrum: Float64Array, out?: Float64Array): Float64Array;
+  /**
+   * Inverse transform of a half spectrum (Hermitian symmetry assumed) into a
+   * new or given real signal of length N. With `scale`, the spectrum is read
+   * as halfSpectrum[i]·scale (the same numbers as scaling a copy first).
+   */
+  inverse(halfSpectrum: Float64Array, out?: Float64Array, scale?: number): Float64Array;
 }
 
 const cache = new Map<number, RealFft>();
@@ -32,34 +36,92 @@ export function nextPowerOfTwo(n: number): number {
   return size;
 }
 
-/** The FFT for size N (a power of two ≥ 4), built once and reused. */
+/**
+ * fft.js's twiddle table for `size` complex points: entry k < size holds
+ * cos(π·2k/size) and −sin(π·2k/size) at 2k and 2k + 1, the very numbers its
+ * constructor computes (the same angle expression, so the same bits).
+ */
+function twiddleTable(size: number): Float64Array {
+  const table = new Float64Array(2 * size);
+  for (let i = 0; i < table.length; i += 2) {
+    const angle = (Math.PI * i) / size;
+    table[i] = Math.cos(angle);
+    table[i + 1] = -Math.sin(angle);
+  }
+  return table;
+}
+
+/**
+ * Every second entry of a twiddle table: the table for half the size, to
+ * the last bit (π·2(2k)/N = π·2k/(N/2) exactly, since scaling by two is exact).
+ */
+function halveTwiddleTable(table: Float64Array): Float64Array {
+  const half = new Float64Array(table.length / 2);
+  for (let k = 0; 2 * k < half.length; k += 1) {
+    half[2 * k] = table[4 * k] as number;
+    half[2 * k + 1] = table[4 * k + 1] as number;
+  }
+  return half;
+}
+
+/**
+ * An fft.js engine for `size` complex points over a prepared twiddle table:
+ * what `new FFT(size)` builds (fft.js 4.0.4, pinned: the fields its
+ * prototype's transforms read), without computing the table again. The
+ * constructor fills a plain Array one cosine and sine at a time, tens of
+ * milliseconds at 2^17 points, paid by every command at start-up.
+ */
+function fftEngine(size: number, table: Float64Array): FFT {
+  const engine = Object.create(FFT.prototype as object) as Record<string, unknown>;
+  engine.size = size;
+  engine._csize = size << 1;
+  engine.table = table;
+  let power = 0;
+  for (let t = 1; size > t; t <<= 1) power += 1;
+  // As the constructor: full radix-4 starts with len = 8 (width one less), otherwise len = 4.
+  const width = power % 2 === 0 ? power - 1 : power;
+  engine._width = width;
+  const bitrev = new Int32Array(1 << width);
+  for (let j = 0; j < bitrev.length; j += 1) {
+    let reversed = 0;
+    for (let shift = 0; shift < width; shift += 2) reversed |= ((j >>> shift) & 3) << (width - shift - 2);
+    bitrev[j] = reversed;
+  }
+  engine._bitrev = bitrev;
+  engine._out = null;
+  engine._data = null;
+  engine._inv = 0;
+  return engine as unknown as FFT;
+}
+
+/** The FFT for size N (a power of two ≥ 4), built once and reused; the full-size complex engine only on the first `forward`. */
 export function realFft(size: number): RealFft {
   const cached = cache.get(size);
   if (cached) return cached;
   if (!Number.isInteger(Math.log2(size)) || size < 4) throw new RangeError(`FFT size must be a power of two ≥ 4, got ${size}`);
-  const engine = new FFT(size);
   const half = size / 2;
-  const halfEngine = new FFT(half);
+  // One table of N twiddles W^k = e^{−j2πk/N}, interleaved (cos, −sin): fft.js's table for N points
+  // (the full-size engine, built on the first `forward` only), its first half the packing's twiddles,
+  // every second entry the half-size engine's table.
+  const twiddles = twiddleTable(size);
+  const halfEngine = fftEngine(half, halveTwiddleTable(twiddles));
+  let fullEngine: FFT | undefined;
   const bins = half + 1;
-  const padded = new Float64Array(size);
-  const full = new Float64Array(2 * size);
+  let padded: Float64Array | undefined;
+  let full: Float64Array | undefined;
   const packed = new Float64Array(2 * half);
   const packedTime = new Float64Array(2 * half);
-  // Twiddles W^k = e^{−j2πk/N}, k < N/2, for the inverse's unpacking.
-  const twiddleRe = new Float64Array(half);
-  const twiddleIm = new Float64Array(half);
-  for (let k = 0; k < half; k += 1) {
-    twiddleRe[k] = Math.cos((2 * Math.PI * k) / size);
-    twiddleIm[k] = -Math.sin((2 * Math.PI * k) / size);
-  }
   const made: RealFft = {
     size,
     bins,
     forward(input, out = new Float64Array(2 * bins)) {
+      fullEngine ??= fftEngine(size, twiddles);
+      padded ??= new Float64Array(size);
+      full ??= new Float64Array(2 * size);
       padded.fill(0);
       const count = Math.min(input.length, size);
       for (let i = 0; i < count; i += 1) padded[i] = input[i] as number;
-      engine.realTransform(full, padded);
+      fullEngine.realTransform(full, padded);
       out.set(full.subarray(0, 2 * bins));
       return out;
     },
@@ -84,14 +146,14 @@ export function realFft(size: number): RealFft {
         const ei = (zi + ci) / 2;
         const or = (zi - ci) / 2; // (Z − conj Z_{M−k}) / (2j)
         const oi = -(zr - cr) / 2;
-        const wr = k < half ? (twiddleRe[k] as number) : -1;
-        const wi = k < half ? (twiddleIm[k] as number) : 0;
+        const wr = k < half ? (twiddles[2 * k] as number) : -1;
+        const wi = k < half ? (twiddles[2 * k + 1] as number) : 0;
         out[2 * k] = er + wr * or - wi * oi;
         out[2 * k + 1] = ei + wr * oi + wi * or;
       }
       return out;
     },
-    inverse(halfSpectrum, out = new Float64Array(size)) {
+    inverse(halfSpectrum, out = new Float64Array(size), scale = 1) {
       // A real signal of length N from one complex inverse FFT of length N/2
       // (the standard packing; e.g. Numerical Recipes, 3rd ed., §12.3):
       // with M = N/2, E[k] = (X[k] + conj(X[M−k]))/2 is the spectrum of the
@@ -99,17 +161,18 @@ export function realFft(size: number): RealFft {
       // ones (W = e^{−j2π/N}); z = IDFT_M(E + jO) gives x[2m] = Re z[m],
       // x[2m+1] = Im z[m].
       for (let k = 0; k < half; k += 1) {
-        const ar = halfSpectrum[2 * k] as number;
-        const ai = halfSpectrum[2 * k + 1] as number;
-        const br = halfSpectrum[2 * (half - k)] as number; // X[M−k], conjugated below
-        const bi = -(halfSpectrum[2 * (half - k) + 1] as number);
+        // x·1 = x exactly, so an unscaled inverse is unchanged to the last bit
+        const ar = (halfSpectrum[2 * k] as number) * scale;
+        const ai = (halfSpectrum[2 * k + 1] as number) * scale;
+        const br = (halfSpectrum[2 * (half - k)] as number) * scale; // X[M−k], conjugated below
+        const bi = -((halfSpectrum[2 * (half - k) + 1] as number) * scale);
         const er = (ar + br) / 2;
         const ei = (ai + bi) / 2;
         const dr = (ar - br) / 2;
         const di = (ai - bi) / 2;
         // O = D / W^k = D · conj(W^k)
-        const wr = twiddleRe[k] as number;
-        const wi = -(twiddleIm[k] as number);
+        const wr = twiddles[2 * k] as number;
+        const wi = -(twiddles[2 * k + 1] as number);
         const or = dr * wr - di * wi;
         const oi = dr * wi + di * wr;
         packed[2 * k] = er - oi; // E + jO

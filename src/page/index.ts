@@ -15,3 +15,5 @@ export {
 export type { BrightnessScale, HumVerdict } from './page-words.js';
 export { binomialTailProbability, loopsByDefault, playbackGainDb, wrapPosition, MATCHED_LOUDNESS_LUFS, LOOP_BY_DEFAULT_MAX_S } from './page-math.js';
 export { SUGGESTED_ROUNDS, LUCK_THRESHOLD } from './blind-test.js';
+export { encodeWiringFigures, decodeWiringFigures, DB_DECIMALS, HZ_DECIMALS } from './wiring-figures.js';
+export type { PageWiringFigures, WiringFigures } from './wiring-figures.js';

@@ -9,7 +9,6 @@
 import { measureCentroid } from '../analysis/index.js';
 import { encodeWav } from '../render/portable/index.js';
 import { type Wiring, enumerateWirings, makeWiring, parseWiring, printNetwork, canonicalize, vocabularyOf } from '../wiring/index.js';
-import type { ReportWiring } from '../report/index.js';
 import { createBlindTest } from './blind-test.js';
 import { RENDERS_KEPT, createRenderCache } from './render-cache.js';
 import { connectKnobFields } from './knob-fields.js';
@@ -22,6 +21,7 @@ import { createResponsePlot } from './response-plot.js';
 import { responseCurve } from './response-curve.js';
 import { type Knobs, type RenderedWiring, createWiringEngine, overridesOf, guitarWithKnobs, renderKey } from './wiring-engine.js';
 import { type ListRow, type WiringList, createWiringList } from './wiring-list.js';
+import { type PageWiringFigures, type WiringFigures, decodeWiringFigures } from './wiring-figures.js';
 
 
 
@@ -32,8 +32,8 @@ const engine = createWiringEngine({ ...data, chain: report.render.chain });
 performance.mark('coilbench-engine');
 // The list of every wiring is built after the first wiring is ready to sound (see "start" below).
 let wirings: Wiring[] = [];
-// The wirings' figures follow the page's script in the document (#page-wirings): read with the list.
-const reported = new Map<string, ReportWiring>();
+// The wirings' figures follow the page's script in the document (#page-wirings, columns: wiring-figures.ts): read with the list.
+const reported = new Map<string, WiringFigures>();
 const byKey = new Map<string, Wiring>();
 const ids = guitar.elements.map((element) => element.id);
 const vocabulary = vocabularyOf(guitar);
@@ -43,10 +43,10 @@ let trueGainDb = 0;
 
 /** Read the wirings' figures: the brightness scale and the true-level gain follow from them. */
 function readFigures(): void {
-  const figures = JSON.parse(byId('page-wirings').textContent ?? '[]') as ReportWiring[];
+  const figures = decodeWiringFigures(JSON.parse(byId('page-wirings').textContent ?? '{"numbers":[]}') as PageWiringFigures);
   for (const wiring of figures) reported.set(wiring.id, wiring);
   scale = brightnessScale(figures.map((wiring) => wiring.centroidHz));
-  const singleLoudness = figures.filter((wiring) => wiring.coils.length === 1).map((wiring) => wiring.loudnessLufs).filter(Number.isFinite);
+  const singleLoudness = figures.filter((wiring) => wiring.coilCount === 1).map((wiring) => wiring.loudnessLufs).filter(Number.isFinite);
   trueGainDb = singleLoudness.length ? MATCHED_LOUDNESS_LUFS - singleLoudness.reduce((a, b) => a + b, 0) / singleLoudness.length : 0;
 }
 
@@ -383,6 +383,8 @@ void openingRender
       byId<HTMLButtonElement>('transport-play').disabled = false;
       exposeTestView();
       performance.mark('coilbench-ready');
+      // The coils the first sound did not need get their spectra now, not at the first wiring that uses them.
+      setTimeout(() => engine.prepareSpectra(), 0);
     };
     if (document.readyState === 'loading') document.addEventListener('DOMContentLoaded', () => setTimeout(finish, 0), { once: true });
     else setTimeout(finish, 0);

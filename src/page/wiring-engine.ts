@@ -26,7 +26,7 @@ import {
   runChainDesign,
 } from '../render/portable/index.js';
 import type { Network } from '../wiring/index.js';
-import { type PageSound, decodeSignal } from './page-data.js';
+import { type PageCoilSignals, type PageSound, decodeSignal } from './page-data.js';
 
 /** The knobs a listener can turn. */
 export interface Knobs {
@@ -77,6 +77,23 @@ export function renderKey(expression: string, knobs: Knobs): string {
   return `${expression}@${circuitKey(knobs)}|${knobs.chain}`;
 }
 
+/**
+ * Each coil's spectrum E_i (`coilSpectraOfSignals`), decoded and transformed
+ * on first need: the synthesis reads only the coils a wiring uses, so the
+ * first sound (often one coil) waits for one transform, not one per coil.
+ */
+export function lazyCoilSpectra(coils: PageCoilSignals): readonly Float64Array[] {
+  const known: (Float64Array | undefined)[] = coils.signals.map(() => undefined);
+  const spectra: Float64Array[] = [];
+  coils.signals.forEach((text, index) => {
+    Object.defineProperty(spectra, index, {
+      enumerable: true,
+      get: () => (known[index] ??= coilSpectraOfSignals({ ...coils, signals: [decodeSignal(text)] })[0] as Float64Array),
+    });
+  });
+  return spectra;
+}
+
 /** Syntheses kept for recent knob settings (each holds its load and gain, a few FFT-sized buffers; our own bound). */
 const SYNTHESES_KEPT = 8;
 
@@ -89,12 +106,13 @@ export interface WiringEngine {
   synthesize(network: Network, knobs: Knobs): Float32Array;
   /** The processed signal through the knobs' chain, with its peak and loudness. */
   render(expression: string, network: Network, knobs: Knobs): Promise<RenderedWiring>;
+  /** Compute every coil's spectrum not computed yet (for idle time after the first sound). */
+  prepareSpectra(): void;
 }
 
 export function createWiringEngine(data: PageSound): WiringEngine {
   const { guitar, coils } = data;
-  const signals = coils.signals.map(decodeSignal);
-  const spectra = coilSpectraOfSignals({ ...coils, signals });
+  const spectra = lazyCoilSpectra(coils);
   const syntheses = new Map<string, WiringSynthesis>();
   let base: WiringSynthesis | null = null;
   const synthesisFor = (knobs: Knobs): WiringSynthesis => {
@@ -139,6 +157,9 @@ export function createWiringEngine(data: PageSound): WiringEngine {
     length: coils.length,
     renderKnobs,
     synthesize,
+    prepareSpectra: () => {
+      for (let coil = 0; coil < spectra.length; coil += 1) void spectra[coil];
+    },
     async render(expression, network, knobs) {
       // Each step is timed as a performance measure (`npm run bench -- page` reads them).
       const started = performance.now();

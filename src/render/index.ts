@@ -34,7 +34,10 @@ export { claimOutputFolder, ownNamesOf, releaseFolderLocksSync, FOLDER_MARKER, F
 export type { ClaimRequest, FolderClaim, FolderPurpose } from './folder-claim.js';
 export { guitarFolderName } from './folder-name.js';
 export type { OutputFolder } from './output-folder.js';
-export { renderGuitar, removeScratchFoldersSync, RENDER_MODEL_VERSION, RESPONSE_POINTS } from './render-guitar.js';
+export { renderGuitar, RENDER_MODEL_VERSION } from './render-guitar.js';
+export { RESPONSE_POINTS } from './render-analysis.js';
+export { removeScratchFoldersSync } from './scratch-folders.js';
+export { writeJsonFileAtomicSync } from './write-json-file.js';
 export type { HumMix, RenderEvents, RenderOutcome, RenderRequest, RenderedWiring } from './render-guitar.js';
 export { measureGraphAudio, measureWiringAudio, measureRawAudio, referLevels, prepareReferenceSynthesis, REFERENCE_PHRASE, REFERENCE_SAMPLE_RATE_HZ, RENDER_TAIL_S } from './measure-wiring-audio.js';
 export type { AudioMetrics, RawAudioMetrics } from './measure-wiring-audio.js';
@@ -43,7 +46,8 @@ export { prepareWiringSynthesis, assertAudible, COIL_VOLTS_PER_METRE_PER_SECOND,
 export type { SynthesisOptions, WiringSynthesis } from './synthesize-wirings.js';
 export { planTrueLevelGain, planMatchedGains, PEAK_CEILING_DB } from './plan-gains.js';
 export { hashOf, readManifest, MANIFEST_VERSION } from './render-manifest.js';
-export { runRenderPassOnThreads, defaultThreadCount, splitByShape, startWorkerModule, MIN_ITEMS_PER_THREAD } from './run-render-pass.js';
+export { runRenderPassOnThreads, splitByShape, MIN_ITEMS_PER_THREAD } from './run-render-pass.js';
+export { defaultThreadCount, startWorkerModule } from './worker-threads.js';
 export { createWiringRenderer, runRenderPass, peakOf } from './render-pass.js';
 export type { AudioSettings, PassItem, PassResult, WiringRenderer } from './render-pass.js';
 export { writeComparisonPage } from './write-comparison-page.js';

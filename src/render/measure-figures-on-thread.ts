@@ -11,7 +11,7 @@ import type { Guitar } from '../guitar/index.js';
 import type { Wiring } from '../wiring/index.js';
 import { FIGURES_PER_WIRING, type FiguresJob, type FiguresMessage } from './figures-job.js';
 import type { RawAudioMetrics } from './measure-wiring-audio.js';
-import { defaultThreadCount, startWorkerModule } from './run-render-pass.js';
+import { defaultThreadCount, startWorkerModule } from './worker-threads.js';
 
 /**
  * Fewest wirings worth a thread of their own: a worker starts cold (loading

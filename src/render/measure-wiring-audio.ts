@@ -20,11 +20,12 @@ import {
   type CoilSignals,
   type WiringSynthesis,
   COIL_VOLTS_PER_METRE_PER_SECOND,
-  coilSignalsOfSpectra,
   coilSpectraOfSignals,
   createWiringSynthesis,
   renderCoilSignals,
+  storedCoilSamples,
 } from './synthesize-wirings.js';
+import { realFft } from '../math/index.js';
 
 /** The reference performance for metrics (docs/design.md, phrases). */
 export const REFERENCE_PHRASE = 'strum';
@@ -76,13 +77,15 @@ export function renderReferenceCoils(guitar: Guitar): CoilSignals {
  */
 export function referenceCoilsOf(guitar: Guitar, basis: SpectralBasis | undefined): CoilSignals {
   if (!basis?.reference || basis.sampleRateHz !== REFERENCE_SAMPLE_RATE_HZ || basis.phraseName !== REFERENCE_PHRASE) return renderReferenceCoils(guitar);
-  // E_i in volts, as renderCoilSpectra scales them.
-  const spectra = basis.coilSpectra.map((spectrum) => {
-    const volts = new Float64Array(spectrum.length);
-    for (let k = 0; k < spectrum.length; k += 1) volts[k] = (spectrum[k] as number) * COIL_VOLTS_PER_METRE_PER_SECOND;
-    return volts;
-  });
-  return coilSignalsOfSpectra(spectra, basis.phraseSamples + basis.pickupDelay, basis.pickupDelay, basis.fftSize, basis.sampleRateHz);
+  // The inverse FFT of each E_i in volts (renderCoilSpectra's scaling, applied as the spectrum is read:
+  // the same numbers as coilSignalsOfSpectra of scaled copies), rounded to float32.
+  const { fftSize, pickupDelay: delay, sampleRateHz } = basis;
+  const length = basis.phraseSamples + delay;
+  const fft = realFft(fftSize);
+  const time = new Float64Array(fftSize);
+  const stored = storedCoilSamples(length, delay, fftSize);
+  const signals = basis.coilSpectra.map((spectrum) => new Float32Array(fft.inverse(spectrum, time, COIL_VOLTS_PER_METRE_PER_SECOND).subarray(0, stored)));
+  return { sampleRateHz, length, delay, fftSize, signals };
 }
 
 /** The synthesis of the reference phrase for a guitar and its settings (prepareWiringSynthesis of `strum`). */

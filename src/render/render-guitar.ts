@@ -13,22 +13,8 @@
 import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { performance } from 'node:perf_hooks';
 import { basename, join, relative } from 'node:path';
-import {
-  type CircuitOverrides,
-  type WiringCircuitMetrics,
-  logSpacedFrequencies,
-  measureCircuitMetrics,
-  measureResponseDb,
-  phaseClassKey,
-  phaseClassNetwork,
-  prepareCircuit,
-  renderNetlist,
-  sampleCoilDrive,
-  solveTransfers,
-  AUDIO_BAND_HIGH_HZ,
-  AUDIO_BAND_LOW_HZ,
-} from '../circuit/index.js';
-import { type AlikeThresholds, type Distinctness, measureCoilDrive, measureDistinctness, measureSpectralBasis } from '../analysis/index.js';
+import { type CircuitOverrides, type WiringCircuitMetrics, phaseClassKey, renderNetlist } from '../circuit/index.js';
+import { type AlikeThresholds, type Distinctness, measureSpectralBasis } from '../analysis/index.js';
 import { WorkError } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
 import {
@@ -49,17 +35,22 @@ import {
   REFERENCE_FIGURES_VERSION,
   RENDER_TAIL_S,
   referLevels,
+  referenceCoilsOf,
 } from './measure-wiring-audio.js';
-import { type AudioSettings, type HumMix, type PassItem, type WiringRenderer, createWiringRenderer } from './render-pass.js';
-import { defaultThreadCount, runRenderPassOnThreads } from './run-render-pass.js';
+import { type AudioSettings, type HumMix, type PassItem, type WiringRenderer, createWiringRenderer, isReferencePerformance } from './render-pass.js';
+import { runRenderPassOnThreads } from './run-render-pass.js';
+import { defaultThreadCount } from './worker-threads.js';
 import { type OutputFolder, netlistFileName, wavFileName } from './output-folder.js';
 import { gainToDb, planMatchedGains, planTrueLevelGain } from './plan-gains.js';
 import { MANIFEST_VERSION, type Manifest, hashOf, readManifest } from './render-manifest.js';
 import { type WavFormat, encodeWav } from './wav-file.js';
 import { createDeferredSync, removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
+import { writeJsonFileAtomicSync } from './write-json-file.js';
+import { activeScratchFolders } from './scratch-folders.js';
 import { type FileRecord, fileMatches, recordOf } from './file-record.js';
 import { maxOf } from '../math/index.js';
 import { writeListeningPage } from './write-listening-page.js';
+import { type PendingAnalysis, prepareRenderAnalysis } from './render-analysis-thread.js';
 
 /** Bump when the sound of a render changes for the same inputs (string model, pickup, chain), so old files are redone. 3: stiff strings (inharmonicity on by default). */
 export const RENDER_MODEL_VERSION = 3;
@@ -67,8 +58,13 @@ export const RENDER_MODEL_VERSION = 3;
 const MAX_PENDING_WRITES = 4;
 /** Least time between manifest saves while writing files, ms: an interrupted run loses at most this much record (the files themselves are always whole). */
 const MANIFEST_SAVE_INTERVAL_MS = 250;
-/** Points of the response curves drawn on the listening page (log-spaced, 20 Hz–20 kHz). */
-export const RESPONSE_POINTS = 96;
+/**
+ * Processed audio a render holds in memory between its passes, bytes; the
+ * rest is parked in scratch files. 32 MB holds the 47 wirings of three
+ * coils (about 0.5 MB each for a 2.6 s phrase at 48 kHz) and keeps a render
+ * of thousands of wirings within its memory bound.
+ */
+const PARK_IN_MEMORY_BYTES = 32 * 2 ** 20;
 
 export type { HumMix };
 
@@ -98,6 +94,8 @@ export interface RenderRequest {
   readonly thresholds?: Partial<AlikeThresholds>;
   /** A switch plan's positions in order (`switch --render`): the report and page label the wirings by position. */
   readonly positions?: readonly ReportSwitchPosition[];
+  /** Run the analysis (circuit figures, groups, response curves) on a thread of its own (default: when the machine has a second core). */
+  readonly analysisThread?: boolean;
 }
 
 export interface RenderEvents {
@@ -153,6 +151,21 @@ function soundOf(guitar: Guitar): unknown {
 
 
 export async function renderGuitar(request: RenderRequest, events: RenderEvents = {}): Promise<RenderOutcome> {
+  // The analysis (circuit figures, groups, response curves) needs no audio: it starts now, on its own
+  // thread where there is a second core, and loads its code while the strings are rendered.
+  const scope = distinctScope(request.all, request.selected);
+  const analysis = prepareRenderAnalysis(
+    { guitar: request.guitar, overrides: request.overrides, selected: request.selected.map((wiring) => wiring.network), scope, thresholds: request.thresholds },
+    request.analysisThread ?? defaultThreadCount() > 1,
+  );
+  try {
+    return await renderWith(request, events, analysis, scope);
+  } finally {
+    await analysis.cancel();
+  }
+}
+
+async function renderWith(request: RenderRequest, events: RenderEvents, analysis: PendingAnalysis, scope: readonly Wiring[]): Promise<RenderOutcome> {
   const { guitar, folder } = request;
   for (const path of [folder.root, folder.wavFolder, folder.netlistFolder]) {
     mkdirSync(path, { recursive: true });
@@ -193,7 +206,13 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
       tail: RENDER_TAIL_S,
     });
 
+  // The strings of the reference phrase, rendered once: the figures, the reference synthesis, the analysis and the page all use them.
+  const basis = measureSpectralBasis(guitar);
+  analysis.start(basis);
+  const referenceCoils = referenceCoilsOf(guitar, basis);
   const settings: AudioSettings = {
+    referenceCoils,
+    parkInMemoryBytes: PARK_IN_MEMORY_BYTES,
     guitar,
     overrides: request.overrides,
     phrase: request.phrase,
@@ -211,6 +230,7 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   const needed = groupByShape(guitar, request.all.filter((wiring) => wiring.elements.length === 1 || selectedIds.has(wiring.id)));
   const raw = new Map<string, RawAudioMetrics>();
   const scratchFiles = new Map<string, string>();
+  const inMemory = new Map<string, Float32Array>();
   const items: PassItem[] = [];
   const hashes = new Map<string, { metricsHash: string; audioHash: string }>();
   for (const wiring of needed) {
@@ -239,8 +259,9 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
       raw.set(result.id, result.metrics);
       Object.assign(entry, { metricsHash: hash.metricsHash, metrics: result.metrics });
     }
-    if (result.audio && result.scratch && hash) {
-      scratchFiles.set(result.id, result.scratch);
+    if (result.audio && (result.scratch || result.samples) && hash) {
+      if (result.scratch) scratchFiles.set(result.id, result.scratch);
+      if (result.samples) inMemory.set(result.id, result.samples);
       Object.assign(entry, { audioHash: hash.audioHash, audio: result.audio, fileHash: undefined, written: undefined });
     }
   }
@@ -297,7 +318,9 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
         skipped += 1;
       } else {
         const parked = scratchFiles.get(wiring.id);
-        const audio = parked ? readScratch(parked) : await processedAudio(wiring);
+        const held = inMemory.get(wiring.id);
+        inMemory.delete(wiring.id);
+        const audio = held ?? (parked ? readScratch(parked) : await processedAudio(wiring));
         for (let n = 0; n < audio.length; n += 1) audio[n] = (audio[n] as number) * gain;
         const bytes = encodeWav(audio, {
           sampleRateHz: request.sampleRateHz,
@@ -341,17 +364,9 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
   // Circuit metrics (read from the response as the strings drive it) for the rendered wirings; groups for
   // every wiring, or (when only some of more than MAX_WIRINGS_GROUPED_FOR_SOME are asked for) among the
   // chosen ones and the single elements, so that one wiring of a six-element guitar costs one wiring, not 228,386.
-  const scope = distinctScope(request.all, request.selected);
-  const basis = measureSpectralBasis(guitar);
-  const drive = measureCoilDrive(basis);
-  const circuit = measureCircuitMetrics(guitar, selected, request.overrides, { drive });
+  const { drive, circuit, distinct, responseFrequenciesHz: responseGrid, responsesDb } = await analysis.result();
   const circuitById = new Map(selected.map((wiring, index) => [wiring.id, circuit.wirings[index] as WiringCircuitMetrics]));
-  const distinct = measureDistinctness(guitar, scope, { overrides: request.overrides, thresholds: request.thresholds, reuseBasis: basis });
   const groupById = new Map(scope.map((wiring, index) => [wiring.id, distinct.groups.groupOf[index] ?? null]));
-  const responseGrid = logSpacedFrequencies(AUDIO_BAND_LOW_HZ, AUDIO_BAND_HIGH_HZ, RESPONSE_POINTS);
-  const responseCircuit = prepareCircuit(guitar, responseGrid, request.overrides);
-  const transfers = guitar.coils.map(() => new Float64Array(2 * RESPONSE_POINTS));
-  const responseDrive = sampleCoilDrive(drive, responseGrid);
 
   const rows: RenderedWiring[] = selected.map((wiring) => {
     const audio = audioMetrics.get(wiring.id);
@@ -364,9 +379,8 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
       wav: request.writeWav === false ? null : relative(folder.root, join(folder.wavFolder, wavFileName(wiring))).split('\\').join('/'),
     };
   });
-  const reportWirings: ReportWiring[] = rows.map((row) => {
-    solveTransfers(responseCircuit, phaseClassNetwork(guitar, row.wiring.network), transfers);
-    const response = measureResponseDb(responseCircuit, row.wiring.network, drive, { sampledDrive: responseDrive, inPhaseTransfers: transfers });
+  const reportWirings: ReportWiring[] = rows.map((row, index) => {
+    const response = responsesDb[index] ?? null;
     return {
       id: row.wiring.id,
       number: row.wiring.number,
@@ -413,8 +427,9 @@ export async function renderGuitar(request: RenderRequest, events: RenderEvents 
     groups: reportGroups(scope, distinct),
     ...(request.positions === undefined ? {} : { positions: request.positions }),
   };
-  await writeFileAtomic(folder.reportJson, `${JSON.stringify(report, null, 2)}\n`, deferred);
-  await writeListeningPage(folder.page, report, { ...request, drive });
+  writeJsonFileAtomicSync(folder.reportJson, report); // in chunks: 38 MB for 9,997 wirings (write-json-file.ts)
+  const referencePerformance = isReferencePerformance(request.phrase, request.sampleRateHz, request.seed);
+  await writeListeningPage(folder.page, report, { ...request, drive, ...(referencePerformance ? { coils: referenceCoils } : {}) });
   await deferred.flush();
   return { report, rows, written, skipped, commonGainDb, matchedLoudnessLufs, audioSeconds, distinct, scope };
 }
@@ -477,25 +492,6 @@ function createWriteQueue(limit: number): { add(write: () => Promise<void>): Pro
   };
 }
 
-/** Attempts to remove a scratch folder that a worker thread is still writing into (Node's rmSync retries ENOTEMPTY and EBUSY). */
-const SCRATCH_REMOVE_RETRIES = 5;
-
-/** Scratch folders of renders in progress, so an interrupt handler can remove their parked audio. */
-const activeScratchFolders = new Set<string>();
-
-/** Remove the parked audio of every render in progress (for a SIGINT handler; the next run starts afresh). */
-export function removeScratchFoldersSync(): void {
-  for (const folder of activeScratchFolders) {
-    // A worker thread may still be adding a file: retry (ENOTEMPTY), and leave the rest to the next run rather than throw.
-    try {
-      rmSync(folder, { recursive: true, force: true, maxRetries: SCRATCH_REMOVE_RETRIES });
-    } catch {
-      // best effort while exiting; the next run removes the folder first
-    }
-  }
-  activeScratchFolders.clear();
-}
-
 /** Wirings reordered so those sharing a network shape (a phase class, with coupled coils) are adjacent (stable within one). */
 function groupByShape(guitar: Guitar, wirings: readonly Wiring[]): Wiring[] {
   const groups = new Map<string, Wiring[]>();
@@ -508,6 +504,8 @@ function groupByShape(guitar: Guitar, wirings: readonly Wiring[]): Wiring[] {
 
 function readScratch(path: string): Float32Array {
   const bytes = readFileSync(path);
+  // A file read whole gets a buffer of its own, aligned for float32; copied only if it is not.
+  if (bytes.byteOffset % Float32Array.BYTES_PER_ELEMENT === 0) return new Float32Array(bytes.buffer, bytes.byteOffset, bytes.byteLength / Float32Array.BYTES_PER_ELEMENT);
   const copy = new Uint8Array(bytes.byteLength);
   copy.set(bytes);
   return new Float32Array(copy.buffer);

@@ -46,6 +46,18 @@ export interface AudioSettings {
   readonly hum: HumMix | null;
   /** Measure the loudness of the processed audio (loudness-matched files need it). */
   readonly measureProcessedLoudness: boolean;
+  /**
+   * The coils' signals for the reference phrase, when the caller already has
+   * them (`referenceCoilsOf` of its spectral basis): the strings are then not
+   * rendered again, in this thread or in a worker.
+   */
+  readonly referenceCoils?: CoilSignals;
+  /**
+   * Bytes of processed audio a pass may hold in memory, handed back in its
+   * results, before it parks the rest in scratch files (default 0: every
+   * wiring's audio goes to a scratch file).
+   */
+  readonly parkInMemoryBytes?: number;
 }
 
 export interface PassItem {
@@ -63,8 +75,10 @@ export interface PassResult {
   readonly id: string;
   readonly metrics?: RawAudioMetrics;
   readonly audio?: { readonly peak: number; readonly loudnessLufs: number | null; readonly frames: number };
-  /** Scratch file holding the processed audio (raw float32), when made. */
+  /** Scratch file holding the processed audio (raw float32), when made and not held in memory. */
   readonly scratch?: string;
+  /** The processed audio itself, when made and held in memory (within `parkInMemoryBytes`). */
+  readonly samples?: Float32Array;
   /** Why the file audio could not be made (the effects chain failed twice); the metrics, if asked for, are still there. */
   readonly failure?: string;
 }
@@ -81,11 +95,16 @@ export interface WiringRenderer {
   readonly sampleRateHz: number;
 }
 
+/** Do files of this phrase, rate and seed play the reference performance (so its coil signals serve them)? */
+export function isReferencePerformance(phrase: Phrase, sampleRateHz: number, seed: number): boolean {
+  return phrase.name === REFERENCE_PHRASE && sampleRateHz === REFERENCE_SAMPLE_RATE_HZ && seed === REFERENCE_SEED;
+}
+
 /** Syntheses made on first need, so work that is all cached renders nothing. */
 export function createWiringRenderer(settings: AudioSettings): WiringRenderer {
   // The reference phrase's coil signals serve both the figures and, when the files play the same performance, the files.
   let coils: CoilSignals | undefined;
-  const referenceCoils = (): CoilSignals => (coils ??= renderReferenceCoils(settings.guitar));
+  const referenceCoils = (): CoilSignals => (coils ??= settings.referenceCoils ?? renderReferenceCoils(settings.guitar));
   let reference: WiringSynthesis | undefined;
   const referenceSynthesis = (): WiringSynthesis => {
     reference ??= prepareReferenceSynthesis(settings.guitar, settings.overrides, referenceCoils());
@@ -98,8 +117,7 @@ export function createWiringRenderer(settings: AudioSettings): WiringRenderer {
     assertAudible(meter, 'controls.volume.setting');
     return meter;
   };
-  const sameAsReference =
-    settings.phrase.name === REFERENCE_PHRASE && settings.sampleRateHz === REFERENCE_SAMPLE_RATE_HZ && settings.seed === REFERENCE_SEED;
+  const sameAsReference = isReferencePerformance(settings.phrase, settings.sampleRateHz, settings.seed);
   let files: WiringSynthesis | undefined;
   const fileSynthesis = (): WiringSynthesis => {
     if (sameAsReference) return referenceSynthesis();
@@ -135,6 +153,8 @@ export const CHAIN_RENDER_TRIES = 2;
  * library lost to a race or a transient fault). Bad input is not retried.
  */
 async function renderChainRetried(audio: Float32Array, sampleRateHz: number, chain: ChainName, name: string): Promise<Float32Array> {
+  // The direct chain is the output jack as is: the synthesis already made a fresh array of finite samples (the WAV encoder checks them again).
+  if (chain === 'direct') return audio;
   let last: unknown;
   for (let attempt = 1; attempt <= CHAIN_RENDER_TRIES; attempt += 1) {
     try {
@@ -186,10 +206,12 @@ export async function runRenderPass(
   const measured = items.filter((item) => item.metrics);
   const figures = renderer.figures(measured.map((item) => item.network));
   const figuresOf = new Map(measured.map((item, index) => [item.id, figures[index] as RawAudioMetrics]));
+  let inMemoryBytes = 0;
   for (const item of items) {
     const metrics = figuresOf.get(item.id);
     let audio: PassResult['audio'];
     let scratch: string | undefined;
+    let samples: Float32Array | undefined;
     let failure: string | undefined;
     let processed: Float32Array | undefined;
     if (item.audio) {
@@ -202,8 +224,13 @@ export async function runRenderPass(
       }
     }
     if (processed) {
-      scratch = join(scratchFolder, `${item.id}.f32`);
-      writeFileSync(scratch, new Uint8Array(processed.buffer, processed.byteOffset, processed.byteLength));
+      if (inMemoryBytes + processed.byteLength <= (settings.parkInMemoryBytes ?? 0)) {
+        inMemoryBytes += processed.byteLength;
+        samples = processed;
+      } else {
+        scratch = join(scratchFolder, `${item.id}.f32`);
+        writeFileSync(scratch, new Uint8Array(processed.buffer, processed.byteOffset, processed.byteLength));
+      }
       audio = {
         peak: peakOf(processed),
         frames: processed.length,
@@ -215,6 +242,7 @@ export async function runRenderPass(
       ...(metrics ? { metrics } : {}),
       ...(audio ? { audio } : {}),
       ...(scratch ? { scratch } : {}),
+      ...(samples ? { samples } : {}),
       ...(failure ? { failure } : {}),
     };
     results.push(result);

@@ -24,7 +24,9 @@ if (port) {
   const job = workerData as WorkerJob;
   try {
     const results = await runRenderPass(job.settings, job.items, job.scratchFolder, () => port.postMessage({ kind: 'step' } satisfies WorkerMessage));
-    port.postMessage({ kind: 'done', results } satisfies WorkerMessage);
+    // Audio held in memory moves to the parent without a copy.
+    const held = results.flatMap((result) => (result.samples ? [result.samples.buffer as ArrayBuffer] : []));
+    port.postMessage({ kind: 'done', results } satisfies WorkerMessage, held);
   } catch (error) {
     const message = error instanceof Error ? error.message : String(error);
     port.postMessage({ kind: 'failed', message, ...(error instanceof InputError ? { problems: error.problems } : {}) } satisfies WorkerMessage);

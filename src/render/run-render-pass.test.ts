@@ -35,20 +35,28 @@ describe('runRenderPassOnThreads', () => {
     for (const shape of first ?? []) expect(second?.has(shape)).toBe(false);
   });
 
-  it('gives the same results and the same audio bytes on two threads as on one (a worker thread does half)', async () => {
+  it('gives the same results and the same audio bytes on two threads as on one (a worker thread does half, some audio held in memory)', async () => {
     const [one, two] = [mkdtempSync(join(tmpdir(), 'coilbench-pass-')), mkdtempSync(join(tmpdir(), 'coilbench-pass-'))];
     folders.push(one, two);
     let steps = 0;
     const single = await runRenderPassOnThreads(settings, items, one, 1);
-    const split = await runRenderPassOnThreads(settings, items, two, 2, () => (steps += 1), 1);
+    // Room for four wirings' audio per thread: the rest goes to scratch files.
+    const frames = single.find((result) => result.audio)?.audio?.frames ?? 0;
+    const held = { ...settings, parkInMemoryBytes: 2 * 4 * frames * Float32Array.BYTES_PER_ELEMENT };
+    const split = await runRenderPassOnThreads(held, items, two, 2, () => (steps += 1), 1);
     expect(steps).toBe(items.length);
     expect(split.map((result) => result.id)).toEqual(items.map((item) => item.id));
+    const bytesOf = (result: (typeof split)[number]): Buffer =>
+      result.samples ? Buffer.from(result.samples.buffer, result.samples.byteOffset, result.samples.byteLength) : readFileSync(result.scratch ?? '');
     split.forEach((result, index) => {
       const reference = single[index];
       expect(result.metrics).toEqual(reference?.metrics);
       expect(result.audio).toEqual(reference?.audio);
-      expect(Boolean(result.scratch)).toBe(items[index]?.audio);
-      if (result.scratch && reference?.scratch) expect(readFileSync(result.scratch).equals(readFileSync(reference.scratch))).toBe(true);
+      expect(reference?.samples).toBeUndefined();
+      expect(Boolean(result.scratch) || Boolean(result.samples)).toBe(items[index]?.audio);
+      if (reference?.scratch) expect(bytesOf(result).equals(readFileSync(reference.scratch))).toBe(true);
     });
+    expect(split.filter((result) => result.samples).length).toBe(8);
+    expect(split.filter((result) => result.scratch).length).toBe(items.filter((item) => item.audio).length - 8);
   });
 });

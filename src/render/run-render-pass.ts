@@ -5,18 +5,15 @@
  * threads. Each wiring's result depends on nothing but its own input, so the
  * output is the same, byte for byte, however it is split.
  */
-import { availableParallelism } from 'node:os';
-import { readFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
-import { dirname, join } from 'node:path';
-import { fileURLToPath, pathToFileURL } from 'node:url';
-import { Worker } from 'node:worker_threads';
+import { fileURLToPath } from 'node:url';
+import type { Worker } from 'node:worker_threads';
 import { InputError, WorkError } from '../errors/index.js';
 import type { ChainName } from './chain-name.js';
 import { type AudioSettings, type PassItem, type PassResult, runRenderPass } from './render-pass.js';
 import type { WorkerJob, WorkerMessage } from './render-worker.js';
 import { shapeKey } from '../wiring/index.js';
 import { minOf, appendAll } from '../math/index.js';
+import { defaultThreadCount, startWorkerModule } from './worker-threads.js';
 
 /**
  * Fewest wirings worth a worker thread, by effects chain: a worker starts cold
@@ -50,32 +47,6 @@ export const FIGURES_ITEM_WEIGHT = 0.02;
 /** Work of one item in units of one wiring's direct file audio. */
 function itemWeight(item: PassItem): number {
   return item.audio ? 1 : item.metrics ? FIGURES_ITEM_WEIGHT : 0;
-}
-
-/** Threads to use by default: the machine's cores, at most two (the render's memory grows with each thread). */
-export function defaultThreadCount(): number {
-  return Math.max(1, Math.min(2, availableParallelism()));
-}
-
-/** The ESM entry of tsx's loader API, read from its package's exports map (development only: tsx is a dev dependency). */
-function tsxLoaderUrl(): string {
-  const manifestPath = createRequire(import.meta.url).resolve('tsx/package.json');
-  const manifest = JSON.parse(readFileSync(manifestPath, 'utf8')) as { exports: Record<string, { import: { default: string } }> };
-  const entry = manifest.exports['./esm/api']?.import.default ?? './dist/esm/api/index.mjs';
-  return pathToFileURL(join(dirname(manifestPath), entry)).href;
-}
-
-/**
- * Start a worker thread on the module at `entry` (a URL of a .js or .ts
- * file): compiled code directly, or, when running from source (development
- * and tests), a small script that registers tsx's loader in the worker and
- * then imports the TypeScript module.
- */
-export function startWorkerModule(entry: URL, workerData: unknown): Worker {
-  if (!entry.pathname.endsWith('.ts')) return new Worker(entry, { workerData });
-  const loader = tsxLoaderUrl();
-  const source = `import(${JSON.stringify(loader)}).then((api) => { api.register(); return import(${JSON.stringify(entry.href)}); });`;
-  return new Worker(source, { eval: true, workerData });
 }
 
 /** The render worker beside this file, in the same form (.js or .ts) as this file. */
@@ -141,13 +112,15 @@ export async function runRenderPassOnThreads(
   const parts = Math.max(1, Math.min(threads, Math.floor(work / minItemsPerThread)));
   if (parts <= 1) return runRenderPass(settings, items, scratchFolder, () => onStep?.());
   const [own = [], ...others] = splitByShape(items, parts);
+  // The in-memory allowance is the render's, shared by its threads.
+  const shared: AudioSettings = { ...settings, parkInMemoryBytes: Math.floor((settings.parkInMemoryBytes ?? 0) / parts) };
   const step = (): void => onStep?.();
   const workers: Worker[] = [];
   let batches: PassResult[][];
   try {
     batches = await Promise.all([
-      ...others.map((chunk) => runInWorker({ settings, items: chunk, scratchFolder }, step, workers)),
-      runRenderPass(settings, own, scratchFolder, step),
+      ...others.map((chunk) => runInWorker({ settings: shared, items: chunk, scratchFolder }, step, workers)),
+      runRenderPass(shared, own, scratchFolder, step),
     ]);
   } catch (error) {
     await Promise.all(workers.map((worker) => worker.terminate()));

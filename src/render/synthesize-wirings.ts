@@ -19,7 +19,6 @@ import {
   solveLoadGain,
   solveSourceFactors,
   solveTransfers,
-  usesCoupledCoils,
 } from '../circuit/index.js';
 import { InputError } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
@@ -217,12 +216,19 @@ function createSharedParts(guitar: Guitar, coils: CoilSpectra, fft: RealFft): Sh
   };
 }
 
-/** P_i(f) = A_i(f)·E_i(f), complex product per bin, for every coil whose A_i is not all zero; marks those coils in `used`. */
+/**
+ * P_i(f) = A_i(f)·E_i(f), complex product per bin, for every coil whose A_i is not all zero; marks those coils in
+ * `used`. A coil the wiring leaves out is not read from `spectra` at all (the page computes a coil's spectrum on
+ * first need).
+ */
 function multiplySpectra(factors: readonly Float64Array[], spectra: readonly Float64Array[], products: readonly Float64Array[], used: Uint8Array): void {
   factors.forEach((factor, coil) => {
+    let any = 0;
+    for (let k = 0; k < factor.length && any === 0; k += 1) if (factor[k] !== 0) any = 1;
+    used[coil] = any;
+    if (any === 0) return;
     const emf = spectra[coil] as Float64Array;
     const product = products[coil] as Float64Array;
-    let any = 0;
     for (let k = 0; k < product.length; k += 2) {
       const tr = factor[k] as number;
       const ti = factor[k + 1] as number;
@@ -230,9 +236,7 @@ function multiplySpectra(factors: readonly Float64Array[], spectra: readonly Flo
       const ei = emf[k + 1] as number;
       product[k] = tr * er - ti * ei;
       product[k + 1] = tr * ei + ti * er;
-      if (tr !== 0 || ti !== 0) any = 1;
     }
-    used[coil] = any;
   });
 }
 
@@ -245,50 +249,30 @@ function synthesisOn(parts: SharedParts, guitar: Guitar, circuit: PreparedCircui
   // The load's gain G for the shape whose impedance was last solved (this knob setting's own).
   const gain = new Float64Array(complexLength);
   let gainShape = '';
-  // Wirings holding both coils of a coupled pair have no series–parallel source (solve-transfers.ts): their
-  // products T_i·E_i are made from the whole transfers, per knob setting.
-  let coupled: { readonly shape: string; readonly products: Float64Array[]; readonly used: Uint8Array } | null = null;
-
   const synthesize = (network: Network, out = new Float32Array(length)): Float32Array => {
     // A wiring's phases only flip the signs of its coils' transfers (T_i carries p_i; coupled coils keep their
     // relative phase, circuit/phase-class.ts): each phase pattern of a class costs a signed sum and one inverse FFT.
     const shape = phaseClassKey(guitar, network);
-    const classNetwork = phaseClassNetwork(guitar, network);
     phaseClassSigns(guitar, network, signs);
     output.fill(0);
-    if (usesCoupledCoils(guitar, classNetwork)) {
-      if (coupled === null || coupled.shape !== shape) {
-        const products = coupled?.products ?? guitar.coils.map(() => new Float64Array(complexLength));
-        const used = coupled?.used ?? new Uint8Array(guitar.coils.length);
-        multiplySpectra(solveTransfers(circuit, classNetwork, parts.factors), spectra, products, used);
-        coupled = { shape, products, used };
-      }
-      // Y(f) = Σ_i p_i·T_i(f)·E_i(f) with T_i of the unsigned network.
-      const { products, used } = coupled;
-      products.forEach((product, coil) => {
-        if (!used[coil]) return;
-        const sign = signs[coil] as number;
-        for (let k = 0; k < complexLength; k += 1) output[k] = (output[k] as number) + sign * (product[k] as number);
-      });
-    } else {
-      if (parts.shape !== shape) {
-        parts.shape = '';
-        solveSourceFactors(circuit, classNetwork, parts.factors, parts.impedance);
-        multiplySpectra(parts.factors, spectra, parts.products, parts.used);
-        parts.shape = shape;
-      }
-      if (gainShape !== shape) {
-        solveLoadGain(circuit, parts.impedance, gain);
-        gainShape = shape;
-      }
-      // Y(f) = G(f)·Σ_i p_i·S_i(f)·E_i(f): the sources summed, then the load (T_i = S_i·G).
-      parts.products.forEach((product, coil) => {
-        if (!parts.used[coil]) return;
-        const sign = signs[coil] as number;
-        for (let k = 0; k < complexLength; k += 1) output[k] = (output[k] as number) + sign * (product[k] as number);
-      });
-      multiplyComplexInPlace(output, gain, complexLength);
+    if (parts.shape !== shape) {
+      parts.shape = '';
+      // Wirings holding both coils of a coupled pair get their S_i and Z by nodal analysis (solveSourceFactors).
+      solveSourceFactors(circuit, phaseClassNetwork(guitar, network), parts.factors, parts.impedance);
+      multiplySpectra(parts.factors, spectra, parts.products, parts.used);
+      parts.shape = shape;
     }
+    if (gainShape !== shape) {
+      solveLoadGain(circuit, parts.impedance, gain);
+      gainShape = shape;
+    }
+    // Y(f) = G(f)·Σ_i p_i·S_i(f)·E_i(f): the sources summed, then the load (T_i = S_i·G).
+    parts.products.forEach((product, coil) => {
+      if (!parts.used[coil]) return;
+      const sign = signs[coil] as number;
+      for (let k = 0; k < complexLength; k += 1) output[k] = (output[k] as number) + sign * (product[k] as number);
+    });
+    multiplyComplexInPlace(output, gain, complexLength);
     fft.inverse(output, time);
     // The pickup spectra are delayed by `delay` samples so that every coil stays causal; sample n is time (n − delay)/fs of the phrase.
     for (let n = 0; n < length; n += 1) out[n] = time[n] as number;

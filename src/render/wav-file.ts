@@ -68,7 +68,6 @@ const PCM_FMT_BYTES = 16;
 const FLOAT_FMT_BYTES = 18; // PCM fields + cbSize
 const FACT_BYTES = 4;
 const MAX_U32 = 0xffff_ffff;
-const BYTE_MASK = 0xff;
 /** Byte offsets of the `fmt ` chunk's fields (IBM/Microsoft 1991, WAVEFORMAT / PCMWAVEFORMAT / WAVEFORMATEX). */
 const FMT_FIELD = Object.freeze({ tag: 0, channels: 2, sampleRate: 4, byteRate: 8, blockAlign: 12, bitsPerSample: 14, cbSize: 16 });
 
@@ -251,17 +250,24 @@ function writeSamples(
       }
       return;
     }
-    // Little-endian two's complement, low byte first. The arithmetic of quantizeSample inlined:
-    // clip, scale, round half away from zero (x ± 0.5 truncated towards zero by `| 0`; |x| < 2^31).
+    // Little-endian two's complement, low byte first (a typed-array store keeps the low 8 bits). The
+    // arithmetic of quantizeSample inlined: clip, scale, round half away from zero (x ± 0.5 truncated
+    // towards zero by `| 0`; |x| < 2^31). A non-finite sample makes `unfinite` NaN; it is then found
+    // and reported, and the bytes are not used.
     const wide = bytesPerSample === PCM24_BYTES;
+    let unfinite = 0;
     for (let n = 0, offset = first; n < channel.length; n += 1, offset += stride) {
       const sample = channel[n] as number;
-      if (!Number.isFinite(sample)) throw InputError.at(`channels[${channelIndex}][${n}]`, 'a finite sample', sample);
+      unfinite += sample - sample;
       const scaled = (sample > 1 ? 1 : sample < -1 ? -1 : sample) * fullScale;
       const value = (scaled < 0 ? scaled - HALF : scaled + HALF) | 0;
-      bytes[offset] = value & BYTE_MASK;
-      bytes[offset + 1] = (value >> BITS_PER_BYTE) & BYTE_MASK;
-      if (wide) bytes[offset + 2] = (value >> (2 * BITS_PER_BYTE)) & BYTE_MASK;
+      bytes[offset] = value;
+      bytes[offset + 1] = value >> BITS_PER_BYTE;
+      if (wide) bytes[offset + 2] = value >> (2 * BITS_PER_BYTE);
+    }
+    if (unfinite !== 0) {
+      const n = channel.findIndex((sample) => !Number.isFinite(sample));
+      throw InputError.at(`channels[${channelIndex}][${n}]`, 'a finite sample', channel[n]);
     }
   });
 }

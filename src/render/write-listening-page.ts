@@ -12,7 +12,7 @@ import type { Phrase } from '../string/index.js';
 import { RENDER_TAIL_S } from './measure-wiring-audio.js';
 import { readPageScript } from './page-script.js';
 import type { HumMix } from './render-pass.js';
-import { renderCoilSignals } from './synthesize-wirings.js';
+import { type CoilSignals, renderCoilSignals } from './synthesize-wirings.js';
 import { writeFileAtomic } from './write-file-atomic.js';
 
 export interface PageSettings {
@@ -26,11 +26,13 @@ export interface PageSettings {
   readonly tailS?: number;
   /** The coil drive of the reference phrase, when already measured (else measured here). */
   readonly drive?: CoilDrive;
+  /** The coils' signals for this very performance, when already rendered (else rendered here). */
+  readonly coils?: CoilSignals;
 }
 
 /** What a page needs to sound a guitar through `chain`: each coil's signal for the same performance as the files (phrase, rate, seed, tail). */
 export function renderPageSound(settings: PageSettings, chain: string): PageSound {
-  const coils = renderCoilSignals(settings.guitar, settings.phrase, { sampleRateHz: settings.sampleRateHz, seed: settings.seed, strings: { tailS: settings.tailS ?? RENDER_TAIL_S } });
+  const coils = settings.coils ?? renderCoilSignals(settings.guitar, settings.phrase, { sampleRateHz: settings.sampleRateHz, seed: settings.seed, strings: { tailS: settings.tailS ?? RENDER_TAIL_S } });
   return {
     guitar: settings.guitar,
     overrides: settings.overrides,

@@ -14,3 +14,4 @@ export { renderGroupsSection } from './page-groups.js';
 export type { ComparisonDifference, ComparisonEntry, ComparisonReport, ComparisonRow, ComparisonSetReport } from './comparison-report.js';
 export { renderComparisonPage } from './render-comparison-page.js';
 export { escapeMarkdown } from './escape-markdown.js';
+export { StreamedArray, mapIterable, writeJson, writeJsonPausing } from './write-json.js';

@@ -25,7 +25,7 @@ import { HUM_CANCELLING_DB, HUM_PARTLY_CANCELLING_DB, formatDb } from '../page/i
 import { renderBrightnessLegend } from './wiring-table.js';
 import { PAGE_LIST_STYLE } from './page-list-style.js';
 import { SUGGESTED_ROUNDS, loopsByDefault } from '../page/index.js';
-import type { PageData } from '../page/index.js';
+import { type PageData, encodeWiringFigures } from '../page/index.js';
 import type { CircuitOverrides } from '../circuit/index.js';
 import type { Guitar } from '../guitar/index.js';
 
@@ -38,11 +38,6 @@ const TOPOLOGY_OPTIONS: ReadonlyArray<readonly [string, string]> = [
   ['parallel', 'parallel'],
   ['series-parallel', 'series and parallel'],
 ];
-
-/** The report as the page script reads it: without response curves (the page computes each curve from the circuit at the knobs' settings). */
-export function compactReportForPage(report: ListeningReport): ListeningReport {
-  return { ...report, wirings: report.wirings.map((wiring) => ({ ...wiring, responseDb: [] })) };
-}
 
 /** Tone capacitor field step, nF, and cable field step, pF (our choice: finer than parts are sold in). */
 const CAPACITOR_STEP_NF = 1;
@@ -218,12 +213,14 @@ export function renderListeningPage(report: ListeningReport, data: Omit<PageData
   const name = escapeHtml(guitar.name);
   const durationS = data.coils.length / data.coils.sampleRateHz;
   const style = `${PAGE_STYLE}${PAGE_LIST_STYLE}`;
-  const compact = compactReportForPage(report);
   const switched = report.positions !== undefined && report.positions.length > 0;
   // The wiring that sounds first: position 1's on a switch plan's page, else the report's first.
   const firstPosition = switched ? report.positions?.find((position) => position.wiringId !== null) : undefined;
-  const first = (firstPosition ? compact.wirings.find((wiring) => wiring.id === firstPosition.wiringId) : undefined) ?? compact.wirings[0];
-  const pageData: PageData = { ...data, report: { ...compact, wirings: [] }, opening: first ? { expression: first.expression, number: first.number } : null };
+  const first = (firstPosition ? report.wirings.find((wiring) => wiring.id === firstPosition.wiringId) : undefined) ?? report.wirings[0];
+  // The page's script reads neither the wirings (carried apart, as columns, after the script) nor the groups (drawn
+  // here, as markup), nor response curves (it computes each from the circuit at the knobs' settings).
+  const { groups: _groups, ...carried } = report;
+  const pageData: PageData = { ...data, report: { ...carried, wirings: [] }, opening: first ? { expression: first.expression, number: first.number } : null };
   return `${renderPageHead({ title: `${guitar.name} · ${switched ? 'listen to the switch positions' : 'listen to every wiring'}`, script, style, generator: report.generator })}
 <a class="skip" href="#wirings">Skip to the wirings</a>
 <header class="masthead">
@@ -263,7 +260,7 @@ ${renderCautionsSection()}
 ${renderTransport(durationS, 'Press ▶ on any row to listen', renderLoopControls(durationS), true)}
 <script type="application/json" id="page-data">${serializeJsonForScript(pageData)}</script>
 <script>${script}</script>
-<script type="application/json" id="page-wirings">${serializeJsonForScript(compact.wirings)}</script>
+<script type="application/json" id="page-wirings">${serializeJsonForScript(encodeWiringFigures(report.wirings))}</script>
 </body>
 </html>
 `;

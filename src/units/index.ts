@@ -6,6 +6,7 @@ export {
   METRES_PER_INCH,
 } from './parse-quantity.js';
 export type { QuantityKind } from './parse-quantity.js';
+export { formatCount } from './format-count.js';
 export {
   midiToHz,
   hzToMidi,

@@ -12,7 +12,7 @@ import {
 } from '../../circuit/index.js';
 import { measureCoilDrive, measureDistinctnessSteps, measureSpectralBasis } from '../../analysis/index.js';
 import { InputError, type InputProblem, problemAt } from '../../errors/index.js';
-import { formatEngineering } from '../../units/index.js';
+import { formatCount, formatEngineering } from '../../units/index.js';
 import { iterateWirings, type Wiring } from '../../wiring/index.js';
 import { type AlikeOptionText, addAlikeOptions, parseAlikeOptions } from '../alike-options.js';
 import { type CircuitOptionText, addCircuitOptions, parseCircuitOptions } from '../circuit-options.js';
@@ -33,12 +33,13 @@ import { readGuitarFile } from '../read-guitar.js';
 import { findOutputProblems } from '../guard-outputs.js';
 import { checkWorkSize, estimateAnalyze } from '../estimate-work.js';
 import { wiringCountFor } from '../../guitar/index.js';
-import { type AudioMetrics, REFERENCE_PHRASE, figuresThreadPays, measureFiguresOnThread, measureGraphAudio, measureWiringAudio, referLevels } from '../../render/index.js';
-import { removeStaleTempFiles, writeFileAtomicSync } from '../../render/index.js';
+import { type AudioMetrics, REFERENCE_PHRASE, figuresThreadPays, measureFiguresOnThread, measureGraphAudio, measureWiringAudio, referLevels } from '../../render/measuring/index.js';
+import { removeStaleTempFiles, writeFileAtomicSync } from '../../render/measuring/index.js';
 import { wiringRecord } from './wirings.js';
 import { collectOption } from '../collect-option.js';
 import { networkRow, parseNetworkOptions } from '../network-option.js';
 import { appendAll } from '../../math/index.js';
+import { writeJson } from '../../report/text/index.js';
 import { MAX_WIRINGS_IN_MEMORY, streamAnalysis, streamedAnalysisProblems } from '../stream-analysis.js';
 
 interface AnalyzeOptions extends CircuitOptionText, AlikeOptionText {
@@ -143,7 +144,7 @@ export function registerAnalyze(program: Command, io: Io): void {
     const streamed = total > MAX_WIRINGS_IN_MEMORY;
     if (streamed) appendAll(problems, streamedAnalysisProblems(options.audio !== false, options.sort, total));
     if (streamed && networks.length > 0) {
-      problems.push(problemAt('--network', `a guitar of at most ${MAX_WIRINGS_IN_MEMORY.toLocaleString('en-US')} wirings (above that analyze streams its rows and takes no connection lists yet)`, `${total.toLocaleString('en-US')} wirings`));
+      problems.push(problemAt('--network', `a guitar of at most ${formatCount(MAX_WIRINGS_IN_MEMORY)} wirings (above that analyze streams its rows and takes no connection lists yet)`, `${formatCount(total)} wirings`));
     }
     if (problems.length > 0) throw new InputError(problems);
 
@@ -238,7 +239,7 @@ export function registerAnalyze(program: Command, io: Io): void {
         groups: groupsRecord(wirings, distinct),
       };
       if (analysis.silent) document.note = SILENT_NOTE;
-      io.stdout(`${JSON.stringify(document, null, 2)}\n`);
+      writeJson(document, io.stdout); // in chunks: a few MB for 9,997 wirings never held as one string
       return;
     }
     const listed = networks.length === 0 ? '' : ` and ${networks.length} connection list${networks.length === 1 ? '' : 's'}`;

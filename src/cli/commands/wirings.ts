@@ -5,7 +5,7 @@ import { writeTablePausing } from '../format-table.js';
 import type { Io } from '../io.js';
 import { readGuitarFile } from '../read-guitar.js';
 import { createPause } from '../pause-for-signals.js';
-import { mapIterable, writeJsonPausing } from '../write-json.js';
+import { mapIterable, writeJsonPausing } from '../../report/text/index.js';
 import type { RowWiring } from '../metric-columns.js';
 
 /** The `--json` record of a wiring (contract in docs/design.md). */

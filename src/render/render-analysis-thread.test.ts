@@ -1,0 +1,49 @@
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { measureSpectralBasis } from '../analysis/index.js';
+import { parseGuitarText } from '../guitar/index.js';
+import { enumerateWirings } from '../wiring/index.js';
+import { prepareRenderAnalysis } from './render-analysis-thread.js';
+import type { RenderAnalysisJob } from './render-analysis.js';
+
+const guitar = parseGuitarText(readFileSync(join(import.meta.dirname, '..', '..', 'samples', 'humbucker-two-single-coil.json'), 'utf8'));
+const wirings = enumerateWirings(guitar.elements).slice(0, 60);
+const job: RenderAnalysisJob = {
+  guitar,
+  overrides: { volumeSetting: 8, cableCapacitanceF: 700e-12 },
+  selected: wirings.slice(10, 30).map((wiring) => wiring.network),
+  scope: wirings.map((wiring) => ({ network: wiring.network, number: wiring.number })),
+};
+
+describe('prepareRenderAnalysis', () => {
+  it('gives the same analysis on a worker thread as in this thread, to the last bit', async () => {
+    const basis = measureSpectralBasis(guitar);
+    const here = prepareRenderAnalysis(job, false);
+    const there = prepareRenderAnalysis(job, true);
+    there.start(basis);
+    here.start(basis);
+    const [own, threaded] = await Promise.all([here.result(), there.result()]);
+    expect(threaded.distinct.spectra.basis).toBe(basis);
+    expect(threaded.circuit).toEqual(own.circuit);
+    expect(threaded.drive).toEqual(own.drive);
+    expect(threaded.distinct.groups).toEqual(own.distinct.groups);
+    expect(threaded.distinct.profiles).toEqual(own.distinct.profiles);
+    expect(threaded.responsesDb).toEqual(own.responsesDb);
+    expect(own.responsesDb).toHaveLength(20);
+    expect(own.circuit.wirings).toHaveLength(20);
+    expect(own.distinct.groups.groupOf).toHaveLength(60);
+  });
+
+  it('passes a bad threshold back as the input error it is', async () => {
+    const bad = prepareRenderAnalysis({ ...job, thresholds: { levelDb: -1 } }, true);
+    bad.start(measureSpectralBasis(guitar));
+    await expect(bad.result()).rejects.toMatchObject({ name: 'InputError' });
+  });
+
+  it('stops its thread when cancelled before it was started', async () => {
+    const pending = prepareRenderAnalysis(job, true);
+    await pending.cancel();
+    await expect(pending.result()).rejects.toThrow(/stopped/);
+  });
+});

@@ -1,0 +1,66 @@
+/**
+ * What a render reports besides its audio: the circuit figures of the
+ * rendered wirings (read from the response as the strings drive it), the
+ * groups of alike wirings, and each rendered wiring's response curve for the
+ * listening page. It is a pure function of the guitar, its settings and the
+ * reference performance's spectral basis, so it is the same on any thread;
+ * a render runs it on a thread of its own (render-analysis-thread.ts) while
+ * it renders the audio.
+ */
+import {
+  type CircuitAnalysis,
+  type CircuitOverrides,
+  type CoilDrive,
+  AUDIO_BAND_HIGH_HZ,
+  AUDIO_BAND_LOW_HZ,
+  logSpacedFrequencies,
+  measureCircuitMetrics,
+  measureResponseDb,
+  phaseClassNetwork,
+  prepareCircuit,
+  sampleCoilDrive,
+  solveTransfers,
+} from '../circuit/index.js';
+import { type AlikeThresholds, type Distinctness, type SpectralBasis, measureCoilDrive, measureDistinctness } from '../analysis/index.js';
+import type { Guitar } from '../guitar/index.js';
+import type { Network } from '../wiring/index.js';
+
+/** Points of the response curves drawn on the listening page (log-spaced, 20 Hz–20 kHz). */
+export const RESPONSE_POINTS = 96;
+
+export interface RenderAnalysisJob {
+  readonly guitar: Guitar;
+  readonly overrides: CircuitOverrides;
+  /** The rendered wirings' networks, in the report's order. */
+  readonly selected: readonly Network[];
+  /** The wirings the groups cover, with their numbers (ranking within a group). */
+  readonly scope: readonly { readonly network: Network; readonly number: number }[];
+  readonly thresholds?: Partial<AlikeThresholds>;
+}
+
+/** A render's analysis; `distinct.spectra.basis` is the basis it was given. */
+export interface RenderAnalysis {
+  readonly drive: CoilDrive;
+  readonly circuit: CircuitAnalysis;
+  readonly distinct: Distinctness;
+  readonly responseFrequenciesHz: Float64Array;
+  /** Each selected wiring's response as the strings drive it, dB (null when silent). */
+  readonly responsesDb: readonly (Float64Array | null)[];
+}
+
+export function measureRenderAnalysis(job: RenderAnalysisJob, basis: SpectralBasis): RenderAnalysis {
+  const { guitar, overrides } = job;
+  const drive = measureCoilDrive(basis);
+  const circuit = measureCircuitMetrics(guitar, job.selected.map((network) => ({ network })), overrides, { drive });
+  const distinct = measureDistinctness(guitar, job.scope, { overrides, thresholds: job.thresholds, reuseBasis: basis });
+  const grid = logSpacedFrequencies(AUDIO_BAND_LOW_HZ, AUDIO_BAND_HIGH_HZ, RESPONSE_POINTS);
+  const responseCircuit = prepareCircuit(guitar, grid, overrides);
+  const transfers = guitar.coils.map(() => new Float64Array(2 * RESPONSE_POINTS));
+  const sampledDrive = sampleCoilDrive(drive, grid);
+  const responsesDb = job.selected.map((network) => {
+    solveTransfers(responseCircuit, phaseClassNetwork(guitar, network), transfers);
+    const response = measureResponseDb(responseCircuit, network, drive, { sampledDrive, inPhaseTransfers: transfers });
+    return response;
+  });
+  return { drive, circuit, distinct, responseFrequenciesHz: grid, responsesDb };
+}
