@@ -180,22 +180,19 @@ export function createWiringEngine(data: PageSound): WiringEngine {
 
 /**
  * Run `samples` through a chain, the node render's way (render-chain-design.ts,
- * run-chain-design.ts): the compressor and plain gains in our own code, the
- * other stages in the browser's OfflineAudioContext, where the input is
- * followed by the design's latency in zeros and the first `latencyFrames` of
- * the output are dropped.
+ * run-chain-design.ts): the gains, biquads and compressor in our own code,
+ * the clipper in the browser's OfflineAudioContext.
  */
 export function renderChainInBrowser(samples: Float32Array, sampleRateHz: number, chain: ChainName): Promise<Float32Array> {
   return runChainDesign(samples, designEffectsChain(chain, resolveChainOptions({}), sampleRateHz), renderGraphInBrowser);
 }
 
-/** A design whose stages are all Web Audio nodes, rendered in the browser's OfflineAudioContext. */
+/** A design whose stages are all Web Audio nodes, played as given in the browser's OfflineAudioContext (as many frames out, the delay kept). */
 async function renderGraphInBrowser(samples: Float32Array, design: ChainDesign): Promise<Float32Array> {
   const sampleRateHz = design.sampleRateHz;
   const frames = samples.length;
-  const latency = design.latencyFrames;
-  const context = new OfflineAudioContext({ numberOfChannels: 1, length: frames + latency, sampleRate: sampleRateHz });
-  const buffer = context.createBuffer(1, frames + latency, sampleRateHz);
+  const context = new OfflineAudioContext({ numberOfChannels: 1, length: frames, sampleRate: sampleRateHz });
+  const buffer = context.createBuffer(1, frames, sampleRateHz);
   buffer.copyToChannel(samples as Float32Array<ArrayBuffer>, 0);
   const source = context.createBufferSource();
   source.buffer = buffer;
@@ -204,6 +201,6 @@ async function renderGraphInBrowser(samples: Float32Array, design: ChainDesign):
   source.start(0);
   const rendered = await context.startRendering();
   const output = new Float32Array(frames);
-  rendered.copyFromChannel(output, 0, latency);
+  rendered.copyFromChannel(output, 0);
   return output;
 }

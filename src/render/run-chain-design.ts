@@ -1,50 +1,91 @@
 /**
- * Run a chain design in any host: the stages a Web Audio graph does well
- * (biquads, the oversampled clipper) go to the host's OfflineAudioContext
- * through `renderGraph`; the compressor (render-compressor.ts) and runs of
- * plain gains are computed here, so both hosts run the very same code for
- * them. A gain here is the GainNode's float32 product: x·g with g rounded to
- * float32, the exact double product rounded once to float32 on storing.
+ * Run a chain design in any host. Our own code computes every stage it can
+ * compute exactly as node-web-audio-api 1.0.9's audio graph does: the gains
+ * (float32-audio.ts) and the biquads (biquad-filter.ts), bit for bit, and
+ * the compressor (render-compressor.ts), which is ours in every host. Only
+ * the oversampled clipper (a WaveShaperNode, whose FFT resampler we do not
+ * reproduce) goes to the host's OfflineAudioContext through `renderGraph`.
+ * So the clean and compressed chains need no audio context at all, and the
+ * drive chain's context holds a single node.
+ *
+ * Timing, as a single graph of every stage would have it: the input is
+ * followed by the design's `latencyFrames` in zeros, every stage runs over
+ * that longer signal in order (the graph part as the host renders it, its
+ * fixed delay kept), and the first `latencyFrames` are dropped at the end,
+ * so the output has the input's length and lines up with it. The zeros
+ * matter: a WaveShaperNode in node-web-audio-api 1.0.9 drops the frames
+ * still inside its oversampler when its input stops (render-chain-design.ts).
+ * When the design has a graph part, the zeros go on to the end of the last
+ * render quantum: a graph computes whole quanta, so in one graph of every
+ * stage the stages before the clipper ring on into that quantum's last
+ * frames, and the clipper's oversampler reads them (measured: without them,
+ * up to 72 samples of that quantum differ in the last bits).
  *
  * The command line passes node-web-audio-api's context
  * (render-chain-design.ts), the listening page the browser's own
  * (src/page/wiring-engine.ts).
  */
-import { type ChainDesign, type ChainStage, measureDesignLatencyFrames } from './chain-design.js';
+import { type ChainDesign, type ChainStage, RENDER_QUANTUM_FRAMES, measureDesignLatencyFrames } from './chain-design.js';
+import { designNodeBiquad, renderBiquad } from './biquad-filter.js';
+import { renderGain } from './float32-audio.js';
 import { designCompressor, renderCompressor } from './render-compressor.js';
 
 /**
- * How a host renders a design whose stages are all Web Audio nodes: the
- * output has the input's length and lines up with it (the design's
- * `latencyFrames` removed).
+ * How a host renders a design whose stages are all Web Audio nodes: it plays
+ * `samples` as they are (no zeros added) through the stages and returns as
+ * many frames as it was given, the stages' fixed delay not removed.
  */
 export type RenderGraph = (samples: Float32Array, design: ChainDesign) => Promise<Float32Array>;
 
+/** `frames` rounded up to whole render quanta. */
+function wholeQuanta(frames: number): number {
+  return Math.ceil(frames / RENDER_QUANTUM_FRAMES) * RENDER_QUANTUM_FRAMES;
+}
+
+/** True for the stages run by the host's audio graph rather than by our code. */
+export function isGraphStage(stage: ChainStage): boolean {
+  return stage.kind === 'shaper';
+}
+
+/** Run one stage our code computes over `signal`, in place. */
+function applyStage(signal: Float32Array, stage: ChainStage, sampleRateHz: number): void {
+  switch (stage.kind) {
+    case 'gain':
+      renderGain(signal, stage.gain, signal);
+      return;
+    case 'biquad':
+      renderBiquad(signal, designNodeBiquad(stage.filter, sampleRateHz), signal);
+      return;
+    case 'compressor':
+      renderCompressor(signal, designCompressor(stage.settings, sampleRateHz), signal);
+      return;
+    case 'shaper':
+      throw new Error('runChainDesign: a shaper stage runs in the audio graph');
+  }
+}
+
 /** Render mono `samples` through `design`; a new array of the same length (the input is not modified). */
 export async function runChainDesign(samples: Float32Array, design: ChainDesign, renderGraph: RenderGraph): Promise<Float32Array> {
-  let signal: Float32Array = Float32Array.from(samples);
+  if (samples.length === 0) return new Float32Array(0);
+  const latency = design.latencyFrames;
+  const graphed = design.stages.some(isGraphStage);
+  const frames = graphed ? wholeQuanta(samples.length + latency) : samples.length + latency;
+  let signal: Float32Array = new Float32Array(frames); // the input, then zeros (see above)
+  signal.set(samples);
   let pending: ChainStage[] = [];
   const flush = async (): Promise<void> => {
     if (pending.length === 0) return;
-    if (pending.every((stage) => stage.kind === 'gain')) {
-      for (const stage of pending) {
-        if (stage.kind !== 'gain') continue;
-        const gain = Math.fround(stage.gain);
-        for (let n = 0; n < signal.length; n += 1) signal[n] = (signal[n] as number) * gain;
-      }
-    } else {
-      signal = await renderGraph(signal, { ...design, stages: pending, latencyFrames: measureDesignLatencyFrames(pending) });
-    }
+    signal = await renderGraph(signal, { ...design, stages: pending, latencyFrames: measureDesignLatencyFrames(pending) });
     pending = [];
   };
   for (const stage of design.stages) {
-    if (stage.kind !== 'compressor') {
+    if (isGraphStage(stage)) {
       pending.push(stage);
       continue;
     }
     await flush();
-    renderCompressor(signal, designCompressor(stage.settings, design.sampleRateHz), signal);
+    applyStage(signal, stage, design.sampleRateHz);
   }
   await flush();
-  return signal;
+  return signal.length === samples.length ? signal : signal.slice(latency, latency + samples.length);
 }

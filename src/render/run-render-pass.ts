@@ -19,14 +19,17 @@ import { defaultThreadCount, startWorkerModule } from './worker-threads.js';
  * Fewest wirings worth a worker thread, by effects chain: a worker starts cold
  * (loading and compiling the code, rendering the strings and spectra again:
  * about half a second), so it pays only when each thread gets about a second
- * of work. A wiring costs about 25 ms direct and 40–60 ms through a chain
- * (measured with `npm run bench` on a 2-core machine: 47 wirings through the
- * drive chain take 3.3–3.6 s on one thread and 2.7–3.0 s on two; direct, one
- * thread was faster).
+ * of work. A wiring costs about 25 ms direct, a few ms more clean (its chain is
+ * our own code, no audio context) and 40–60 ms through the compressed or drive
+ * chain (measured with `npm run bench` on a 2-core machine: 47 wirings through
+ * the drive chain take 3.3–3.6 s on one thread and 2.7–3.0 s on two; direct,
+ * one thread was faster, and so was clean: 47 wirings took 3.1–3.7 s of CPU
+ * and 145–155 MB on one thread against 4.4–5.0 s and 200–240 MB on two, four
+ * runs each with the machine busy, load average 14).
  */
 export const MIN_ITEMS_PER_THREAD: Readonly<Record<ChainName, number>> = Object.freeze({
   direct: 50,
-  clean: 16,
+  clean: 50,
   compressed: 16,
   drive: 16,
 });

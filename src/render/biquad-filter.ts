@@ -1,0 +1,166 @@
+/**
+ * A biquad section run in our own code, sample for sample as a Web Audio
+ * BiquadFilterNode runs it in node-web-audio-api 1.0.9, so the command line
+ * renders the linear stages of a chain without an audio context and gets the
+ * very same float32 samples (checked bit for bit against the node by
+ * biquad-filter.test.ts).
+ *
+ * The arithmetic is the W3C Web Audio API 1.0 §BiquadFilterNode's, in the
+ * order and precision that library computes it:
+ *
+ * - The node's parameters are float32 (frequency, Q, gain; lowpass and
+ *   highpass take Q in dB, biquad-design.ts `webAudioQ`), and so is the
+ *   context's sample rate; each is widened to float64 before use.
+ * - Coefficients in float64, in the spec's order, cos, sin and 10^x
+ *   correctly rounded as the C library gives them (correctly-rounded.ts):
+ *   w0 = 2π·f0/fs,
+ *   A = 10^(G/40), α_QdB = sin w0 / (2·10^(Q/20)) (lowpass, highpass),
+ *   α_Q = sin w0 / (2Q) (peaking), α_S = sin w0 / 2 · √2 (shelves, slope 1),
+ *   the shelves' 2·α_S·√A taken as (2·α_S)·√A; then every coefficient
+ *   divided by a0.
+ * - The filter in direct form I with a float64 state:
+ *     y[n] = b0·x[n] + b1·x[n−1] + b2·x[n−2] − a1·y[n−1] − a2·y[n−2]
+ *   summed left to right, x[n] the float32 input widened, the state keeping
+ *   y[n] unrounded; the output sample is y[n] rounded to float32.
+ *
+ * Response curves and design checks use biquad-design.ts (`designBiquad`,
+ * the cookbook from the plain values); this file is the running filter.
+ */
+import type { BiquadCoefficients, BiquadSpec } from './biquad-design.js';
+import { webAudioQ } from './biquad-design.js';
+import { roundedCosSin, roundedPow10 } from './correctly-rounded.js';
+import { FLOAT32_MIN_NORMAL, flushFloat32, flushFloat64 } from './float32-audio.js';
+
+/** W3C Web Audio API 1.0 §BiquadFilterNode: α_QdB = sin w0 / (2·10^(Q/20)), Q in dB. */
+const Q_DB_PER_DECADE = 20;
+/** W3C Web Audio API 1.0 §BiquadFilterNode: A = 10^(G/40). */
+const GAIN_DB_EXPONENT_DIVISOR = 40;
+
+const designed = new Map<string, BiquadCoefficients>();
+
+/** The coefficients a BiquadFilterNode computes for `spec` in a context running at `sampleRateHz` (see above; kept once made). */
+export function designNodeBiquad(spec: BiquadSpec, sampleRateHz: number): BiquadCoefficients {
+  const key = `${spec.kind} ${spec.frequencyHz} ${spec.q} ${spec.gainDb} ${sampleRateHz}`;
+  let coefficients = designed.get(key);
+  if (!coefficients) {
+    coefficients = computeNodeBiquad(spec, sampleRateHz);
+    designed.set(key, coefficients);
+  }
+  return coefficients;
+}
+
+function computeNodeBiquad(spec: BiquadSpec, sampleRateHz: number): BiquadCoefficients {
+  // Parameters as the node holds them: float32, then widened.
+  const f0 = Math.fround(spec.frequencyHz);
+  const q = Math.fround(webAudioQ(spec));
+  const gainDb = Math.fround(spec.gainDb);
+  const fs = Math.fround(sampleRateHz);
+  const w0 = (2 * Math.PI * f0) / fs;
+  const { cos: cosW0, sin: sinW0 } = roundedCosSin(w0);
+  let b0: number, b1: number, b2: number, a0: number, a1: number, a2: number;
+  switch (spec.kind) {
+    case 'lowpass': {
+      const alpha = sinW0 / (2 * roundedPow10(q / Q_DB_PER_DECADE));
+      b0 = (1 - cosW0) / 2;
+      b1 = 1 - cosW0;
+      b2 = (1 - cosW0) / 2;
+      a0 = 1 + alpha;
+      a1 = -2 * cosW0;
+      a2 = 1 - alpha;
+      break;
+    }
+    case 'highpass': {
+      const alpha = sinW0 / (2 * roundedPow10(q / Q_DB_PER_DECADE));
+      b0 = (1 + cosW0) / 2;
+      b1 = -1 * (1 + cosW0);
+      b2 = (1 + cosW0) / 2;
+      a0 = 1 + alpha;
+      a1 = -2 * cosW0;
+      a2 = 1 - alpha;
+      break;
+    }
+    case 'peaking': {
+      const amplitude = roundedPow10(gainDb / GAIN_DB_EXPONENT_DIVISOR);
+      const alpha = sinW0 / (2 * q);
+      b0 = 1 + alpha * amplitude;
+      b1 = -2 * cosW0;
+      b2 = 1 - alpha * amplitude;
+      a0 = 1 + alpha / amplitude;
+      a1 = -2 * cosW0;
+      a2 = 1 - alpha / amplitude;
+      break;
+    }
+    case 'lowshelf':
+    case 'highshelf': {
+      const amplitude = roundedPow10(gainDb / GAIN_DB_EXPONENT_DIVISOR);
+      const alpha = (sinW0 / 2) * Math.SQRT2; // slope S = 1
+      const k = 2 * alpha * Math.sqrt(amplitude);
+      const up = amplitude + 1;
+      const down = amplitude - 1;
+      if (spec.kind === 'lowshelf') {
+        b0 = amplitude * (up - down * cosW0 + k);
+        b1 = 2 * amplitude * (down - up * cosW0);
+        b2 = amplitude * (up - down * cosW0 - k);
+        a0 = up + down * cosW0 + k;
+        a1 = -2 * (down + up * cosW0);
+        a2 = up + down * cosW0 - k;
+      } else {
+        b0 = amplitude * (up + down * cosW0 + k);
+        b1 = -2 * amplitude * (down + up * cosW0);
+        b2 = amplitude * (up + down * cosW0 - k);
+        a0 = up - down * cosW0 + k;
+        a1 = 2 * (down - up * cosW0);
+        a2 = up - down * cosW0 - k;
+      }
+      break;
+    }
+  }
+  return Object.freeze({ b0: b0 / a0, b1: b1 / a0, b2: b2 / a0, a1: a1 / a0, a2: a2 / a0 });
+}
+
+/**
+ * Run `samples` through one section from rest, as the node does (float32
+ * input and output flushed, float64 state; float32-audio.ts). Writes into
+ * `out` (a new array by default; may be `samples` itself).
+ *
+ * Two loops, the same arithmetic. The first is the plain step: exact as
+ * long as every input sample and every y[n] is zero or at least 2⁻¹²⁶ in
+ * size, for then no product (coefficients are at least 2⁻⁶⁰ in size: a
+ * lowpass at 1 Hz and 192 kHz has b0 ≈ 2⁻³²) and no partial sum (a multiple
+ * of 2⁻²³⁹) comes near the subnormals, and nothing needs flushing. At the
+ * first sample where that fails (after a fraction of a second of exact
+ * silence, or on a subnormal input) the second loop takes over from the
+ * same state and flushes every read, product, sum and write.
+ */
+export function renderBiquad(samples: Float32Array, coefficients: BiquadCoefficients, out: Float32Array = new Float32Array(samples.length)): Float32Array {
+  const { b0, b1, b2, a1, a2 } = coefficients;
+  const frames = samples.length;
+  let x1 = 0;
+  let x2 = 0;
+  let y1 = 0;
+  let y2 = 0;
+  let n = 0;
+  for (; n < frames; n += 1) {
+    const x = samples[n] as number;
+    const y = b0 * x + b1 * x1 + b2 * x2 - a1 * y1 - a2 * y2;
+    if ((Math.abs(y) < FLOAT32_MIN_NORMAL || Math.abs(x) < FLOAT32_MIN_NORMAL) && (y !== 0 || x !== 0)) break;
+    x2 = x1;
+    x1 = x;
+    y2 = y1;
+    y1 = y;
+    out[n] = y; // rounded to float32 on storing
+  }
+  for (; n < frames; n += 1) {
+    const x = flushFloat32(samples[n] as number);
+    let y = flushFloat64(flushFloat64(b0 * x) + flushFloat64(b1 * x1));
+    y = flushFloat64(y + flushFloat64(b2 * x2));
+    y = flushFloat64(y - flushFloat64(a1 * y1));
+    y = flushFloat64(y - flushFloat64(a2 * y2));
+    x2 = x1;
+    x1 = x;
+    y2 = y1;
+    y1 = y;
+    out[n] = flushFloat32(Math.fround(y));
+  }
+  return out;
+}
