@@ -69,7 +69,9 @@ export function prepareRenderAnalysis(job: RenderAnalysisJob, thread: boolean): 
   return {
     start: (basis, figures = []) => {
       given = basis;
-      worker.postMessage({ basis, figures });
+      // The coils' spectra serve only the audio figures (the groups and the coil drive read the band cross-spectra):
+      // without figures to measure they stay here, megabytes the thread need not copy.
+      worker.postMessage({ basis: figures.length > 0 ? basis : { ...basis, coilSpectra: [] }, figures });
     },
     result: () => answer,
     cancel: async () => {
