@@ -30,8 +30,11 @@ export {
 } from './frequency-grid.js';
 export type { ResonanceInputs, ResonanceMetrics } from './measure-resonance.js';
 export { measureResonance, LOG_FREQUENCY_TOLERANCE, CANCELLED_FRACTION, CANCELLED_REASON, MIN_PEAK_PROMINENCE, MIN_PEAK_PROMINENCE_DB, SILENT_REASON } from './measure-resonance.js';
-export type { HumCategory } from './measure-hum.js';
+export type { HumCategory, HumFields } from './measure-hum.js';
 export {
+  FIELD_DIRECTIONS,
+  prepareHumFields,
+  worseHumDb,
   humCategory,
   humDecibels,
   humFieldWeights,

@@ -4,6 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { parseGuitarText } from '../guitar/index.js';
 import { enumerateWirings } from '../wiring/index.js';
 import {
+  FIELD_DIRECTIONS,
   analysisFrequencies,
   humDecibels,
   measureCircuitMetrics,
@@ -20,14 +21,17 @@ describe('measureCircuitMetrics shares figures between phase patterns', () => {
     const wirings = enumerateWirings(guitar.elements);
     const shared = measureCircuitMetrics(guitar, wirings, { mainsHz: 50 });
     const prepared = prepareCircuit(guitar, analysisFrequencies(), { mainsHz: 50 });
-    const reference = measureHumReference(prepared);
+    const references = FIELD_DIRECTIONS.map((direction) => measureHumReference(prepared, direction));
+    // humDb: the worse of the two field directions, each wiring solved on its own at the mains frequency.
+    const humOnItsOwn = (network: (typeof wirings)[number]['network']): number =>
+      FIELD_DIRECTIONS.reduce((worst, direction, d) => Math.max(worst, humDecibels(measureHum(prepared, network, direction), references[d] as number)), -Infinity);
     wirings.forEach((wiring, index) => {
       const direct = measureResonance(prepared, wiring.network);
       const metrics = shared.wirings[index];
       expect(metrics?.resonanceHz).toBe(direct.resonanceHz);
       expect(metrics?.peakDb).toBe(direct.peakDb);
       expect(metrics?.resonanceQ).toBe(direct.resonanceQ);
-      expect(Math.abs((metrics?.humDb as number) - humDecibels(measureHum(prepared, wiring.network), reference))).toBeLessThan(1e-9);
+      expect(Math.abs((metrics?.humDb as number) - humOnItsOwn(wiring.network))).toBeLessThan(1e-9);
     });
   });
 });

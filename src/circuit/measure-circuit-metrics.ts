@@ -19,7 +19,7 @@ import type { Network } from '../wiring/index.js';
 import { phaseClassKey, phaseClassNetwork, phaseClassSigns } from './phase-class.js';
 import type { CircuitLoad, CircuitOverrides } from './circuit-load.js';
 import { ANALYSIS_POINTS, analysisFrequencies } from './frequency-grid.js';
-import { type HumCategory, humCategory, humDecibels, humFieldWeights, humMagnitudeAt, measureHumReference } from './measure-hum.js';
+import { type HumCategory, humCategory, prepareHumFields, worseHumDb } from './measure-hum.js';
 import { type CoilDrive, incoherentCoilDrive, sampleCoilDrive } from './coil-drive.js';
 import { SILENT_RESONANCE, measureGraphResonance, measureResonance } from './measure-resonance.js';
 import type { CircuitGraph } from './circuit-graph.js';
@@ -110,10 +110,10 @@ export function prepareCircuitMetrics(guitar: Guitar, overrides?: CircuitOverrid
   if (drive.coilCount !== guitar.coils.length) throw new RangeError(`measureCircuitMetrics: the drive has ${drive.coilCount} coils, the guitar ${guitar.coils.length}`);
   const sampledDrive = sampleCoilDrive(drive, prepared.frequenciesHz);
   const transfers = guitar.coils.map(() => new Float64Array(2 * points));
-  const reference = measureHumReference(prepared);
+  const humFields = prepareHumFields(prepared);
   const mains = fixedProbeAt(prepared, prepared.load.mainsHz);
-  const humWeights = humFieldWeights(guitar, prepared.load);
   const phases = new Float64Array(guitar.coils.length);
+  const signedMains = new Float64Array(2 * guitar.coils.length);
   const measureSteps = function* (wirings: readonly { readonly network: Network }[]): Steps<WiringCircuitMetrics[]> {
     // wirings grouped by network shape, shapes in order of first appearance
     const byShape = new Map<string, number[]>();
@@ -133,15 +133,12 @@ export function prepareCircuitMetrics(guitar: Guitar, overrides?: CircuitOverrid
         const network = (wirings[index] as { network: Network }).network;
         const resonance = measureResonance(prepared, network, { drive, sampledDrive, inPhaseTransfers: transfers });
         phaseClassSigns(guitar, network, phases);
-        // H = Σ_i m_i·h_i·B(x_i)·T_i = Σ_i p_i·m_i·h_i·B(x_i)·T_i⁰ (measure-hum.ts)
-        let re = 0;
-        let im = 0;
+        // H = Σ_i m_i·h_i·B(x_i)·T_i with T_i = p_i·T_i⁰ (measure-hum.ts), in the worse field direction
         for (let c = 0; c < phases.length; c += 1) {
-          const weight = (phases[c] as number) * (humWeights[c] as number);
-          re += weight * (mainsTransfers[2 * c] as number);
-          im += weight * (mainsTransfers[2 * c + 1] as number);
+          signedMains[2 * c] = (phases[c] as number) * (mainsTransfers[2 * c] as number);
+          signedMains[2 * c + 1] = (phases[c] as number) * (mainsTransfers[2 * c + 1] as number);
         }
-        const humDb = humDecibels(Math.hypot(re, im), reference);
+        const humDb = worseHumDb(humFields, signedMains);
         const category = humCategory(humDb);
         metrics[index] = { ...resonance, humDb, humCategory: category, humCancelling: category === 'cancels' };
       }
@@ -155,7 +152,7 @@ export function prepareCircuitMetrics(guitar: Guitar, overrides?: CircuitOverrid
       const resonance = measureGraphResonance(prepared, graph, { drive, sampledDrive, inPhaseTransfers: graphTransfers });
       // H = Σ_i m_i·h_i·B(x_i)·T_i (measure-hum.ts); the graph's T_i carry their signs
       const atMains = solveNodalTransfers(mains, graph, probeTransfers(prepared));
-      const humDb = humDecibels(humMagnitudeAt(humWeights, atMains, 0), reference);
+      const humDb = worseHumDb(humFields, Float64Array.from(atMains.flatMap((transfer) => [transfer[0] as number, transfer[1] as number])));
       const category = humCategory(humDb);
       return { ...resonance, humDb, humCategory: category, humCancelling: category === 'cancels' };
     });

@@ -3,8 +3,9 @@
  * identical coils in a uniform field cancel completely (to the floor); in a
  * graded field the residual of two matched coils spaced s is 2·sinh(γ·s/2),
  * ≈ γ·s = 3s/r for a dipole source at distance r (the §6 estimate); a 10 %
- * turns mismatch leaves about −20 dB (§6: −20·log10(δ)); humDb's reference
- * ignores elements that cancel hum by themselves.
+ * turns mismatch leaves about −20 dB (§6: −20·log10(δ)); humDb is the worse
+ * of the two field directions; humDb's reference ignores elements that
+ * cancel hum by themselves.
  */
 import { describe, expect, it } from 'vitest';
 import { parseGuitar } from '../guitar/index.js';
@@ -61,6 +62,25 @@ describe('hum field with a gradient', () => {
     expect(Math.abs((figures[1] as number) - -19.3)).toBeLessThan(0.1);
     // Rejection falls as the spacing grows.
     for (let k = 1; k < figures.length; k += 1) expect(figures[k] as number).toBeGreaterThan(figures[k - 1] as number);
+  });
+
+  it('counts on no luck of the field direction: a mismatch the gradient makes up one way reads as the other way leaves it', () => {
+    // 10 % more turns on the coil nearer the bridge, 40 mm apart, at γ = 3 /m (docs/physics.md §6.1): in a field
+    // growing towards the neck the stronger field on the weaker coil makes up most of the mismatch, in the other
+    // it adds to it. Derived: the residual is |n₁·e^{γd/2} − n₂·e^{−γd/2}| over the mean single coil for d = ±s.
+    const spacing = 0.04;
+    const gradient = 3;
+    const guitar = humbucker(spacing, [{ turns: 5000 }, { turns: 5500 }]);
+    const residual = (direction: number): number => {
+      const [near, far] = [5000 * Math.exp((direction * gradient * spacing) / 2), 5500 * Math.exp((-direction * gradient * spacing) / 2)];
+      return 20 * Math.log10(Math.abs(near - far) / ((near + far) / 2));
+    };
+    const [lucky, other] = [residual(1), residual(-1)];
+    expect(lucky).toBeLessThan(-25); // −32.2 dB: the field growing towards the neck makes up the mismatch
+    expect(other).toBeGreaterThan(-15); // −13.4 dB
+    expect(Math.abs(seriesHumDb(guitar, gradient) - other)).toBeLessThan(0.01);
+    // Matched coils have no lucky direction: both give the same figure (the dipole check above).
+    expect(Math.abs(seriesHumDb(humbucker(spacing), gradient) - 20 * Math.log10(2 * Math.tanh((gradient * spacing) / 2)))).toBeLessThan(0.01);
   });
 
   it('a 10 % turns mismatch gives about −20 dB in a uniform field (docs/physics.md §6: −20·log10(0.1))', () => {

@@ -43,14 +43,57 @@ const OWN_HUM_SHARE = 0.5;
 export type HumCategory = 'cancels' | 'reduces' | 'noisy';
 
 /**
- * Each coil's hum weight m_i·h_i·B(x_i) for the load's field gradient:
- * B(x) = exp(γ·(x − x̄)), x_i the coil's centre (mean of its bass and treble
- * positions), x̄ the mean over the guitar's coils.
+ * The two ways the field can change along the strings: growing towards the
+ * neck (+1) or towards the bridge (−1). Which one a player meets depends on
+ * where the amplifier, transformer or lamp stands, which a guitar file does
+ * not say, so humDb is the worse of the two (`worseHumDb`): coils of unequal
+ * hum sensitivity can cancel deeply in one field only because the gradient
+ * happens to make up their mismatch, a rejection the player cannot count on.
  */
-export function humFieldWeights(guitar: Guitar, load: Pick<CircuitLoad, 'humGradientPerM'>): Float64Array {
+export const FIELD_DIRECTIONS: readonly (1 | -1)[] = Object.freeze([1, -1]);
+
+/**
+ * Each coil's hum weight m_i·h_i·B(x_i) for the load's field gradient:
+ * B(x) = exp(d·γ·(x − x̄)), x_i the coil's centre (mean of its bass and treble
+ * positions), x̄ the mean over the guitar's coils, d the field's direction
+ * (FIELD_DIRECTIONS; default +1, the field the renders' hum mix uses).
+ */
+export function humFieldWeights(guitar: Guitar, load: Pick<CircuitLoad, 'humGradientPerM'>, direction: 1 | -1 = 1): Float64Array {
   const centres = guitar.coils.map((coil: Coil) => (coil.positionBassM + coil.positionTrebleM) / 2);
   const mean = centres.reduce((sum, x) => sum + x, 0) / Math.max(1, centres.length);
-  return Float64Array.from(guitar.coils, (coil, c) => magnetSign(coil.magnet) * coil.humSensitivity * Math.exp(load.humGradientPerM * ((centres[c] as number) - mean)));
+  return Float64Array.from(guitar.coils, (coil, c) => magnetSign(coil.magnet) * coil.humSensitivity * Math.exp(direction * load.humGradientPerM * ((centres[c] as number) - mean)));
+}
+
+/** Hum weights and reference for each field direction (FIELD_DIRECTIONS order). */
+export interface HumFields {
+  readonly weights: readonly Float64Array[];
+  readonly references: readonly number[];
+}
+
+export function prepareHumFields(prepared: PreparedCircuit): HumFields {
+  return {
+    weights: FIELD_DIRECTIONS.map((direction) => humFieldWeights(prepared.guitar, prepared.load, direction)),
+    references: FIELD_DIRECTIONS.map((direction) => measureHumReference(prepared, direction)),
+  };
+}
+
+/**
+ * humDb of a wiring whose coils' transfers at the mains frequency are
+ * `transfers` (interleaved, T_i at 2i, 2i + 1, signs included): the worse
+ * (higher) of the two field directions, each against its own reference.
+ */
+export function worseHumDb(fields: HumFields, transfers: Float64Array): number {
+  let worst = -Infinity;
+  fields.weights.forEach((weights, d) => {
+    let re = 0;
+    let im = 0;
+    for (let c = 0; c < weights.length; c += 1) {
+      re += (weights[c] as number) * (transfers[2 * c] as number);
+      im += (weights[c] as number) * (transfers[2 * c + 1] as number);
+    }
+    worst = Math.max(worst, humDecibels(Math.hypot(re, im), fields.references[d] as number));
+  });
+  return worst;
 }
 
 /** |H| at grid index `index` of solved transfers, for hum weights from `humFieldWeights`. */
@@ -77,9 +120,9 @@ function summedHumAt(weights: Float64Array, transfers: readonly Float64Array[], 
 }
 
 /** |H(mains)| of a wiring per unit field (the load's mains frequency), solved exactly at that frequency. */
-export function measureHum(prepared: PreparedCircuit, network: Network): number {
+export function measureHum(prepared: PreparedCircuit, network: Network, direction: 1 | -1 = 1): number {
   const probe = fixedProbeAt(prepared, prepared.load.mainsHz);
-  return humMagnitudeAt(humFieldWeights(prepared.guitar, prepared.load), solveTransfers(probe, network, probeTransfers(prepared)), 0);
+  return humMagnitudeAt(humFieldWeights(prepared.guitar, prepared.load, direction), solveTransfers(probe, network, probeTransfers(prepared)), 0);
 }
 
 /**
@@ -89,9 +132,9 @@ export function measureHum(prepared: PreparedCircuit, network: Network): number 
  * (a guitar of two-lead humbuckers only), one coil's worth of hum through each
  * element: Σ_i |w_i·T_i| / (coils in it), averaged.
  */
-export function measureHumReference(prepared: PreparedCircuit): number {
+export function measureHumReference(prepared: PreparedCircuit, direction: 1 | -1 = 1): number {
   const probe = fixedProbeAt(prepared, prepared.load.mainsHz);
-  const weights = humFieldWeights(prepared.guitar, prepared.load);
+  const weights = humFieldWeights(prepared.guitar, prepared.load, direction);
   const buffers = probeTransfers(prepared);
   let sum = 0;
   let count = 0;
