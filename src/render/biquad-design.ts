@@ -63,13 +63,23 @@ export function webAudioQ(spec: BiquadSpec): number {
  */
 export function designBiquad(spec: BiquadSpec, sampleRateHz: number): BiquadCoefficients {
   const w0 = (2 * Math.PI * spec.frequencyHz) / sampleRateHz;
-  const cosW0 = Math.cos(w0);
   const sinW0 = Math.sin(w0);
-  const amplitude = 10 ** (spec.gainDb / COOKBOOK_GAIN_EXPONENT_DIVISOR);
+  return cookbookSection(spec.kind, Math.cos(w0), sinW0, 10 ** (spec.gainDb / COOKBOOK_GAIN_EXPONENT_DIVISOR), sinW0 / (2 * spec.q));
+}
+
+/**
+ * The cookbook's coefficients from w0's cosine and sine, the amplitude A and,
+ * for lowpass, highpass and peaking, α (the shelves take α = sin(w0)/2·√2,
+ * slope S = 1), each divided by a0. One arithmetic, in the order the
+ * W3C Web Audio API 1.0 §BiquadFilterNode gives it (the shelves' 2·α·√A as
+ * (2·α)·√A), for `designBiquad` and for the node's own values
+ * (biquad-filter.ts `designNodeBiquad`, which passes the node's rounded
+ * cos, sin, 10^x and its Q in dB).
+ */
+export function cookbookSection(kind: BiquadKind, cosW0: number, sinW0: number, amplitude: number, alpha: number): BiquadCoefficients {
   let b0: number, b1: number, b2: number, a0: number, a1: number, a2: number;
-  switch (spec.kind) {
-    case 'lowpass': {
-      const alpha = sinW0 / (2 * spec.q);
+  switch (kind) {
+    case 'lowpass':
       b0 = (1 - cosW0) / 2;
       b1 = 1 - cosW0;
       b2 = (1 - cosW0) / 2;
@@ -77,9 +87,7 @@ export function designBiquad(spec: BiquadSpec, sampleRateHz: number): BiquadCoef
       a1 = -2 * cosW0;
       a2 = 1 - alpha;
       break;
-    }
-    case 'highpass': {
-      const alpha = sinW0 / (2 * spec.q);
+    case 'highpass':
       b0 = (1 + cosW0) / 2;
       b1 = -(1 + cosW0);
       b2 = (1 + cosW0) / 2;
@@ -87,9 +95,7 @@ export function designBiquad(spec: BiquadSpec, sampleRateHz: number): BiquadCoef
       a1 = -2 * cosW0;
       a2 = 1 - alpha;
       break;
-    }
-    case 'peaking': {
-      const alpha = sinW0 / (2 * spec.q);
+    case 'peaking':
       b0 = 1 + alpha * amplitude;
       b1 = -2 * cosW0;
       b2 = 1 - alpha * amplitude;
@@ -97,15 +103,14 @@ export function designBiquad(spec: BiquadSpec, sampleRateHz: number): BiquadCoef
       a1 = -2 * cosW0;
       a2 = 1 - alpha / amplitude;
       break;
-    }
     case 'lowshelf':
     case 'highshelf': {
       // Slope S = 1: α = sin(w0)/2 · √((A + 1/A)(1/S − 1) + 2) = sin(w0)/√2.
-      const alpha = (sinW0 / 2) * Math.SQRT2;
-      const k = 2 * Math.sqrt(amplitude) * alpha;
+      const shelfAlpha = (sinW0 / 2) * Math.SQRT2;
+      const k = 2 * shelfAlpha * Math.sqrt(amplitude);
       const up = amplitude + 1;
       const down = amplitude - 1;
-      if (spec.kind === 'lowshelf') {
+      if (kind === 'lowshelf') {
         b0 = amplitude * (up - down * cosW0 + k);
         b1 = 2 * amplitude * (down - up * cosW0);
         b2 = amplitude * (up - down * cosW0 - k);

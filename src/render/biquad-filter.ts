@@ -27,7 +27,7 @@
  * the cookbook from the plain values); this file is the running filter.
  */
 import type { BiquadCoefficients, BiquadSpec } from './biquad-design.js';
-import { webAudioQ } from './biquad-design.js';
+import { cookbookSection, webAudioQ } from './biquad-design.js';
 import { roundedCosSin, roundedPow10 } from './correctly-rounded.js';
 import { FLOAT32_MIN_NORMAL, flushFloat32, flushFloat64 } from './float32-audio.js';
 
@@ -57,65 +57,10 @@ function computeNodeBiquad(spec: BiquadSpec, sampleRateHz: number): BiquadCoeffi
   const fs = Math.fround(sampleRateHz);
   const w0 = (2 * Math.PI * f0) / fs;
   const { cos: cosW0, sin: sinW0 } = roundedCosSin(w0);
-  let b0: number, b1: number, b2: number, a0: number, a1: number, a2: number;
-  switch (spec.kind) {
-    case 'lowpass': {
-      const alpha = sinW0 / (2 * roundedPow10(q / Q_DB_PER_DECADE));
-      b0 = (1 - cosW0) / 2;
-      b1 = 1 - cosW0;
-      b2 = (1 - cosW0) / 2;
-      a0 = 1 + alpha;
-      a1 = -2 * cosW0;
-      a2 = 1 - alpha;
-      break;
-    }
-    case 'highpass': {
-      const alpha = sinW0 / (2 * roundedPow10(q / Q_DB_PER_DECADE));
-      b0 = (1 + cosW0) / 2;
-      b1 = -1 * (1 + cosW0);
-      b2 = (1 + cosW0) / 2;
-      a0 = 1 + alpha;
-      a1 = -2 * cosW0;
-      a2 = 1 - alpha;
-      break;
-    }
-    case 'peaking': {
-      const amplitude = roundedPow10(gainDb / GAIN_DB_EXPONENT_DIVISOR);
-      const alpha = sinW0 / (2 * q);
-      b0 = 1 + alpha * amplitude;
-      b1 = -2 * cosW0;
-      b2 = 1 - alpha * amplitude;
-      a0 = 1 + alpha / amplitude;
-      a1 = -2 * cosW0;
-      a2 = 1 - alpha / amplitude;
-      break;
-    }
-    case 'lowshelf':
-    case 'highshelf': {
-      const amplitude = roundedPow10(gainDb / GAIN_DB_EXPONENT_DIVISOR);
-      const alpha = (sinW0 / 2) * Math.SQRT2; // slope S = 1
-      const k = 2 * alpha * Math.sqrt(amplitude);
-      const up = amplitude + 1;
-      const down = amplitude - 1;
-      if (spec.kind === 'lowshelf') {
-        b0 = amplitude * (up - down * cosW0 + k);
-        b1 = 2 * amplitude * (down - up * cosW0);
-        b2 = amplitude * (up - down * cosW0 - k);
-        a0 = up + down * cosW0 + k;
-        a1 = -2 * (down + up * cosW0);
-        a2 = up + down * cosW0 - k;
-      } else {
-        b0 = amplitude * (up + down * cosW0 + k);
-        b1 = -2 * amplitude * (down + up * cosW0);
-        b2 = amplitude * (up + down * cosW0 - k);
-        a0 = up - down * cosW0 + k;
-        a1 = 2 * (down - up * cosW0);
-        a2 = up - down * cosW0 - k;
-      }
-      break;
-    }
-  }
-  return Object.freeze({ b0: b0 / a0, b1: b1 / a0, b2: b2 / a0, a1: a1 / a0, a2: a2 / a0 });
+  // α_QdB for lowpass and highpass (their Q in dB), α_Q for peaking; the shelves make their own.
+  const qInDb = spec.kind === 'lowpass' || spec.kind === 'highpass';
+  const alpha = sinW0 / (2 * (qInDb ? roundedPow10(q / Q_DB_PER_DECADE) : q));
+  return Object.freeze(cookbookSection(spec.kind, cosW0, sinW0, roundedPow10(gainDb / GAIN_DB_EXPONENT_DIVISOR), alpha));
 }
 
 /**
