@@ -8,7 +8,8 @@
  *   engine made) and the list of every wiring built after it;
  * - choose a wiring or move a knob to hearing it: the page's own path to
  *   the new sound (synthesis, chain, loudness for level matching, audio
- *   buffer; `coilbenchPage.prepare`), median
+ *   buffer; `coilbenchPage.prepare`), timed once the page has warmed up in
+ *   its idle time after the first sound (the `coilbench-warm` mark), median
  *   and 95th percentile over 30 changes, each to a wiring or knob value not
  *   heard before; the player then starts it SCHEDULE_AHEAD_S (20 ms) ahead
  *   of the audio clock, which is added to the figures. The page's audio
@@ -81,6 +82,8 @@ export async function benchListeningPage(): Promise<void> {
       writeFileSync(join(folder, 'index.html'), html);
       const { page } = await openFolderPage(browser, folder);
       await page.waitForFunction(() => 'coilbenchPage' in window, undefined, { timeout: 120_000 });
+      // The changes are timed once the page has warmed up in its idle time (warm-up.ts), as a listener finds it a moment after the first sound.
+      await page.waitForFunction(() => performance.getEntriesByName('coilbench-warm').length > 0, undefined, { timeout: 120_000 });
       const marks = await page.evaluate(() =>
         Object.fromEntries(['coilbench-data', 'coilbench-engine', 'coilbench-first-sound', 'coilbench-list'].map((name) => [name, performance.getEntriesByName(name)[0]?.startTime ?? Number.NaN])),
       );

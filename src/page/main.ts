@@ -7,7 +7,7 @@
  * guitar file reaches the document through textContent or attributes.
  */
 import { measureCentroid } from '../analysis/index.js';
-import { encodeWav } from '../render/portable/index.js';
+import { type ChainName, CHAIN_NAMES, encodeWav } from '../render/portable/index.js';
 import { type Wiring, enumerateWirings, makeWiring, parseWiring, printNetwork, canonicalize, vocabularyOf } from '../wiring/index.js';
 import { createBlindTest } from './blind-test.js';
 import { RENDERS_KEPT, createRenderCache } from './render-cache.js';
@@ -21,6 +21,7 @@ import { createResponsePlot } from './response-plot.js';
 import { responseCurve } from './response-curve.js';
 import { type Knobs, type RenderedWiring, createWiringEngine, overridesOf, guitarWithKnobs, renderKey } from './wiring-engine.js';
 import { type ListRow, type WiringList, createWiringList } from './wiring-list.js';
+import { warmUpWirings } from './warm-up.js';
 import { type PageWiringFigures, type WiringFigures, decodeWiringFigures } from './wiring-figures.js';
 
 
@@ -383,12 +384,45 @@ void openingRender
       byId<HTMLButtonElement>('transport-play').disabled = false;
       exposeTestView();
       performance.mark('coilbench-ready');
-      // The coils the first sound did not need get their spectra now, not at the first wiring that uses them.
-      setTimeout(() => engine.prepareSpectra(), 0);
+      warmUp();
     };
     if (document.readyState === 'loading') document.addEventListener('DOMContentLoaded', () => setTimeout(finish, 0), { once: true });
     else setTimeout(finish, 0);
   });
+
+/** Run `work` when the page is idle (the browser's idle callback where it has one). */
+function whenIdle(work: () => void): void {
+  if ('requestIdleCallback' in window) requestIdleCallback(() => work());
+  else setTimeout(work, 0);
+}
+
+/**
+ * After the list is built, one step per idle period: the spectra of the coils the first sound did not need (not at
+ * the first wiring that uses them), then the warm-up renders (warm-up.ts) at the knobs of the moment and through
+ * every chain, into the cache (a render already there costs nothing).
+ * Marks `coilbench-warm` when done.
+ */
+function warmUp(): void {
+  const warm = warmUpWirings(guitar, wirings);
+  // Each warm-up wiring at the knobs of the moment, then the first through every other chain.
+  const queue: Array<{ wiring: Wiring; chain: ChainName | null }> = warm.map((wiring) => ({ wiring, chain: null }));
+  const first = warm[0];
+  if (first) for (const chain of CHAIN_NAMES) queue.push({ wiring: first, chain });
+  const next = (): void => {
+    const step = queue.shift();
+    if (!step) {
+      performance.mark('coilbench-warm');
+      return;
+    }
+    void renderOf(step.wiring, step.chain === null ? knobs : { ...knobs, chain: step.chain })
+      .catch(() => undefined) // a failed render is shown when the wiring is chosen, not here
+      .finally(() => whenIdle(next));
+  };
+  whenIdle(() => {
+    engine.prepareSpectra();
+    whenIdle(next);
+  });
+}
 
 /** Float32 samples as base64 (the page's own coil-signal codec), for tests that compare hosts. */
 function samplesToBase64(samples: Float32Array): string {
