@@ -93,8 +93,19 @@ export function elementCouplingGroups(guitar: Guitar): Int32Array {
   return groups;
 }
 
+/** Answers already found, by network (a solver asks again for every frequency probe of a wiring). */
+const coupledAnswers = new WeakMap<Network, { readonly guitar: Guitar; readonly uses: boolean }>();
+
 /** Does the network hold both coils of a coupled pair (so only nodal analysis solves it)? */
 export function usesCoupledCoils(guitar: Guitar, network: Network): boolean {
+  const known = coupledAnswers.get(network);
+  if (known !== undefined && known.guitar === guitar) return known.uses;
+  const uses = findCoupledCoils(guitar, network);
+  coupledAnswers.set(network, { guitar, uses });
+  return uses;
+}
+
+function findCoupledCoils(guitar: Guitar, network: Network): boolean {
   const couplings = coilCouplings(guitar);
   if (couplings.length === 0) return false;
   const present = new Uint8Array(guitar.coils.length);

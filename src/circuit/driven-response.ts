@@ -104,6 +104,27 @@ export function solveGraphDrivenResponse(
   return drivenResponseOf(prepared, drive, inputs, { phases, transfers, solveAt: (probe, out) => solveNodalTransfers(probe, graph, out) });
 }
 
+/** |D| per pair of `d` from `offset` (`width` numbers, interleaved complex) into `out` from `outOffset`, imaginary parts 0. */
+function magnitudesOf(d: Float64Array, offset: number, width: number, out: Float64Array, outOffset: number): void {
+  for (let p = 0; p < width; p += 2) {
+    out[outOffset + p] = Math.hypot(d[offset + p] as number, d[offset + p + 1] as number);
+    out[outOffset + p + 1] = 0;
+  }
+}
+
+/** |D| of a sampled drive at every grid point, computed once per sampled drive (every wiring on the grid shares it). */
+const sampledMagnitudeCache = new WeakMap<Float64Array, Float64Array>();
+
+function magnitudesOfSampled(sampled: Float64Array, width: number): Float64Array {
+  let known = sampledMagnitudeCache.get(sampled);
+  if (known === undefined) {
+    known = new Float64Array(sampled.length);
+    for (let offset = 0; offset < sampled.length; offset += width) magnitudesOf(sampled, offset, width, known, offset);
+    sampledMagnitudeCache.set(sampled, known);
+  }
+  return known;
+}
+
 function drivenResponseOf(prepared: PreparedCircuit, drive: CoilDrive, inputs: DrivenResponseInputs, source: TransferSource): DrivenResponse {
   const coilCount = prepared.guitar.coils.length;
   if (drive.coilCount !== coilCount) throw new RangeError(`solveDrivenResponse: the drive has ${drive.coilCount} coils, the guitar ${coilCount}`);
@@ -118,18 +139,20 @@ function drivenResponseOf(prepared: PreparedCircuit, drive: CoilDrive, inputs: D
   const driveHere = new Float64Array(width);
   const magnitudes = new Float64Array(width);
   let referenceCancelled = false;
-  const denominator = (d: Float64Array, offset: number): number => {
+  // The denominator at D (`d` from `offset`), |D| per pair given (`absolute` from `absoluteOffset`) for the cancellation test.
+  const denominatorWith = (d: Float64Array, offset: number, absolute: Float64Array, absoluteOffset: number): number => {
     const value = drivenPowerAt(reference, 0, phases, d, offset);
-    for (let p = 0; p < width; p += 2) {
-      magnitudes[p] = Math.hypot(d[offset + p] as number, d[offset + p + 1] as number);
-      magnitudes[p + 1] = 0;
-    }
-    if (!(value > REFERENCE_CANCELLED_FRACTION * drivenPowerAt(referenceAbsolute, 0, used, magnitudes, 0))) referenceCancelled = true;
+    if (!(value > REFERENCE_CANCELLED_FRACTION * drivenPowerAt(referenceAbsolute, 0, used, absolute, absoluteOffset))) referenceCancelled = true;
     return value;
   };
+  const denominator = (d: Float64Array, offset: number): number => {
+    magnitudesOf(d, offset, width, magnitudes, 0);
+    return denominatorWith(d, offset, magnitudes, 0);
+  };
+  const sampledMagnitudes = magnitudesOfSampled(sampled, width);
   const values = new Float64Array(grid.length);
   for (let k = 0; k < grid.length; k += 1) {
-    const below = denominator(sampled, k * width);
+    const below = denominatorWith(sampled, k * width, sampledMagnitudes, k * width);
     values[k] = below > 0 ? Math.sqrt(drivenPowerAt(transfers, k, phases, sampled, k * width) / below) : 0;
   }
   if (referenceCancelled) values.fill(0);

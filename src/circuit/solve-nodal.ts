@@ -500,7 +500,8 @@ function solvePlan(prepared: PreparedCircuit, plan: NodalPlan, withLoad: boolean
   const n = plan.unknowns;
   const workspace = blockWorkspace(n, plan.coils.length);
   const output = withLoad ? plan.out : plan.hot;
-  const stride = BLOCK_BINS;
+  // A grid smaller than a block (the one-frequency probes) is one block of its own size: nothing to clear beyond it.
+  const stride = Math.min(BLOCK_BINS, bins);
   for (let first = 0; first < bins; first += stride) {
     const length = Math.min(stride, bins - first);
     const { matrix, rhs } = workspace;
@@ -647,7 +648,15 @@ function invertTwoRuns(group: CouplingGroup, branch: Float64Array, values: Float
   const mutual = group.mutualH[1] as number;
   const one = realAt(group.members[0] as number, stride);
   const two = realAt(group.members[1] as number, stride);
-  const [aR, aI, bR, bI, cR, cI, dR, dI] = [0, 1, 2, 3].flatMap((e) => [realAt(e, stride), imagAt(e, stride)]) as [number, number, number, number, number, number, number, number];
+  // Entries (0,0), (0,1), (1,0), (1,1) of Y_g.
+  const aR = realAt(0, stride);
+  const aI = imagAt(0, stride);
+  const bR = realAt(1, stride);
+  const bI = imagAt(1, stride);
+  const cR = realAt(2, stride);
+  const cI = imagAt(2, stride);
+  const dR = realAt(3, stride);
+  const dI = imagAt(3, stride);
   for (let b = 0; b < length; b += 1) {
     const mi = TWO_PI * (frequencies[first + b] as number) * mutual; // m = j·mi
     const y1r = branch[one + b] as number;
