@@ -80,11 +80,13 @@ export function coilDriveAt(drive: CoilDrive, frequencyHz: number, out: Float64A
   const h11 = t3 - t2;
   const before = Math.max(0, low - 1);
   const after = Math.min(last, low + 2);
+  const spanBefore = x1 - x(before);
+  const spanAfter = x(after) - x0;
   for (let p = 0; p < width; p += 1) {
     const d0 = cross[low * width + p] as number;
     const d1 = cross[(low + 1) * width + p] as number;
-    const m0 = ((d1 - (cross[before * width + p] as number)) / (x1 - x(before))) * dx;
-    const m1 = (((cross[after * width + p] as number) - d0) / (x(after) - x0)) * dx;
+    const m0 = ((d1 - (cross[before * width + p] as number)) / spanBefore) * dx;
+    const m1 = (((cross[after * width + p] as number) - d0) / spanAfter) * dx;
     out[p] = h00 * d0 + h10 * m0 + h01 * d1 + h11 * m1;
   }
   return out;

@@ -42,7 +42,7 @@ import { runRenderPassOnThreads } from './run-render-pass.js';
 import { defaultThreadCount } from './worker-threads.js';
 import { type OutputFolder, netlistFileName, wavFileName } from './output-folder.js';
 import { gainToDb, planMatchedGains, planTrueLevelGain } from './plan-gains.js';
-import { MANIFEST_VERSION, type Manifest, hashOf, readManifest } from './render-manifest.js';
+import { MANIFEST_VERSION, type Manifest, hashOf, hashWithShared, readManifest } from './render-manifest.js';
 import { type WavFormat, encodeWav } from './wav-file.js';
 import { createDeferredSync, removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
 import { writeJsonFileAtomicSync } from './write-json-file.js';
@@ -194,19 +194,19 @@ async function renderWith(request: RenderRequest, events: RenderEvents, analysis
 
   const sound = soundOf(guitar);
   const base = { model: RENDER_MODEL_VERSION, sound, overrides: request.overrides };
-  const metricsHashOf = (wiring: Wiring): string =>
-    hashOf({ ...base, expression: wiring.expression, phrase: REFERENCE_PHRASE, rate: REFERENCE_SAMPLE_RATE_HZ, seed: REFERENCE_SEED, tail: RENDER_TAIL_S, figures: REFERENCE_FIGURES_VERSION });
-  const audioHashOf = (wiring: Wiring): string =>
-    hashOf({
-      ...base,
-      expression: wiring.expression,
-      phrase: request.phrase.notes,
-      chain: request.chain,
-      rate: request.sampleRateHz,
-      seed: request.seed,
-      hum: request.hum,
-      tail: RENDER_TAIL_S,
-    });
+  // Every field but the expression is the same for every wiring: its JSON is made once (hashWithShared).
+  const metricsHash = hashWithShared({ ...base, phrase: REFERENCE_PHRASE, rate: REFERENCE_SAMPLE_RATE_HZ, seed: REFERENCE_SEED, tail: RENDER_TAIL_S, figures: REFERENCE_FIGURES_VERSION });
+  const metricsHashOf = (wiring: Wiring): string => metricsHash({ expression: wiring.expression });
+  const audioHash = hashWithShared({
+    ...base,
+    phrase: request.phrase.notes,
+    chain: request.chain,
+    rate: request.sampleRateHz,
+    seed: request.seed,
+    hum: request.hum,
+    tail: RENDER_TAIL_S,
+  });
+  const audioHashOf = (wiring: Wiring): string => audioHash({ expression: wiring.expression });
 
   // The strings of the reference phrase, rendered once: the figures, the reference synthesis, the analysis and the page all use them.
   const basis = measureSpectralBasis(guitar);

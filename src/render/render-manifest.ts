@@ -15,6 +15,27 @@ export function hashOf(value: unknown): string {
   return createHash('sha256').update(stableJson(value)).digest('hex');
 }
 
+/**
+ * hashOf({ ...shared, ...own }) for many `own` objects that share the same
+ * `shared` fields (a render's guitar, settings and model version): the
+ * shared fields' JSON is made once, and each call assembles the same text
+ * hashOf would hash, keys in order. `own` must not repeat a shared key.
+ */
+export function hashWithShared(shared: Record<string, unknown>): (own: Record<string, unknown>) => string {
+  const sharedJson = new Map<string, string>();
+  for (const [key, value] of Object.entries(shared)) if (value !== undefined) sharedJson.set(key, stableJson(value));
+  return (own) => {
+    const parts = new Map(sharedJson);
+    for (const [key, value] of Object.entries(own)) {
+      if (sharedJson.has(key)) throw new RangeError(`hashWithShared: ${key} is a shared field`);
+      if (value !== undefined) parts.set(key, stableJson(value));
+    }
+    const keys = [...parts.keys()].sort((a, b) => (a < b ? -1 : a > b ? 1 : 0));
+    const text = `{${keys.map((key) => `${JSON.stringify(key)}:${parts.get(key) as string}`).join(',')}}`;
+    return createHash('sha256').update(text).digest('hex');
+  };
+}
+
 function stableJson(value: unknown): string {
   if (Array.isArray(value)) return `[${value.map(stableJson).join(',')}]`;
   if (value !== null && typeof value === 'object') {
