@@ -162,6 +162,27 @@ describe.skipIf(!RUN_BROWSER_TESTS)('the listening page in chromium: one engine,
     }
   });
 
+  it('the drive chain rendered in parts at once gives the single render\'s samples, bit for bit', async () => {
+    // Every eighth wiring, and through the compressed chain too (no graph part: the parts must not change it either).
+    const picks = expressions.filter((_, index) => index % 8 === 0);
+    for (const chain of ['drive', 'compressed'] as ChainName[]) {
+      const [whole, halves, thirds] = await three.page.evaluate(
+        async ({ list, chain }) => {
+          const view = (window as unknown as { coilbenchPage: { chainInParts(expression: string, chain: string, parts: number): Promise<string> } }).coilbenchPage;
+          const all = async (parts: number): Promise<string[]> => {
+            const out: string[] = [];
+            for (const expression of list) out.push(await view.chainInParts(expression, chain, parts));
+            return out;
+          };
+          return [await all(1), await all(2), await all(3)];
+        },
+        { list: picks, chain },
+      );
+      expect(halves).toEqual(whole);
+      expect(thirds).toEqual(whole);
+    }
+  });
+
   it('knobs (volume, tone, tone capacitor, cable) match the Node render with the same what-ifs', async () => {
     const changes: Partial<Knobs> = { volumeSetting: 6, toneSetting: 3, toneCapacitorF: 47e-9, cableCapacitanceF: 1.2e-9 };
     const rendered = await renderInPage(three, expressions, changes);

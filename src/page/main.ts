@@ -19,7 +19,7 @@ import { type Playable, createPlayer } from './player.js';
 import { TICK_MS, byId, connectTransport } from './transport-bar.js';
 import { createResponsePlot } from './response-plot.js';
 import { responseCurve } from './response-curve.js';
-import { type Knobs, type RenderedWiring, createWiringEngine, overridesOf, guitarWithKnobs, renderKey } from './wiring-engine.js';
+import { type Knobs, type RenderedWiring, createWiringEngine, overridesOf, guitarWithKnobs, renderChainInBrowser, renderKey } from './wiring-engine.js';
 import { type ListRow, type WiringList, createWiringList } from './wiring-list.js';
 import { warmUpWirings } from './warm-up.js';
 import { type PageWiringFigures, type WiringFigures, decodeWiringFigures } from './wiring-figures.js';
@@ -462,6 +462,11 @@ function exposeTestView(): void {
       const render = await renderOf(wiring, { ...engine.renderKnobs, ...changes });
       playableOf(render);
       return render.loudnessLufs;
+    },
+    /** `expression` at the render's knobs through `chain`, its graph rendered in `parts` parts (base64 float32): for the check that parts join exactly. */
+    async chainInParts(expression: string, chain: ChainName, parts: number): Promise<string> {
+      const network = canonicalize(parseWiring(expression, vocabulary, 'expression'));
+      return samplesToBase64(await renderChainInBrowser(engine.synthesize(network, engine.renderKnobs), engine.sampleRateHz, chain, parts));
     },
     /** The direct signal of `expression` at the render's knobs (base64 float32): the synthesis alone, for the cross-host checks. */
     direct(expression: string): string {

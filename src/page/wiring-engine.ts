@@ -24,6 +24,7 @@ import {
   designEffectsChain,
   resolveChainOptions,
   runChainDesign,
+  RENDER_QUANTUM_FRAMES,
 } from '../render/portable/index.js';
 import type { Network } from '../wiring/index.js';
 import { type PageCoilSignals, type PageSound, decodeSignal } from './page-data.js';
@@ -179,12 +180,45 @@ export function createWiringEngine(data: PageSound): WiringEngine {
 }
 
 /**
+ * Parts the page splits a chain's graph render into (the drive chain's
+ * clipper): each part renders in an OfflineAudioContext of its own, and a
+ * browser renders each offline context on a thread of its own, so the parts
+ * render at once on a machine of two cores or more.
+ */
+export const GRAPH_PARTS = 2;
+
+/**
+ * Frames of input a part after the first is given before its own, their
+ * output dropped: a whole number of render quanta, so that every part's
+ * quanta fall where the single render's do, and far more than the clipper
+ * remembers (its oversampler's filters span a few hundred frames; the graph
+ * stages are otherwise memoryless). The browser test checks that the parts
+ * give the single render's samples, bit for bit.
+ */
+export const PART_LEAD_IN_FRAMES = 16 * RENDER_QUANTUM_FRAMES;
+
+/**
  * Run `samples` through a chain, the node render's way (render-chain-design.ts,
  * run-chain-design.ts): the gains, biquads and compressor in our own code,
- * the clipper in the browser's OfflineAudioContext.
+ * the clipper in the browser's OfflineAudioContext, in `parts` parts at once.
  */
-export function renderChainInBrowser(samples: Float32Array, sampleRateHz: number, chain: ChainName): Promise<Float32Array> {
-  return runChainDesign(samples, designEffectsChain(chain, resolveChainOptions({}), sampleRateHz), renderGraphInBrowser);
+export function renderChainInBrowser(samples: Float32Array, sampleRateHz: number, chain: ChainName, parts = GRAPH_PARTS): Promise<Float32Array> {
+  return runChainDesign(samples, designEffectsChain(chain, resolveChainOptions({}), sampleRateHz), (input, design) => renderGraphInParts(input, design, parts));
+}
+
+/** The graph render of `samples` cut into `parts` spans of whole render quanta, each given its lead-in, rendered at once and joined. */
+async function renderGraphInParts(samples: Float32Array, design: ChainDesign, parts: number): Promise<Float32Array> {
+  const frames = samples.length;
+  const span = Math.ceil(frames / Math.max(1, parts) / RENDER_QUANTUM_FRAMES) * RENDER_QUANTUM_FRAMES;
+  if (parts <= 1 || span <= PART_LEAD_IN_FRAMES) return renderGraphInBrowser(samples, design);
+  const starts: number[] = [];
+  for (let start = 0; start < frames; start += span) starts.push(start);
+  const rendered = await Promise.all(
+    starts.map((start, part) => renderGraphInBrowser(samples.subarray(part === 0 ? 0 : start - PART_LEAD_IN_FRAMES, Math.min(frames, start + span)), design)),
+  );
+  const output = new Float32Array(frames);
+  starts.forEach((start, part) => output.set((rendered[part] as Float32Array).subarray(part === 0 ? 0 : PART_LEAD_IN_FRAMES), start));
+  return output;
 }
 
 /** A design whose stages are all Web Audio nodes, played as given in the browser's OfflineAudioContext (as many frames out, the delay kept). */

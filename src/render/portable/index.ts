@@ -4,7 +4,7 @@
  * Web Audio graph, WAV encoding. None imports a Node module, so the page's
  * bundle takes them as they are (render/index.ts also re-exports the I/O).
  */
-export { designEffectsChain } from '../chain-design.js';
+export { designEffectsChain, RENDER_QUANTUM_FRAMES } from '../chain-design.js';
 export type { ChainDesign, ChainStage } from '../chain-design.js';
 export { CHAIN_NAMES, isChainName, describeChain } from '../chain-name.js';
 export type { ChainName } from '../chain-name.js';
