@@ -42,7 +42,7 @@ const CLI_SOURCE = join(REPOSITORY, 'src', 'cli.ts');
 const BUNDLE_FOLDER = join(REPOSITORY, 'test-output', `kill-cli-${process.pid}`);
 const BUNDLE = join(BUNDLE_FOLDER, 'cli.mjs');
 /** Worker entries the CLI starts beside its own file (src/render), bundled the same way. */
-const WORKER_SOURCES = ['render-analysis-worker', 'render-worker', 'figures-worker'].map((name) => join(REPOSITORY, 'src', 'render', `${name}.ts`));
+const WORKER_SOURCES = ['render-analysis-worker', 'render-worker', 'figures-worker', 'encode-worker'].map((name) => join(REPOSITORY, 'src', 'render', `${name}.ts`));
 /** The render under test: all 47 wirings, through the fastest chain. */
 const RENDER_OPTIONS = ['--chain', 'direct'];
 const TIMEOUT_MS = 600_000;

@@ -43,7 +43,9 @@ import { defaultThreadCount } from './worker-threads.js';
 import { type OutputFolder, netlistFileName, wavFileName } from './output-folder.js';
 import { gainToDb, planMatchedGains, planTrueLevelGain } from './plan-gains.js';
 import { MANIFEST_VERSION, type Manifest, hashOf, hashWithShared, readManifest } from './render-manifest.js';
-import { type WavFormat, encodeWav } from './wav-file.js';
+import type { WavFormat } from './wav-file.js';
+import { type EncodedWav, encodeFinalWav } from './encode-final-wav.js';
+import { ENCODE_THREAD_IN_FLIGHT, encodeThreadPays, startEncodeThread } from './encode-thread.js';
 import { createDeferredSync, removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
 import { writeJsonFileAtomicSync } from './write-json-file.js';
 import { activeScratchFolders } from './scratch-folders.js';
@@ -305,11 +307,14 @@ async function renderWith(request: RenderRequest, events: RenderEvents, analysis
     matchedLoudnessLufs = Number.isFinite(planned.targetLufs) ? planned.targetLufs : null;
   }
 
-  // Pass 2: final files.
+  // Pass 2: final files. With many files a second thread encodes some of them (encode-thread.ts) while this one
+  // encodes and writes the others: the bytes are the same from either thread, and only this thread writes files.
   const writes = createWriteQueue(MAX_PENDING_WRITES);
   events.onStage?.('writing', selected.length);
   let written = 0;
   let skipped = 0;
+  const encoder = request.writeWav !== false && encodeThreadPays(selected.length) ? startEncodeThread() : null;
+  const handedOver: Promise<void>[] = [];
   try {
     for (const [index, wiring] of selected.entries()) {
       const entry = entries[wiring.expression] as Entry;
@@ -326,8 +331,7 @@ async function renderWith(request: RenderRequest, events: RenderEvents, analysis
         const held = inMemory.get(wiring.id);
         inMemory.delete(wiring.id);
         const audio = held ?? (parked ? readScratch(parked) : await processedAudio(wiring));
-        for (let n = 0; n < audio.length; n += 1) audio[n] = (audio[n] as number) * gain;
-        const bytes = encodeWav(audio, {
+        const options = {
           sampleRateHz: request.sampleRateHz,
           format: request.format,
           info: {
@@ -335,23 +339,35 @@ async function renderWith(request: RenderRequest, events: RenderEvents, analysis
             comment: `${wiring.description}; phrase ${request.phrase.name}; ${request.chain} chain; ${request.level === 'true' ? 'true relative level' : 'loudness matched'}`,
             software: request.generator,
           },
-        });
+        };
         // Written in the background while the next wiring is prepared; the manifest records a file only once it is whole.
-        await writes.add(async () => {
-          await writeFileAtomic(path, bytes, deferred);
-          Object.assign(entry, { fileHash, file: name, written: { wav: recordOf(bytes) } });
-        });
+        const write = (encoded: EncodedWav): Promise<void> =>
+          writes.add(async () => {
+            await writeFileAtomic(path, encoded.bytes, deferred);
+            Object.assign(entry, { fileHash, file: name, written: { wav: encoded.record } });
+          });
+        if (encoder !== null && encoder.inFlight() < ENCODE_THREAD_IN_FLIGHT) {
+          const done = encoder.encode(audio, gain, options).then(write);
+          done.catch(() => undefined); // awaited below (so not reported as unhandled meanwhile)
+          handedOver.push(done);
+        } else {
+          await write(encodeFinalWav(audio, gain, options));
+        }
         await saveManifest(false);
         written += 1;
       }
       events.onStep?.(index + 1, selected.length);
     }
+    await Promise.all(handedOver);
   } catch (error) {
     // Keep the record of every file already whole, so a re-run skips them and finishes the rest.
+    await Promise.allSettled(handedOver);
     await writes.drain().catch(() => undefined);
     await saveManifest();
     await deferred.flush();
     throw error;
+  } finally {
+    await encoder?.close();
   }
   await writes.drain();
   await saveManifest();

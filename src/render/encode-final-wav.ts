@@ -1,0 +1,20 @@
+/**
+ * One final WAV file of a render's second pass, from its audio: the samples
+ * times the file's gain (in place), the WAV bytes (wav-file.ts) and their
+ * record (file-record.ts). The same function runs on the render's own thread
+ * and on the encoding thread (encode-thread.ts), so a file's bytes do not
+ * depend on which thread made them.
+ */
+import { type FileRecord, recordOf } from './file-record.js';
+import { type WavOptions, encodeWav } from './wav-file.js';
+
+export interface EncodedWav {
+  readonly bytes: Uint8Array;
+  readonly record: FileRecord;
+}
+
+export function encodeFinalWav(audio: Float32Array, gain: number, options: Partial<WavOptions>): EncodedWav {
+  for (let n = 0; n < audio.length; n += 1) audio[n] = (audio[n] as number) * gain;
+  const bytes = encodeWav(audio, options);
+  return { bytes, record: recordOf(bytes) };
+}

@@ -1,0 +1,26 @@
+/**
+ * Worker-thread entry that encodes final WAV files for a render's second pass
+ * (encode-thread.ts): each message is one file's audio, gain and WAV
+ * options; the answer is its bytes and record (encode-final-wav.ts), or the
+ * error as data so the parent can rethrow it with its class. It writes
+ * nothing: the render's own thread writes every file, so the interrupt
+ * handler knows every temporary file as before. Load it only as a thread's
+ * entry.
+ */
+import { parentPort } from 'node:worker_threads';
+import { InputError } from '../errors/index.js';
+import { encodeFinalWav } from './encode-final-wav.js';
+import type { EncodeAnswer, EncodeRequest } from './encode-thread.js';
+
+const port = parentPort;
+if (port) {
+  port.on('message', (request: EncodeRequest) => {
+    try {
+      const { bytes, record } = encodeFinalWav(request.audio, request.gain, request.options);
+      port.postMessage({ id: request.id, kind: 'done', bytes, record } satisfies EncodeAnswer, [bytes.buffer as ArrayBuffer]);
+    } catch (error) {
+      const message = error instanceof Error ? error.message : String(error);
+      port.postMessage({ id: request.id, kind: 'failed', message, ...(error instanceof InputError ? { problems: error.problems } : {}) } satisfies EncodeAnswer);
+    }
+  });
+}
