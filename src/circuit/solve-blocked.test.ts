@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { createBlockScratch, eliminationPattern, imagAt, realAt, solveBlock } from './solve-blocked.js';
+import { createBlockScratch, eliminationPattern, eliminationSteps, imagAt, realAt, solveBlock } from './solve-blocked.js';
 
 /** A small deterministic generator (a linear congruential generator, Numerical Recipes' constants), so the systems are the same on every run. */
 function generator(seed: number): () => number {
@@ -78,7 +78,7 @@ describe('solveBlock', () => {
       const dense = new Uint8Array(n * n).fill(1);
       for (const susceptance of [0.1, 10, 1000]) {
         const { matrix, rhs, x } = systems(n, dense, length, stride, susceptance, 7 * n + susceptance);
-        solveBlock(matrix, rhs, n, eliminationPattern(dense, n), length, stride, createBlockScratch(n, stride));
+        solveBlock(matrix, rhs, eliminationSteps(eliminationPattern(dense, n), n), length, stride, createBlockScratch(n, stride));
         expect(worstError(rhs, x, n, length, stride)).toBeLessThan(1e-11);
       }
     }
@@ -104,7 +104,7 @@ describe('solveBlock', () => {
     const stride = 8;
     // With the hub first, every entry fills in: they start at 0 (the caller zeroes the block) and the solve computes them.
     const hubFirst = systems(n, reversed, stride, stride, 5, 3);
-    solveBlock(hubFirst.matrix, hubFirst.rhs, n, eliminationPattern(reversed, n), stride, stride, createBlockScratch(n, stride));
+    solveBlock(hubFirst.matrix, hubFirst.rhs, eliminationSteps(eliminationPattern(reversed, n), n), stride, stride, createBlockScratch(n, stride));
     expect(worstError(hubFirst.rhs, hubFirst.x, n, stride, stride)).toBeLessThan(1e-12);
     // With the spokes first nothing fills in, so entries outside the pattern may hold anything: the solve does not read them.
     const spokesFirst = systems(n, arrow, stride, stride, 5, 4);
@@ -113,7 +113,7 @@ describe('solveBlock', () => {
         if (r !== c) spokesFirst.matrix.fill(Number.NaN, realAt(r * n + c, stride), realAt(r * n + c, stride) + 2 * stride);
       }
     }
-    solveBlock(spokesFirst.matrix, spokesFirst.rhs, n, eliminationPattern(arrow, n), stride, stride, createBlockScratch(n, stride));
+    solveBlock(spokesFirst.matrix, spokesFirst.rhs, eliminationSteps(eliminationPattern(arrow, n), n), stride, stride, createBlockScratch(n, stride));
     expect(worstError(spokesFirst.rhs, spokesFirst.x, n, stride, stride)).toBeLessThan(1e-12);
   });
 
@@ -125,6 +125,6 @@ describe('solveBlock', () => {
     matrix[realAt(1, stride)] = 1; // A = [0 1; 1 0] at bin 0: a matrix outside the nodal class
     matrix[realAt(2, stride)] = 1;
     const rhs = new Float64Array(2 * n * stride);
-    expect(() => solveBlock(matrix, rhs, n, eliminationPattern(dense, n), 1, stride, createBlockScratch(n, stride))).toThrow(/singular/);
+    expect(() => solveBlock(matrix, rhs, eliminationSteps(eliminationPattern(dense, n), n), 1, stride, createBlockScratch(n, stride))).toThrow(/singular/);
   });
 });

@@ -46,6 +46,40 @@ export function eliminationPattern(pattern: Uint8Array, n: number): Uint8Array {
   return filled;
 }
 
+/**
+ * The elimination's steps as lists, read from a filled pattern
+ * (`eliminationPattern`): for each pivot column, the rows below it with an
+ * entry there, and the columns right of it with an entry in its row. The
+ * solve walks these lists instead of testing the pattern, so its loops take
+ * the same paths for every pattern (a just-in-time compiler then keeps one
+ * compiled form for every graph).
+ */
+export interface EliminationSteps {
+  readonly n: number;
+  /** Rows r > col with A[r][col] filled: rows[rowStart[col] … rowStart[col + 1] − 1]. */
+  readonly rowStart: Int32Array;
+  readonly rows: Int32Array;
+  /** Columns c > col with A[col][c] filled: columns[columnStart[col] … columnStart[col + 1] − 1]. */
+  readonly columnStart: Int32Array;
+  readonly columns: Int32Array;
+}
+
+export function eliminationSteps(filled: Uint8Array, n: number): EliminationSteps {
+  const rowStart = new Int32Array(n + 1);
+  const columnStart = new Int32Array(n + 1);
+  const rows: number[] = [];
+  const columns: number[] = [];
+  for (let col = 0; col < n; col += 1) {
+    rowStart[col] = rows.length;
+    columnStart[col] = columns.length;
+    for (let r = col + 1; r < n; r += 1) if (filled[r * n + col] === 1) rows.push(r);
+    for (let c = col + 1; c < n; c += 1) if (filled[col * n + c] === 1) columns.push(c);
+  }
+  rowStart[n] = rows.length;
+  columnStart[n] = columns.length;
+  return { n, rowStart, rows: Int32Array.from(rows), columnStart, columns: Int32Array.from(columns) };
+}
+
 /** Scratch for one block: the pivots' inverses (n complex runs) and one factor run. */
 export interface BlockScratch {
   readonly inverses: Float64Array;
@@ -58,18 +92,12 @@ export function createBlockScratch(n: number, stride: number): BlockScratch {
 
 /**
  * Solve A·x = b for the first `length` bins of the block in place: A (n×n,
- * destroyed) in `matrix`, b in `rhs`, overwritten by x. `filled` is
- * `eliminationPattern` of A's pattern.
+ * destroyed) in `matrix`, b in `rhs`, overwritten by x. `steps` are the
+ * elimination's steps for A's pattern (`eliminationSteps` of
+ * `eliminationPattern`); entries outside them are never read.
  */
-export function solveBlock(
-  matrix: Float64Array,
-  rhs: Float64Array,
-  n: number,
-  filled: Uint8Array,
-  length: number,
-  stride: number,
-  scratch: BlockScratch,
-): void {
+export function solveBlock(matrix: Float64Array, rhs: Float64Array, steps: EliminationSteps, length: number, stride: number, scratch: BlockScratch): void {
+  const { n, rowStart, rows, columnStart, columns } = steps;
   const { inverses, factor } = scratch;
   for (let col = 0; col < n; col += 1) {
     // The pivot's inverse 1/a = conj(a)/|a|², kept for the back substitution.
@@ -85,8 +113,8 @@ export function solveBlock(
       inverses[vr + b] = ar / norm;
       inverses[vi + b] = -ai / norm;
     }
-    for (let r = col + 1; r < n; r += 1) {
-      if (filled[r * n + col] === 0) continue;
+    for (let at = rowStart[col] as number; at < (rowStart[col + 1] as number); at += 1) {
+      const r = rows[at] as number;
       // factor = A[r][col] / A[col][col]
       const er = realAt(r * n + col, stride);
       const ei = imagAt(r * n + col, stride);
@@ -98,8 +126,8 @@ export function solveBlock(
         factor[b] = ar * ir - ai * ii;
         factor[stride + b] = ar * ii + ai * ir;
       }
-      for (let c = col + 1; c < n; c += 1) {
-        if (filled[col * n + c] === 0) continue;
+      for (let to = columnStart[col] as number; to < (columnStart[col + 1] as number); to += 1) {
+        const c = columns[to] as number;
         subtractProduct(matrix, realAt(r * n + c, stride), imagAt(r * n + c, stride), factor, matrix, realAt(col * n + c, stride), imagAt(col * n + c, stride), length, stride);
       }
       subtractProduct(rhs, realAt(r, stride), imagAt(r, stride), factor, rhs, realAt(col, stride), imagAt(col, stride), length, stride);
@@ -109,8 +137,8 @@ export function solveBlock(
   for (let r = n - 1; r >= 0; r -= 1) {
     const xr = realAt(r, stride);
     const xi = imagAt(r, stride);
-    for (let c = r + 1; c < n; c += 1) {
-      if (filled[r * n + c] === 0) continue;
+    for (let to = columnStart[r] as number; to < (columnStart[r + 1] as number); to += 1) {
+      const c = columns[to] as number;
       const ur = realAt(r * n + c, stride);
       const ui = imagAt(r * n + c, stride);
       const yr = realAt(c, stride);

@@ -44,7 +44,7 @@ import type { CircuitGraph } from './circuit-graph.js';
 import { magnetSign, windingSign } from './coil-signs.js';
 import { type CoilCoupling, coilCouplings } from './coil-coupling.js';
 import type { PreparedCircuit } from './prepare-circuit.js';
-import { type BlockScratch, createBlockScratch, eliminationPattern, imagAt, realAt, solveBlock } from './solve-blocked.js';
+import { type BlockScratch, type EliminationSteps, createBlockScratch, eliminationPattern, eliminationSteps, imagAt, realAt, solveBlock } from './solve-blocked.js';
 
 const TWO_PI = 2 * Math.PI;
 
@@ -96,14 +96,24 @@ interface BlockWorkspace {
   branch: Float64Array;
   /** Per coupling group: Y_g, g×g complex runs. */
   readonly groups: Float64Array[];
+  /** A run of BLOCK_BINS zeros: the potential of a node fixed at 0 V. */
+  readonly zeros: Float64Array;
 }
 
 let shared: BlockWorkspace | null = null;
 
-function blockWorkspace(unknowns: number, coils: number): BlockWorkspace {
+/**
+ * The thread's buffers, large enough for `unknowns` and `coils`. They are
+ * made at first for the largest graph of a guitar of `guitarCoils` coils
+ * (each coil's two leads and the output: 2·coils + 1 nodes), so a thread
+ * keeps one set: replacing it would also discard the compiled code of every
+ * function that read the old one (measured: a humbucker wiring's first
+ * solve 43–59 ms instead of 17–24 ms when the buffers grew under it).
+ */
+function blockWorkspace(unknowns: number, coils: number, guitarCoils: number): BlockWorkspace {
   if (shared !== null && shared.unknowns >= unknowns && shared.coils >= coils) return shared;
-  const n = Math.max(unknowns, shared?.unknowns ?? 0);
-  const c = Math.max(coils, shared?.coils ?? 0);
+  const n = Math.max(unknowns, 2 * guitarCoils + 1, shared?.unknowns ?? 0);
+  const c = Math.max(coils, guitarCoils, shared?.coils ?? 0);
   shared = {
     unknowns: n,
     coils: c,
@@ -113,6 +123,7 @@ function blockWorkspace(unknowns: number, coils: number): BlockWorkspace {
     admittance: new Float64Array(2 * c * BLOCK_BINS),
     branch: new Float64Array(2 * c * BLOCK_BINS),
     groups: [],
+    zeros: new Float64Array(BLOCK_BINS),
   };
   return shared;
 }
@@ -151,8 +162,8 @@ interface NodalPlan {
   readonly out: number;
   readonly coils: readonly ActiveCoil[];
   readonly groups: readonly CouplingGroup[];
-  /** Where A and its factors may be nonzero (n×n, `eliminationPattern`, solve-blocked.ts). */
-  readonly filled: Uint8Array;
+  /** The elimination's steps over where A and its factors may be nonzero (`eliminationSteps`, solve-blocked.ts). */
+  readonly steps: EliminationSteps;
 }
 
 /**
@@ -265,7 +276,7 @@ function planGraph(prepared: PreparedCircuit, graph: CircuitGraph, mode: PlanMod
       slot: memberLists[groupOfRoot.get(root(groupParent, k)) ?? -1]?.indexOf(k) ?? -1,
     };
   });
-  return { unknowns, hot, out, coils, groups, filled: eliminationPattern(patternOf(unknowns, hot, out, mode, coils, groups), unknowns) };
+  return { unknowns, hot, out, coils, groups, steps: eliminationSteps(eliminationPattern(patternOf(unknowns, hot, out, mode, coils, groups), unknowns), unknowns) };
 }
 
 /** Where the stamps of `mode`'s load, the coils and their groups put entries in the n×n nodal matrix. */
@@ -498,7 +509,7 @@ function checkedOutput(prepared: PreparedCircuit, out: Float64Array[] | undefine
 function solvePlan(prepared: PreparedCircuit, plan: NodalPlan, withLoad: boolean, result: Float64Array[] | null, impedance: Float64Array | null): void {
   const bins = prepared.frequenciesHz.length;
   const n = plan.unknowns;
-  const workspace = blockWorkspace(n, plan.coils.length);
+  const workspace = blockWorkspace(n, plan.coils.length, prepared.guitar.coils.length);
   const output = withLoad ? plan.out : plan.hot;
   // A grid smaller than a block (the one-frequency probes) is one block of its own size: nothing to clear beyond it.
   const stride = Math.min(BLOCK_BINS, bins);
@@ -511,7 +522,7 @@ function solvePlan(prepared: PreparedCircuit, plan: NodalPlan, withLoad: boolean
     stampCoils(matrix, n, prepared, plan, workspace, first, length, stride);
     // Adjoint solve: A·x = u_out.
     rhs.fill(1, realAt(output, stride), realAt(output, stride) + length);
-    solveBlock(matrix, rhs, n, plan.filled, length, stride, workspace.scratch);
+    solveBlock(matrix, rhs, plan.steps, length, stride, workspace.scratch);
     if (impedance !== null) {
       const xr = realAt(output, stride);
       const xi = imagAt(output, stride);
@@ -579,7 +590,9 @@ function stampCoils(matrix: Float64Array, n: number, prepared: PreparedCircuit, 
     const impedance = prepared.coilImpedance[coil.coil] as Float64Array;
     const source = prepared.coilSource[coil.coil] as Float64Array;
     const yAt = realAt(j, stride);
-    const coupled = coil.group >= 0;
+    // 1 for a coupled coil (its shunt 1/Z − Y_b is stamped), 0 otherwise (1/Z): a factor, not a branch in the loop,
+    // so the loop's compiled code serves both (y − 0·Y_b = y exactly).
+    const coupled = coil.group >= 0 ? 1 : 0;
     for (let b = 0; b < length; b += 1) {
       const re = 2 * (first + b);
       const zr = impedance[re] as number;
@@ -594,8 +607,8 @@ function stampCoils(matrix: Float64Array, n: number, prepared: PreparedCircuit, 
       branch[yAt + b] = br;
       branch[yAt + stride + b] = bi;
       // What is stamped between the leads: 1/Z, or the shunt (1 − k)/Z = 1/Z − Y_b of a coupled coil.
-      admittance[yAt + b] = coupled ? yr - br : yr;
-      admittance[yAt + stride + b] = coupled ? yi - bi : yi;
+      admittance[yAt + b] = yr - coupled * br;
+      admittance[yAt + stride + b] = yi - coupled * bi;
     }
     stampBlockAdmittance(matrix, n, coil.start, coil.finish, stride, admittance, yAt, length);
   }
@@ -713,17 +726,21 @@ function writeTransfers(plan: NodalPlan, workspace: BlockWorkspace, result: Floa
   const { coils, groups } = plan;
   const { rhs, branch } = workspace;
   const drop = workspace.admittance;
+  // A lead on a node fixed at 0 V reads a run of zeros: no branch in the loop, so its compiled code serves every graph.
+  const zeros = workspace.zeros;
   for (let j = 0; j < coils.length; j += 1) {
     const coil = coils[j] as ActiveCoil;
     const dr = realAt(j, stride);
     const di = imagAt(j, stride);
-    const fr = coil.finish < 0 ? -1 : realAt(coil.finish, stride);
-    const fi = coil.finish < 0 ? -1 : imagAt(coil.finish, stride);
-    const sr = coil.start < 0 ? -1 : realAt(coil.start, stride);
-    const si = coil.start < 0 ? -1 : imagAt(coil.start, stride);
+    const finish = coil.finish < 0 ? zeros : rhs;
+    const start = coil.start < 0 ? zeros : rhs;
+    const fr = coil.finish < 0 ? 0 : realAt(coil.finish, stride);
+    const fi = coil.finish < 0 ? 0 : imagAt(coil.finish, stride);
+    const sr = coil.start < 0 ? 0 : realAt(coil.start, stride);
+    const si = coil.start < 0 ? 0 : imagAt(coil.start, stride);
     for (let b = 0; b < length; b += 1) {
-      drop[dr + b] = (fr < 0 ? 0 : (rhs[fr + b] as number)) - (sr < 0 ? 0 : (rhs[sr + b] as number));
-      drop[di + b] = (fi < 0 ? 0 : (rhs[fi + b] as number)) - (si < 0 ? 0 : (rhs[si + b] as number));
+      drop[dr + b] = (finish[fr + b] as number) - (start[sr + b] as number);
+      drop[di + b] = (finish[fi + b] as number) - (start[si + b] as number);
     }
   }
   for (let j = 0; j < coils.length; j += 1) {
