@@ -18,6 +18,8 @@ export type RenderAnalysisMessage =
   | { readonly kind: 'failed'; readonly message: string; readonly problems?: InputError['problems'] };
 
 export interface PendingAnalysis {
+  /** Does the analysis run on a thread of its own (beside the caller's work)? */
+  readonly onThread: boolean;
   /** Hand over the reference performance's spectral basis (and the wirings whose audio figures are wanted); the analysis starts. */
   start(basis: SpectralBasis, figures?: readonly Network[]): void;
   /** The analysis (after `start`). */
@@ -32,6 +34,7 @@ export function prepareRenderAnalysis(job: RenderAnalysisJob, thread: boolean): 
     let basis: SpectralBasis | undefined;
     let wanted: readonly Network[] = [];
     return {
+      onThread: false,
       start: (given, figures = []) => {
         basis = given;
         wanted = figures;
@@ -67,6 +70,7 @@ export function prepareRenderAnalysis(job: RenderAnalysisJob, thread: boolean): 
   // Not awaited until `result`: a failure meanwhile must not be an unhandled rejection.
   answer.catch(() => undefined);
   return {
+    onThread: true,
     start: (basis, figures = []) => {
       given = basis;
       // The coils' spectra serve only the audio figures (the groups and the coil drive read the band cross-spectra):
