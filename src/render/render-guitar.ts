@@ -98,6 +98,8 @@ export interface RenderRequest {
   readonly positions?: readonly ReportSwitchPosition[];
   /** Run the analysis (circuit figures, groups, response curves) on a thread of its own (default: when the machine has a second core). */
   readonly analysisThread?: boolean;
+  /** Encode part of the final WAV files on a second thread (default: for ENCODE_THREAD_MIN_FILES files or more, on a machine with a second core). */
+  readonly encodeThread?: boolean;
 }
 
 export interface RenderEvents {
@@ -317,7 +319,7 @@ async function renderWith(request: RenderRequest, events: RenderEvents, analysis
   events.onStage?.('writing', selected.length);
   let written = 0;
   let skipped = 0;
-  const encoder = request.writeWav !== false && encodeThreadPays(selected.length) ? startEncodeThread() : null;
+  const encoder = request.writeWav !== false && (request.encodeThread ?? encodeThreadPays(selected.length)) ? startEncodeThread() : null;
   const handedOver: Promise<void>[] = [];
   try {
     for (const [index, wiring] of selected.entries()) {
