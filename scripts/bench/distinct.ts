@@ -20,7 +20,6 @@ import {
   solveWiringSpectra,
 } from '../../src/analysis/index.js';
 import { measureCircuitMetrics } from '../../src/circuit/index.js';
-import type { Guitar } from '../../src/guitar/index.js';
 import { nextPowerOfTwo } from '../../src/math/index.js';
 import { computeCoilSpectra, pickupDelaySamples } from '../../src/pickup/index.js';
 import { builtInPhrase, renderPhrase } from '../../src/string/index.js';

@@ -49,7 +49,7 @@ import { ENCODE_THREAD_IN_FLIGHT, encodeThreadPays, startEncodeThread } from './
 import { createDeferredSync, removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
 import { writeJsonFileAtomicSync } from './write-json-file.js';
 import { activeScratchFolders } from './scratch-folders.js';
-import { type FileRecord, fileMatches, recordOf } from './file-record.js';
+import { type FileRecord, fileMatches } from './file-record.js';
 import { maxOf } from '../math/index.js';
 import { writeListeningPage } from './write-listening-page.js';
 import { type PendingAnalysis, prepareRenderAnalysis } from './render-analysis-thread.js';

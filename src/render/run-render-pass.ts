@@ -13,7 +13,7 @@ import { type AudioSettings, type PassItem, type PassResult, runRenderPass } fro
 import type { WorkerJob, WorkerMessage } from './render-worker.js';
 import { shapeKey } from '../wiring/index.js';
 import { minOf, appendAll } from '../math/index.js';
-import { defaultThreadCount, startWorkerModule } from './worker-threads.js';
+import { startWorkerModule } from './worker-threads.js';
 
 /**
  * Fewest wirings worth a worker thread, by effects chain: a worker starts cold

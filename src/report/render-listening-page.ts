@@ -32,13 +32,6 @@ import type { Guitar } from '../guitar/index.js';
 /** Playback volume the page starts at, linear (−10.5 dB; start low to protect hearing: common practice). */
 export const START_VOLUME = 0.3;
 
-const TOPOLOGY_OPTIONS: ReadonlyArray<readonly [string, string]> = [
-  ['single', 'alone'],
-  ['series', 'series'],
-  ['parallel', 'parallel'],
-  ['series-parallel', 'series and parallel'],
-];
-
 /** Tone capacitor field step, nF, and cable field step, pF (our choice: finer than parts are sold in). */
 const CAPACITOR_STEP_NF = 1;
 const CABLE_STEP_PF = 50;

@@ -1,5 +1,4 @@
 import { existsSync } from 'node:fs';
-import { readFileSync } from 'node:fs';
 import { join, relative, resolve, sep } from 'node:path';
 import type { Command } from 'commander';
 import { InputError, type InputProblem, problemAt } from '../../errors/index.js';

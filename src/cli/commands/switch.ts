@@ -18,7 +18,6 @@ import {
   type SwitchKit,
   type SwitchPlan,
   type SwitchPlanResult,
-  countKitPositions,
   describeKit,
   describeKitPosition,
   describeReading,
