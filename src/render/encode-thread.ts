@@ -4,18 +4,20 @@
  * (encode-worker.ts) encodes others. The bytes are the same from either
  * thread (encode-final-wav.ts); only the render's own thread writes files.
  */
-import { fileURLToPath } from 'node:url';
 import type { Worker } from 'node:worker_threads';
-import { type InputProblem, InputError, WorkError } from '../errors/index.js';
+import { WorkError } from '../errors/index.js';
 import type { EncodedWav } from './encode-final-wav.js';
 import type { FileRecord } from './file-record.js';
 import type { WavOptions } from './wav-file.js';
-import { defaultThreadCount, startWorkerModule } from './worker-threads.js';
+import { defaultThreadCount, startRenderWorker } from './worker-threads.js';
+import { type WorkerFailure, errorOfFailure } from './worker-failure.js';
 
 /**
- * Fewest files worth the thread: it starts in about 0.1 s, and a file costs
- * about 2–3 ms to encode and record (24-bit, 2.6 s at 44.1 kHz; measured
- * with `npm run bench -- commands`: 572 files gain, 47 do not).
+ * Fewest files worth the thread (our choice): it starts in about 0.1 s, and
+ * a file costs about 2–3 ms to encode and record (24-bit, 2.6 s at 44.1 kHz),
+ * so a few dozen files would not repay it. On 572 files (`npm run bench --
+ * commands`) the render went from 6.42 to 6.32–6.36 s, within the machine's
+ * noise: the second pass is mostly file I/O.
  */
 export const ENCODE_THREAD_MIN_FILES = 100;
 
@@ -31,7 +33,7 @@ export interface EncodeRequest {
 
 export type EncodeAnswer =
   | { readonly id: number; readonly kind: 'done'; readonly bytes: Uint8Array; readonly record: FileRecord }
-  | { readonly id: number; readonly kind: 'failed'; readonly message: string; readonly problems?: readonly InputProblem[] };
+  | (WorkerFailure & { readonly id: number });
 
 export interface EncodeThread {
   /** Files handed over and not yet back. */
@@ -47,8 +49,7 @@ export function encodeThreadPays(files: number): boolean {
 }
 
 export function startEncodeThread(): EncodeThread {
-  const extension = fileURLToPath(import.meta.url).endsWith('.ts') ? 'ts' : 'js';
-  const worker: Worker = startWorkerModule(new URL(`./encode-worker.${extension}`, import.meta.url), null);
+  const worker: Worker = startRenderWorker('encode-worker', null);
   const waiting = new Map<number, { resolve: (encoded: EncodedWav) => void; reject: (error: Error) => void }>();
   let next = 0;
   let stopped: Error | null = null;
@@ -62,7 +63,7 @@ export function startEncodeThread(): EncodeThread {
     if (!pending) return;
     waiting.delete(answer.id);
     if (answer.kind === 'done') pending.resolve({ bytes: answer.bytes, record: answer.record });
-    else pending.reject(answer.problems ? new InputError(answer.problems) : new WorkError(`encoding thread failed: ${answer.message}`));
+    else pending.reject(errorOfFailure(answer, 'encoding thread'));
   });
   worker.on('error', (error) => failAll(new WorkError(`encoding thread failed: ${error.message}`, { cause: error })));
   worker.on('exit', (code) => {

@@ -8,7 +8,7 @@
  * entry.
  */
 import { parentPort } from 'node:worker_threads';
-import { InputError } from '../errors/index.js';
+import { failureOf } from './worker-failure.js';
 import { encodeFinalWav } from './encode-final-wav.js';
 import type { EncodeAnswer, EncodeRequest } from './encode-thread.js';
 
@@ -19,8 +19,7 @@ if (port) {
       const { bytes, record } = encodeFinalWav(request.audio, request.gain, request.options);
       port.postMessage({ id: request.id, kind: 'done', bytes, record } satisfies EncodeAnswer, [bytes.buffer as ArrayBuffer]);
     } catch (error) {
-      const message = error instanceof Error ? error.message : String(error);
-      port.postMessage({ id: request.id, kind: 'failed', message, ...(error instanceof InputError ? { problems: error.problems } : {}) } satisfies EncodeAnswer);
+      port.postMessage({ ...failureOf(error), id: request.id } satisfies EncodeAnswer);
     }
   });
 }

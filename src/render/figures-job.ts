@@ -4,9 +4,9 @@
  * it is imported in a thread.
  */
 import type { CircuitOverrides } from '../circuit/index.js';
-import type { InputError } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
 import type { Network } from '../wiring/index.js';
+import type { WorkerFailure } from './worker-failure.js';
 
 export interface FiguresJob {
   readonly guitar: Guitar;
@@ -20,4 +20,4 @@ export const FIGURES_PER_WIRING = 3;
 export type FiguresMessage =
   | { readonly kind: 'step'; readonly done: number; readonly total: number }
   | { readonly kind: 'done'; readonly figures: Float64Array }
-  | { readonly kind: 'failed'; readonly message: string; readonly problems?: InputError['problems'] };
+  | WorkerFailure;

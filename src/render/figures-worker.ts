@@ -9,9 +9,9 @@
  */
 import { parentPort, workerData } from 'node:worker_threads';
 import { measureFiguresByClass } from '../analysis/index.js';
-import { InputError } from '../errors/index.js';
 import { prepareReferenceFigures } from './measure-wiring-audio.js';
 import { FIGURES_PER_WIRING, type FiguresJob, type FiguresMessage } from './figures-job.js';
+import { failureOf } from './worker-failure.js';
 
 
 const port = parentPort;
@@ -26,7 +26,6 @@ if (port) {
     results.forEach((result, index) => figures.set([result.energy, result.loudnessLufs, result.centroidHz], FIGURES_PER_WIRING * index));
     port.postMessage({ kind: 'done', figures } satisfies FiguresMessage, [figures.buffer]);
   } catch (error) {
-    const message = error instanceof Error ? error.message : String(error);
-    port.postMessage({ kind: 'failed', message, ...(error instanceof InputError ? { problems: error.problems } : {}) } satisfies FiguresMessage);
+    port.postMessage(failureOf(error) satisfies FiguresMessage);
   }
 }

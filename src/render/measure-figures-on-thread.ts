@@ -4,14 +4,12 @@
  * the figures are a pure function of the guitar, its settings and each
  * wiring, so they are the same numbers on any thread.
  */
-import { fileURLToPath } from 'node:url';
 import type { CircuitOverrides } from '../circuit/index.js';
-import { InputError, WorkError } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
 import type { Wiring } from '../wiring/index.js';
 import { FIGURES_PER_WIRING, type FiguresJob, type FiguresMessage } from './figures-job.js';
 import type { RawAudioMetrics } from './measure-wiring-audio.js';
-import { defaultThreadCount, startWorkerModule } from './worker-threads.js';
+import { defaultThreadCount, jobResult, startRenderWorker } from './worker-threads.js';
 
 /**
  * Fewest wirings worth a thread of their own: a worker starts cold (loading
@@ -39,34 +37,18 @@ export function measureFiguresOnThread(
   onStep?: (done: number, total: number) => void,
 ): Promise<Map<string, RawAudioMetrics>> {
   const job: FiguresJob = { guitar, overrides, networks: wirings.map((wiring) => wiring.network) };
-  const extension = fileURLToPath(import.meta.url).endsWith('.ts') ? 'ts' : 'js';
-  const worker = startWorkerModule(new URL(`./figures-worker.${extension}`, import.meta.url), job);
-  return new Promise((resolve, reject) => {
-    let settled = false;
-    const settle = (action: () => void): void => {
-      settled = true;
-      action();
-      void worker.terminate();
-    };
-    worker.on('message', (message: FiguresMessage) => {
-      if (message.kind === 'step') onStep?.(message.done, message.total);
-      else if (message.kind === 'done') {
-        const figures = message.figures;
-        settle(() =>
-          resolve(
-            new Map(
-              wirings.map((wiring, index) => {
-                const at = FIGURES_PER_WIRING * index;
-                return [wiring.id, { energy: figures[at] as number, loudnessLufs: figures[at + 1] as number, centroidHz: figures[at + 2] as number }];
-              }),
-            ),
-          ),
-        );
-      } else settle(() => reject(message.problems ? new InputError(message.problems) : new WorkError(`figures worker failed: ${message.message}`)));
-    });
-    worker.on('error', (error) => settle(() => reject(new WorkError(`figures worker failed: ${error.message}`, { cause: error }))));
-    worker.on('exit', (code) => {
-      if (!settled) reject(new WorkError(`figures worker stopped (exit code ${code})`));
-    });
+  const worker = startRenderWorker('figures-worker', job);
+  return jobResult<FiguresMessage, Map<string, RawAudioMetrics>>(worker, 'figures worker', (message) => {
+    if (message.kind === 'step') {
+      onStep?.(message.done, message.total);
+      return undefined;
+    }
+    const figures = message.figures;
+    return new Map(
+      wirings.map((wiring, index) => {
+        const at = FIGURES_PER_WIRING * index;
+        return [wiring.id, { energy: figures[at] as number, loudnessLufs: figures[at + 1] as number, centroidHz: figures[at + 2] as number }];
+      }),
+    );
   });
 }

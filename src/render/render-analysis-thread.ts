@@ -4,18 +4,17 @@
  * measures the spectral basis, then runs beside the audio. On a machine of
  * one core it runs in this thread when asked for.
  */
-import { fileURLToPath } from 'node:url';
 import type { Worker } from 'node:worker_threads';
 import type { SpectralBasis } from '../analysis/index.js';
-import { InputError, WorkError } from '../errors/index.js';
 import { type RenderAnalysis, type RenderAnalysisJob, measureRenderAnalysis } from './render-analysis.js';
 import type { Network } from '../wiring/index.js';
-import { startWorkerModule } from './worker-threads.js';
+import { jobResult, startRenderWorker } from './worker-threads.js';
+import type { WorkerFailure } from './worker-failure.js';
 
 /** The worker's answer: the analysis without its basis (the parent has it), or its failure as data. */
 export type RenderAnalysisMessage =
   | { readonly kind: 'done'; readonly analysis: Omit<RenderAnalysis, 'distinct'> & { readonly distinct: Omit<RenderAnalysis['distinct'], 'spectra'> & { readonly spectra: Omit<RenderAnalysis['distinct']['spectra'], 'basis'> & { readonly basis: undefined } } } }
-  | { readonly kind: 'failed'; readonly message: string; readonly problems?: InputError['problems'] };
+  | WorkerFailure;
 
 export interface PendingAnalysis {
   /** Does the analysis run on a thread of its own (beside the caller's work)? */
@@ -46,27 +45,12 @@ export function prepareRenderAnalysis(job: RenderAnalysisJob, thread: boolean): 
       cancel: async () => undefined,
     };
   }
-  const extension = fileURLToPath(import.meta.url).endsWith('.ts') ? 'ts' : 'js';
-  const worker: Worker = startWorkerModule(new URL(`./render-analysis-worker.${extension}`, import.meta.url), job);
+  const worker: Worker = startRenderWorker('render-analysis-worker', job);
   let given: SpectralBasis | undefined;
-  const answer = new Promise<RenderAnalysis>((resolve, reject) => {
-    let settled = false;
-    const settle = (action: () => void): void => {
-      settled = true;
-      action();
-      void worker.terminate();
-    };
-    worker.on('message', (message: RenderAnalysisMessage) => {
-      if (message.kind === 'done') {
-        const { analysis } = message;
-        settle(() => resolve({ ...analysis, distinct: { ...analysis.distinct, spectra: { ...analysis.distinct.spectra, basis: given as SpectralBasis } } }));
-      } else settle(() => reject(message.problems ? new InputError(message.problems) : new WorkError(`analysis worker failed: ${message.message}`)));
-    });
-    worker.on('error', (error) => settle(() => reject(new WorkError(`analysis worker failed: ${error.message}`, { cause: error }))));
-    worker.on('exit', (code) => {
-      if (!settled) reject(new WorkError(`analysis worker stopped (exit code ${code})`));
-    });
-  });
+  const answer = jobResult<RenderAnalysisMessage, RenderAnalysis>(worker, 'analysis worker', ({ analysis }) => ({
+    ...analysis,
+    distinct: { ...analysis.distinct, spectra: { ...analysis.distinct.spectra, basis: given as SpectralBasis } },
+  }));
   // Not awaited until `result`: a failure meanwhile must not be an unhandled rejection.
   answer.catch(() => undefined);
   return {

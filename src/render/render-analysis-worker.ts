@@ -9,7 +9,7 @@
 import { parentPort, workerData } from 'node:worker_threads';
 import type { SpectralBasis } from '../analysis/index.js';
 import type { Network } from '../wiring/index.js';
-import { InputError } from '../errors/index.js';
+import { failureOf } from './worker-failure.js';
 import { type RenderAnalysisJob, measureRenderAnalysis } from './render-analysis.js';
 import type { RenderAnalysisMessage } from './render-analysis-thread.js';
 
@@ -23,8 +23,7 @@ if (port) {
       const distinct = { ...analysis.distinct, spectra: { ...analysis.distinct.spectra, basis: undefined } };
       port.postMessage({ kind: 'done', analysis: { ...analysis, distinct } } satisfies RenderAnalysisMessage);
     } catch (error) {
-      const message = error instanceof Error ? error.message : String(error);
-      port.postMessage({ kind: 'failed', message, ...(error instanceof InputError ? { problems: error.problems } : {}) } satisfies RenderAnalysisMessage);
+      port.postMessage(failureOf(error) satisfies RenderAnalysisMessage);
     }
     port.close();
   });

@@ -5,7 +5,7 @@
  * their class (InputError, WorkError).
  */
 import { parentPort, workerData } from 'node:worker_threads';
-import { InputError } from '../errors/index.js';
+import { type WorkerFailure, failureOf } from './worker-failure.js';
 import { type AudioSettings, type PassItem, runRenderPass } from './render-pass.js';
 
 export interface WorkerJob {
@@ -17,7 +17,7 @@ export interface WorkerJob {
 export type WorkerMessage =
   | { readonly kind: 'step' }
   | { readonly kind: 'done'; readonly results: Awaited<ReturnType<typeof runRenderPass>> }
-  | { readonly kind: 'failed'; readonly message: string; readonly problems?: InputError['problems'] };
+  | WorkerFailure;
 
 const port = parentPort;
 if (port) {
@@ -28,7 +28,6 @@ if (port) {
     const held = results.flatMap((result) => (result.samples ? [result.samples.buffer as ArrayBuffer] : []));
     port.postMessage({ kind: 'done', results } satisfies WorkerMessage, held);
   } catch (error) {
-    const message = error instanceof Error ? error.message : String(error);
-    port.postMessage({ kind: 'failed', message, ...(error instanceof InputError ? { problems: error.problems } : {}) } satisfies WorkerMessage);
+    port.postMessage(failureOf(error) satisfies WorkerMessage);
   }
 }

@@ -5,15 +5,13 @@
  * threads. Each wiring's result depends on nothing but its own input, so the
  * output is the same, byte for byte, however it is split.
  */
-import { fileURLToPath } from 'node:url';
 import type { Worker } from 'node:worker_threads';
-import { InputError, WorkError } from '../errors/index.js';
 import type { ChainName } from './chain-name.js';
 import { type AudioSettings, type PassItem, type PassResult, runRenderPass } from './render-pass.js';
 import type { WorkerJob, WorkerMessage } from './render-worker.js';
 import { shapeKey } from '../wiring/index.js';
 import { minOf, appendAll } from '../math/index.js';
-import { startWorkerModule } from './worker-threads.js';
+import { jobResult, startRenderWorker } from './worker-threads.js';
 
 /**
  * Fewest wirings worth a worker thread, by effects chain: a worker starts cold
@@ -49,19 +47,13 @@ function itemWeight(item: PassItem): number {
   return item.audio ? 1 : item.metrics ? FIGURES_ITEM_WEIGHT : 0;
 }
 
-/** The render worker beside this file, in the same form (.js or .ts) as this file. */
-function startWorker(job: WorkerJob): Worker {
-  const extension = fileURLToPath(import.meta.url).endsWith('.ts') ? 'ts' : 'js';
-  return startWorkerModule(new URL(`./render-worker.${extension}`, import.meta.url), job);
-}
-
 /**
  * How much more work the calling thread's share holds than a worker's: a
  * worker starts about 0.5–0.7 s after the caller (loading its code) and then
  * shares the cores with the render's analysis thread, so with equal shares
- * the caller waited for it (measured on the four-coil sample, 572 wirings
- * direct, 2 threads: the caller idle 0.5 s at the end of the pass with equal
- * shares; the bench's median 6.4 → see DEVELOPERS.md for the figure after).
+ * the caller waited for it (measured in CPU profiles of the four-coil
+ * sample, 572 wirings direct, 2 threads: the caller idle about 0.5 s at the
+ * end of the pass with equal shares, about 0.25 s with this weight).
  * Shares never change a result, only which thread computes it.
  */
 export const OWN_SHARE_WEIGHT = 1.25;
@@ -92,27 +84,12 @@ export function splitByShape(items: readonly PassItem[], parts: number, firstWei
 }
 
 function runInWorker(job: WorkerJob, onStep: () => void, workers: Worker[]): Promise<PassResult[]> {
-  return new Promise((resolve, reject) => {
-    const worker = startWorker(job);
-    workers.push(worker);
-    let settled = false;
-    worker.on('message', (message: WorkerMessage) => {
-      if (message.kind === 'step') onStep();
-      else if (message.kind === 'done') {
-        settled = true;
-        resolve(message.results);
-      } else {
-        settled = true;
-        reject(message.problems ? new InputError(message.problems) : new WorkError(`render worker failed: ${message.message}`));
-      }
-    });
-    worker.on('error', (error) => {
-      settled = true;
-      reject(new WorkError(`render worker failed: ${error.message}`, { cause: error }));
-    });
-    worker.on('exit', (code) => {
-      if (!settled) reject(new WorkError(`render worker stopped (exit code ${code})`));
-    });
+  const worker = startRenderWorker('render-worker', job);
+  workers.push(worker);
+  return jobResult<WorkerMessage, PassResult[]>(worker, 'render worker', (message) => {
+    if (message.kind === 'done') return message.results;
+    onStep();
+    return undefined;
   });
 }
 

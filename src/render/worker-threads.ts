@@ -8,8 +8,10 @@ import { availableParallelism } from 'node:os';
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { dirname, join } from 'node:path';
-import { pathToFileURL } from 'node:url';
+import { fileURLToPath, pathToFileURL } from 'node:url';
 import { Worker } from 'node:worker_threads';
+import { WorkError } from '../errors/index.js';
+import { type WorkerFailure, errorOfFailure } from './worker-failure.js';
 
 /** Threads to use by default: the machine's cores, at most two (the render's memory grows with each thread). */
 export function defaultThreadCount(): number {
@@ -35,4 +37,44 @@ export function startWorkerModule(entry: URL, workerData: unknown): Worker {
   const loader = tsxLoaderUrl();
   const source = `import(${JSON.stringify(loader)}).then((api) => { api.register(); return import(${JSON.stringify(entry.href)}); });`;
   return new Worker(source, { eval: true, workerData });
+}
+
+/** Start the worker entry `name` of this folder (render/), in the form (.js or .ts) this file runs in. */
+export function startRenderWorker(name: string, workerData: unknown): Worker {
+  const extension = fileURLToPath(import.meta.url).endsWith('.ts') ? 'ts' : 'js';
+  return startWorkerModule(new URL(`./${name}.${extension}`, import.meta.url), workerData);
+}
+
+/**
+ * The result of a worker that runs one job. Every message but a failure goes
+ * to `read`, which returns the result once the job is done (undefined for a
+ * step on the way). A posted failure is rethrown with its class
+ * (worker-failure.ts); a worker error, or an exit before the result, is a
+ * WorkError naming `what`. The worker is stopped once the job is settled.
+ */
+export function jobResult<Message extends { readonly kind: string }, Result>(
+  worker: Worker,
+  what: string,
+  read: (message: Exclude<Message, WorkerFailure>) => Result | undefined,
+): Promise<Result> {
+  return new Promise((resolve, reject) => {
+    let settled = false;
+    const settle = (action: () => void): void => {
+      settled = true;
+      action();
+      void worker.terminate();
+    };
+    worker.on('message', (message: Message | WorkerFailure) => {
+      if (message.kind === 'failed') {
+        settle(() => reject(errorOfFailure(message as WorkerFailure, what)));
+        return;
+      }
+      const result = read(message as Exclude<Message, WorkerFailure>);
+      if (result !== undefined) settle(() => resolve(result));
+    });
+    worker.on('error', (error) => settle(() => reject(new WorkError(`${what} failed: ${error.message}`, { cause: error }))));
+    worker.on('exit', (code) => {
+      if (!settled) reject(new WorkError(`${what} stopped (exit code ${code})`));
+    });
+  });
 }
