@@ -16,20 +16,21 @@
  * not at all: each of its runs is stopped at a random moment of a whole
  * run, and one re-run at the end must give the reference bytes.
  *
- * The children run a bundle of src/cli.ts made here with esbuild (the same
- * code, about a second less start-up than the TypeScript loader on a busy
- * machine), with the render's analysis thread bundled beside it (a 47-wiring
- * direct render keeps its audio on one thread, but measures its groups and
- * circuit figures on a second). COILBENCH_KILL_MOMENTS changes the number of moments
+ * The children run the command line bundled here from the sources, as
+ * `npm run build` bundles it (scripts/build-cli.mjs: the same code, about a
+ * second less start-up than the TypeScript loader on a busy machine), with
+ * the render's worker entries bundled beside it (a 47-wiring direct render
+ * keeps its audio on one thread, but measures its groups and circuit figures
+ * on a second). COILBENCH_KILL_MOMENTS changes the number of moments
  * (default 10), COILBENCH_KILL_SEED the moments.
  */
 import { type ChildProcess, spawn } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, readdirSync, rmSync, statSync } from 'node:fs';
 import { dirname, join, relative } from 'node:path';
-import { build } from 'esbuild';
 import { WaveFile } from 'wavefile';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { captureIo, main } from '../src/cli/index.js';
+import { bundleCommandLine } from '../scripts/build-cli.mjs';
 import { countFromEnvironment, seededRandom } from './support/seeded-random.js';
 import { temporaryFolder } from './support/temporary-folder.js';
 
@@ -37,12 +38,9 @@ const MOMENTS = countFromEnvironment('COILBENCH_KILL_MOMENTS', 10);
 const SEED = countFromEnvironment('COILBENCH_KILL_SEED', 7);
 const GUITAR = join(import.meta.dirname, '..', 'samples', 'three-single-coil.json');
 const REPOSITORY = join(import.meta.dirname, '..');
-const CLI_SOURCE = join(REPOSITORY, 'src', 'cli.ts');
 /** Inside the repository, so the bundle finds the package folder (samples, dist/page.js) as the real CLI does. */
 const BUNDLE_FOLDER = join(REPOSITORY, 'test-output', `kill-cli-${process.pid}`);
-const BUNDLE = join(BUNDLE_FOLDER, 'cli.mjs');
-/** Worker entries the CLI starts beside its own file (src/render), bundled the same way. */
-const WORKER_SOURCES = ['render-analysis-worker', 'render-worker', 'figures-worker', 'encode-worker'].map((name) => join(REPOSITORY, 'src', 'render', `${name}.ts`));
+const BUNDLE = join(BUNDLE_FOLDER, 'cli.js');
 /** The render under test: all 47 wirings, through the fastest chain. */
 const RENDER_OPTIONS = ['--chain', 'direct'];
 const TIMEOUT_MS = 600_000;
@@ -125,8 +123,7 @@ describe('interruption at random moments', () => {
 
   beforeAll(async () => {
     mkdirSync(dirname(BUNDLE), { recursive: true });
-    await build({ entryPoints: [CLI_SOURCE], bundle: true, platform: 'node', format: 'esm', packages: 'external', outfile: BUNDLE, logLevel: 'warning' });
-    await build({ entryPoints: WORKER_SOURCES, bundle: true, platform: 'node', format: 'esm', packages: 'external', outdir: BUNDLE_FOLDER, logLevel: 'warning' });
+    await bundleCommandLine(BUNDLE_FOLDER, REPOSITORY);
     let began = performance.now();
     const check = start(['check', GUITAR]);
     expect(await check.exited, check.stderr()).toBe(0);
