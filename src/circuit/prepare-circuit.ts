@@ -55,6 +55,19 @@ export interface PreparedCircuit {
 
 /** Fill the per-frequency arrays of `target` for the given frequencies: the coils' Thevenin pairs, then the load. */
 function fillGrid(target: PreparedCircuit, frequenciesHz: ArrayLike<number>): void {
+  fillCoils(target, frequenciesHz);
+  fillLoad(target, frequenciesHz);
+}
+
+/*
+ * Each loop over the frequencies is a function of its own: V8 compiles a long
+ * loop while it runs (on-stack replacement), and code after the loop in the
+ * same function left that compiled code bailing out on every later call
+ * (seen with node --trace-deopt; src/math/real-fft.ts).
+ */
+
+/** The coils' Thevenin pairs at every frequency. */
+function fillCoils(target: PreparedCircuit, frequenciesHz: ArrayLike<number>): void {
   const { guitar } = target;
   const phasors = createCoilPhasors();
   for (let f = 0; f < frequenciesHz.length; f += 1) {
@@ -73,7 +86,6 @@ function fillGrid(target: PreparedCircuit, frequenciesHz: ArrayLike<number>): vo
       impedance[im] = phasors.impedanceIm;
     }
   }
-  fillLoad(target, frequenciesHz);
 }
 
 /** Fill the load's per-frequency admittances of `target` (they follow the knobs; the coils' pairs do not). */
@@ -153,16 +165,22 @@ function allocate(guitar: Guitar, load: CircuitLoad, frequenciesHz: Float64Array
   };
 }
 
+/** Index of the first frequency that is not finite and ≥ 0, or −1. */
+function firstBadFrequency(frequenciesHz: Float64Array): number {
+  for (let f = 0; f < frequenciesHz.length; f += 1) {
+    const frequency = frequenciesHz[f] as number;
+    if (!Number.isFinite(frequency) || frequency < 0) return f;
+  }
+  return -1;
+}
+
 /**
  * Prepare a guitar's circuit on a frequency grid (Hz, each ≥ 0 and finite),
  * with the what-if overrides applied. Throws InputError for a bad override.
  */
 export function prepareCircuit(guitar: Guitar, frequenciesHz: Float64Array, overrides?: CircuitOverrides): PreparedCircuit {
-  for (const frequency of frequenciesHz) {
-    if (!Number.isFinite(frequency) || frequency < 0) {
-      throw new RangeError(`prepareCircuit: frequencies must be finite and ≥ 0, got ${frequency}`);
-    }
-  }
+  const bad = firstBadFrequency(frequenciesHz);
+  if (bad >= 0) throw new RangeError(`prepareCircuit: frequencies must be finite and ≥ 0, got ${frequenciesHz[bad]}`);
   const load = resolveCircuitLoad(guitar, overrides);
   const prepared = allocate(guitar, load, Float64Array.from(frequenciesHz));
   fillGrid(prepared, prepared.frequenciesHz);

@@ -67,13 +67,7 @@ function evaluate(state: SolveState, node: Network, impedance: Float64Array): vo
       workspace.used[c] = 1;
       workspace.coilStack[state.coilCount] = c;
       state.coilCount += 1;
-      const source = prepared.coilSource[c] as Float64Array;
-      const z = prepared.coilImpedance[c] as Float64Array;
-      const target = out[c] as Float64Array;
-      for (let i = 0; i < length; i += 1) {
-        target[i] = sign * (source[i] as number);
-        impedance[i] = (impedance[i] as number) + (z[i] as number);
-      }
+      addCoil(prepared.coilSource[c] as Float64Array, prepared.coilImpedance[c] as Float64Array, sign, out[c] as Float64Array, impedance, length);
     }
     return;
   }
@@ -83,7 +77,7 @@ function evaluate(state: SolveState, node: Network, impedance: Float64Array): vo
     impedance.fill(0);
     for (const child of node.parts) {
       evaluate(state, child, part);
-      for (let i = 0; i < length; i += 1) impedance[i] = (impedance[i] as number) + (part[i] as number);
+      addInto(impedance, part, length);
     }
     workspace.top = mark;
     return;
@@ -100,17 +94,7 @@ function evaluate(state: SolveState, node: Network, impedance: Float64Array): vo
     state.boundaryCount += 1;
     const y = acquire(workspace, length);
     evaluate(state, node.parts[k] as Network, y);
-    for (let i = 0; i < length; i += 2) {
-      const zr = y[i] as number;
-      const zi = y[i + 1] as number;
-      const norm = zr * zr + zi * zi;
-      const yr = zr / norm;
-      const yi = -zi / norm;
-      y[i] = yr;
-      y[i + 1] = yi;
-      total[i] = (total[i] as number) + yr;
-      total[i + 1] = (total[i + 1] as number) + yi;
-    }
+    invertAndAdd(y, total, length);
   }
   const end = state.coilCount;
   for (let k = 0; k < partCount; k += 1) {
@@ -118,25 +102,11 @@ function evaluate(state: SolveState, node: Network, impedance: Float64Array): vo
     const from = workspace.boundaryStack[firstBoundary + k] as number;
     const to = k + 1 < partCount ? (workspace.boundaryStack[firstBoundary + k + 1] as number) : end;
     // factor Y_k / ΣY, written over y
-    for (let i = 0; i < length; i += 2) {
-      const ar = y[i] as number;
-      const ai = y[i + 1] as number;
-      const br = total[i] as number;
-      const bi = total[i + 1] as number;
-      const norm = br * br + bi * bi;
-      y[i] = (ar * br + ai * bi) / norm;
-      y[i + 1] = (ai * br - ar * bi) / norm;
-    }
+    divideInPlace(y, total, length);
     for (let s = from; s < to; s += 1) multiplyComplexInPlace(out[workspace.coilStack[s] as number] as Float64Array, y, length);
   }
   // Z = 1/ΣY
-  for (let i = 0; i < length; i += 2) {
-    const br = total[i] as number;
-    const bi = total[i + 1] as number;
-    const norm = br * br + bi * bi;
-    impedance[i] = br / norm;
-    impedance[i + 1] = -bi / norm;
-  }
+  invertInto(total, impedance, length);
   state.boundaryCount = firstBoundary;
   workspace.top = mark;
 }
@@ -228,9 +198,72 @@ function solveSourceFactorsInto(prepared: PreparedCircuit, network: Network, out
 export function solveLoadGain(prepared: PreparedCircuit, impedance: Float64Array, gain: Float64Array): Float64Array {
   const length = 2 * prepared.frequenciesHz.length;
   if (prepared.load.silent) return gain.fill(0);
-  const hot = prepared.hotAdmittance;
-  const outY = prepared.outAdmittance;
-  const bridge = prepared.bridgeAdmittance;
+  loadGainInto(impedance, prepared.hotAdmittance, prepared.outAdmittance, prepared.bridgeAdmittance, gain, length);
+  return gain;
+}
+
+/*
+ * The solver's loops over frequencies, each a function of its own: V8 compiles
+ * a long loop while it runs (on-stack replacement), and a loop inside a larger
+ * function left that compiled code bailing out on the code after it, call
+ * after call (src/math/real-fft.ts). A function that is only its loop is
+ * compiled once and stays compiled.
+ */
+
+/** A coil's terms: target = sign·source (its source factor with its phase), impedance += z. */
+function addCoil(source: Float64Array, z: Float64Array, sign: number, target: Float64Array, impedance: Float64Array, length: number): void {
+  for (let i = 0; i < length; i += 1) {
+    target[i] = sign * (source[i] as number);
+    impedance[i] = (impedance[i] as number) + (z[i] as number);
+  }
+}
+
+/** target += part (series impedances add). */
+function addInto(target: Float64Array, part: Float64Array, length: number): void {
+  for (let i = 0; i < length; i += 1) target[i] = (target[i] as number) + (part[i] as number);
+}
+
+/** y ← 1/y (a part's impedance to its admittance), complex, and total += the admittance. */
+function invertAndAdd(y: Float64Array, total: Float64Array, length: number): void {
+  for (let i = 0; i < length; i += 2) {
+    const zr = y[i] as number;
+    const zi = y[i + 1] as number;
+    const norm = zr * zr + zi * zi;
+    const yr = zr / norm;
+    const yi = -zi / norm;
+    y[i] = yr;
+    y[i + 1] = yi;
+    total[i] = (total[i] as number) + yr;
+    total[i + 1] = (total[i + 1] as number) + yi;
+  }
+}
+
+/** y ← y/total, complex: (a + jb)/(c + jd) = ((ac + bd) + j(bc − ad))/(c² + d²). */
+function divideInPlace(y: Float64Array, total: Float64Array, length: number): void {
+  for (let i = 0; i < length; i += 2) {
+    const ar = y[i] as number;
+    const ai = y[i + 1] as number;
+    const br = total[i] as number;
+    const bi = total[i + 1] as number;
+    const norm = br * br + bi * bi;
+    y[i] = (ar * br + ai * bi) / norm;
+    y[i + 1] = (ai * br - ar * bi) / norm;
+  }
+}
+
+/** out = 1/total, complex. */
+function invertInto(total: Float64Array, out: Float64Array, length: number): void {
+  for (let i = 0; i < length; i += 2) {
+    const br = total[i] as number;
+    const bi = total[i + 1] as number;
+    const norm = br * br + bi * bi;
+    out[i] = br / norm;
+    out[i + 1] = -bi / norm;
+  }
+}
+
+/** The load's gain per frequency (solveLoadGain's formula) from the wiring's impedance and the load's admittances. */
+function loadGainInto(impedance: Float64Array, hot: Float64Array, outY: Float64Array, bridge: Float64Array | null, gain: Float64Array, length: number): void {
   for (let i = 0; i < length; i += 2) {
     const zr = impedance[i] as number;
     const zi = impedance[i + 1] as number;
@@ -264,5 +297,4 @@ export function solveLoadGain(prepared: PreparedCircuit, impedance: Float64Array
     gain[i] = (nr * dr + ni * di) / dn;
     gain[i + 1] = (ni * dr - nr * di) / dn;
   }
-  return gain;
 }

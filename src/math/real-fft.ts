@@ -94,6 +94,79 @@ function fftEngine(size: number, table: Float64Array): FFT {
   return engine as unknown as FFT;
 }
 
+/*
+ * The transforms' loops, each a function of its own: V8 compiles a long loop
+ * while it runs (on-stack replacement), and code after the loop that had not
+ * yet run when it did (the engine call) made that compiled code bail out on
+ * every later call, leaving the rest of the transform to the interpreter (seen
+ * with node --trace-deopt: once per wiring). A function that is only its loop
+ * has nothing after it to bail out on.
+ */
+
+/** target[n] = input[n]·window[n] (or input[n]) for n < min(input length, target length), zeros after. */
+function copyPadded(input: ArrayLike<number>, target: Float64Array, window?: ArrayLike<number>): void {
+  const count = Math.min(input.length, target.length);
+  if (window) for (let n = 0; n < count; n += 1) target[n] = (input[n] as number) * (window[n] as number);
+  else for (let n = 0; n < count; n += 1) target[n] = input[n] as number;
+  target.fill(0, count);
+}
+
+/** out[n] = source[n] for n < count. */
+function copyPrefix(source: Float64Array, out: Float64Array, count: number): void {
+  for (let n = 0; n < count; n += 1) out[n] = source[n] as number;
+}
+
+/**
+ * The half spectrum of a real signal from Z = DFT_M(z), z[m] = x[2m] + j·x[2m+1], M = N/2; with Z[M] = Z[0]
+ * E[k] = (Z[k] + conj(Z[M−k]))/2, O[k] = (Z[k] − conj(Z[M−k]))/(2j),
+ * X[k] = E[k] + W^k·O[k], W = e^{−j2π/N}, k = 0 … M (Numerical Recipes, 3rd ed., §12.3).
+ */
+function unpackForward(packed: Float64Array, twiddles: Float64Array, half: number, out: Float64Array): void {
+  for (let k = 0; k <= half; k += 1) {
+    const a = k % half;
+    const b = (half - k) % half;
+    const zr = packed[2 * a] as number;
+    const zi = packed[2 * a + 1] as number;
+    const cr = packed[2 * b] as number; // conj(Z[M−k])
+    const ci = -(packed[2 * b + 1] as number);
+    const er = (zr + cr) / 2;
+    const ei = (zi + ci) / 2;
+    const or = (zi - ci) / 2; // (Z − conj Z_{M−k}) / (2j)
+    const oi = -(zr - cr) / 2;
+    const wr = k < half ? (twiddles[2 * k] as number) : -1;
+    const wi = k < half ? (twiddles[2 * k + 1] as number) : 0;
+    out[2 * k] = er + wr * or - wi * oi;
+    out[2 * k + 1] = ei + wr * oi + wi * or;
+  }
+}
+
+/**
+ * The packing of a real signal's inverse transform into one complex inverse FFT of length M = N/2 (the standard
+ * packing; e.g. Numerical Recipes, 3rd ed., §12.3): E[k] = (X[k] + conj(X[M−k]))/2 is the spectrum of the even
+ * samples and O[k] = (X[k] − conj(X[M−k]))/(2·W^k) that of the odd ones (W = e^{−j2π/N}); z = IDFT_M(E + jO)
+ * gives x[2m] = Re z[m], x[2m+1] = Im z[m]. The spectrum is read as halfSpectrum[i]·scale.
+ */
+function packInverse(halfSpectrum: Float64Array, twiddles: Float64Array, half: number, scale: number, packed: Float64Array): void {
+  for (let k = 0; k < half; k += 1) {
+    // x·1 = x exactly, so an unscaled inverse is unchanged to the last bit
+    const ar = (halfSpectrum[2 * k] as number) * scale;
+    const ai = (halfSpectrum[2 * k + 1] as number) * scale;
+    const br = (halfSpectrum[2 * (half - k)] as number) * scale; // X[M−k], conjugated below
+    const bi = -((halfSpectrum[2 * (half - k) + 1] as number) * scale);
+    const er = (ar + br) / 2;
+    const ei = (ai + bi) / 2;
+    const dr = (ar - br) / 2;
+    const di = (ai - bi) / 2;
+    // O = D / W^k = D · conj(W^k)
+    const wr = twiddles[2 * k] as number;
+    const wi = -(twiddles[2 * k + 1] as number);
+    const or = dr * wr - di * wi;
+    const oi = dr * wi + di * wr;
+    packed[2 * k] = er - oi; // E + jO
+    packed[2 * k + 1] = ei + or;
+  }
+}
+
 /** The FFT for size N (a power of two ≥ 4), built once and reused; the full-size complex engine only on the first `forward`. */
 export function realFft(size: number): RealFft {
   const cached = cache.get(size);
@@ -118,71 +191,21 @@ export function realFft(size: number): RealFft {
       fullEngine ??= fftEngine(size, twiddles);
       padded ??= new Float64Array(size);
       full ??= new Float64Array(2 * size);
-      padded.fill(0);
-      const count = Math.min(input.length, size);
-      for (let i = 0; i < count; i += 1) padded[i] = input[i] as number;
+      copyPadded(input, padded);
       fullEngine.realTransform(full, padded);
       out.set(full.subarray(0, 2 * bins));
       return out;
     },
     forwardPacked(input, out, window) {
-      // z[m] = x[2m] + j·x[2m+1], Z = DFT_M(z), M = N/2; then with Z[M] = Z[0]
-      // E[k] = (Z[k] + conj(Z[M−k]))/2, O[k] = (Z[k] − conj(Z[M−k]))/(2j),
-      // X[k] = E[k] + W^k·O[k], W = e^{−j2π/N}, k = 0 … M (Numerical
-      // Recipes, 3rd ed., §12.3).
-      const count = Math.min(input.length, size);
-      if (window) for (let n = 0; n < count; n += 1) packedTime[n] = (input[n] as number) * (window[n] as number);
-      else for (let n = 0; n < count; n += 1) packedTime[n] = input[n] as number;
-      packedTime.fill(0, count);
+      copyPadded(input, packedTime, window);
       halfEngine.transform(packed, packedTime);
-      for (let k = 0; k <= half; k += 1) {
-        const a = k % half;
-        const b = (half - k) % half;
-        const zr = packed[2 * a] as number;
-        const zi = packed[2 * a + 1] as number;
-        const cr = packed[2 * b] as number; // conj(Z[M−k])
-        const ci = -(packed[2 * b + 1] as number);
-        const er = (zr + cr) / 2;
-        const ei = (zi + ci) / 2;
-        const or = (zi - ci) / 2; // (Z − conj Z_{M−k}) / (2j)
-        const oi = -(zr - cr) / 2;
-        const wr = k < half ? (twiddles[2 * k] as number) : -1;
-        const wi = k < half ? (twiddles[2 * k + 1] as number) : 0;
-        out[2 * k] = er + wr * or - wi * oi;
-        out[2 * k + 1] = ei + wr * oi + wi * or;
-      }
+      unpackForward(packed, twiddles, half, out);
       return out;
     },
     inverse(halfSpectrum, out = new Float64Array(size), scale = 1) {
-      // A real signal of length N from one complex inverse FFT of length N/2
-      // (the standard packing; e.g. Numerical Recipes, 3rd ed., §12.3):
-      // with M = N/2, E[k] = (X[k] + conj(X[M−k]))/2 is the spectrum of the
-      // even samples and O[k] = (X[k] − conj(X[M−k]))/(2·W^k) that of the odd
-      // ones (W = e^{−j2π/N}); z = IDFT_M(E + jO) gives x[2m] = Re z[m],
-      // x[2m+1] = Im z[m].
-      for (let k = 0; k < half; k += 1) {
-        // x·1 = x exactly, so an unscaled inverse is unchanged to the last bit
-        const ar = (halfSpectrum[2 * k] as number) * scale;
-        const ai = (halfSpectrum[2 * k + 1] as number) * scale;
-        const br = (halfSpectrum[2 * (half - k)] as number) * scale; // X[M−k], conjugated below
-        const bi = -((halfSpectrum[2 * (half - k) + 1] as number) * scale);
-        const er = (ar + br) / 2;
-        const ei = (ai + bi) / 2;
-        const dr = (ar - br) / 2;
-        const di = (ai - bi) / 2;
-        // O = D / W^k = D · conj(W^k)
-        const wr = twiddles[2 * k] as number;
-        const wi = -(twiddles[2 * k + 1] as number);
-        const or = dr * wr - di * wi;
-        const oi = dr * wi + di * wr;
-        packed[2 * k] = er - oi; // E + jO
-        packed[2 * k + 1] = ei + or;
-      }
+      packInverse(halfSpectrum, twiddles, half, scale, packed);
       halfEngine.inverseTransform(packedTime, packed);
-      for (let m = 0; m < half; m += 1) {
-        out[2 * m] = packedTime[2 * m] as number;
-        out[2 * m + 1] = packedTime[2 * m + 1] as number;
-      }
+      copyPrefix(packedTime, out, size);
       return out;
     },
   };

@@ -76,11 +76,7 @@ export function computeCoilSpectra(guitar: Pick<Guitar, 'coils'>, strings: Strin
   // W_s(f)·e^{−jωD}: each wave delayed by D samples (circularly), then transformed once.
   const shifted = new Float64Array(fftSize);
   const waveSpectra = strings.waves.map((wave) => {
-    shifted.fill(0);
-    for (let n = 0; n < wave.length; n += 1) {
-      const at = n + delay;
-      shifted[at < fftSize ? at : at - fftSize] = wave[n] as number;
-    }
+    shiftCircular(wave, delay, shifted);
     return fft.forward(shifted);
   });
 
@@ -97,6 +93,16 @@ export function computeCoilSpectra(guitar: Pick<Guitar, 'coils'>, strings: Strin
     });
     return spectrum;
   });
+}
+
+/** shifted[(n + delay) mod N] = wave[n], zeros elsewhere (N = shifted.length; a function of its own, so V8's compiled code for the running loop has nothing after it to bail out on, src/math/real-fft.ts). */
+function shiftCircular(wave: Float64Array, delay: number, shifted: Float64Array): void {
+  const size = shifted.length;
+  shifted.fill(0);
+  for (let n = 0; n < wave.length; n += 1) {
+    const at = n + delay;
+    shifted[at < size ? at : at - size] = wave[n] as number;
+  }
 }
 
 /** Steps between exact resets of the rotating phasors (their rounding error grows about linearly with the run). */

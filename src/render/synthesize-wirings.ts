@@ -223,21 +223,31 @@ function createSharedParts(guitar: Guitar, coils: CoilSpectra, fft: RealFft): Sh
  */
 function multiplySpectra(factors: readonly Float64Array[], spectra: readonly Float64Array[], products: readonly Float64Array[], used: Uint8Array): void {
   factors.forEach((factor, coil) => {
-    let any = 0;
-    for (let k = 0; k < factor.length && any === 0; k += 1) if (factor[k] !== 0) any = 1;
+    const any = anyNonZero(factor) ? 1 : 0;
     used[coil] = any;
-    if (any === 0) return;
-    const emf = spectra[coil] as Float64Array;
-    const product = products[coil] as Float64Array;
-    for (let k = 0; k < product.length; k += 2) {
-      const tr = factor[k] as number;
-      const ti = factor[k + 1] as number;
-      const er = emf[k] as number;
-      const ei = emf[k + 1] as number;
-      product[k] = tr * er - ti * ei;
-      product[k + 1] = tr * ei + ti * er;
-    }
+    if (any === 1) multiplyComplexInto(factor, spectra[coil] as Float64Array, products[coil] as Float64Array);
   });
+}
+
+/**
+ * Does `values` hold a non-zero entry? Each of the synthesis's long loops is a function of its own, so that V8's
+ * compiled code for a running loop (on-stack replacement) has nothing after the loop to bail out on (src/math/real-fft.ts).
+ */
+function anyNonZero(values: Float64Array): boolean {
+  for (let k = 0; k < values.length; k += 1) if (values[k] !== 0) return true;
+  return false;
+}
+
+/** product_k = a_k·b_k, complex, interleaved: (ar + j·ai)(br + j·bi) = (ar·br − ai·bi) + j(ar·bi + ai·br). */
+function multiplyComplexInto(a: Float64Array, b: Float64Array, product: Float64Array): void {
+  for (let k = 0; k < product.length; k += 2) {
+    const tr = a[k] as number;
+    const ti = a[k + 1] as number;
+    const er = b[k] as number;
+    const ei = b[k + 1] as number;
+    product[k] = tr * er - ti * ei;
+    product[k + 1] = tr * ei + ti * er;
+  }
 }
 
 /**
@@ -273,6 +283,11 @@ function sumSources(parts: SharedParts, signs: Float64Array, gain: Float64Array,
   }
 }
 
+/** out[n] = time[n] rounded to float32, n < length (a loop of its own: see `anyNonZero`). */
+function copyToFloat32(time: Float64Array, out: Float32Array, length: number): void {
+  for (let n = 0; n < length; n += 1) out[n] = time[n] as number;
+}
+
 /** The synthesis of `guitar` on `circuit` (prepared for `overrides`), sharing `parts` with the guitar's other knob settings. */
 function synthesisOn(parts: SharedParts, guitar: Guitar, circuit: PreparedCircuit, overrides: CircuitOverrides): WiringSynthesis {
   const { coils, fft, output, time, signs } = parts;
@@ -302,7 +317,7 @@ function synthesisOn(parts: SharedParts, guitar: Guitar, circuit: PreparedCircui
     sumSources(parts, signs, gain, output, complexLength);
     fft.inverse(output, time);
     // The pickup spectra are delayed by `delay` samples so that every coil stays causal; sample n is time (n − delay)/fs of the phrase.
-    for (let n = 0; n < length; n += 1) out[n] = time[n] as number;
+    copyToFloat32(time, out, length);
     return out;
   };
 
