@@ -220,6 +220,26 @@ function foldCrossSpectra(spectra: readonly Float64Array[], size: number, locate
 }
 
 /**
+ * Re Σ_m Q_m·S̃_m over `points` grid points, S̃ read from `table` at `offset`.
+ * This and `anyNonZero` are loops of their own, so that V8's code compiled
+ * for a running loop has nothing after it to bail out on (seen with node
+ * --trace-deopt: once per phase class; src/math/real-fft.ts).
+ */
+function foldPairTerm(pairProduct: Float64Array, table: Float64Array, offset: number, points: number): number {
+  let sum = 0;
+  for (let m = 0; m < points; m += 1) {
+    sum += (pairProduct[2 * m] as number) * (table[offset + 2 * m] as number) - (pairProduct[2 * m + 1] as number) * (table[offset + 2 * m + 1] as number);
+  }
+  return sum;
+}
+
+/** Does `values` hold a non-zero entry? */
+function anyNonZero(values: Float64Array): boolean {
+  for (let m = 0; m < values.length; m += 1) if (values[m] !== 0) return true;
+  return false;
+}
+
+/**
  * Prepare the audio figures of every wiring of `guitar` from the coil signals
  * of the reference performance (see the file comment). The result is a pure
  * function of its inputs: a wiring's figures do not depend on which wirings
@@ -304,11 +324,7 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
 
   /** Re Σ_m Q_m·S̃_m for one pair's table slice, doubled for a ≠ b (the (b, a) term is its conjugate). */
   const foldTerm = (table: Float64Array, pair: number, twice: boolean): number => {
-    let sum = 0;
-    const offset = 2 * pair * points;
-    for (let m = 0; m < points; m += 1) {
-      sum += (pairProduct[2 * m] as number) * (table[offset + 2 * m] as number) - (pairProduct[2 * m + 1] as number) * (table[offset + 2 * m + 1] as number);
-    }
+    const sum = foldPairTerm(pairProduct, table, 2 * pair * points, points);
     return twice ? 2 * sum : sum;
   };
 
@@ -323,9 +339,7 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
   /** The quadratic forms' terms per pair and the used coils, from the transfers just solved into `transfers`. */
   const foldTransfers = (): void => {
     transfers.forEach((transfer, coil) => {
-      let any = 0;
-      for (let m = 0; m < transfer.length; m += 1) if (transfer[m] !== 0) { any = 1; break; }
-      used[coil] = any;
+      used[coil] = anyNonZero(transfer) ? 1 : 0;
     });
     for (let pair = 0; pair < pairCount; pair += 1) {
       const a = pairA[pair] as number;

@@ -106,9 +106,9 @@ function fftEngine(size: number, table: Float64Array): FFT {
 /** target[n] = input[n]·window[n] (or input[n]) for n < min(input length, target length), zeros after. */
 function copyPadded(input: ArrayLike<number>, target: Float64Array, window?: ArrayLike<number>): void {
   const count = Math.min(input.length, target.length);
+  target.fill(0, count);
   if (window) for (let n = 0; n < count; n += 1) target[n] = (input[n] as number) * (window[n] as number);
   else for (let n = 0; n < count; n += 1) target[n] = input[n] as number;
-  target.fill(0, count);
 }
 
 /** out[n] = source[n] for n < count. */
