@@ -1,4 +1,7 @@
+import { writeFileSync } from 'node:fs';
+import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
+import { temporaryFolder } from '../../test/support/temporary-folder.js';
 import { InputError } from '../errors/index.js';
 import { encodeFinalWav } from './encode-final-wav.js';
 import { startEncodeThread } from './encode-thread.js';
@@ -29,6 +32,24 @@ describe('the encoding thread of a render\'s second pass', () => {
       expect(Buffer.from(threaded[index]!.bytes).equals(Buffer.from(own.bytes))).toBe(true);
       expect(threaded[index]!.record).toEqual(own.record);
     });
+  });
+
+  it('reads audio parked in a scratch file itself, one file after another into the same buffer, with the bytes of samples sent over', async () => {
+    const folder = temporaryFolder('encode-scratch');
+    const options = { sampleRateHz: 48_000, format: 'pcm24' as const };
+    const parked = [5, 6, 7].map((seed) => {
+      const samples = signal(3000, seed);
+      const path = join(folder, `${seed}.f32`);
+      writeFileSync(path, new Uint8Array(samples.buffer));
+      return path;
+    });
+    // One at a time, so the second and third files are read into the first one's buffer.
+    for (const [index, path] of parked.entries()) {
+      const fromFile = await thread.encode({ scratch: path }, 0.9, options);
+      const own = encodeFinalWav(signal(3000, index + 5), 0.9, options);
+      expect(Buffer.from(fromFile.bytes).equals(Buffer.from(own.bytes))).toBe(true);
+      expect(fromFile.record).toEqual(own.record);
+    }
   });
 
   it('moves a buffer the samples fill, copies a view into a larger one', async () => {

@@ -19,7 +19,7 @@ const work = mkdtempSync(join(tmpdir(), 'coilbench-encode-thread-'));
 
 afterAll(() => rmSync(work, { recursive: true, force: true }));
 
-async function renderInto(name: string, encodeThread: boolean): Promise<string> {
+async function renderInto(name: string, encodeThread: boolean, parkInMemoryBytes?: number): Promise<string> {
   const folder = outputFolder(join(work, name));
   await renderGuitar({
     guitar,
@@ -36,6 +36,7 @@ async function renderInto(name: string, encodeThread: boolean): Promise<string> 
     folder,
     generator: 'coilbench test',
     encodeThread,
+    ...(parkInMemoryBytes === undefined ? {} : { parkInMemoryBytes }),
   });
   return folder.root;
 }
@@ -50,5 +51,14 @@ describe('the final WAVs encoded partly on a second thread', () => {
     for (const name of names) expect(readFileSync(join(shared, 'wav', name)).equals(readFileSync(join(own, 'wav', name))), name).toBe(true);
     const entries = (root: string) => (JSON.parse(readFileSync(join(root, '.coilbench-manifest.json'), 'utf8')) as { entries: unknown }).entries;
     expect(entries(shared)).toEqual(entries(own));
+  });
+
+  it('are the same when every wiring\'s audio waits in a scratch file: read on the encoding thread, or into one reused buffer on the render\'s own', { timeout: 120_000 }, async () => {
+    const own = await renderInto('own-held', false);
+    const names = readdirSync(join(own, 'wav')).filter((name) => name.endsWith('.wav')).sort();
+    for (const encodeThread of [false, true]) {
+      const parked = await renderInto(`parked-${encodeThread}`, encodeThread, 0);
+      for (const name of names) expect(readFileSync(join(parked, 'wav', name)).equals(readFileSync(join(own, 'wav', name))), name).toBe(true);
+    }
   });
 });

@@ -46,6 +46,7 @@ import { MANIFEST_VERSION, type Manifest, hashOf, hashWithShared, readManifest }
 import type { WavFormat } from './wav-file.js';
 import { type EncodedWav, encodeFinalWav } from './encode-final-wav.js';
 import { ENCODE_THREAD_IN_FLIGHT, encodeThreadPays, startEncodeThread } from './encode-thread.js';
+import { readScratchAudio } from './scratch-audio.js';
 import { createDeferredSync, removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
 import { writeJsonFileAtomicSync } from './write-json-file.js';
 import { activeScratchFolders } from './scratch-folders.js';
@@ -98,6 +99,8 @@ export interface RenderRequest {
   readonly positions?: readonly ReportSwitchPosition[];
   /** Run the analysis (circuit figures, groups, response curves) on a thread of its own (default: when the machine has a second core). */
   readonly analysisThread?: boolean;
+  /** Processed audio held in memory between the passes, bytes (default PARK_IN_MEMORY_BYTES; the rest goes to scratch files). */
+  readonly parkInMemoryBytes?: number;
   /** Encode part of the final WAV files on a second thread (default: for ENCODE_THREAD_MIN_FILES files or more, on a machine with a second core). */
   readonly encodeThread?: boolean;
 }
@@ -217,7 +220,7 @@ async function renderWith(request: RenderRequest, events: RenderEvents, analysis
   const referenceCoils = referenceCoilsOf(guitar, basis);
   const settings: AudioSettings = {
     referenceCoils,
-    parkInMemoryBytes: PARK_IN_MEMORY_BYTES,
+    parkInMemoryBytes: request.parkInMemoryBytes ?? PARK_IN_MEMORY_BYTES,
     guitar,
     overrides: request.overrides,
     phrase: request.phrase,
@@ -321,6 +324,7 @@ async function renderWith(request: RenderRequest, events: RenderEvents, analysis
   let skipped = 0;
   const encoder = request.writeWav !== false && (request.encodeThread ?? encodeThreadPays(selected.length)) ? startEncodeThread() : null;
   const handedOver: Promise<void>[] = [];
+  let spare: Float32Array | undefined;
   try {
     for (const [index, wiring] of selected.entries()) {
       const entry = entries[wiring.expression] as Entry;
@@ -336,7 +340,9 @@ async function renderWith(request: RenderRequest, events: RenderEvents, analysis
         const parked = scratchFiles.get(wiring.id);
         const held = inMemory.get(wiring.id);
         inMemory.delete(wiring.id);
-        const audio = held ?? (parked ? readScratch(parked) : await processedAudio(wiring));
+        // Handed to the encoding thread while it has room: a parked file is read there, not here.
+        const handOver = encoder !== null && encoder.inFlight() < ENCODE_THREAD_IN_FLIGHT;
+        const audio = held ?? (parked === undefined ? await processedAudio(wiring) : handOver ? null : readScratchAudio(parked, spare));
         const options = {
           sampleRateHz: request.sampleRateHz,
           format: request.format,
@@ -352,12 +358,15 @@ async function renderWith(request: RenderRequest, events: RenderEvents, analysis
             await writeFileAtomic(path, encoded.bytes, deferred);
             Object.assign(entry, { fileHash, file: name, written: { wav: encoded.record } });
           });
-        if (encoder !== null && encoder.inFlight() < ENCODE_THREAD_IN_FLIGHT) {
-          const done = encoder.encode(audio, gain, options).then(write);
+        if (encoder !== null && handOver) {
+          const done = encoder.encode(audio ?? { scratch: parked as string }, gain, options).then(write);
           done.catch(() => undefined); // awaited below (so not reported as unhandled meanwhile)
           handedOver.push(done);
         } else {
-          await write(encodeFinalWav(audio, gain, options));
+          const samples = audio as Float32Array;
+          await write(encodeFinalWav(samples, gain, options));
+          // Read from scratch for this file alone: the next file read here reuses it (its bytes are the WAV's own).
+          if (held === undefined && parked !== undefined) spare = samples;
         }
         await saveManifest(false);
         written += 1;
@@ -537,11 +546,3 @@ function groupByShape(guitar: Guitar, wirings: readonly Wiring[]): Wiring[] {
   return [...groups.values()].flat();
 }
 
-function readScratch(path: string): Float32Array {
-  const bytes = readFileSync(path);
-  // A file read whole gets a buffer of its own, aligned for float32; copied only if it is not.
-  if (bytes.byteOffset % Float32Array.BYTES_PER_ELEMENT === 0) return new Float32Array(bytes.buffer, bytes.byteOffset, bytes.byteLength / Float32Array.BYTES_PER_ELEMENT);
-  const copy = new Uint8Array(bytes.byteLength);
-  copy.set(bytes);
-  return new Float32Array(copy.buffer);
-}

@@ -59,4 +59,25 @@ describe('runRenderPassOnThreads', () => {
     expect(split.filter((result) => result.samples).length).toBe(8);
     expect(split.filter((result) => result.scratch).length).toBe(items.filter((item) => item.audio).length - 8);
   });
+
+  it('reuses the buffer of audio parked in a scratch file for the next wiring, never one held in memory (direct chain)', async () => {
+    const direct: AudioSettings = { ...settings, chain: 'direct', hum: null };
+    const audioItems = items.map((item) => ({ ...item, audio: true }));
+    const [all, few] = [mkdtempSync(join(tmpdir(), 'coilbench-pass-')), mkdtempSync(join(tmpdir(), 'coilbench-pass-'))];
+    folders.push(all, few);
+    // Everything held in memory: no scratch file, so no buffer is reused.
+    const held = await runRenderPassOnThreads({ ...direct, parkInMemoryBytes: 2 ** 30 }, audioItems, all, 1);
+    const frames = held[0]?.audio?.frames ?? 0;
+    // Room for three wirings: the rest go to scratch files, each one's buffer then synthesising the next.
+    const parked = await runRenderPassOnThreads({ ...direct, parkInMemoryBytes: 3 * frames * Float32Array.BYTES_PER_ELEMENT }, audioItems, few, 1);
+    expect(parked.filter((result) => result.samples)).toHaveLength(3);
+    const bytesOf = (result: (typeof parked)[number]): Buffer =>
+      result.samples ? Buffer.from(result.samples.buffer, result.samples.byteOffset, result.samples.byteLength) : readFileSync(result.scratch ?? '');
+    parked.forEach((result, index) => {
+      const reference = held[index];
+      expect(result.audio).toEqual(reference?.audio);
+      expect(bytesOf(result).equals(bytesOf(reference as (typeof held)[number]))).toBe(true);
+    });
+  });
 });
+
