@@ -61,7 +61,7 @@ import {
   solveTransfers,
 } from '../circuit/index.js';
 import type { Guitar } from '../guitar/index.js';
-import { nextPowerOfTwo, realFft } from '../math/index.js';
+import { anyNonZero, nextPowerOfTwo, realFft } from '../math/index.js';
 import type { Network } from '../wiring/index.js';
 import { applyBiquad } from './biquad.js';
 import { designKWeighting } from './k-weighting.js';
@@ -221,7 +221,7 @@ function foldCrossSpectra(spectra: readonly Float64Array[], size: number, locate
 
 /**
  * Re Σ_m Q_m·S̃_m over `points` grid points, S̃ read from `table` at `offset`.
- * This and `anyNonZero` are loops of their own, so that V8's code compiled
+ * A loop of its own (as math/any-non-zero.ts), so that V8's code compiled
  * for a running loop has nothing after it to bail out on (seen with node
  * --trace-deopt: once per phase class; src/math/real-fft.ts).
  */
@@ -231,12 +231,6 @@ function foldPairTerm(pairProduct: Float64Array, table: Float64Array, offset: nu
     sum += (pairProduct[2 * m] as number) * (table[offset + 2 * m] as number) - (pairProduct[2 * m + 1] as number) * (table[offset + 2 * m + 1] as number);
   }
   return sum;
-}
-
-/** Does `values` hold a non-zero entry? */
-function anyNonZero(values: Float64Array): boolean {
-  for (let m = 0; m < values.length; m += 1) if (values[m] !== 0) return true;
-  return false;
 }
 
 /**

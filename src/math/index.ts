@@ -7,4 +7,5 @@ export { runSteps } from './run-steps.js';
 export type { Steps } from './run-steps.js';
 export { fitLeastSquares, solveLinear } from './fit-least-squares.js';
 export type { LeastSquaresOptions, LeastSquaresResult, ResidualFunction } from './fit-least-squares.js';
-export { multiplyComplexInPlace } from './multiply-complex.js';
+export { multiplyComplexInPlace, multiplyComplexInto } from './multiply-complex.js';
+export { anyNonZero } from './any-non-zero.js';

@@ -22,7 +22,7 @@ import {
 } from '../circuit/index.js';
 import { InputError } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
-import { type RealFft, nextPowerOfTwo, realFft } from '../math/index.js';
+import { type RealFft, anyNonZero, multiplyComplexInto, nextPowerOfTwo, realFft } from '../math/index.js';
 import { computeCoilSpectra, pickupDelaySamples } from '../pickup/index.js';
 import { type Phrase, type StringOptions, renderPhrase } from '../string/index.js';
 import type { Network } from '../wiring/index.js';
@@ -230,27 +230,6 @@ function multiplySpectra(factors: readonly Float64Array[], spectra: readonly Flo
 }
 
 /**
- * Does `values` hold a non-zero entry? Each of the synthesis's long loops is a function of its own, so that V8's
- * compiled code for a running loop (on-stack replacement) has nothing after the loop to bail out on (src/math/real-fft.ts).
- */
-function anyNonZero(values: Float64Array): boolean {
-  for (let k = 0; k < values.length; k += 1) if (values[k] !== 0) return true;
-  return false;
-}
-
-/** product_k = a_k·b_k, complex, interleaved: (ar + j·ai)(br + j·bi) = (ar·br − ai·bi) + j(ar·bi + ai·br). */
-function multiplyComplexInto(a: Float64Array, b: Float64Array, product: Float64Array): void {
-  for (let k = 0; k < product.length; k += 2) {
-    const tr = a[k] as number;
-    const ti = a[k + 1] as number;
-    const er = b[k] as number;
-    const ei = b[k + 1] as number;
-    product[k] = tr * er - ti * ei;
-    product[k + 1] = tr * ei + ti * er;
-  }
-}
-
-/**
  * output = G·Σ_i p_i·P_i per bin, in one pass over the bins: the used coils'
  * products added in coil order from 0, then the complex product by G,
  * (a + jb)(c + jd) = (ac − bd) + j(ad + bc) — the same operations in the same
@@ -283,7 +262,7 @@ function sumSources(parts: SharedParts, signs: Float64Array, gain: Float64Array,
   }
 }
 
-/** out[n] = time[n] rounded to float32, n < length (a loop of its own: see `anyNonZero`). */
+/** out[n] = time[n] rounded to float32, n < length (a loop of its own, as math/any-non-zero.ts). */
 function copyToFloat32(time: Float64Array, out: Float32Array, length: number): void {
   for (let n = 0; n < length; n += 1) out[n] = time[n] as number;
 }
