@@ -183,7 +183,7 @@ describe('coilbench netlist', () => {
     const { status, out, err } = await run(samples, 'netlist', 'three-single-coil.json', 'neck + treble');
     expect(status).toBe(2);
     expect(out).toBe('');
-    expect(err).toBe('coilbench: <wiring>: expected a known coil (neck, mid, bridge), got "\\"treble\\" at column 8 of \\"neck + treble\\""\n');
+    expect(err).toBe('coilbench: <wiring>: expected a known coil (neck, mid, bridge), got "treble" at column 8 of "neck + treble"\n');
   });
 
   it('the build sheet of a series out-of-phase wiring reads as a solderer expects', async () => {

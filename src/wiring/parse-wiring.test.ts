@@ -32,7 +32,7 @@ describe('parseWiring', () => {
     ['neck | mid', 'write parallel as "//"'],
     ['neck - mid', 'write series as "+"'],
     ['neck-mid', 'write series as "+"'],
-    ['neck +', 'at the end'],
+    ['neck +', 'the end of "neck +"'],
     ['(neck + mid', '")" to close the group'],
     ['neck + mid)', 'no ")" without a matching "("'],
     ['', 'a wiring such as'],

@@ -11,7 +11,7 @@
  * Unknown names, an element used twice, empty groups and stray symbols are
  * errors naming the column.
  */
-import { InputError } from '../errors/index.js';
+import { InputError, showValue } from '../errors/index.js';
 import { canonicalize } from './canonicalize.js';
 import { type Network, invertAll, leaf } from './network.js';
 
@@ -55,8 +55,9 @@ class Parser {
   ) {}
 
   private fail(expected: string, token: Token): never {
-    const where = token.type === 'end' ? 'at the end' : `${JSON.stringify(token.text)} at column ${token.column}`;
-    throw InputError.at(this.path, expected, `${where} of ${JSON.stringify(this.source)}`);
+    // Already shown as written (showValue: quoted, hidden characters visible), so not quoted a second time.
+    const where = token.type === 'end' ? 'the end' : `${showValue(token.text)} at column ${token.column}`;
+    throw new InputError([{ path: this.path, expected, got: `${where} of ${showValue(this.source)}` }]);
   }
 
   private peek(): Token {
@@ -165,11 +166,13 @@ function tokenize(source: string, path: string): Token[] {
     } else {
       const stray = source.startsWith('||', i) ? '||' : char;
       const hint = STRAY_HINTS[stray];
-      throw InputError.at(
-        path,
-        `only coil names, "+", "//", "~" and parentheses${hint ? ` (${hint})` : ''}`,
-        `${JSON.stringify(stray)} at column ${column} of ${JSON.stringify(source)}`,
-      );
+      throw new InputError([
+        {
+          path,
+          expected: `only coil names, "+", "//", "~" and parentheses${hint ? ` (${hint})` : ''}`,
+          got: `${showValue(stray)} at column ${column} of ${showValue(source)}`,
+        },
+      ]);
     }
   }
   return tokens;
