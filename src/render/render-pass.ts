@@ -148,6 +148,22 @@ export function createWiringRenderer(settings: AudioSettings): WiringRenderer {
   };
 }
 
+/**
+ * Wirings whose audio a pass makes at once, by effects chain: one, except
+ * through a chain with an audio-graph render (drive), whose wait on the
+ * library's own render thread leaves this thread free to synthesise the
+ * next wiring. Results are still taken in order, so nothing else changes.
+ */
+export const AUDIO_IN_FLIGHT: Readonly<Record<ChainName, number>> = Object.freeze({
+  direct: 1,
+  clean: 1,
+  compressed: 1,
+  drive: 2,
+});
+
+/** A wiring's audio as its render ended: the samples or the error, and the buffer its synthesis was offered. */
+type MadeAudio = { readonly processed: Float32Array; readonly into: Float32Array | undefined } | { readonly error: unknown; readonly into: Float32Array | undefined };
+
 /** Tries of one wiring's chain render before it is reported (the first and one retry). */
 export const CHAIN_RENDER_TRIES = 2;
 
@@ -181,7 +197,6 @@ export function peakOf(samples: Float32Array): number {
   return peak;
 }
 
-/** Run the first pass over `items`, parking processed audio in `scratchFolder`. `onStep` is told after each item. */
 /**
  * Loudness of `audio` as it will be written: ITU-R BS.1770's absolute gate
  * (−70 LKFS) makes loudness shift by slightly more or less than a gain, so a
@@ -197,13 +212,25 @@ function measureLoudnessNearCeiling(audio: Float32Array, sampleRateHz: number): 
   return measureLoudness([scaled], sampleRateHz) - 20 * Math.log10(gain);
 }
 
-export async function runRenderPass(
+/** Run the first pass over `items`, parking processed audio in `scratchFolder`. `onStep` is told after each item. */
+export function runRenderPass(
   settings: AudioSettings,
   items: readonly PassItem[],
   scratchFolder: string,
   onStep?: (result: PassResult) => void,
 ): Promise<PassResult[]> {
-  const renderer = createWiringRenderer(settings);
+  return runRenderPassWith(createWiringRenderer(settings), settings, items, scratchFolder, onStep);
+}
+
+/** The first pass with a given renderer (tests give one of their own), `depth` wirings' audio in flight at most. */
+export async function runRenderPassWith(
+  renderer: WiringRenderer,
+  settings: AudioSettings,
+  items: readonly PassItem[],
+  scratchFolder: string,
+  onStep?: (result: PassResult) => void,
+  depth = AUDIO_IN_FLIGHT[settings.chain],
+): Promise<PassResult[]> {
   const results: PassResult[] = [];
   // Figures first, phase class by phase class (cheap: no render); then each wiring's file audio.
   const measured = items.filter((item) => item.metrics);
@@ -213,24 +240,43 @@ export async function runRenderPass(
   // A buffer whose audio went to a scratch file (or whose chain made a new one), free for the next synthesis:
   // 0.2–0.4 ms to fill where fresh memory took 1–2 ms (zeroed pages), about a millisecond a wiring.
   let spare: Float32Array | undefined;
-  for (const item of items) {
+  // Wirings whose audio is on its way, started in order, `depth` at most: a chain that waits for an audio graph's
+  // render (drive) lets this thread synthesise the next wiring meanwhile. Each is taken in order.
+  const started: Array<Promise<MadeAudio> | null> = [];
+  const start = (index: number): void => {
+    const item = items[index];
+    if (item === undefined) return;
+    if (!item.audio) {
+      started[index] = null;
+      return;
+    }
+    const into = spare;
+    spare = undefined;
+    started[index] = renderer.processed(item.network, item.name ?? item.id, into).then(
+      (processed) => ({ processed, into }),
+      (error: unknown) => ({ error, into }),
+    );
+  };
+  for (let index = 0; index < Math.min(depth, items.length); index += 1) start(index);
+  for (const [index, item] of items.entries()) {
     const metrics = figuresOf.get(item.id);
     let audio: PassResult['audio'];
     let scratch: string | undefined;
     let samples: Float32Array | undefined;
     let failure: string | undefined;
     let processed: Float32Array | undefined;
-    if (item.audio) {
-      try {
-        const into = spare;
-        spare = undefined;
-        processed = await renderer.processed(item.network, item.name ?? item.id, into);
-        // A chain that made its own output leaves the synthesis buffer free.
-        if (processed !== into) spare = into;
-      } catch (error) {
+    const made = await started[index];
+    started[index] = null;
+    if (made) {
+      if ('error' in made) {
         // One wiring's failure does not cost the others: it is reported, the rest carries on.
-        if (!(error instanceof WorkError)) throw error;
-        failure = error.message;
+        if (!(made.error instanceof WorkError)) throw made.error;
+        failure = made.error.message;
+        spare ??= made.into;
+      } else {
+        processed = made.processed;
+        // A chain that made its own output leaves the synthesis buffer free.
+        if (processed !== made.into) spare ??= made.into;
       }
     }
     if (processed) {
@@ -258,6 +304,8 @@ export async function runRenderPass(
     };
     results.push(result);
     onStep?.(result);
+    // The next wiring starts once this one is parked: its synthesis may reuse this one's buffer.
+    start(index + depth);
   }
   return results;
 }

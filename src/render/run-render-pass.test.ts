@@ -5,7 +5,8 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { parseGuitarText } from '../guitar/index.js';
 import { builtInPhrase } from '../string/index.js';
 import { enumerateWirings } from '../wiring/index.js';
-import type { AudioSettings, PassItem } from './render-pass.js';
+import { WorkError } from '../errors/index.js';
+import { type AudioSettings, type PassItem, type WiringRenderer, runRenderPassWith } from './render-pass.js';
 import { runRenderPassOnThreads, splitByShape } from './run-render-pass.js';
 import { shapeKey } from '../wiring/index.js';
 
@@ -81,3 +82,58 @@ describe('runRenderPassOnThreads', () => {
   });
 });
 
+
+describe('runRenderPassWith: wirings in flight', () => {
+  /** A renderer whose wirings end out of order (seeded delays), some failing, each filling the buffer it is offered with its index. */
+  function fakeRenderer(frames: number, failing: ReadonlySet<number>, offered: Array<Float32Array | undefined>): WiringRenderer {
+    let call = 0;
+    return {
+      sampleRateHz: settings.sampleRateHz,
+      figures: (networks) => networks.map(() => ({ energy: 1, loudnessLufs: -20, centroidHz: 1000 })),
+      processed: async (_network, name, into) => {
+        const index = call;
+        call += 1;
+        offered[index] = into;
+        const audio = into ?? new Float32Array(frames);
+        audio.fill(index + 1);
+        await new Promise((resolve) => setTimeout(resolve, (index * 7) % 5));
+        if (failing.has(index)) throw new WorkError(`${name ?? 'a wiring'}: the drive chain failed 2 times (test)`);
+        // Half the wirings come back in a new array, as a chain with its own output does (the offered one is then free).
+        return index % 2 === 0 ? Float32Array.from(audio) : audio;
+      },
+    };
+  }
+
+  it('gives every wiring its own audio and failure, in order, whatever the number in flight and the order they end', async () => {
+    const frames = 64;
+    const audioItems = items.map((item) => ({ ...item, audio: true }));
+    const failing = new Set([3, 4, 11]);
+    const runs = [];
+    for (const depth of [1, 2, 3]) {
+      const folder = mkdtempSync(join(tmpdir(), 'coilbench-pass-'));
+      folders.push(folder);
+      const offered: Array<Float32Array | undefined> = [];
+      // Room in memory for five wirings: the rest go to scratch files, their buffers offered to later wirings.
+      const held = { ...settings, parkInMemoryBytes: 5 * frames * Float32Array.BYTES_PER_ELEMENT };
+      const results = await runRenderPassWith(fakeRenderer(frames, failing, offered), held, audioItems, folder, undefined, depth);
+      expect(results.map((result) => result.id)).toEqual(audioItems.map((item) => item.id));
+      results.forEach((result, index) => {
+        if (failing.has(index)) {
+          expect(result.failure).toMatch(/failed 2 times/u);
+          expect(result.samples ?? result.scratch).toBeUndefined();
+          return;
+        }
+        const samples = result.samples ?? new Float32Array(new Uint8Array(readFileSync(result.scratch ?? '')).buffer);
+        // Its own value, not a later wiring's written over a buffer it still held.
+        expect(Array.from(new Set(samples))).toEqual([index + 1]);
+      });
+      // Buffers were offered again (the reuse happens), and never one still held in memory.
+      const heldBuffers = new Set(results.flatMap((result) => (result.samples ? [result.samples.buffer] : [])));
+      expect(offered.some((buffer) => buffer !== undefined)).toBe(true);
+      for (const buffer of offered) if (buffer) expect(heldBuffers.has(buffer.buffer)).toBe(false);
+      runs.push(results.map((result) => [result.id, result.audio?.peak ?? null, result.failure ?? null]));
+    }
+    expect(runs[1]).toEqual(runs[0]);
+    expect(runs[2]).toEqual(runs[0]);
+  });
+});

@@ -15,21 +15,25 @@ import { jobResult, startRenderWorker } from './worker-threads.js';
 
 /**
  * Fewest wirings worth a worker thread, by effects chain: a worker starts cold
- * (loading and compiling the code, rendering the strings and spectra again:
- * about half a second), so it pays only when each thread gets about a second
- * of work. A wiring costs about 25 ms direct, a few ms more clean (its chain is
- * our own code, no audio context) and 40–60 ms through the compressed or drive
- * chain (measured with `npm run bench` on a 2-core machine: 47 wirings through
- * the drive chain take 3.3–3.6 s on one thread and 2.7–3.0 s on two; direct,
- * one thread was faster, and so was clean: 47 wirings took 3.1–3.7 s of CPU
- * and 145–155 MB on one thread against 4.4–5.0 s and 200–240 MB on two, four
- * runs each with the machine busy, load average 14).
+ * (loading its code, preparing the synthesis again) and shares the two cores
+ * with the render's analysis thread, so it pays only when each thread gets
+ * about a second of work. Every chain is our own code but the drive's
+ * clipper, whose audio graph renders on the library's own thread while this
+ * one synthesises the next wiring (render-pass.ts, AUDIO_IN_FLIGHT), so one
+ * thread keeps more than a core busy. Measured on the 2-core machine,
+ * alternating builds, 47 wirings: drive on one thread with two wirings in
+ * flight 1.94–2.02 s, 225 MB, against 2.34–2.64 s, 300 MB on two threads
+ * with one (on one thread with one, 2.54–3.40 s against 2.80–3.40 s);
+ * compressed on one thread 1.87–1.99 s, 191 MB, against 2.01–2.08 s, 240 MB
+ * on two; direct and clean were already faster on one. 572 wirings through
+ * drive still gain from the second thread: 11.7 s, 393 MB on two against
+ * 13.3 s, 321 MB on one (one run each).
  */
 export const MIN_ITEMS_PER_THREAD: Readonly<Record<ChainName, number>> = Object.freeze({
   direct: 50,
   clean: 50,
-  compressed: 16,
-  drive: 16,
+  compressed: 50,
+  drive: 50,
 });
 
 /**
