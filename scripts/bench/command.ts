@@ -6,7 +6,8 @@
  * runs per case: median and range.
  *
  * The five-coil cases (9,997 wirings: analyze --json, analyze --csv, render
- * --no-wav) run only with BENCH_BIG=1; every case prints its peak memory.
+ * --no-wav, and a render of every WAV file) run only with BENCH_BIG=1; every
+ * case prints its peak memory.
  *
  * Ratios against a reference computation in this process make figures taken
  * on a busy machine comparable: the reference (inverse FFTs of 2^17 points,
@@ -123,6 +124,8 @@ export function benchCommands(): void {
     cases.push({ label: '9,997 wirings, analyze', args: () => ['analyze', five, '--json', '--yes'], audioSeconds: () => null });
     cases.push({ label: '9,997 wirings, analyze --csv', args: (folder) => ['analyze', five, '--csv', `${folder}.csv`, '--yes'], audioSeconds: () => null });
     cases.push({ label: '9,997 wirings, render --no-wav (page and reports)', args: (folder) => ['render', five, '--no-wav', '--yes', '-o', folder], audioSeconds: () => null });
+    // Every file too (about 100 s and 3.4 GB of WAVs a run): the memory bound is for any render.
+    cases.push({ label: '9,997 wirings, render direct (WAV files)', args: (folder) => ['render', five, '--chain', 'direct', '--yes', '-o', folder], audioSeconds: renderedSeconds });
   }
   // BENCH_CASES: a regular expression choosing cases by label (e.g. "47 wirings").
   const only = process.env.BENCH_CASES ? new RegExp(process.env.BENCH_CASES, 'u') : null;
