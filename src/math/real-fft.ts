@@ -111,11 +111,6 @@ function copyPadded(input: ArrayLike<number>, target: Float64Array, window?: Arr
   else for (let n = 0; n < count; n += 1) target[n] = input[n] as number;
 }
 
-/** out[n] = source[n] for n < count. */
-function copyPrefix(source: Float64Array, out: Float64Array, count: number): void {
-  for (let n = 0; n < count; n += 1) out[n] = source[n] as number;
-}
-
 /**
  * The half spectrum of a real signal from Z = DFT_M(z), z[m] = x[2m] + j·x[2m+1], M = N/2; with Z[M] = Z[0]
  * E[k] = (Z[k] + conj(Z[M−k]))/2, O[k] = (Z[k] − conj(Z[M−k]))/(2j),
@@ -205,7 +200,7 @@ export function realFft(size: number): RealFft {
     inverse(halfSpectrum, out = new Float64Array(size), scale = 1) {
       packInverse(halfSpectrum, twiddles, half, scale, packed);
       halfEngine.inverseTransform(packedTime, packed);
-      copyPrefix(packedTime, out, size);
+      out.set(packedTime);
       return out;
     },
   };

@@ -20,10 +20,10 @@ let spare: Float32Array | undefined;
 if (port) {
   port.on('message', (request: EncodeRequest) => {
     try {
-      const fromScratch = !(request.audio instanceof Float32Array);
-      const audio = request.audio instanceof Float32Array ? request.audio : readScratchAudio(request.audio.scratch, spare);
+      const given = request.audio;
+      const audio = given instanceof Float32Array ? given : readScratchAudio(given.scratch, spare);
       const { bytes, record } = encodeFinalWav(audio, request.gain, request.options);
-      if (fromScratch) spare = audio;
+      if (audio !== given) spare = audio;
       port.postMessage({ id: request.id, kind: 'done', bytes, record } satisfies EncodeAnswer, [bytes.buffer as ArrayBuffer]);
     } catch (error) {
       port.postMessage({ ...failureOf(error), id: request.id } satisfies EncodeAnswer);

@@ -6,7 +6,6 @@
  * output is the same, byte for byte, however it is split.
  */
 import type { Worker } from 'node:worker_threads';
-import type { ChainName } from './chain-name.js';
 import { type AudioSettings, type PassItem, type PassResult, runRenderPass } from './render-pass.js';
 import type { WorkerJob, WorkerMessage } from './render-worker.js';
 import { shapeKey } from '../wiring/index.js';
@@ -14,7 +13,7 @@ import { minOf, appendAll } from '../math/index.js';
 import { jobResult, startRenderWorker } from './worker-threads.js';
 
 /**
- * Fewest wirings worth a worker thread, by effects chain: a worker starts cold
+ * Fewest wirings worth a worker thread, whatever the effects chain: a worker starts cold
  * (loading its code, preparing the synthesis again) and shares the two cores
  * with the render's analysis thread, so it pays only when each thread gets
  * about a second of work. Every chain is our own code but the drive's
@@ -29,12 +28,7 @@ import { jobResult, startRenderWorker } from './worker-threads.js';
  * drive still gain from the second thread: 11.7 s, 393 MB on two against
  * 13.3 s, 321 MB on one (one run each).
  */
-export const MIN_ITEMS_PER_THREAD: Readonly<Record<ChainName, number>> = Object.freeze({
-  direct: 50,
-  clean: 50,
-  compressed: 50,
-  drive: 50,
-});
+export const MIN_ITEMS_PER_THREAD = 50;
 
 /**
  * What a wiring's reference figures cost against its file audio through the
@@ -104,7 +98,7 @@ export async function runRenderPassOnThreads(
   scratchFolder: string,
   threads: number,
   onStep?: () => void,
-  minItemsPerThread = MIN_ITEMS_PER_THREAD[settings.chain],
+  minItemsPerThread = MIN_ITEMS_PER_THREAD,
 ): Promise<PassResult[]> {
   const work = items.reduce((sum, item) => sum + itemWeight(item), 0);
   const parts = Math.max(1, Math.min(threads, Math.floor(work / minItemsPerThread)));

@@ -262,11 +262,6 @@ function sumSources(parts: SharedParts, signs: Float64Array, gain: Float64Array,
   }
 }
 
-/** out[n] = time[n] rounded to float32, n < length (a loop of its own, as math/any-non-zero.ts). */
-function copyToFloat32(time: Float64Array, out: Float32Array, length: number): void {
-  for (let n = 0; n < length; n += 1) out[n] = time[n] as number;
-}
-
 /** The synthesis of `guitar` on `circuit` (prepared for `overrides`), sharing `parts` with the guitar's other knob settings. */
 function synthesisOn(parts: SharedParts, guitar: Guitar, circuit: PreparedCircuit, overrides: CircuitOverrides): WiringSynthesis {
   const { coils, fft, output, time, signs } = parts;
@@ -296,7 +291,8 @@ function synthesisOn(parts: SharedParts, guitar: Guitar, circuit: PreparedCircui
     sumSources(parts, signs, gain, output, complexLength);
     fft.inverse(output, time);
     // The pickup spectra are delayed by `delay` samples so that every coil stays causal; sample n is time (n − delay)/fs of the phrase.
-    copyToFloat32(time, out, length);
+    // Rounded to float32 by the copy (TypedArray set converts each element as an assignment would).
+    out.set(time.subarray(0, length));
     return out;
   };
 
