@@ -217,16 +217,18 @@ describe.skipIf(!RUN_BROWSER_TESTS)('the listening page in chromium: one engine,
     await page.waitForFunction(() => (window as unknown as { coilbenchPage: { isPlaying(): boolean } }).coilbenchPage.isPlaying());
     await page.waitForTimeout(300);
     const jump = await page.evaluate(async () => {
-      const view = (window as unknown as { coilbenchPage: { position(): number; currentExpression(): string | null; soundingKeys(): string[] } }).coilbenchPage;
+      const view = (window as unknown as { coilbenchPage: { position(): number; audioClock(): number; currentExpression(): string | null; soundingKeys(): string[] } }).coilbenchPage;
       const before = view.position();
-      const started = performance.now();
+      const started = view.audioClock();
       (document.querySelector('[data-wiring="w2"] [data-action="play"]') as HTMLButtonElement).click();
       while (!view.soundingKeys().some((key) => key.startsWith(`${view.currentExpression()}@`)) || view.soundingKeys().length !== 1) await new Promise((resolve) => setTimeout(resolve, 5));
       const after = view.position();
-      const elapsed = (performance.now() - started) / 1000;
+      const elapsed = view.audioClock() - started;
       return { before, after, elapsed };
     });
-    // The position runs on through the switch as the clock does (loop is on; the phrase is longer than the wait).
+    // The position runs on through the switch as the audio clock does (loop is on; the phrase is longer than the wait).
+    // The audio clock, not the wall clock: on a loaded machine the audio thread can stall for part of a second
+    // (seen once in a full test run: 0.70 s), and the position rightly stalls with it.
     expect(Math.abs(jump.after - jump.before - jump.elapsed)).toBeLessThan(SWITCH_TOLERANCE_S + 0.02);
     // The rows show the figures the page carries as columns (wiring-figures.ts): level and resonant peak of the report.
     const example = makeExampleReport(guitar.elements.map((element) => element.id), guitar.name);

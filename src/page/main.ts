@@ -433,6 +433,7 @@ function samplesToBase64(samples: Float32Array): string {
 function exposeTestView(): void {
   (window as unknown as { coilbenchPage: unknown }).coilbenchPage = Object.freeze({
     position: () => player.position(),
+    audioClock: () => player.clock(),
     isPlaying: () => player.isPlaying(),
     currentExpression: () => currentWiring?.expression ?? null,
     soundingKeys: () => player.soundingKeys(),

@@ -43,6 +43,8 @@ export interface Player {
   setVolume(volume: number): void;
   tick(): void;
   position(): number;
+  /** The audio clock the position follows (the context's currentTime, s; 0 before the first play). */
+  clock(): number;
   isPlaying(): boolean;
   current(): Playable | null;
   loop(): LoopRegion | null;
@@ -206,6 +208,7 @@ export function createPlayer(settings: PlayerSettings): Player {
       }
     },
     position,
+    clock: () => context?.currentTime ?? 0,
     isPlaying: () => playing,
     current: () => current,
     loop: () => loop,
