@@ -13,7 +13,7 @@
 // first need). Run by `npm run build`, after tsc, whose own dist/cli.js it
 // replaces; tsc's per-module output stays for the in-process bench.
 import { build } from 'esbuild';
-import { readdirSync } from 'node:fs';
+import { chmodSync, readdirSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
@@ -27,7 +27,11 @@ export function workerEntries(repository = root) {
     .map((name) => join(folder, name));
 }
 
-/** Bundle the command line and its workers into `outFolder` (dist/ by default). */
+/**
+ * Bundle the command line and its workers into `outFolder` (dist/ by default). cli.js keeps the first line of
+ * src/cli.ts (the one that starts Node with the allocator setting) and is made executable: that is how
+ * `coilbench` runs it.
+ */
 export async function bundleCommandLine(outFolder = join(root, 'dist'), repository = root) {
   const common = {
     bundle: true,
@@ -41,6 +45,7 @@ export async function bundleCommandLine(outFolder = join(root, 'dist'), reposito
     logLevel: 'warning',
   };
   await build({ ...common, entryPoints: [join(repository, 'src', 'cli.ts')], outfile: join(outFolder, 'cli.js') });
+  chmodSync(join(outFolder, 'cli.js'), 0o755);
   await build({ ...common, entryPoints: workerEntries(repository), outdir: outFolder });
 }
 

@@ -90,7 +90,8 @@ function leftovers(folder: string): string[] {
 }
 
 function start(argv: string[]): { child: ChildProcess; stderr: () => string; exited: Promise<number | null> } {
-  const child = spawn(process.execPath, [BUNDLE, ...argv], { cwd: REPOSITORY, stdio: ['ignore', 'ignore', 'pipe'] });
+  // Run as `coilbench` runs: the bundle as an executable, its first line starting Node (src/cli.ts).
+  const child = spawn(BUNDLE, argv, { cwd: REPOSITORY, stdio: ['ignore', 'ignore', 'pipe'] });
   let stderr = '';
   child.stderr?.on('data', (chunk: Buffer) => {
     stderr += chunk.toString('utf8');

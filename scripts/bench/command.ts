@@ -1,6 +1,6 @@
 /**
  * What users run, timed as they wait for it: each case is a fresh process
- * running the built command (`node dist/cli.js render …`, `… analyze …`),
+ * running the built command as an executable (`dist/cli.js render …`, `… analyze …`),
  * timed from start to exit, with the peak memory of that process (GNU time's
  * maximum resident set size, which covers its worker threads). At least three
  * runs per case: median and range.
@@ -49,9 +49,9 @@ export function referenceMs(): number {
   });
 }
 
-/** One fresh process: `node dist/cli.js …args`, under GNU time. */
+/** One fresh process: `dist/cli.js …args` run as the executable users run (its first line starts Node, src/cli.ts), under GNU time. */
 function runOnce(args: readonly string[]): Run {
-  const child = spawnSync(GNU_TIME, ['-f', '%e %M', process.execPath, CLI, ...args], { encoding: 'utf8', maxBuffer: 1 << 28 });
+  const child = spawnSync(GNU_TIME, ['-f', '%e %M', CLI, ...args], { encoding: 'utf8', maxBuffer: 1 << 28 });
   if (child.status !== 0) throw new Error(`bench: coilbench ${args.join(' ')} failed (${child.status}): ${child.stderr.slice(-2000)}`);
   const [seconds, kilobytes] = (child.stderr.trim().split('\n').at(-1) ?? '').split(' ').map(Number);
   return { seconds: seconds ?? Number.NaN, peakMb: (kilobytes ?? Number.NaN) / KILOBYTES_PER_MEGABYTE };
@@ -103,7 +103,7 @@ export function benchCommands(): void {
     return;
   }
   const reference = referenceMs();
-  heading(`Commands as users run them: fresh process \`node dist/cli.js …\`, start to exit, ${RUNS} runs: median (range)`);
+  heading(`Commands as users run them: fresh process \`dist/cli.js …\` (the executable, as \`coilbench\` runs), start to exit, ${RUNS} runs: median (range)`);
   console.log(`  reference computation in this process: ${REFERENCE_FFTS} inverse FFTs of ${REFERENCE_SIZE} points = ${reference.toFixed(1)} ms ("ref")`);
   const scratch = mkdtempSync(join(tmpdir(), 'coilbench-bench-guitar-'));
   const five = join(scratch, 'five-coil.json');

@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { measureFiguresByClass, measureSpectralBasis } from '../analysis/index.js';
-import { prepareReferenceFigures } from './measure-wiring-audio.js';
+import { prepareReferenceFigures, referenceCoilsOf } from './measure-wiring-audio.js';
 import { parseGuitarText } from '../guitar/index.js';
 import { enumerateWirings } from '../wiring/index.js';
 import { prepareRenderAnalysis } from './render-analysis-thread.js';
@@ -23,7 +23,8 @@ describe('prepareRenderAnalysis', () => {
     const here = prepareRenderAnalysis(job, false);
     const there = prepareRenderAnalysis(job, true);
     const figuresOf = wirings.slice(0, 12).map((wiring) => wiring.network);
-    there.start(basis, figuresOf);
+    // The thread measures from the coil signals it is given (as a render gives them), this one from the basis's coil spectra.
+    there.start(basis, figuresOf, referenceCoilsOf(guitar, basis));
     here.start(basis, figuresOf);
     const [own, threaded] = await Promise.all([here.result(), there.result()]);
     // The audio figures are those the render's own first pass measures from the strings rendered afresh.

@@ -10,6 +10,7 @@ import { type RenderAnalysis, type RenderAnalysisJob, measureRenderAnalysis } fr
 import type { Network } from '../wiring/index.js';
 import { jobResult, startRenderWorker } from './worker-threads.js';
 import type { WorkerFailure } from './worker-failure.js';
+import type { CoilSignals } from './synthesize-wirings.js';
 
 /** The worker's answer: the analysis without its basis (the parent has it), or its failure as data. */
 export type RenderAnalysisMessage =
@@ -19,8 +20,11 @@ export type RenderAnalysisMessage =
 export interface PendingAnalysis {
   /** Does the analysis run on a thread of its own (beside the caller's work)? */
   readonly onThread: boolean;
-  /** Hand over the reference performance's spectral basis (and the wirings whose audio figures are wanted); the analysis starts. */
-  start(basis: SpectralBasis, figures?: readonly Network[]): void;
+  /**
+   * Hand over the reference performance's spectral basis (and the wirings whose audio figures are wanted, with the
+   * coil signals they are measured from when the caller has them); the analysis starts.
+   */
+  start(basis: SpectralBasis, figures?: readonly Network[], coils?: CoilSignals): void;
   /** The analysis (after `start`). */
   result(): Promise<RenderAnalysis>;
   /** Stop the thread, if any (after a failure elsewhere). */
@@ -32,15 +36,17 @@ export function prepareRenderAnalysis(job: RenderAnalysisJob, thread: boolean): 
   if (!thread) {
     let basis: SpectralBasis | undefined;
     let wanted: readonly Network[] = [];
+    let signals: CoilSignals | undefined;
     return {
       onThread: false,
-      start: (given, figures = []) => {
+      start: (given, figures = [], coils) => {
         basis = given;
         wanted = figures;
+        signals = coils;
       },
       result: async () => {
         if (!basis) throw new Error('prepareRenderAnalysis: result() before start()');
-        return measureRenderAnalysis(job, basis, wanted);
+        return measureRenderAnalysis(job, basis, wanted, signals);
       },
       cancel: async () => undefined,
     };
@@ -55,11 +61,13 @@ export function prepareRenderAnalysis(job: RenderAnalysisJob, thread: boolean): 
   answer.catch(() => undefined);
   return {
     onThread: true,
-    start: (basis, figures = []) => {
+    start: (basis, figures = [], coils) => {
       given = basis;
       // The coils' spectra serve only the audio figures (the groups and the coil drive read the band cross-spectra):
-      // without figures to measure they stay here, megabytes the thread need not copy.
-      worker.postMessage({ basis: figures.length > 0 ? basis : { ...basis, coilSpectra: [] }, figures });
+      // they stay here when there are no figures to measure, or when the caller gave the coil signals the figures
+      // are measured from (float32 samples, a quarter of the spectra's bytes), megabytes the thread need not hold.
+      const spectraNeeded = figures.length > 0 && coils === undefined;
+      worker.postMessage({ basis: spectraNeeded ? basis : { ...basis, coilSpectra: [] }, figures, coils });
     },
     result: () => answer,
     cancel: async () => {

@@ -9,19 +9,23 @@
 import { parentPort, workerData } from 'node:worker_threads';
 import type { SpectralBasis } from '../analysis/index.js';
 import type { Network } from '../wiring/index.js';
+import type { CoilSignals } from './synthesize-wirings.js';
 import { failureOf } from './worker-failure.js';
+import { transferablesOf } from './transferables.js';
 import { type RenderAnalysisJob, measureRenderAnalysis } from './render-analysis.js';
 import type { RenderAnalysisMessage } from './render-analysis-thread.js';
 
 const port = parentPort;
 if (port) {
   const job = workerData as RenderAnalysisJob;
-  port.once('message', ({ basis, figures }: { basis: SpectralBasis; figures: readonly Network[] }) => {
+  port.once('message', ({ basis, figures, coils }: { basis: SpectralBasis; figures: readonly Network[]; coils?: CoilSignals }) => {
     try {
-      const analysis = measureRenderAnalysis(job, basis, figures);
+      const analysis = measureRenderAnalysis(job, basis, figures, coils);
       // The basis is the parent's own: it is not sent back.
       const distinct = { ...analysis.distinct, spectra: { ...analysis.distinct.spectra, basis: undefined } };
-      port.postMessage({ kind: 'done', analysis: { ...analysis, distinct } } satisfies RenderAnalysisMessage);
+      const answer = { kind: 'done', analysis: { ...analysis, distinct } } satisfies RenderAnalysisMessage;
+      // Its typed arrays (the groups' band spectra and profiles, the response curves) move to the parent without a copy.
+      port.postMessage(answer, transferablesOf(answer));
     } catch (error) {
       port.postMessage(failureOf(error) satisfies RenderAnalysisMessage);
     }

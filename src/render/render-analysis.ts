@@ -25,7 +25,7 @@ import {
 } from '../circuit/index.js';
 import { type AlikeThresholds, type Distinctness, type SpectralBasis, measureCoilDrive, measureDistinctness, measureFiguresByClass } from '../analysis/index.js';
 import { type RawAudioMetrics, prepareReferenceFigures, referenceCoilsOf } from './measure-wiring-audio.js';
-import { assertAudible } from './synthesize-wirings.js';
+import { type CoilSignals, assertAudible } from './synthesize-wirings.js';
 import type { Guitar } from '../guitar/index.js';
 import type { Network } from '../wiring/index.js';
 
@@ -54,11 +54,17 @@ export interface RenderAnalysis {
   readonly responsesDb: readonly (Float64Array | null)[];
 }
 
-export function measureRenderAnalysis(job: RenderAnalysisJob, basis: SpectralBasis, figuresOf: readonly Network[] = []): RenderAnalysis {
+/**
+ * The analysis of `job`. The audio figures of `figuresOf` come from the
+ * reference performance's coil signals: `coils` when the caller has them
+ * (a render does: `referenceCoilsOf` of its basis, which then need not carry
+ * its coil spectra to this thread), else made from `basis`.
+ */
+export function measureRenderAnalysis(job: RenderAnalysisJob, basis: SpectralBasis, figuresOf: readonly Network[] = [], coils?: CoilSignals): RenderAnalysis {
   const { guitar, overrides } = job;
   let figures: RawAudioMetrics[] = [];
   if (figuresOf.length > 0) {
-    const meter = prepareReferenceFigures(guitar, overrides, referenceCoilsOf(guitar, basis));
+    const meter = prepareReferenceFigures(guitar, overrides, coils ?? referenceCoilsOf(guitar, basis));
     assertAudible(meter, 'controls.volume.setting');
     figures = measureFiguresByClass(guitar, meter, figuresOf);
   }
@@ -69,10 +75,15 @@ export function measureRenderAnalysis(job: RenderAnalysisJob, basis: SpectralBas
   const responseCircuit = prepareCircuit(guitar, grid, overrides);
   const transfers = guitar.coils.map(() => new Float64Array(2 * RESPONSE_POINTS));
   const sampledDrive = sampleCoilDrive(drive, grid);
-  const responsesDb = job.selected.map((network) => {
+  // The curves share one buffer (views of RESPONSE_POINTS each): one block of memory for thousands of wirings, handed to the parent whole.
+  const curves = new Float64Array(job.selected.length * RESPONSE_POINTS);
+  const responsesDb = job.selected.map((network, index) => {
     solveTransfers(responseCircuit, phaseClassNetwork(guitar, network), transfers);
     const response = measureResponseDb(responseCircuit, network, drive, { sampledDrive, inPhaseTransfers: transfers });
-    return response;
+    if (response === null) return null;
+    const slot = curves.subarray(index * RESPONSE_POINTS, (index + 1) * RESPONSE_POINTS);
+    slot.set(response);
+    return slot;
   });
   return { figures, drive, circuit, distinct, responseFrequenciesHz: grid, responsesDb };
 }

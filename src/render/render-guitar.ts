@@ -62,10 +62,11 @@ const MAX_PENDING_WRITES = 4;
 /** Least time between manifest saves while writing files, ms: an interrupted run loses at most this much record (the files themselves are always whole). */
 const MANIFEST_SAVE_INTERVAL_MS = 250;
 /**
- * Processed audio a render holds in memory between its passes, bytes; the
- * rest is parked in scratch files. 32 MB holds the 47 wirings of three
- * coils (about 0.5 MB each for a 2.6 s phrase at 48 kHz) and keeps a render
- * of thousands of wirings within its memory bound.
+ * Processed audio a render may hold in memory between its passes, bytes,
+ * shared by its threads: a thread whose wirings' audio all fits holds it,
+ * any other parks all of its audio in scratch files (render-pass.ts). 32 MB
+ * holds the 47 wirings of three coils (about 0.5 MB each for a 2.6 s phrase
+ * at 48 kHz); a render of hundreds or thousands of wirings holds none.
  */
 const PARK_IN_MEMORY_BYTES = 32 * 2 ** 20;
 
@@ -257,7 +258,7 @@ async function renderWith(request: RenderRequest, events: RenderEvents, analysis
   // While there is audio to render, the analysis measures the audio figures too (the audio threads do nothing else);
   // with none (--no-wav, or every file kept) they are measured in the first pass beside the analysis.
   const figuresInAnalysis = items.some((item) => item.audio) ? items.filter((item) => item.metrics) : [];
-  analysis.start(basis, figuresInAnalysis.map((item) => item.network));
+  analysis.start(basis, figuresInAnalysis.map((item) => item.network), referenceCoils);
   const passItems = figuresInAnalysis.length === 0 ? items : items.filter((item) => item.audio).map((item) => ({ ...item, metrics: false }));
   events.onStage?.('rendering', passItems.length);
   let step = 0;

@@ -54,8 +54,10 @@ export interface AudioSettings {
   readonly referenceCoils?: CoilSignals;
   /**
    * Bytes of processed audio a pass may hold in memory, handed back in its
-   * results, before it parks the rest in scratch files (default 0: every
-   * wiring's audio goes to a scratch file).
+   * results: when all of the pass's audio fits, it is all held; otherwise
+   * every wiring's audio goes to a scratch file (default 0). Holding only a
+   * part would keep those megabytes through the whole pass and the writing
+   * after it, for the few files it spares a read.
    */
   readonly parkInMemoryBytes?: number;
 }
@@ -236,7 +238,9 @@ export async function runRenderPassWith(
   const measured = items.filter((item) => item.metrics);
   const figures = renderer.figures(measured.map((item) => item.network));
   const figuresOf = new Map(measured.map((item, index) => [item.id, figures[index] as RawAudioMetrics]));
-  let inMemoryBytes = 0;
+  const audioCount = items.filter((item) => item.audio).length;
+  // Decided at the first audio made (every wiring of a pass has the same length): all held in memory, or none.
+  let holdAll: boolean | undefined;
   // A buffer whose audio went to a scratch file (or whose chain made a new one), free for the next synthesis:
   // 0.2–0.4 ms to fill where fresh memory took 1–2 ms (zeroed pages), about a millisecond a wiring.
   let spare: Float32Array | undefined;
@@ -280,8 +284,8 @@ export async function runRenderPassWith(
       }
     }
     if (processed) {
-      if (inMemoryBytes + processed.byteLength <= (settings.parkInMemoryBytes ?? 0)) {
-        inMemoryBytes += processed.byteLength;
+      holdAll ??= audioCount * processed.byteLength <= (settings.parkInMemoryBytes ?? 0);
+      if (holdAll) {
         samples = processed;
       } else {
         scratch = join(scratchFolder, `${item.id}.f32`);

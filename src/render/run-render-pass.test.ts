@@ -36,14 +36,15 @@ describe('runRenderPassOnThreads', () => {
     for (const shape of first ?? []) expect(second?.has(shape)).toBe(false);
   });
 
-  it('gives the same results and the same audio bytes on two threads as on one (a worker thread does half, some audio held in memory)', async () => {
+  it('gives the same results and the same audio bytes on two threads as on one (a worker thread does half, its audio held in memory)', async () => {
     const [one, two] = [mkdtempSync(join(tmpdir(), 'coilbench-pass-')), mkdtempSync(join(tmpdir(), 'coilbench-pass-'))];
     folders.push(one, two);
     let steps = 0;
     const single = await runRenderPassOnThreads(settings, items, one, 1);
-    // Room for four wirings' audio per thread: the rest goes to scratch files.
+    // Room for every wiring's audio, shared by the two threads: each holds all of its own.
     const frames = single.find((result) => result.audio)?.audio?.frames ?? 0;
-    const held = { ...settings, parkInMemoryBytes: 2 * 4 * frames * Float32Array.BYTES_PER_ELEMENT };
+    const audioCount = items.filter((item) => item.audio).length;
+    const held = { ...settings, parkInMemoryBytes: 2 * audioCount * frames * Float32Array.BYTES_PER_ELEMENT };
     const split = await runRenderPassOnThreads(held, items, two, 2, () => (steps += 1), 1);
     expect(steps).toBe(items.length);
     expect(split.map((result) => result.id)).toEqual(items.map((item) => item.id));
@@ -57,8 +58,8 @@ describe('runRenderPassOnThreads', () => {
       expect(Boolean(result.scratch) || Boolean(result.samples)).toBe(items[index]?.audio);
       if (reference?.scratch) expect(bytesOf(result).equals(readFileSync(reference.scratch))).toBe(true);
     });
-    expect(split.filter((result) => result.samples).length).toBe(8);
-    expect(split.filter((result) => result.scratch).length).toBe(items.filter((item) => item.audio).length - 8);
+    expect(split.filter((result) => result.samples).length).toBe(audioCount);
+    expect(split.filter((result) => result.scratch)).toHaveLength(0);
   });
 
   it('reuses the buffer of audio parked in a scratch file for the next wiring, never one held in memory (direct chain)', async () => {
@@ -69,9 +70,11 @@ describe('runRenderPassOnThreads', () => {
     // Everything held in memory: no scratch file, so no buffer is reused.
     const held = await runRenderPassOnThreads({ ...direct, parkInMemoryBytes: 2 ** 30 }, audioItems, all, 1);
     const frames = held[0]?.audio?.frames ?? 0;
-    // Room for three wirings: the rest go to scratch files, each one's buffer then synthesising the next.
-    const parked = await runRenderPassOnThreads({ ...direct, parkInMemoryBytes: 3 * frames * Float32Array.BYTES_PER_ELEMENT }, audioItems, few, 1);
-    expect(parked.filter((result) => result.samples)).toHaveLength(3);
+    // Room for all but one wiring: none is held (all or none), each one's buffer then synthesising the next.
+    const roomForAllButOne = (audioItems.length - 1) * frames * Float32Array.BYTES_PER_ELEMENT;
+    const parked = await runRenderPassOnThreads({ ...direct, parkInMemoryBytes: roomForAllButOne }, audioItems, few, 1);
+    expect(parked.filter((result) => result.samples)).toHaveLength(0);
+    expect(parked.filter((result) => result.scratch)).toHaveLength(audioItems.length);
     const bytesOf = (result: (typeof parked)[number]): Buffer =>
       result.samples ? Buffer.from(result.samples.buffer, result.samples.byteOffset, result.samples.byteLength) : readFileSync(result.scratch ?? '');
     parked.forEach((result, index) => {
@@ -109,12 +112,12 @@ describe('runRenderPassWith: wirings in flight', () => {
     const audioItems = items.map((item) => ({ ...item, audio: true }));
     const failing = new Set([3, 4, 11]);
     const runs = [];
-    for (const depth of [1, 2, 3]) {
+    // Every wiring's audio held in memory (a chain's new array leaves the synthesis buffer free), or all parked in scratch files.
+    for (const [depth, room] of [1, 2, 3].flatMap((depth) => [[depth, audioItems.length], [depth, audioItems.length - 1]] as const)) {
       const folder = mkdtempSync(join(tmpdir(), 'coilbench-pass-'));
       folders.push(folder);
       const offered: Array<Float32Array | undefined> = [];
-      // Room in memory for five wirings: the rest go to scratch files, their buffers offered to later wirings.
-      const held = { ...settings, parkInMemoryBytes: 5 * frames * Float32Array.BYTES_PER_ELEMENT };
+      const held = { ...settings, parkInMemoryBytes: room * frames * Float32Array.BYTES_PER_ELEMENT };
       const results = await runRenderPassWith(fakeRenderer(frames, failing, offered), held, audioItems, folder, undefined, depth);
       expect(results.map((result) => result.id)).toEqual(audioItems.map((item) => item.id));
       results.forEach((result, index) => {
@@ -127,13 +130,12 @@ describe('runRenderPassWith: wirings in flight', () => {
         // Its own value, not a later wiring's written over a buffer it still held.
         expect(Array.from(new Set(samples))).toEqual([index + 1]);
       });
-      // Buffers were offered again (the reuse happens), and never one still held in memory.
+      // Buffers were offered again when parked (the reuse happens), and never one still held in memory.
       const heldBuffers = new Set(results.flatMap((result) => (result.samples ? [result.samples.buffer] : [])));
-      expect(offered.some((buffer) => buffer !== undefined)).toBe(true);
+      if (room < audioItems.length) expect(offered.some((buffer) => buffer !== undefined)).toBe(true);
       for (const buffer of offered) if (buffer) expect(heldBuffers.has(buffer.buffer)).toBe(false);
       runs.push(results.map((result) => [result.id, result.audio?.peak ?? null, result.failure ?? null]));
     }
-    expect(runs[1]).toEqual(runs[0]);
-    expect(runs[2]).toEqual(runs[0]);
+    for (const run of runs) expect(run).toEqual(runs[0]);
   });
 });
