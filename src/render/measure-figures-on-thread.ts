@@ -9,7 +9,7 @@ import type { Guitar } from '../guitar/index.js';
 import type { Wiring } from '../wiring/index.js';
 import { FIGURES_PER_WIRING, type FiguresJob, type FiguresMessage } from './figures-job.js';
 import type { RawAudioMetrics } from './measure-wiring-audio.js';
-import { defaultThreadCount, jobResult, startRenderWorker } from './worker-threads.js';
+import { MEASURING_THREAD_LIMITS, defaultThreadCount, jobResult, startRenderWorker } from './worker-threads.js';
 
 /**
  * Fewest wirings worth a thread of their own: a worker starts cold (loading
@@ -37,7 +37,7 @@ export function measureFiguresOnThread(
   onStep?: (done: number, total: number) => void,
 ): Promise<Map<string, RawAudioMetrics>> {
   const job: FiguresJob = { guitar, overrides, networks: wirings.map((wiring) => wiring.network) };
-  const worker = startRenderWorker('figures-worker', job);
+  const worker = startRenderWorker('figures-worker', job, MEASURING_THREAD_LIMITS);
   return jobResult<FiguresMessage, Map<string, RawAudioMetrics>>(worker, 'figures worker', (message) => {
     if (message.kind === 'step') {
       onStep?.(message.done, message.total);

@@ -8,7 +8,7 @@ import type { Worker } from 'node:worker_threads';
 import type { SpectralBasis } from '../analysis/index.js';
 import { type RenderAnalysis, type RenderAnalysisJob, measureRenderAnalysis } from './render-analysis.js';
 import type { Network } from '../wiring/index.js';
-import { jobResult, startRenderWorker } from './worker-threads.js';
+import { MEASURING_THREAD_LIMITS, jobResult, startRenderWorker } from './worker-threads.js';
 import type { WorkerFailure } from './worker-failure.js';
 import type { CoilSignals } from './synthesize-wirings.js';
 
@@ -51,7 +51,7 @@ export function prepareRenderAnalysis(job: RenderAnalysisJob, thread: boolean): 
       cancel: async () => undefined,
     };
   }
-  const worker: Worker = startRenderWorker('render-analysis-worker', job);
+  const worker: Worker = startRenderWorker('render-analysis-worker', job, MEASURING_THREAD_LIMITS);
   let given: SpectralBasis | undefined;
   const answer = jobResult<RenderAnalysisMessage, RenderAnalysis>(worker, 'analysis worker', ({ analysis }) => ({
     ...analysis,
