@@ -66,8 +66,9 @@ export function prepareRenderAnalysis(job: RenderAnalysisJob, thread: boolean): 
       // The coils' spectra serve only the audio figures (the groups and the coil drive read the band cross-spectra):
       // they stay here when there are no figures to measure, or when the caller gave the coil signals the figures
       // are measured from (float32 samples, a quarter of the spectra's bytes), megabytes the thread need not hold.
+      // The coil signals go only with figures to measure.
       const spectraNeeded = figures.length > 0 && coils === undefined;
-      worker.postMessage({ basis: spectraNeeded ? basis : { ...basis, coilSpectra: [] }, figures, coils });
+      worker.postMessage({ basis: spectraNeeded ? basis : { ...basis, coilSpectra: [] }, figures, coils: figures.length > 0 ? coils : undefined });
     },
     result: () => answer,
     cancel: async () => {

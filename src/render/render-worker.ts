@@ -6,6 +6,7 @@
  */
 import { parentPort, workerData } from 'node:worker_threads';
 import { type WorkerFailure, failureOf } from './worker-failure.js';
+import { transferablesOf } from './transferables.js';
 import { type AudioSettings, type PassItem, runRenderPass } from './render-pass.js';
 
 export interface WorkerJob {
@@ -25,8 +26,7 @@ if (port) {
   try {
     const results = await runRenderPass(job.settings, job.items, job.scratchFolder, () => port.postMessage({ kind: 'step' } satisfies WorkerMessage));
     // Audio held in memory moves to the parent without a copy.
-    const held = results.flatMap((result) => (result.samples ? [result.samples.buffer as ArrayBuffer] : []));
-    port.postMessage({ kind: 'done', results } satisfies WorkerMessage, held);
+    port.postMessage({ kind: 'done', results } satisfies WorkerMessage, transferablesOf(results));
   } catch (error) {
     port.postMessage(failureOf(error) satisfies WorkerMessage);
   }

@@ -48,12 +48,13 @@ export function startRenderWorker(name: string, workerData: unknown, resourceLim
 
 /**
  * The young generation of a thread that measures many wirings (the render's
- * analysis, `analyze`'s audio figures), MB. V8 sizes it for throughput (up
- * to 3 × 16 MB semi-spaces on 64-bit machines); these threads make many
- * small short-lived arrays, and a smaller nursery holds fewer of them at
- * once. Measured on the 2-core machine, five coils, 9,997 wirings, with
- * `--max-semi-space-size=4` for the whole process: `analyze` peaked at
- * 167–169 MB against 236–238 MB.
+ * analysis, `analyze`'s audio figures), MB: three semi-spaces of 4 MB, where
+ * V8 sizes them for throughput (up to 16 MB each on 64-bit machines). These
+ * threads make many small short-lived arrays, and a smaller nursery holds
+ * fewer of them at once. Measured on the 2-core machine, five coils, 9,997
+ * wirings, three alternating runs: `analyze` (its figures thread limited)
+ * peaked at 190–198 MB against 229–255 MB, in 16.0–17.3 s against
+ * 15.1–16.9 s.
  */
 export const MEASURING_THREAD_LIMITS: ResourceLimits = Object.freeze({ maxYoungGenerationSizeMb: 12 });
 
