@@ -17,7 +17,7 @@
  * interpolation of the transfers between grid points.
  */
 import { describe, expect, it } from 'vitest';
-import { measureCentroid, measureEnergy, measureLoudness } from '../src/analysis/index.js';
+import { measureCentroid, measureEnergy, measureLoudness, measureSpectralBasis } from '../src/analysis/index.js';
 import { phaseClassKey } from '../src/circuit/index.js';
 import { parseGuitarText } from '../src/guitar/index.js';
 import { measureReferenceFigures, prepareReferenceFigures, prepareReferenceSynthesis, renderReferenceCoils } from '../src/render/measure-wiring-audio.js';
@@ -92,7 +92,10 @@ describe('audio figures from cross-spectra', () => {
     const meter = prepareReferenceFigures(guitar, {});
     const oneByOne = new Map(wirings.map((wiring) => [wiring.id, meter.measure(wiring.network)]));
     let steps = 0;
-    const there = await measureFiguresOnThread(guitar, wirings, {}, () => (steps += 1));
+    const pending = measureFiguresOnThread(guitar, wirings, {}, () => (steps += 1));
+    // The thread measures from this thread's basis (its coil spectra), not from strings rendered there.
+    pending.start(measureSpectralBasis(guitar));
+    const there = await pending.result();
     expect(steps).toBeGreaterThan(0);
     expect([...there.entries()]).toEqual([...here.entries()].sort((a, b) => wirings.findIndex((w) => w.id === a[0]) - wirings.findIndex((w) => w.id === b[0])));
     for (const [id, figures] of here) expect(oneByOne.get(id)).toEqual(figures);

@@ -273,8 +273,10 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
   const blockTables = Array.from({ length: blockCount }, () => new Float64Array(2 * pairCount * points));
   const [preFilter, rlbFilter] = designKWeighting(sampleRateHz);
   const weighted = coils.signals.map((signal) => {
-    const out = new Float64Array(length);
-    applyBiquad(preFilter, signal.subarray(0, length), out);
+    // Widened to float64 first (exact), so applyBiquad only ever sees Float64Array input: a second array type
+    // made V8 throw away its compiled loop and run the next call's samples uncompiled (node --trace-deopt).
+    const out = new Float64Array(signal.subarray(0, length));
+    applyBiquad(preFilter, out, out);
     return applyBiquad(rlbFilter, out, out);
   });
   const blockSpectra = weighted.map(() => new Float64Array(2 * blockFft.bins));

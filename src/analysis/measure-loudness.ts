@@ -144,7 +144,9 @@ export function measureLoudness(
   channels.forEach((channel, index) => {
     const weight = weights[index] ?? 1;
     if (weight === 0) return;
-    applyBiquad(preFilter, channel, weighted);
+    // Widened to float64 first (exact): applyBiquad sees one array type (see measure-audio-figures.ts).
+    weighted.set(channel);
+    applyBiquad(preFilter, weighted, weighted);
     applyBiquad(rlbFilter, weighted, weighted);
     for (let hop = 0; hop < hopCount; hop += 1) {
       let sum = 0;

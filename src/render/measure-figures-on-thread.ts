@@ -1,19 +1,22 @@
 /**
  * The audio figures of many wirings on a worker thread, started before the
- * caller's own work (circuit figures, groups) so that both cores are busy:
- * the figures are a pure function of the guitar, its settings and each
- * wiring, so they are the same numbers on any thread.
+ * caller renders the strings (so the thread loads its code meanwhile) and
+ * given the caller's spectral basis when it has one; it then measures while
+ * the caller computes the circuit figures and groups, so both cores are
+ * busy. The figures are a pure function of the guitar, its settings and
+ * each wiring, so they are the same numbers on any thread.
  */
+import type { SpectralBasis } from '../analysis/index.js';
 import type { CircuitOverrides } from '../circuit/index.js';
 import type { Guitar } from '../guitar/index.js';
 import type { Wiring } from '../wiring/index.js';
-import { FIGURES_PER_WIRING, type FiguresJob, type FiguresMessage } from './figures-job.js';
+import { FIGURES_PER_WIRING, type FiguresJob, type FiguresMessage, type FiguresStart } from './figures-job.js';
 import type { RawAudioMetrics } from './measure-wiring-audio.js';
 import { MEASURING_THREAD_LIMITS, defaultThreadCount, jobResult, startRenderWorker } from './worker-threads.js';
 
 /**
- * Fewest wirings worth a thread of their own: a worker starts cold (loading
- * the code and rendering the strings again, about 0.3–0.5 s), and a wiring's
+ * Fewest wirings worth a thread of their own: a worker starts cold (its
+ * code loaded and compiled afresh, its transforms run cold), and a wiring's
  * figures cost about 0.3–1 ms, while the circuit figures the caller computes
  * meanwhile cost about as much again (measured with `npm run bench --
  * commands`: four coils, 572 wirings, gain a little; three coils lose).
@@ -25,20 +28,29 @@ export function figuresThreadPays(count: number): boolean {
   return count >= FIGURES_THREAD_MIN_WIRINGS && defaultThreadCount() > 1;
 }
 
+export interface PendingFigures {
+  /** Hand over the reference performance's spectral basis (measureSpectralBasis with its defaults); the thread starts measuring. */
+  start(basis: SpectralBasis): void;
+  /** The raw figures by wiring id (after `start`). */
+  result(): Promise<Map<string, RawAudioMetrics>>;
+}
+
 /**
- * Start measuring `wirings` on a worker thread; the promise gives their raw
- * figures by wiring id. `onStep` is told after each phase class (while the
- * caller waits for the promise).
+ * Start a thread for the audio figures of `wirings`; it waits for `start`.
+ * Until then it does not keep the process alive (a caller that fails before
+ * handing over its basis still exits). `onStep` is told after each phase
+ * class (while the caller waits for the result).
  */
 export function measureFiguresOnThread(
   guitar: Guitar,
   wirings: readonly Wiring[],
   overrides: CircuitOverrides,
   onStep?: (done: number, total: number) => void,
-): Promise<Map<string, RawAudioMetrics>> {
+): PendingFigures {
   const job: FiguresJob = { guitar, overrides, networks: wirings.map((wiring) => wiring.network) };
   const worker = startRenderWorker('figures-worker', job, MEASURING_THREAD_LIMITS);
-  return jobResult<FiguresMessage, Map<string, RawAudioMetrics>>(worker, 'figures worker', (message) => {
+  worker.unref();
+  const answer = jobResult<FiguresMessage, Map<string, RawAudioMetrics>>(worker, 'figures worker', (message) => {
     if (message.kind === 'step') {
       onStep?.(message.done, message.total);
       return undefined;
@@ -51,4 +63,13 @@ export function measureFiguresOnThread(
       }),
     );
   });
+  // Not awaited until `result`: a failure meanwhile must not be an unhandled rejection.
+  answer.catch(() => undefined);
+  return {
+    start: (basis) => {
+      worker.ref();
+      worker.postMessage({ basis } satisfies FiguresStart);
+    },
+    result: () => answer,
+  };
 }

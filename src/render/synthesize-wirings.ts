@@ -191,9 +191,11 @@ interface SharedParts {
   readonly output: Float64Array;
   readonly time: Float64Array;
   readonly signs: Float64Array;
-  /** Scratch for the source factors S_i. */
-  readonly factors: Float64Array[];
-  /** P_i = S_i·E_i of the shape `shape`, its coils in use, and the wiring's impedance Z. */
+  /**
+   * P_i = S_i·E_i of the shape `shape` (the source factors S_i are solved into these arrays and multiplied by E_i in
+   * place: one array per coil rather than two, a megabyte each at 2^17 points), its coils in use, and the wiring's
+   * impedance Z.
+   */
   readonly products: Float64Array[];
   readonly used: Uint8Array;
   readonly impedance: Float64Array;
@@ -208,7 +210,6 @@ function createSharedParts(guitar: Guitar, coils: CoilSpectra, fft: RealFft): Sh
     output: new Float64Array(complexLength),
     time: new Float64Array(coils.fftSize),
     signs: new Float64Array(guitar.coils.length),
-    factors: guitar.coils.map(() => new Float64Array(complexLength)),
     products: guitar.coils.map(() => new Float64Array(complexLength)),
     used: new Uint8Array(guitar.coils.length),
     impedance: new Float64Array(complexLength),
@@ -217,15 +218,16 @@ function createSharedParts(guitar: Guitar, coils: CoilSpectra, fft: RealFft): Sh
 }
 
 /**
- * P_i(f) = A_i(f)·E_i(f), complex product per bin, for every coil whose A_i is not all zero; marks those coils in
- * `used`. A coil the wiring leaves out is not read from `spectra` at all (the page computes a coil's spectrum on
- * first need).
+ * A_i(f) ← A_i(f)·E_i(f) in place, complex product per bin, for every coil whose A_i is not all zero; marks those
+ * coils in `used`. A coil the wiring leaves out is not read from `spectra` at all (the page computes a coil's
+ * spectrum on first need). Each bin's factor is read before its product is written (multiplyComplexInto), so the
+ * numbers are those of a product into a separate array.
  */
-function multiplySpectra(factors: readonly Float64Array[], spectra: readonly Float64Array[], products: readonly Float64Array[], used: Uint8Array): void {
+function multiplySpectra(factors: readonly Float64Array[], spectra: readonly Float64Array[], used: Uint8Array): void {
   factors.forEach((factor, coil) => {
     const any = anyNonZero(factor) ? 1 : 0;
     used[coil] = any;
-    if (any === 1) multiplyComplexInto(factor, spectra[coil] as Float64Array, products[coil] as Float64Array);
+    if (any === 1) multiplyComplexInto(factor, spectra[coil] as Float64Array, factor);
   });
 }
 
@@ -279,8 +281,8 @@ function synthesisOn(parts: SharedParts, guitar: Guitar, circuit: PreparedCircui
     if (parts.shape !== shape) {
       parts.shape = '';
       // Wirings holding both coils of a coupled pair get their S_i and Z by nodal analysis (solveSourceFactors).
-      solveSourceFactors(circuit, phaseClassNetwork(guitar, network), parts.factors, parts.impedance);
-      multiplySpectra(parts.factors, spectra, parts.products, parts.used);
+      solveSourceFactors(circuit, phaseClassNetwork(guitar, network), parts.products, parts.impedance);
+      multiplySpectra(parts.products, spectra, parts.used);
       parts.shape = shape;
     }
     if (gainShape !== shape) {

@@ -181,16 +181,17 @@ export function registerAnalyze(program: Command, io: Io): void {
     const threaded = options.audio !== false && figuresThreadPays(wirings.length);
     const progress = createProgress(io, undefined, { plainLines: big });
     const onStep = (done: number, total: number): void => progress.step(done, total);
+    // The thread loads its code while the strings render here, then measures from this basis's coil spectra.
     const pending = threaded ? measureFiguresOnThread(guitar, wirings, overrides, onStep) : null;
-    pending?.catch(() => undefined); // awaited below; a failure is reported there
     const basis = measureSpectralBasis(guitar);
+    pending?.start(basis);
     await pause();
     const solver = prepareCircuitMetrics(guitar, overrides, { drive: measureCoilDrive(basis) });
     const analysis: CircuitAnalysis = { load: solver.load, silent: solver.silent, points: solver.points, wirings: await runStepsPausing(solver.measureSteps(wirings), pause) };
     let audio: ReadonlyMap<string, AudioMetrics> | undefined;
     if (options.audio !== false && !analysis.silent) {
       progress.stage('measuring', wirings.length);
-      audio = pending ? referLevels(wirings, await pending) : measureWiringAudio(guitar, wirings, wirings, overrides, onStep, basis);
+      audio = pending ? referLevels(wirings, await pending.result()) : measureWiringAudio(guitar, wirings, wirings, overrides, onStep, basis);
       progress.finish();
     }
     const distinct = await runStepsPausing(measureDistinctnessSteps(guitar, wirings, { overrides, thresholds, reuseBasis: basis }), pause);
