@@ -64,6 +64,15 @@ describe('command line errors', () => {
     expect(err).toMatch(/^coilbench: --jsn: expected an option listed by coilbench wirings --help \(did you mean --json\?\), got an unknown option\n$/u);
   });
 
+  it('says how to give several values of a repeatable option when a second one reads as an extra argument', async () => {
+    const { status, err } = await run('render', 'three-single-coil.json', '--only', 'neck + mid', 'neck // ~bridge', '-o', 'never-written');
+    expect(status).toBe(2);
+    expect(err).toBe('coilbench: arguments: expected 1 argument (see coilbench render --help); --only takes one value each time, so repeat it for more (--only "…" --only "…"), got 2 arguments\n');
+    const plain = await run('check', 'three-single-coil.json', 'two-humbucker.json');
+    expect(plain.status).toBe(2);
+    expect(plain.err).toBe('coilbench: arguments: expected 1 argument (see coilbench check --help), got 2 arguments\n');
+  });
+
   it('prints the version of package.json', async () => {
     const { version } = JSON.parse(readFileSync(join(import.meta.dirname, '..', 'package.json'), 'utf8')) as { version: string };
     const { status, out } = await run('--version');

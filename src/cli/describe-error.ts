@@ -58,8 +58,23 @@ export function describeError(error: unknown, verbose: boolean): DescribedError 
   return { lines: [`coilbench: internal error: ${escapeForMessage(message, MAX_MESSAGE_SHOWN)}${hint}\n`, ...stack], status: EXIT_FAILURE };
 }
 
-/** Commander's own refusals (unknown option, missing value, unknown command) as one problem line each. */
-export function describeCommanderError(code: string, message: string, command: string | undefined): string[] {
+/** How many arguments commander wanted and got, from its "Expected 1 argument but got 2." */
+function argumentCounts(text: string): { readonly wanted: number; readonly given: number } | null {
+  const match = /Expected (\d+) arguments? but got (\d+)/u.exec(text);
+  return match ? { wanted: Number(match[1]), given: Number(match[2]) } : null;
+}
+
+function countOfArguments(count: number): string {
+  return count === 1 ? '1 argument' : `${count} arguments`;
+}
+
+/**
+ * Commander's own refusals (unknown option, missing value, unknown command) as
+ * one problem line each. `repeatable` names the options the command line used
+ * that take one value per use (`--only a --only b`): a second value after one
+ * of them is read as an extra argument, and the line says how to give it.
+ */
+export function describeCommanderError(code: string, message: string, command: string | undefined, repeatable: readonly string[] = []): string[] {
   const text = message.replace(/^error: /u, '');
   const quoted = /'([^']*)'/u.exec(text)?.[1] ?? '';
   const help = `coilbench ${command === undefined ? '' : `${command} `}--help`;
@@ -74,8 +89,13 @@ export function describeCommanderError(code: string, message: string, command: s
         return { path: quoted.split(' ').find((word) => word.startsWith('--')) ?? quoted, expected: 'a value after the option', got: 'nothing' };
       case 'commander.missingArgument':
         return { path: `<${quoted}>`, expected: `the ${quoted} argument (see ${help})`, got: 'nothing' };
-      case 'commander.excessArguments':
-        return { path: 'arguments', expected: `the arguments listed by ${help}`, got: text.replace(/^.*?\. /u, '') };
+      case 'commander.excessArguments': {
+        const counts = argumentCounts(text);
+        const flag = repeatable[0];
+        const repeat = flag === undefined ? '' : `; ${flag} takes one value each time, so repeat it for more (${flag} "…" ${flag} "…")`;
+        if (counts === null) return { path: 'arguments', expected: `the arguments listed by ${help}${repeat}`, got: text };
+        return { path: 'arguments', expected: `${countOfArguments(counts.wanted)} (see ${help})${repeat}`, got: countOfArguments(counts.given) };
+      }
       default:
         return { path: 'command line', expected: `arguments as listed by ${help}`, got: text.split('\n')[0] ?? text };
     }

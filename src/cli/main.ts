@@ -7,6 +7,7 @@
 import { Command, CommanderError } from 'commander';
 import type { Io } from './io.js';
 import { COILBENCH_VERSION } from './version.js';
+import { collectOption } from './collect-option.js';
 import { EXIT_BAD_INPUT, EXIT_OK, describeCommanderError, describeError } from './describe-error.js';
 import { removeLeftoversSync } from './interrupt.js';
 
@@ -82,7 +83,10 @@ function reportError(error: unknown, io: Io, verbose: boolean, argv: readonly st
       return EXIT_OK;
     }
     const commandName = argv.find((word) => program.commands.some((command) => command.name() === word));
-    for (const line of describeCommanderError(error.code, error.message, commandName)) io.stderr(line);
+    // The options used that take one value per use (collectOption): the likely source of an extra argument.
+    const options = program.commands.find((command) => command.name() === commandName)?.options ?? [];
+    const repeatable = options.filter((option) => option.parseArg === collectOption && option.long !== undefined && argv.includes(option.long)).map((option) => option.long as string);
+    for (const line of describeCommanderError(error.code, error.message, commandName, repeatable)) io.stderr(line);
     return EXIT_BAD_INPUT;
   }
   removeLeftoversSync(); // a failed render leaves no scratch audio and no temporary file
