@@ -359,10 +359,10 @@ async function renderIntoFolder(
   return { outcome, seconds };
 }
 
-/** "47 wirings rendered", or "5 wirings rendered of 47; groups over all 47" when only some were. */
+/** "47 wirings rendered", or "5 of 47 wirings rendered (groups over all 47)" when only some were. */
 export function describeRenderedCount(rendered: number, all: number): string {
   const noun = (count: number): string => `${count} wiring${count === 1 ? '' : 's'}`;
-  return rendered === all ? `${noun(rendered)} rendered` : `${noun(rendered)} rendered of ${all}; groups over all ${all}`;
+  return rendered === all ? `${noun(rendered)} rendered` : `${rendered} of ${noun(all)} rendered (groups over all ${all})`;
 }
 
 /** The summary line and where to look. */
