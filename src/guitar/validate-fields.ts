@@ -3,7 +3,7 @@
  * its path, and returns the value normalised: quantities in SI units, pitches
  * in Hz, defaults filled in. Cross-field rules live in `parse-guitar.ts`.
  */
-import { type InputProblem, problemAt } from '../errors/index.js';
+import { type InputProblem, listWithSuggestion, problemAt } from '../errors/index.js';
 import { QUANTITY_EXAMPLES, QuantityError, midiToHz, parseNoteName, parseQuantity } from '../units/index.js';
 import type { FieldSpec, ObjectSpec, QuantitySpec } from './field-spec.js';
 
@@ -178,7 +178,7 @@ function validateObject(
   for (const key of Object.keys(raw)) {
     if (!(key in spec.fields)) {
       const at = path === '' ? key : `${path}.${key}`;
-      problems.push(problemAt(at, `one of the known fields (${known.join(', ')})`, `an unknown field "${key}"`));
+      problems.push({ path: at, expected: `one of the known fields (${listWithSuggestion(key, known)})`, got: 'an unknown field' });
     }
   }
   for (const [name, entry] of Object.entries(spec.fields)) {

@@ -27,6 +27,7 @@ describe('parseWiring', () => {
 
   it.each([
     ['neck + pickup', 'a known coil'],
+    ['neck + brdge', 'did you mean bridge?'],
     ['neck + neck', 'each coil at most once'],
     ['neck + ()', 'empty group'],
     ['neck | mid', 'write parallel as "//"'],

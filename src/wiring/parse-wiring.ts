@@ -11,7 +11,7 @@
  * Unknown names, an element used twice, empty groups and stray symbols are
  * errors naming the column.
  */
-import { InputError, showValue } from '../errors/index.js';
+import { InputError, listWithSuggestion, showValue } from '../errors/index.js';
 import { canonicalize } from './canonicalize.js';
 import { type Network, invertAll, leaf } from './network.js';
 
@@ -133,7 +133,7 @@ class Parser {
         pieces.length > 1 && pieces.every((piece) => this.vocabulary.elementIds.includes(piece))
           ? '; write series as "+"'
           : '';
-      this.fail(`a known coil (${this.vocabulary.elementIds.join(', ')})${hint}`, token);
+      this.fail(`a known coil (${listWithSuggestion(token.text, this.vocabulary.elementIds)})${hint}`, token);
     }
     const earlier = this.used.get(index);
     if (earlier !== undefined) {
