@@ -49,7 +49,6 @@ export function measureFiguresOnThread(
 ): PendingFigures {
   const job: FiguresJob = { guitar, overrides, networks: wirings.map((wiring) => wiring.network) };
   const worker = startRenderWorker('figures-worker', job, MEASURING_THREAD_LIMITS);
-  worker.unref();
   const answer = jobResult<FiguresMessage, Map<string, RawAudioMetrics>>(worker, 'figures worker', (message) => {
     if (message.kind === 'step') {
       onStep?.(message.done, message.total);
@@ -65,6 +64,8 @@ export function measureFiguresOnThread(
   });
   // Not awaited until `result`: a failure meanwhile must not be an unhandled rejection.
   answer.catch(() => undefined);
+  // After jobResult's listeners: adding a 'message' listener refs the worker again.
+  worker.unref();
   return {
     start: (basis) => {
       worker.ref();
