@@ -18,8 +18,18 @@ import { formatCount } from '../units/index.js';
 /** Longest folder name shown in a message, characters. */
 const MAX_SHOWN_PATH = 120;
 
-/** Seconds to render and write one wiring, per second of its audio (a five-coil render of 9,997 wirings of the 2.6 s strum took about 20 min on a 2-core machine: 1200 / 9997 / 2.6). */
-const RENDER_SECONDS_PER_AUDIO_SECOND = 0.046;
+/**
+ * Seconds to render and write one wiring, per second of its audio, by
+ * effects chain: the 572 wirings of the two-humbucker sample (1,494 s of
+ * audio) on the 2-core machine in a slow hour (the bench's reference 111–124
+ * ms, against 41–43 ms at its quietest), rounded up: direct 11.7 s, clean
+ * 15.2 s, compressed 21.2 s, drive 26.1 s. Larger renders go faster per
+ * wiring (9,997 wirings of five coils: direct 145 s, clean 227 s), so these
+ * err long.
+ */
+const RENDER_SECONDS_PER_AUDIO_SECOND: Readonly<Record<string, number>> = Object.freeze({ direct: 0.008, clean: 0.011, compressed: 0.015, drive: 0.018 });
+/** The same for a chain not listed above: the slowest. */
+const SLOWEST_RENDER_SECONDS_PER_AUDIO_SECOND = Object.values(RENDER_SECONDS_PER_AUDIO_SECOND).reduce((slowest, rate) => Math.max(slowest, rate), 0);
 /** Seconds of the audio figures per wiring in `analyze` (from the coils' cross-spectra: about 0.7 ms; `npm run bench -- figures`). */
 const ANALYZE_AUDIO_SECONDS_PER_WIRING = 0.0007;
 /** Seconds per wiring of a render that writes no WAV (figures, circuit figures, response curve, netlist: about 2 ms; `npm run bench -- commands` with BENCH_BIG=1). */
@@ -54,13 +64,14 @@ export interface WorkEstimate {
 /** Bytes per sample of each WAV format. */
 const BYTES_PER_SAMPLE: Readonly<Record<string, number>> = Object.freeze({ pcm16: 2, pcm24: 3, f32: 4 });
 
-/** A render's work: the WAV files (none with --no-wav; the page holds coil signals, not copies of them) and the scratch audio. */
-export function estimateRender(wirings: number, audioSeconds: number, sampleRateHz: number, format: string, writeWav = true): WorkEstimate {
+/** A render's work through `chain`: the WAV files (none with --no-wav; the page holds coil signals, not copies of them) and the scratch audio. */
+export function estimateRender(wirings: number, audioSeconds: number, sampleRateHz: number, format: string, chain: string, writeWav = true): WorkEstimate {
   const frames = Math.ceil(audioSeconds * sampleRateHz);
   const wav = WAV_HEADER_BYTES + frames * (BYTES_PER_SAMPLE[format] ?? SCRATCH_BYTES_PER_SAMPLE);
   const bytes = writeWav ? wirings * wav : 0;
   if (!writeWav) return { wirings, seconds: wirings * RENDER_NO_WAV_SECONDS_PER_WIRING, bytes, peakBytes: bytes };
-  return { wirings, seconds: wirings * audioSeconds * RENDER_SECONDS_PER_AUDIO_SECOND, bytes, peakBytes: bytes + wirings * frames * SCRATCH_BYTES_PER_SAMPLE };
+  const secondsPerAudioSecond = RENDER_SECONDS_PER_AUDIO_SECOND[chain] ?? SLOWEST_RENDER_SECONDS_PER_AUDIO_SECOND;
+  return { wirings, seconds: wirings * audioSeconds * secondsPerAudioSecond, bytes, peakBytes: bytes + wirings * frames * SCRATCH_BYTES_PER_SAMPLE };
 }
 
 export function estimateAnalyze(wirings: number, audio: boolean): WorkEstimate {

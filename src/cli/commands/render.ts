@@ -248,7 +248,7 @@ export async function runRender(
   const root = resolve(io.cwd, options.output ?? defaultRoot ?? defaultOutputRoot('.', guitar.name));
   guardOutputs(renderInputs(file, options.phrase), [{ option: options.output === undefined ? 'output folder' : '--output', path: options.output ?? root, kind: 'folder' }], io.cwd);
   const lastNoteS = parsed.phrase.notes.reduce((latest, note) => Math.max(latest, note.timeS), 0);
-  const estimate = estimateRender(parsed.selected.length, lastNoteS + RENDER_TAIL_S, parsed.sampleRateHz, parsed.format, options.wav !== false);
+  const estimate = estimateRender(parsed.selected.length, lastNoteS + RENDER_TAIL_S, parsed.sampleRateHz, parsed.format, parsed.chain, options.wav !== false);
   const big = checkWorkSize(io, 'render', estimate, { yes: options.yes === true, picked: (options.only?.length ?? 0) > 0, where: root });
   const folder = outputFolder(root);
   const claim = claimOutputFolder({
