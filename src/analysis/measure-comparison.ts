@@ -9,7 +9,12 @@
  * and brightness by the alike thresholds (alike-thresholds.ts); the loaded
  * resonance by RESONANCE_CHANGE_PERCENT (a heuristic, docs/physics.md §7.2:
  * "peak frequency < ~5 %", not from a source; the band spectrum is what
- * decides audibility); hum when its hum-cancelling state changes, or when
+ * decides audibility), and only where there is a peak to hear move: both
+ * peaks at least the level threshold above the 100 Hz level (a clear peak
+ * appearing or going is flagged too). A nearly flat response (the coils
+ * partly cancelling) has at most a bump of a tenth of a dB, and which bump
+ * counts as its "resonance" can jump octaves between two guitars that sound
+ * alike; hum when its hum-cancelling state changes, or when
  * it moves by the level threshold or more while either of the two does not
  * cancel hum. `distance` is the scalar of measure-wiring-difference.ts: 1.0
  * is just noticeable.
@@ -76,6 +81,8 @@ export function measureComparison(a: ComparisonSet, b: ComparisonSet, match: Int
     const resonanceA = circuitA.resonanceHz;
     const resonanceB = circuitB.resonanceHz;
     const resonanceChange = resonanceA !== null && resonanceB !== null ? PERCENT * (resonanceB / resonanceA - 1) : null;
+    const clearA = resonanceA !== null && circuitA.peakDb !== null && circuitA.peakDb >= thresholds.levelDb;
+    const clearB = resonanceB !== null && circuitB.peakDb !== null && circuitB.peakDb >= thresholds.levelDb;
     const levelA = a.profiles.levelsDb[indexA] as number;
     const levelB = b.profiles.levelsDb[indexB] as number;
     const brightA = a.profiles.brightnessHz[indexA] as number;
@@ -94,7 +101,7 @@ export function measureComparison(a: ComparisonSet, b: ComparisonSet, match: Int
         a: resonanceA,
         b: resonanceB,
         change: resonanceChange,
-        aboveThreshold: resonanceChange !== null ? Math.abs(Math.log1p(resonanceChange / PERCENT)) >= Math.log1p(resonancePercent / PERCENT) : resonanceA !== resonanceB,
+        aboveThreshold: clearA && clearB ? Math.abs(Math.log1p((resonanceChange as number) / PERCENT)) >= Math.log1p(resonancePercent / PERCENT) : clearA !== clearB,
       },
       levelDb: { a: levelA, b: levelB, change: difference.levelDb, aboveThreshold: Math.abs(difference.levelDb) >= thresholds.levelDb },
       brightnessHz: {

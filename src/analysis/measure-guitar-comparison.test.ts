@@ -76,6 +76,22 @@ describe('measureGuitarComparison', () => {
     );
   });
 
+  it('flags a resonance shift only between clear peaks, not between the tenth-of-a-dB bumps of a nearly flat response', () => {
+    // The bridge coil at 3.1 H instead of 2.6 H. Three coils in series with one out of phase give a nearly flat
+    // response: its "resonance" is whichever bump stands 0.1 dB proud, and that one jumps octaves between the sets.
+    const hotter = structuredClone(demo) as { coils: Array<Record<string, unknown>> };
+    const bridge = hotter.coils.find((coil) => coil.id === 'bridge') as Record<string, unknown>;
+    bridge.inductance = '3.1H';
+    const comparison = measureGuitarComparison(parseGuitar(demo), parseGuitar(hotter));
+    const flat = comparison.wirings.filter((wiring) => (wiring.resonanceHz.change ?? 0) > 100);
+    expect(flat.length).toBeGreaterThan(0);
+    for (const wiring of flat) expect(wiring.resonanceHz.aboveThreshold).toBe(false);
+    // The bridge coil alone has a peak of about 3.6 dB that moves down by about 10 %: flagged.
+    const alone = comparison.wirings[2] as (typeof comparison.wirings)[number];
+    expect((alone.resonanceHz.change ?? 0) < -5).toBe(true);
+    expect(alone.resonanceHz.aboveThreshold).toBe(true);
+  });
+
   it('puts the hotter candidate set on the demo guitar: louder, lower resonances, flagged changes', () => {
     const comparison = measureGuitarComparison(parseGuitar(demo), parseGuitar(raw('three-single-coil-alt.json')));
     const singles = comparison.wirings.slice(0, 3);

@@ -199,7 +199,7 @@ export function registerCompare(program: Command, io: Io): void {
     }
     io.stdout(`A (baseline): ${base.name}\n`);
     io.stdout(
-      `Thresholds: ${describeThresholds(first.thresholds)}; resonance ${RESONANCE_CHANGE_PERCENT} % (a rule of thumb). ${ABOVE} = at or above its threshold.\n` +
+      `Thresholds: ${describeThresholds(first.thresholds)}; resonance ${RESONANCE_CHANGE_PERCENT} % (a rule of thumb; only between peaks ${first.thresholds.levelDb} dB or more above 100 Hz). ${ABOVE} = at or above its threshold.\n` +
         'Every figure of B is on A\'s scale: level against A\'s mean single coil, hum against A\'s mean single-coil hum.\n\n',
     );
     comparisons.forEach((comparison, index) => {
