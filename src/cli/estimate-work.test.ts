@@ -2,14 +2,13 @@ import { describe, expect, it } from 'vitest';
 import { estimateRender, isTooBig } from './estimate-work.js';
 
 describe('estimateRender', () => {
-  it('costs each chain at its own measured rate, slowest for a chain it does not know', () => {
-    const [direct, clean, compressed, drive, other] = ['direct', 'clean', 'compressed', 'drive', 'fuzz'].map((chain) => estimateRender(572, 2.6, 48_000, 'pcm24', chain).seconds);
+  it('costs each chain at its own measured rate', () => {
+    const [direct, clean, compressed, drive] = (['direct', 'clean', 'compressed', 'drive'] as const).map((chain) => estimateRender(572, 2.6, 48_000, 'pcm24', chain).seconds);
     // 572 wirings of 2.6 s through direct took 11.7 s on the 2-core machine in a slow hour (the rate's own measurement).
     expect(direct).toBeCloseTo(572 * 2.6 * 0.008, 6);
     expect(direct).toBeLessThan(clean as number);
     expect(clean).toBeLessThan(compressed as number);
     expect(compressed).toBeLessThan(drive as number);
-    expect(other).toBe(drive);
   });
 
   it('counts the WAV bytes from the format and the scratch audio as float32, and writes nothing with --no-wav', () => {

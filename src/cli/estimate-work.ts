@@ -27,9 +27,13 @@ const MAX_SHOWN_PATH = 120;
  * wiring (9,997 wirings of five coils: direct 145 s, clean 227 s), so these
  * err long.
  */
-const RENDER_SECONDS_PER_AUDIO_SECOND: Readonly<Record<string, number>> = Object.freeze({ direct: 0.008, clean: 0.011, compressed: 0.015, drive: 0.018 });
-/** The same for a chain not listed above: the slowest. */
-const SLOWEST_RENDER_SECONDS_PER_AUDIO_SECOND = Object.values(RENDER_SECONDS_PER_AUDIO_SECOND).reduce((slowest, rate) => Math.max(slowest, rate), 0);
+const RENDER_SECONDS_PER_AUDIO_SECOND = Object.freeze({ direct: 0.008, clean: 0.011, compressed: 0.015, drive: 0.018 });
+/**
+ * The effects chains costed above; the render passes its ChainName, so a
+ * chain added there without a rate here fails to compile (this module stays
+ * free of the render pipeline, which `analyze` does not load).
+ */
+export type CostedChain = keyof typeof RENDER_SECONDS_PER_AUDIO_SECOND;
 /** Seconds of the audio figures per wiring in `analyze` (from the coils' cross-spectra: about 0.7 ms; `npm run bench -- figures`). */
 const ANALYZE_AUDIO_SECONDS_PER_WIRING = 0.0007;
 /** Seconds per wiring of a render that writes no WAV (figures, circuit figures, response curve, netlist: about 2 ms; `npm run bench -- commands` with BENCH_BIG=1). */
@@ -65,13 +69,12 @@ export interface WorkEstimate {
 const BYTES_PER_SAMPLE: Readonly<Record<string, number>> = Object.freeze({ pcm16: 2, pcm24: 3, f32: 4 });
 
 /** A render's work through `chain`: the WAV files (none with --no-wav; the page holds coil signals, not copies of them) and the scratch audio. */
-export function estimateRender(wirings: number, audioSeconds: number, sampleRateHz: number, format: string, chain: string, writeWav = true): WorkEstimate {
+export function estimateRender(wirings: number, audioSeconds: number, sampleRateHz: number, format: string, chain: CostedChain, writeWav = true): WorkEstimate {
   const frames = Math.ceil(audioSeconds * sampleRateHz);
   const wav = WAV_HEADER_BYTES + frames * (BYTES_PER_SAMPLE[format] ?? SCRATCH_BYTES_PER_SAMPLE);
   const bytes = writeWav ? wirings * wav : 0;
   if (!writeWav) return { wirings, seconds: wirings * RENDER_NO_WAV_SECONDS_PER_WIRING, bytes, peakBytes: bytes };
-  const secondsPerAudioSecond = RENDER_SECONDS_PER_AUDIO_SECOND[chain] ?? SLOWEST_RENDER_SECONDS_PER_AUDIO_SECOND;
-  return { wirings, seconds: wirings * audioSeconds * secondsPerAudioSecond, bytes, peakBytes: bytes + wirings * frames * SCRATCH_BYTES_PER_SAMPLE };
+  return { wirings, seconds: wirings * audioSeconds * RENDER_SECONDS_PER_AUDIO_SECOND[chain], bytes, peakBytes: bytes + wirings * frames * SCRATCH_BYTES_PER_SAMPLE };
 }
 
 export function estimateAnalyze(wirings: number, audio: boolean): WorkEstimate {

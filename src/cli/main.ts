@@ -82,11 +82,11 @@ function reportError(error: unknown, io: Io, verbose: boolean, argv: readonly st
     if (error.code === 'commander.helpDisplayed' || error.code === 'commander.version' || error.code === 'commander.help') {
       return EXIT_OK;
     }
-    const commandName = argv.find((word) => program.commands.some((command) => command.name() === word));
+    // The first word naming a command is the command.
+    const command = argv.map((word) => program.commands.find((each) => each.name() === word)).find((found) => found !== undefined);
     // The options used that take one value per use (collectOption): the likely source of an extra argument.
-    const options = program.commands.find((command) => command.name() === commandName)?.options ?? [];
-    const repeatable = options.filter((option) => option.parseArg === collectOption && option.long !== undefined && argv.includes(option.long)).map((option) => option.long as string);
-    for (const line of describeCommanderError(error.code, error.message, commandName, repeatable)) io.stderr(line);
+    const repeatable = (command?.options ?? []).flatMap((option) => (option.parseArg === collectOption && option.long !== undefined && argv.includes(option.long) ? [option.long] : []));
+    for (const line of describeCommanderError(error.code, error.message, command?.name(), repeatable)) io.stderr(line);
     return EXIT_BAD_INPUT;
   }
   removeLeftoversSync(); // a failed render leaves no scratch audio and no temporary file

@@ -34,7 +34,8 @@ export function editDistance(a: string, b: string): number {
  */
 export function closestName(typed: string, known: readonly string[]): string | undefined {
   const limit = Math.min(MAX_SUGGESTION_EDITS, typed.length - 1);
-  const distances = known.map((name) => editDistance(typed.toLowerCase(), name.toLowerCase()));
+  const lowered = typed.toLowerCase();
+  const distances = known.map((name) => editDistance(lowered, name.toLowerCase()));
   const nearest = distances.reduce((least, distance) => Math.min(least, distance), Infinity);
   if (!(nearest <= limit)) return undefined;
   const candidates = known.filter((_, index) => distances[index] === nearest);

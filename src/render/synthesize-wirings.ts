@@ -22,7 +22,7 @@ import {
 } from '../circuit/index.js';
 import { InputError } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
-import { type RealFft, anyNonZero, multiplyComplexInto, nextPowerOfTwo, realFft } from '../math/index.js';
+import { type RealFft, anyNonZero, multiplyComplexInPlace, nextPowerOfTwo, realFft } from '../math/index.js';
 import { computeCoilSpectra, pickupDelaySamples } from '../pickup/index.js';
 import { type Phrase, type StringOptions, renderPhrase } from '../string/index.js';
 import type { Network } from '../wiring/index.js';
@@ -220,14 +220,14 @@ function createSharedParts(guitar: Guitar, coils: CoilSpectra, fft: RealFft): Sh
 /**
  * A_i(f) ← A_i(f)·E_i(f) in place, complex product per bin, for every coil whose A_i is not all zero; marks those
  * coils in `used`. A coil the wiring leaves out is not read from `spectra` at all (the page computes a coil's
- * spectrum on first need). Each bin's factor is read before its product is written (multiplyComplexInto), so the
+ * spectrum on first need). Each bin's factor is read before its product is written (multiplyComplexInPlace), so the
  * numbers are those of a product into a separate array.
  */
 function multiplySpectra(factors: readonly Float64Array[], spectra: readonly Float64Array[], used: Uint8Array): void {
   factors.forEach((factor, coil) => {
     const any = anyNonZero(factor) ? 1 : 0;
     used[coil] = any;
-    if (any === 1) multiplyComplexInto(factor, spectra[coil] as Float64Array, factor);
+    if (any === 1) multiplyComplexInPlace(factor, spectra[coil] as Float64Array);
   });
 }
 
