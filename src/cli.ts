@@ -16,6 +16,11 @@
  */
 import { main, processIo } from './cli/index.js';
 import { installInterruptHandlers } from './cli/interrupt.js';
+import { allocateFeedbackEagerly } from './cli/eager-feedback.js';
+
+// Before any work: V8 keeps type feedback from each function's first call, so long loops compiled while they run
+// are not thrown away on every later call (src/cli/eager-feedback.ts).
+allocateFeedbackEagerly();
 
 // A reader that stops early (`coilbench wirings … | head`) is not an error.
 process.stdout.on('error', (error: NodeJS.ErrnoException) => {
