@@ -52,7 +52,7 @@ export { matchElements, matchWirings } from './match-wirings.js';
 export { measureComparison, RESONANCE_CHANGE_PERCENT } from './measure-comparison.js';
 export type { ComparisonOptions, ComparisonSet, FigurePair, WiringComparison } from './measure-comparison.js';
 export { measureDistinctness, measureDistinctnessSteps } from './measure-distinctness.js';
-export type { Distinctness, DistinctnessOptions } from './measure-distinctness.js';
+export type { DistinctGroups, Distinctness, DistinctnessOptions } from './measure-distinctness.js';
 export { measureGuitarComparison } from './measure-guitar-comparison.js';
 export type { ComparedGuitar, GuitarComparison, GuitarComparisonOptions } from './measure-guitar-comparison.js';
 export { measureWiringFigures } from './measure-wiring-figures.js';

@@ -29,6 +29,13 @@ export interface Distinctness {
   readonly groups: WiringGroups;
 }
 
+/**
+ * What reports of the groups read of a Distinctness: the thresholds, the groups, and of the spectra only the count
+ * and the basis; not the per-wiring spectra and profiles (four arrays of about 300 bytes a wiring, 12.5 MB for
+ * 9,997 wirings), which a render's analysis thread does not send back.
+ */
+export type DistinctGroups = Pick<Distinctness, 'thresholds' | 'groups'> & { readonly spectra: Pick<WiringSpectra, 'count' | 'basis'> };
+
 /** Spectra, profiles and groups of `wirings` (ranked by `number` when they have one). Throws InputError for bad thresholds or overrides. */
 export function measureDistinctness(
   guitar: Guitar,

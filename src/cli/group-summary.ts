@@ -4,7 +4,7 @@
  * group with its members, and the closest pairs. Plain text, Markdown and
  * the `groups` record of `--json`.
  */
-import type { Distinctness } from '../analysis/index.js';
+import type { DistinctGroups } from '../analysis/index.js';
 import type { Wiring } from '../wiring/index.js';
 import { describeThresholds } from './alike-options.js';
 
@@ -14,7 +14,7 @@ const CLOSEST_PAIRS = 5;
 const times = (distance: number | null): string => (distance === null ? 'not checked' : `${distance.toFixed(2)}×`);
 
 /** "47 wirings, 44 audibly distinct groups at these thresholds". */
-export function groupHeadline(count: number, distinct: Distinctness): string {
+export function groupHeadline(count: number, distinct: Pick<DistinctGroups, 'groups'>): string {
   const groups = distinct.groups.groups.length;
   return `${count} wirings, ${groups} audibly distinct group${groups === 1 ? '' : 's'} at these thresholds`;
 }
@@ -26,7 +26,7 @@ interface Pair {
 }
 
 /** Each wiring's nearest neighbour as pairs, closest first, each pair once. */
-function closestPairs(distinct: Distinctness, wirings: readonly Wiring[]): Pair[] {
+function closestPairs(distinct: Pick<DistinctGroups, 'groups'>, wirings: readonly Wiring[]): Pair[] {
   const seen = new Set<string>();
   const pairs: Pair[] = [];
   distinct.groups.nearest.forEach((other, index) => {
@@ -48,7 +48,7 @@ const NOTE =
   'Figures from the model, level matched except for the level itself: listen before you choose.';
 
 /** The summary as plain text (or Markdown), after the table. */
-export function renderGroupSummary(wirings: readonly Wiring[], distinct: Distinctness, markdown: boolean): string {
+export function renderGroupSummary(wirings: readonly Wiring[], distinct: DistinctGroups, markdown: boolean): string {
   const lines: string[] = [];
   const headline = `${groupHeadline(wirings.length, distinct)} (${describeThresholds(distinct.thresholds)}; ${distinct.spectra.basis.phraseName}, direct)`;
   lines.push(markdown ? `### ${headline}` : `${headline}:`);
@@ -68,7 +68,7 @@ export function renderGroupSummary(wirings: readonly Wiring[], distinct: Distinc
 }
 
 /** The `groups` record of `analyze --json`. */
-export function groupsRecord(wirings: readonly Wiring[], distinct: Distinctness): Record<string, unknown> {
+export function groupsRecord(wirings: readonly Wiring[], distinct: DistinctGroups): Record<string, unknown> {
   const { levelDb, spectrumDb, brightnessPercent } = distinct.thresholds;
   return {
     summary: groupHeadline(wirings.length, distinct),

@@ -34,7 +34,11 @@ describe('prepareRenderAnalysis', () => {
     expect(threaded.circuit).toEqual(own.circuit);
     expect(threaded.drive).toEqual(own.drive);
     expect(threaded.distinct.groups).toEqual(own.distinct.groups);
-    expect(threaded.distinct.profiles).toEqual(own.distinct.profiles);
+    expect(threaded.distinct.thresholds).toEqual(own.distinct.thresholds);
+    expect(threaded.distinct.spectra.count).toBe(own.distinct.spectra.count);
+    // Only the groups come back: the per-wiring spectra and profiles stay in the thread (DistinctGroups).
+    expect(Object.keys(threaded.distinct).sort()).toEqual(['groups', 'spectra', 'thresholds']);
+    expect(Object.keys(threaded.distinct.spectra).sort()).toEqual(['basis', 'count']);
     expect(threaded.responsesDb).toEqual(own.responsesDb);
     expect(own.responsesDb).toHaveLength(20);
     expect(own.circuit.wirings).toHaveLength(20);

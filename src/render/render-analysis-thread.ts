@@ -14,7 +14,12 @@ import type { CoilSignals } from './synthesize-wirings.js';
 
 /** The worker's answer: the analysis without its basis (the parent has it), or its failure as data. */
 export type RenderAnalysisMessage =
-  | { readonly kind: 'done'; readonly analysis: Omit<RenderAnalysis, 'distinct'> & { readonly distinct: Omit<RenderAnalysis['distinct'], 'spectra'> & { readonly spectra: Omit<RenderAnalysis['distinct']['spectra'], 'basis'> & { readonly basis: undefined } } } }
+  | {
+      readonly kind: 'done';
+      readonly analysis: Omit<RenderAnalysis, 'distinct'> & {
+        readonly distinct: Omit<RenderAnalysis['distinct'], 'spectra'> & { readonly spectra: Omit<RenderAnalysis['distinct']['spectra'], 'basis'> & { readonly basis: undefined } };
+      };
+    }
   | WorkerFailure;
 
 export interface PendingAnalysis {

@@ -21,8 +21,10 @@ if (port) {
   port.once('message', ({ basis, figures, coils }: { basis: SpectralBasis; figures: readonly Network[]; coils?: CoilSignals }) => {
     try {
       const analysis = measureRenderAnalysis(job, basis, figures, coils);
-      // The basis is the parent's own: it is not sent back.
-      const distinct = { ...analysis.distinct, spectra: { ...analysis.distinct.spectra, basis: undefined } };
+      // The basis is the parent's own: it is not sent back; nor are the per-wiring spectra and profiles, which the
+      // parent does not read (DistinctGroups).
+      const { thresholds, groups, spectra } = analysis.distinct;
+      const distinct = { thresholds, groups, spectra: { count: spectra.count, basis: undefined } };
       const answer = { kind: 'done', analysis: { ...analysis, distinct } } satisfies RenderAnalysisMessage;
       // Its typed arrays (the groups' band spectra and profiles, the response curves) move to the parent without a copy.
       port.postMessage(answer, transferablesOf(answer));

@@ -23,7 +23,7 @@ import {
   sampleCoilDrive,
   solveTransfers,
 } from '../circuit/index.js';
-import { type AlikeThresholds, type Distinctness, type SpectralBasis, measureCoilDrive, measureDistinctness, measureFiguresByClass } from '../analysis/index.js';
+import { type AlikeThresholds, type DistinctGroups, type SpectralBasis, measureCoilDrive, measureDistinctness, measureFiguresByClass } from '../analysis/index.js';
 import { type RawAudioMetrics, prepareReferenceFigures, referenceCoilsOf } from './measure-wiring-audio.js';
 import { type CoilSignals, assertAudible } from './synthesize-wirings.js';
 import type { Guitar } from '../guitar/index.js';
@@ -48,7 +48,8 @@ export interface RenderAnalysis {
   readonly figures: readonly RawAudioMetrics[];
   readonly drive: CoilDrive;
   readonly circuit: CircuitAnalysis;
-  readonly distinct: Distinctness;
+  /** The groups (a whole Distinctness when measured in the caller's thread; the groups alone from a thread of its own). */
+  readonly distinct: DistinctGroups;
   readonly responseFrequenciesHz: Float64Array;
   /** Each selected wiring's response as the strings drive it, dB (null when silent). */
   readonly responsesDb: readonly (Float64Array | null)[];

@@ -14,7 +14,7 @@ import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { performance } from 'node:perf_hooks';
 import { basename, join, relative } from 'node:path';
 import { type CircuitOverrides, type WiringCircuitMetrics, phaseClassKey, renderNetlist } from '../circuit/index.js';
-import { type AlikeThresholds, type Distinctness, measureSpectralBasis } from '../analysis/index.js';
+import { type AlikeThresholds, type DistinctGroups, measureSpectralBasis } from '../analysis/index.js';
 import { WorkError } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
 import {
@@ -134,7 +134,7 @@ export interface RenderOutcome {
   readonly matchedLoudnessLufs: number | null;
   readonly audioSeconds: number;
   /** Which wirings of `scope` sound alike (in `scope` order). */
-  readonly distinct: Distinctness;
+  readonly distinct: DistinctGroups;
   /** The wirings `distinct` covers: every wiring, or for `--only` on a guitar of more than 1000 wirings the rendered ones and the single elements. */
   readonly scope: readonly Wiring[];
 }
@@ -494,7 +494,7 @@ function distinctScope(all: readonly Wiring[], selected: readonly Wiring[]): rea
 }
 
 /** The report's record of the groups of alike wirings. */
-function reportGroups(all: readonly Wiring[], distinct: Distinctness): ReportGroups {
+function reportGroups(all: readonly Wiring[], distinct: DistinctGroups): ReportGroups {
   const count = distinct.groups.groups.length;
   const { levelDb, spectrumDb, brightnessPercent } = distinct.thresholds;
   return {
