@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { closestName, editDistance, listWithSuggestion } from './closest-name.js';
+import { closestName, editDistance, listWithSuggestion, oneOfChoices } from './closest-name.js';
 
 describe('editDistance', () => {
   // Worked values: "kitten" → "sitting" is 3 (the textbook Levenshtein example); a swap of neighbours is one edit
@@ -34,5 +34,19 @@ describe('closestName', () => {
     expect(closestName('bridg', ['bridge1', 'bridge2'])).toBeUndefined();
     expect(listWithSuggestion('zzz', ['id', 'position'])).toBe('id, position');
     expect(listWithSuggestion('positon', ['id', 'position'])).toBe('id, position; did you mean position?');
+  });
+});
+
+describe('oneOfChoices', () => {
+  const chains = ['direct', 'clean', 'drive', 'compressed'];
+  it('lists the choices and names the one a typo meant', () => {
+    expect(oneOfChoices('cleen', chains)).toBe('one of direct, clean, drive, compressed (did you mean clean?)');
+    expect(oneOfChoices('Drive', chains)).toBe('one of direct, clean, drive, compressed (did you mean drive?)');
+    expect(oneOfChoices('pcm32', ['pcm24', 'pcm16', 'f32'])).toBe('one of pcm24, pcm16, f32');
+  });
+
+  it('suggests nothing for a value that is not text or is far from every choice', () => {
+    expect(oneOfChoices(3, chains)).toBe('one of direct, clean, drive, compressed');
+    expect(oneOfChoices('fuzz', chains)).toBe('one of direct, clean, drive, compressed');
   });
 });

@@ -42,6 +42,16 @@ export function closestName(typed: string, known: readonly string[]): string | u
   return candidates.length === 1 ? candidates[0] : undefined;
 }
 
+/**
+ * "one of a, b, c" for a choice typed as `typed`, with " (did you mean b?)" after it when `typed` is text near one of
+ * the choices: the expected part of a message about a value outside a fixed set.
+ */
+export function oneOfChoices(typed: unknown, choices: readonly (string | number)[]): string {
+  const names = choices.map(String);
+  const name = typeof typed === 'string' ? closestName(typed, names) : undefined;
+  return `one of ${names.join(', ')}${name === undefined ? '' : ` (did you mean ${name}?)`}`;
+}
+
 /** "a, b, c" with "; did you mean b?" after it when `typed` is near one of them: the inside of a parenthesised list of choices. */
 export function listWithSuggestion(typed: string, known: readonly string[]): string {
   const name = closestName(typed, known);

@@ -2,7 +2,7 @@
  * The effects chains a render can go through, and their plain-language
  * descriptions for reports and the listening page.
  */
-import { InputError } from '../errors/index.js';
+import { InputError, oneOfChoices } from '../errors/index.js';
 
 /** `direct`: the output jack as is; `clean`, `drive`, `compressed`: through a modelled amplifier and cabinet. */
 export type ChainName = 'direct' | 'clean' | 'drive' | 'compressed';
@@ -30,5 +30,5 @@ export function isChainName(text: unknown): text is ChainName {
 /** Read a chain name from user input (`--chain`); throws InputError at `path` otherwise. */
 export function parseChainName(text: unknown, path = '--chain'): ChainName {
   if (isChainName(text)) return text;
-  throw InputError.at(path, `one of ${CHAIN_NAMES.join(', ')}`, text);
+  throw InputError.at(path, oneOfChoices(text, CHAIN_NAMES), text);
 }

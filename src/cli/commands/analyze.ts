@@ -11,7 +11,7 @@ import {
   prepareCircuitMetrics,
 } from '../../circuit/index.js';
 import { measureCoilDrive, measureDistinctnessSteps, measureSpectralBasis } from '../../analysis/index.js';
-import { InputError, type InputProblem, problemAt } from '../../errors/index.js';
+import { InputError, type InputProblem, oneOfChoices, problemAt } from '../../errors/index.js';
 import { formatCount, formatEngineering } from '../../units/index.js';
 import { iterateWirings, type Wiring } from '../../wiring/index.js';
 import { type AlikeOptionText, addAlikeOptions, parseAlikeOptions } from '../alike-options.js';
@@ -134,7 +134,7 @@ export function registerAnalyze(program: Command, io: Io): void {
     const overrides = parseCircuitOptions(options, guitar, problems);
     const thresholds = parseAlikeOptions(options, problems);
     if (options.sort !== undefined && !sortNames().includes(options.sort)) {
-      problems.push(problemAt('--sort', `one of ${sortNames().join(', ')}`, options.sort));
+      problems.push(problemAt('--sort', oneOfChoices(options.sort, sortNames()), options.sort));
     }
     if (options.json && options.markdown) problems.push(problemAt('--markdown', 'either --json or --markdown, not both', '--json --markdown'));
     if (options.csv !== undefined && options.csv.trim() === '') problems.push(problemAt('--csv', 'a file name', options.csv));

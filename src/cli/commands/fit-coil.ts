@@ -16,7 +16,7 @@ import {
   measureUnloadedPeak,
   parseImpedanceSweep,
 } from '../../circuit/index.js';
-import { InputError, type InputProblem, problemAt } from '../../errors/index.js';
+import { InputError, type InputProblem, oneOfChoices, problemAt } from '../../errors/index.js';
 import { parseGuitar, parseJsonText } from '../../guitar/index.js';
 import { writeFileAtomicSync } from '../../render/index.js';
 import { QuantityError, formatEngineering, parseQuantity } from '../../units/index.js';
@@ -84,7 +84,7 @@ function numberOption(text: string | undefined, path: string, expected: string, 
 function fitFromOptions(sweepPath: string | undefined, options: FitCoilOptions, cwd: string): FitResult {
   const problems: InputProblem[] = [];
   const losses = options.losses ?? 'eddy';
-  if (!LOSS_MODELS.includes(losses as CoilLossModel)) problems.push(problemAt('--losses', `one of ${LOSS_MODELS.join(', ')}`, losses));
+  if (!LOSS_MODELS.includes(losses as CoilLossModel)) problems.push(problemAt('--losses', oneOfChoices(losses, LOSS_MODELS), losses));
   if ((options.guitar === undefined) !== (options.coil === undefined)) {
     problems.push(problemAt(options.guitar === undefined ? '--guitar' : '--coil', '--guitar and --coil together', 'only one of them'));
   }

@@ -1,7 +1,7 @@
 import { existsSync } from 'node:fs';
 import { join, relative, resolve, sep } from 'node:path';
 import type { Command } from 'commander';
-import { InputError, type InputProblem, problemAt } from '../../errors/index.js';
+import { InputError, type InputProblem, oneOfChoices, problemAt } from '../../errors/index.js';
 import type { Guitar } from '../../guitar/index.js';
 import {
   CHAIN_NAMES,
@@ -171,11 +171,11 @@ export function parseRenderOptions(options: RenderOptionText, guitar: Guitar, al
   const thresholds = parseAlikeOptions(options, problems);
   const phrase = readPhrase(options.phrase, guitar, io, problems);
   const chain = (options.chain ?? DEFAULT_CHAIN) as ChainName;
-  if (!CHAIN_NAMES.includes(chain)) problems.push(problemAt('--chain', `one of ${CHAIN_NAMES.join(', ')}`, options.chain));
+  if (!CHAIN_NAMES.includes(chain)) problems.push(problemAt('--chain', oneOfChoices(options.chain, CHAIN_NAMES), options.chain));
   const sampleRateHz = options.rate === undefined ? DEFAULT_SAMPLE_RATE_HZ : Number(options.rate.replace(/\s*hz$/iu, ''));
   if (!SAMPLE_RATES_HZ.includes(sampleRateHz)) problems.push(problemAt('--rate', `one of ${SAMPLE_RATES_HZ.join(', ')} (Hz)`, options.rate));
   const format = (options.format ?? 'pcm24') as WavFormat;
-  if (!WAV_FORMATS.includes(format)) problems.push(problemAt('--format', `one of ${WAV_FORMATS.join(', ')}`, options.format));
+  if (!WAV_FORMATS.includes(format)) problems.push(problemAt('--format', oneOfChoices(options.format, WAV_FORMATS), options.format));
   const level = options.level ?? 'true';
   if (level !== 'true' && level !== 'matched') problems.push(problemAt('--level', '"true" or "matched"', options.level));
   let hum: HumMix | null = null;
