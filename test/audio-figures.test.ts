@@ -99,5 +99,16 @@ describe('audio figures from cross-spectra', () => {
     expect(steps).toBeGreaterThan(0);
     expect([...there.entries()]).toEqual([...here.entries()].sort((a, b) => wirings.findIndex((w) => w.id === a[0]) - wirings.findIndex((w) => w.id === b[0])));
     for (const [id, figures] of here) expect(oneByOne.get(id)).toEqual(figures);
+
+    // The caller helping: it takes the classes the thread has not reached (here nearly all, the thread still
+    // preparing), and the merged figures are the same numbers, each wiring where it belongs.
+    let helped = 0;
+    const shared = measureFiguresOnThread(guitar, wirings, {}, (done) => (helped = done));
+    const basis = measureSpectralBasis(guitar);
+    shared.start(basis);
+    await shared.help(basis, async () => undefined, 0);
+    const merged = await shared.result();
+    expect(helped).toBe(wirings.length);
+    expect([...merged.entries()]).toEqual([...there.entries()]);
   });
 });

@@ -57,5 +57,5 @@ export { measureGuitarComparison } from './measure-guitar-comparison.js';
 export type { ComparedGuitar, GuitarComparison, GuitarComparisonOptions } from './measure-guitar-comparison.js';
 export { measureWiringFigures } from './measure-wiring-figures.js';
 export type { WiringFigures, WiringFiguresOptions, WiringFiguresStep } from './measure-wiring-figures.js';
-export { prepareAudioFigures, measureFiguresByClass, designFigureGrid, GRID_POINTS_PER_OCTAVE, GRID_LOWEST_HZ, BLOCK_PADDING_S } from './measure-audio-figures.js';
+export { prepareAudioFigures, measureFiguresByClass, measureClassInto, phaseClassesOf, designFigureGrid, GRID_POINTS_PER_OCTAVE, GRID_LOWEST_HZ, BLOCK_PADDING_S } from './measure-audio-figures.js';
 export type { AudioFigureMeter, CoilRecording, RawAudioFigures } from './measure-audio-figures.js';

@@ -473,6 +473,34 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
 }
 
 /**
+ * The wirings of each phase class, as indices into `networks`, the classes in
+ * the order of their first member: the units `measureClassInto` measures.
+ */
+export function phaseClassesOf(guitar: Guitar, networks: readonly Network[]): number[][] {
+  const classes = new Map<string, number[]>();
+  networks.forEach((network, index) => {
+    const key = phaseClassKey(guitar, network);
+    const members = classes.get(key);
+    if (members) members.push(index);
+    else classes.set(key, [index]);
+  });
+  return [...classes.values()];
+}
+
+/**
+ * The figures of one phase class's wirings (`members`, indices into
+ * `networks`) into `results` at those indices. A class's figures depend on
+ * nothing but its own wirings, so classes may be measured in any order, on
+ * any thread, with the same numbers.
+ */
+export function measureClassInto(meter: AudioFigureMeter, networks: readonly Network[], members: readonly number[], results: RawAudioFigures[]): void {
+  const figures = meter.measureClass(members.map((index) => networks[index] as Network));
+  members.forEach((index, position) => {
+    results[index] = figures[position] as RawAudioFigures;
+  });
+}
+
+/**
  * The figures of `networks` (in their order), measured phase class by phase
  * class (`measureClass`): the way every caller should take many wirings.
  * `onProgress` is told after each class.
@@ -483,20 +511,10 @@ export function measureFiguresByClass(
   networks: readonly Network[],
   onProgress?: (done: number, total: number) => void,
 ): RawAudioFigures[] {
-  const classes = new Map<string, number[]>();
-  networks.forEach((network, index) => {
-    const key = phaseClassKey(guitar, network);
-    const members = classes.get(key);
-    if (members) members.push(index);
-    else classes.set(key, [index]);
-  });
   const results = new Array<RawAudioFigures>(networks.length);
   let done = 0;
-  for (const members of classes.values()) {
-    const figures = meter.measureClass(members.map((index) => networks[index] as Network));
-    members.forEach((index, position) => {
-      results[index] = figures[position] as RawAudioFigures;
-    });
+  for (const members of phaseClassesOf(guitar, networks)) {
+    measureClassInto(meter, networks, members, results);
     done += members.length;
     onProgress?.(done, networks.length);
   }

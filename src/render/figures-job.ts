@@ -14,6 +14,12 @@ export interface FiguresJob {
   readonly guitar: Guitar;
   readonly overrides: CircuitOverrides;
   readonly networks: readonly Network[];
+  /**
+   * One Int32 shared with the caller: the next phase class (phaseClassesOf order) not yet taken. The thread and,
+   * once its own work is done, the caller each take the next class with Atomics.add, so neither waits idle while
+   * classes are left.
+   */
+  readonly claims: SharedArrayBuffer;
 }
 
 /**
@@ -26,10 +32,11 @@ export interface FiguresStart {
   readonly basis: SpectralBasis;
 }
 
-/** Numbers per wiring in the result: energy, loudnessLufs, centroidHz. */
+/** Numbers per wiring in the result: energy, loudnessLufs, centroidHz (zeros for the wirings of classes the caller took). */
 export const FIGURES_PER_WIRING = 3;
 
 export type FiguresMessage =
-  | { readonly kind: 'step'; readonly done: number; readonly total: number }
+  /** After each class: wirings this thread has measured so far. */
+  | { readonly kind: 'step'; readonly done: number }
   | { readonly kind: 'done'; readonly figures: Float64Array }
   | WorkerFailure;

@@ -195,6 +195,8 @@ export function registerAnalyze(program: Command, io: Io): void {
     // core idle for the thread's last half (five coils, 9,997 wirings: 8.8 s idle of 20.9 s in a CPU profile).
     const distinct = await runStepsPausing(measureDistinctnessSteps(guitar, wirings, { overrides, thresholds, reuseBasis: basis }), pause);
     if (measuresAudio) {
+      // Then this core takes the phase classes the thread has not reached, so neither waits while work is left.
+      await pending?.help(basis, pause);
       audio = pending ? referLevels(wirings, await pending.result()) : measureWiringAudio(guitar, wirings, wirings, overrides, onStep, basis);
       progress.finish();
     }
