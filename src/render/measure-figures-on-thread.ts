@@ -42,8 +42,8 @@ export interface PendingFigures {
   start(basis: SpectralBasis): void;
   /**
    * Measure here, after `start`, the phase classes the thread has not taken yet, one after another until none is
-   * left (when at least `minUntaken` wirings are untaken, HELP_MIN_UNTAKEN_WIRINGS by default; else return at once), awaiting `pause`
-   * after each. The figures are the same numbers on either thread.
+   * left, awaiting `pause` after each; only when at least `minUntaken` wirings are untaken (HELP_MIN_UNTAKEN_WIRINGS
+   * by default), else it returns at once. The figures are the same numbers on either thread.
    */
   help(basis: SpectralBasis, pause: () => Promise<void>, minUntaken?: number): Promise<void>;
   /** The raw figures by wiring id (after `start`, and after `help` when it was called). */
