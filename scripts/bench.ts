@@ -6,6 +6,7 @@
  *   npm run bench -- commands render only these sections (names below)
  */
 import { cpus } from 'node:os';
+import { allocateFeedbackEagerly } from '../src/cli/eager-feedback.js';
 import { benchChain } from './bench/chain.js';
 import { benchCircuit } from './bench/circuit.js';
 import { benchCommands } from './bench/command.js';
@@ -18,6 +19,10 @@ import { benchRender } from './bench/render.js';
 import { benchStrings } from './bench/strings.js';
 import { benchSwitch } from './bench/switch.js';
 import { benchSixElements } from './bench/six-elements.js';
+
+// The in-process sections run with the V8 setting the command line uses (src/cli/eager-feedback.ts), so they
+// measure the code as users run it.
+allocateFeedbackEagerly();
 
 const SECTIONS: ReadonlyArray<readonly [string, () => unknown]> = [
   ['commands', benchCommands],

@@ -7,6 +7,7 @@
 import { spawnSync } from 'node:child_process';
 import { join } from 'node:path';
 import { defaultThreadCount } from '../../src/render/index.js';
+import { EAGER_FEEDBACK_FLAG } from '../../src/cli/eager-feedback.js';
 import { heading, line } from './timing.js';
 
 interface ChildResult {
@@ -18,7 +19,8 @@ interface ChildResult {
 }
 
 function renderInChild(guitar: string, chain: string, threads: number, repeat: 'cold' | 'warm'): ChildResult {
-  const child = spawnSync(process.execPath, ['--import', 'tsx', join(import.meta.dirname, 'render-child.ts'), guitar, chain, String(threads), repeat], {
+  // With the command line's V8 setting (src/cli/eager-feedback.ts), so the render runs as users run it.
+  const child = spawnSync(process.execPath, [EAGER_FEEDBACK_FLAG, '--import', 'tsx', join(import.meta.dirname, 'render-child.ts'), guitar, chain, String(threads), repeat], {
     encoding: 'utf8',
   });
   if (child.status !== 0) throw new Error(`render bench failed: ${child.stderr}`);

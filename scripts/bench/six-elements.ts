@@ -12,6 +12,7 @@ import { spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { EAGER_FEEDBACK_FLAG } from '../../src/cli/eager-feedback.js';
 import { heading, line } from './timing.js';
 
 interface CliResult {
@@ -24,7 +25,8 @@ interface CliResult {
 }
 
 function runInChild(argv: readonly string[]): CliResult {
-  const child = spawnSync(process.execPath, ['--import', 'tsx', join(import.meta.dirname, 'cli-child.ts'), ...argv], { encoding: 'utf8', maxBuffer: 1 << 20 });
+  // With the command line's V8 setting (src/cli/eager-feedback.ts): cli-child runs `main`, not src/cli.ts.
+  const child = spawnSync(process.execPath, [EAGER_FEEDBACK_FLAG, '--import', 'tsx', join(import.meta.dirname, 'cli-child.ts'), ...argv], { encoding: 'utf8', maxBuffer: 1 << 20 });
   if (child.status !== 0) throw new Error(`six-element bench failed: ${child.stderr}`);
   const result = JSON.parse(child.stdout.trim().split('\n').at(-1) ?? '{}') as CliResult;
   if (result.status !== 0) throw new Error(`coilbench ${argv.join(' ')} exited with ${result.status}`);
