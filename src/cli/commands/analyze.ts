@@ -185,12 +185,14 @@ export function registerAnalyze(program: Command, io: Io): void {
     const pending = threaded ? measureFiguresOnThread(guitar, wirings, overrides, onStep) : null;
     const basis = measureSpectralBasis(guitar);
     pending?.start(basis);
+    // The thread reports its progress from now on, while this one measures the circuits and the groups.
+    if (pending) progress.stage('measuring', wirings.length);
     await pause();
     const solver = prepareCircuitMetrics(guitar, overrides, { drive: measureCoilDrive(basis) });
     const analysis: CircuitAnalysis = { load: solver.load, silent: solver.silent, points: solver.points, wirings: await runStepsPausing(solver.measureSteps(wirings), pause) };
     let audio: ReadonlyMap<string, AudioMetrics> | undefined;
     const measuresAudio = options.audio !== false && !analysis.silent;
-    if (measuresAudio) progress.stage('measuring', wirings.length);
+    if (measuresAudio && !pending) progress.stage('measuring', wirings.length);
     // The groups, here while the thread (if any) measures the audio figures: waiting for the thread first left this
     // core idle for the thread's last half (five coils, 9,997 wirings: 8.8 s idle of 20.9 s in a CPU profile).
     const distinct = await runStepsPausing(measureDistinctnessSteps(guitar, wirings, { overrides, thresholds, reuseBasis: basis }), pause);
