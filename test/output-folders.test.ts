@@ -196,7 +196,7 @@ describe('refusals come before the first file', () => {
 });
 
 describe('a lock keeps a second run out', () => {
-  it('a lock of a running process refuses the run (exit 2, naming the lock); a stale one is taken over, saying so', async () => {
+  it('a lock of a running process refuses the run (exit 2, naming the lock); a stale one is taken over, saying so, and the lock files its dead runs left are removed', async () => {
     const cwd = scratchFolder();
     const target = join(cwd, 'out');
     mkdirSync(target);
@@ -212,9 +212,13 @@ describe('a lock keeps a second run out', () => {
     const deadPid = ended.pid as number;
     await new Promise((resolve) => ended.on('exit', resolve));
     writeFileSync(join(target, '.coilbench.lock'), JSON.stringify({ pid: deadPid, started: 'earlier' }));
+    // What a run killed while taking or breaking a lock leaves: its temporary lock file and its breaker.
+    writeFileSync(join(target, `.coilbench.lock.${deadPid}.c477e739f077`), JSON.stringify({ pid: deadPid, started: 'earlier' }));
+    writeFileSync(join(target, '.coilbench.lock.break'), String(deadPid));
     const taken = await run(cwd, 'render', 'guitar.json', '--only', 'w1', '--chain', 'direct', '-o', 'out');
     expect(taken.status).toBe(0);
     expect(taken.err).toContain(`taking over the lock of process ${deadPid} (since earlier), which is no longer running`);
+    expect(readdirSync(target).filter((name) => name.startsWith('.coilbench.lock'))).toEqual([]);
     expectFolderMatchesReport(target);
   });
 });

@@ -145,6 +145,7 @@ export function claimOutputFolder(request: ClaimRequest): FolderClaim {
     throw error;
   }
   heldLocks.add(lock);
+  removeStaleLockFiles(root);
   const ownNames = [...new Set([...request.ownNames, FOLDER_MARKER])];
   const before = createdFolders.length > 0 ? new Set<string>() : listOwnFiles(root, ownNames);
   // The reports, manifest and marker at the top as they were: a failed run puts them back (WAVs it
@@ -396,6 +397,32 @@ function breakStaleLock(lock: string, stale: LockHolder): boolean {
     return true;
   } finally {
     rmSync(breaker, { force: true });
+  }
+}
+
+/**
+ * Remove the lock's helper files left by runs that are gone: a temporary lock
+ * file (`.coilbench.lock.<pid>.<hex>`, takeLock) or a breaker
+ * (`.coilbench.lock.break` holding its pid, breakStaleLock) whose process no
+ * longer runs. A run killed between writing one and removing it left it in
+ * the folder for good (seen after SIGKILL in test/interruption.test.ts). Called
+ * with the lock held; a live process's files are its own to remove.
+ */
+function removeStaleLockFiles(root: string): void {
+  for (const name of readdirSync(root)) {
+    if (!name.startsWith(`${FOLDER_LOCK}.`)) continue;
+    const path = join(root, name);
+    const [pidText = '', hex = '', ...rest] = name.slice(FOLDER_LOCK.length + 1).split('.');
+    let pid = Number.NaN;
+    if (rest.length === 0 && /^\d+$/u.test(pidText) && /^[0-9a-f]+$/u.test(hex)) pid = Number(pidText);
+    else if (name === `${FOLDER_LOCK}.break`) {
+      try {
+        pid = Number(readFileSync(path, 'utf8').trim());
+      } catch {
+        continue;
+      }
+    }
+    if (Number.isInteger(pid) && pid > 0 && !processIsRunning(pid)) rmSync(path, { force: true });
   }
 }
 
