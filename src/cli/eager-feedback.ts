@@ -14,9 +14,11 @@
  * the store allocated at the first call, there were 2–3 bailouts in each of
  * thirteen runs.
  *
- * Measured on the 2-core machine (`render` of the three-single-coil sample,
- * alternating runs, medians): clean 3.1 → 2.6 s, direct 2.61 → 2.24 s;
- * `analyze` moved within the noise and no peak memory changed.
+ * Measured on the 2-core machine (the three-single-coil sample, the
+ * executable against the build before, alternating runs, medians): clean
+ * render 2.9 → 2.55 s and direct 2.30 → 2.19 s (eight runs each),
+ * `analyze` 1.83 → 1.42 s (five); the drive chain and peak memory moved
+ * within the noise (DEVELOPERS.md, bench section).
  *
  * The flag is V8's own, set before any work starts, and holds for every
  * thread the process starts later (V8's flags are per process). It changes

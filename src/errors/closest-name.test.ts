@@ -43,6 +43,8 @@ describe('oneOfChoices', () => {
     expect(oneOfChoices('cleen', chains)).toBe('one of direct, clean, drive, compressed (did you mean clean?)');
     expect(oneOfChoices('Drive', chains)).toBe('one of direct, clean, drive, compressed (did you mean drive?)');
     expect(oneOfChoices('pcm32', ['pcm24', 'pcm16', 'f32'])).toBe('one of pcm24, pcm16, f32');
+    expect(oneOfChoices('sout', ['north', 'south'], true)).toBe('one of "north" or "south" (did you mean "south"?)');
+    expect(oneOfChoices('cww', ['cw', 'ccw'], true)).toBe('one of "cw" or "ccw"');
   });
 
   it('suggests nothing for a value that is not text or is far from every choice', () => {

@@ -44,12 +44,15 @@ export function closestName(typed: string, known: readonly string[]): string | u
 
 /**
  * "one of a, b, c" for a choice typed as `typed`, with " (did you mean b?)" after it when `typed` is text near one of
- * the choices: the expected part of a message about a value outside a fixed set.
+ * the choices: the expected part of a message about a value outside a fixed set. `quoted` lists them as a file
+ * spells them, `one of "a" or "b"` (the guitar file's enumerated fields).
  */
-export function oneOfChoices(typed: unknown, choices: readonly (string | number)[]): string {
+export function oneOfChoices(typed: unknown, choices: readonly (string | number)[], quoted = false): string {
   const names = choices.map(String);
   const name = typeof typed === 'string' ? closestName(typed, names) : undefined;
-  return `one of ${names.join(', ')}${name === undefined ? '' : ` (did you mean ${name}?)`}`;
+  const show = (choice: string | number): string => (quoted ? JSON.stringify(choice) : String(choice));
+  const listed = choices.map(show).join(quoted ? ' or ' : ', ');
+  return `one of ${listed}${name === undefined ? '' : ` (did you mean ${quoted ? JSON.stringify(name) : name}?)`}`;
 }
 
 /** "a, b, c" with "; did you mean b?" after it when `typed` is near one of them: the inside of a parenthesised list of choices. */

@@ -3,7 +3,7 @@
  * its path, and returns the value normalised: quantities in SI units, pitches
  * in Hz, defaults filled in. Cross-field rules live in `parse-guitar.ts`.
  */
-import { type InputProblem, closestName, listWithSuggestion, problemAt } from '../errors/index.js';
+import { type InputProblem, listWithSuggestion, oneOfChoices, problemAt } from '../errors/index.js';
 import { QUANTITY_EXAMPLES, QuantityError, midiToHz, parseNoteName, parseQuantity } from '../units/index.js';
 import type { FieldSpec, ObjectSpec, QuantitySpec } from './field-spec.js';
 
@@ -120,9 +120,7 @@ export function validateField(
     }
     case 'enum': {
       if (!spec.values.includes(raw as string | number)) {
-        const listed = spec.values.map((v) => JSON.stringify(v)).join(' or ');
-        const near = typeof raw === 'string' ? closestName(raw, spec.values.map(String)) : undefined;
-        problems.push(problemAt(path, `one of ${listed}${near === undefined ? '' : ` (did you mean ${JSON.stringify(near)}?)`}`, raw));
+        problems.push(problemAt(path, oneOfChoices(raw, spec.values, true), raw));
         return undefined;
       }
       return raw;

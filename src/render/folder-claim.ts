@@ -32,6 +32,8 @@ import { writeFileAtomicSync } from './write-file-atomic.js';
 export const FOLDER_MARKER = '.coilbench-folder.json';
 /** The lock file: a coilbench run is writing this folder (its process id inside). */
 export const FOLDER_LOCK = '.coilbench.lock';
+/** Added to the lock's name for the file that lets one run alone break a stale lock (breakStaleLock). */
+const LOCK_BREAKER_SUFFIX = '.break';
 /** The manifest of renders made before folders carried a marker; it marks the folder as coilbench's too. */
 const LEGACY_MARKER = '.coilbench-manifest.json';
 /** Version of the marker's layout. */
@@ -376,18 +378,12 @@ function takeLock(lock: string, shownAs: string, note: (line: string) => void): 
  * it, after checking again that it is still the stale one.
  */
 function breakStaleLock(lock: string, stale: LockHolder): boolean {
-  const breaker = `${lock}.break`;
+  const breaker = `${lock}${LOCK_BREAKER_SUFFIX}`;
   try {
     writeFileSync(breaker, String(process.pid), { flag: 'wx' });
   } catch {
     // Another run is clearing it; if that run died doing so, clear its claim for the next attempt.
-    let other = Number.NaN;
-    try {
-      other = Number(readFileSync(breaker, 'utf8').trim());
-    } catch {
-      return false;
-    }
-    if (Number.isInteger(other) && !processIsRunning(other)) rmSync(breaker, { force: true });
+    removeBreakerOfGoneRun(breaker);
     return false;
   }
   try {
@@ -412,18 +408,24 @@ function removeStaleLockFiles(root: string): void {
   for (const name of readdirSync(root)) {
     if (!name.startsWith(`${FOLDER_LOCK}.`)) continue;
     const path = join(root, name);
-    const [pidText = '', hex = '', ...rest] = name.slice(FOLDER_LOCK.length + 1).split('.');
-    let pid = Number.NaN;
-    if (rest.length === 0 && /^\d+$/u.test(pidText) && /^[0-9a-f]+$/u.test(hex)) pid = Number(pidText);
-    else if (name === `${FOLDER_LOCK}.break`) {
-      try {
-        pid = Number(readFileSync(path, 'utf8').trim());
-      } catch {
-        continue;
-      }
+    if (name === `${FOLDER_LOCK}${LOCK_BREAKER_SUFFIX}`) {
+      removeBreakerOfGoneRun(path);
+      continue;
     }
-    if (Number.isInteger(pid) && pid > 0 && !processIsRunning(pid)) rmSync(path, { force: true });
+    const [pidText = '', hex = '', ...rest] = name.slice(FOLDER_LOCK.length + 1).split('.');
+    if (rest.length === 0 && /^\d+$/u.test(pidText) && /^[0-9a-f]+$/u.test(hex) && !processIsRunning(Number(pidText))) rmSync(path, { force: true });
   }
+}
+
+/** Remove the breaker `path` (its run's pid inside) when that run no longer runs. */
+function removeBreakerOfGoneRun(path: string): void {
+  let pid = Number.NaN;
+  try {
+    pid = Number(readFileSync(path, 'utf8').trim());
+  } catch {
+    return;
+  }
+  if (Number.isInteger(pid) && !processIsRunning(pid)) rmSync(path, { force: true });
 }
 
 function removeOwnLock(lock: string): void {
