@@ -237,9 +237,12 @@ export const DEFAULT_AUDIO_FIGURE_OPTIONS: Readonly<AudioFigureOptions> = Object
 /**
  * For the band bins start … start + length − 1: P_u = T_u·H_u of each used
  * coil (T_u interpolated from the grid) and B = Σ_u P_u, added in coil order
- * from 0. Writes B's real and imaginary parts at j and chunk + j
- * of `base` (j the bin's place in the chunk, `chunk` its size), and 2·P_u at
- * 2·u·chunk + j (real) and chunk further (imaginary) of `products`.
+ * from 0. Writes B's real and imaginary parts at j and chunk + j of `base`
+ * (j the bin's place in the chunk, `chunk` its size), and 2·P_u at
+ * 2·u·chunk + j (real) and chunk further (imaginary) of `products`. Coil by
+ * coil, each a loop over the chunk: every bin's B still receives its coils
+ * in order, so the same numbers as a loop over the coils inside one over
+ * the bins.
  */
 function fillCentroidChunk(
   transfers: readonly Float64Array[],
@@ -252,31 +255,40 @@ function fillCentroidChunk(
   base: Float64Array,
   products: Float64Array,
 ): void {
-  const used = transfers.length;
+  base.fill(0, 0, length);
+  base.fill(0, chunk, chunk + length);
+  for (let u = 0; u < transfers.length; u += 1) {
+    addCoilProducts(transfers[u] as Float64Array, spectra[u] as Float64Array, node, weight, start, length, chunk, base, products, 2 * u * chunk);
+  }
+}
+
+function addCoilProducts(
+  transfer: Float64Array,
+  spectrum: Float64Array,
+  node: Int32Array,
+  weight: Float64Array,
+  start: number,
+  length: number,
+  chunk: number,
+  base: Float64Array,
+  products: Float64Array,
+  at: number,
+): void {
   for (let j = 0; j < length; j += 1) {
     const k = start + j;
     const m = node[k] as number;
     const t = weight[k] as number;
     const s = 1 - t;
-    let baseRe = 0;
-    let baseIm = 0;
-    for (let u = 0; u < used; u += 1) {
-      const transfer = transfers[u] as Float64Array;
-      const spectrum = spectra[u] as Float64Array;
-      const tr = (transfer[2 * m] as number) * s + (transfer[2 * m + 2] as number) * t;
-      const ti = (transfer[2 * m + 1] as number) * s + (transfer[2 * m + 3] as number) * t;
-      const hr = spectrum[2 * k] as number;
-      const hi = spectrum[2 * k + 1] as number;
-      const pr = tr * hr - ti * hi;
-      const pi = tr * hi + ti * hr;
-      baseRe += pr;
-      baseIm += pi;
-      const at = 2 * u * chunk + j;
-      products[at] = 2 * pr;
-      products[at + chunk] = 2 * pi;
-    }
-    base[j] = baseRe;
-    base[chunk + j] = baseIm;
+    const tr = (transfer[2 * m] as number) * s + (transfer[2 * m + 2] as number) * t;
+    const ti = (transfer[2 * m + 1] as number) * s + (transfer[2 * m + 3] as number) * t;
+    const hr = spectrum[2 * k] as number;
+    const hi = spectrum[2 * k + 1] as number;
+    const pr = tr * hr - ti * hi;
+    const pi = tr * hi + ti * hr;
+    base[j] = (base[j] as number) + pr;
+    base[chunk + j] = (base[chunk + j] as number) + pi;
+    products[at + j] = 2 * pr;
+    products[at + chunk + j] = 2 * pi;
   }
 }
 
