@@ -47,7 +47,7 @@ import type { WavFormat } from './wav-file.js';
 import { type EncodedWav, encodeFinalWav } from './encode-final-wav.js';
 import { ENCODE_THREAD_IN_FLIGHT, encodeThreadPays, startEncodeThread } from './encode-thread.js';
 import { readScratchAudio } from './scratch-audio.js';
-import { createDeferredSync, removeStaleTempFiles, writeFileAtomic } from './write-file-atomic.js';
+import { atomicWritesStopped, createDeferredSync, removeStaleTempFiles, writeFileAtomic, writeFileAtomicSync } from './write-file-atomic.js';
 import { writeJsonFileAtomicSync } from './write-json-file.js';
 import { activeScratchFolders } from './scratch-folders.js';
 import { type FileRecord, fileMatches } from './file-record.js';
@@ -59,6 +59,12 @@ import { type PendingAnalysis, prepareRenderAnalysis } from './render-analysis-t
 export const RENDER_MODEL_VERSION = 3;
 /** File writes allowed to run in the background at once (each holds one encoded file in memory). */
 const MAX_PENDING_WRITES = 4;
+/**
+ * Netlists written between two turns of the event loop: each costs about
+ * 0.1 ms (its text and its file), so a Ctrl-C waits a few milliseconds at
+ * most (judgement, as PAUSE_INTERVAL_MS in src/cli/pause-for-signals.ts).
+ */
+const NETLISTS_PER_TURN = 64;
 /** Least time between manifest saves while writing files, ms: an interrupted run loses at most this much record (the files themselves are always whole). */
 const MANIFEST_SAVE_INTERVAL_MS = 250;
 /**
@@ -390,13 +396,18 @@ async function renderWith(request: RenderRequest, events: RenderEvents, analysis
   rmSync(scratch, { recursive: true, force: true });
   activeScratchFolders.delete(scratch);
 
-  // Netlists, one per rendered wiring (written only when their text changed).
-  for (const wiring of selected) {
+  // Netlists, one per rendered wiring (written only when their text changed): small files, written one after
+  // another (writeFileAtomicSync), a turn of the event loop every NETLISTS_PER_TURN so a Ctrl-C is answered.
+  for (const [index, wiring] of selected.entries()) {
     const path = join(folder.netlistFolder, netlistFileName(wiring));
     const text = renderNetlist(guitar, wiring, request.overrides);
-    if (!existsSync(path) || readFileSync(path, 'utf8') !== text) await writes.add(() => writeFileAtomic(path, text, deferred));
+    if (!existsSync(path) || readFileSync(path, 'utf8') !== text) writeFileAtomicSync(path, text, deferred);
+    if (index % NETLISTS_PER_TURN === NETLISTS_PER_TURN - 1) {
+      await new Promise<void>((resolve) => setImmediate(resolve));
+      // An interrupt is being handled: start no other file (the process is about to exit).
+      if (atomicWritesStopped()) await new Promise<never>(() => undefined);
+    }
   }
-  await writes.drain();
 
   // Circuit metrics (read from the response as the strings drive it) for the rendered wirings; groups for
   // every wiring, or (when only some of more than MAX_WIRINGS_GROUPED_FOR_SOME are asked for) among the

@@ -44,12 +44,16 @@ describe('writeFileAtomic', () => {
     await writeFileAtomic(join(folder, 'a.cir'), 'first', deferred);
     await writeFileAtomic(join(folder, 'a.cir'), 'second', deferred);
     await writeFileAtomic(join(folder, 'netlists', 'b.cir'), Uint8Array.from([7, 8]), deferred);
+    // The synchronous writer (many small files one after another) takes the same deferral.
+    writeFileAtomicSync(join(folder, 'netlists', 'd.cir'), 'fourth', deferred);
     expect(readFileSync(join(folder, 'a.cir'), 'utf8')).toBe('second');
     expect(Array.from(readFileSync(join(folder, 'netlists', 'b.cir')))).toEqual([7, 8]);
-    expect(deferred.waiting).toBe(3);
+    expect(readFileSync(join(folder, 'netlists', 'd.cir'), 'utf8')).toBe('fourth');
+    expect(deferred.waiting).toBe(4);
     await deferred.flush();
     expect(deferred.waiting).toBe(0);
     expect(readdirSync(folder).sort()).toEqual(['a.cir', 'netlists']);
+    expect(readdirSync(join(folder, 'netlists')).sort()).toEqual(['b.cir', 'd.cir']);
     // A folder that has gone by the time of the flush is a WorkError naming it.
     await writeFileAtomic(join(folder, 'netlists', 'c.cir'), 'x', deferred);
     rmSync(join(folder, 'netlists'), { recursive: true });

@@ -167,8 +167,24 @@ export async function writeFileAtomic(path: string, data: Uint8Array | string, d
   }
 }
 
-/** The same, synchronously, for writers that cannot await. */
-export function writeFileAtomicSync(path: string, data: Uint8Array | string): void {
+/**
+ * Has an interrupt stopped atomic writes (settleAtomicWrites)? A writer of
+ * many files with writeFileAtomicSync checks it between files and starts no
+ * new one: the process is about to exit.
+ */
+export function atomicWritesStopped(): boolean {
+  return stopping;
+}
+
+/**
+ * The same, synchronously, for writers that cannot await, and for many small
+ * files: no trip through the thread pool per step (measured on this project's
+ * ext4 machine, 9,997 files of 2 kB with `deferred`: 0.53–0.61 s one after
+ * another, 1.3–7.7 s four at a time with the asynchronous writer). With
+ * `deferred`, the file is not fsynced before its rename; `deferred.flush()`
+ * syncs its folder later.
+ */
+export function writeFileAtomicSync(path: string, data: Uint8Array | string, deferred?: DeferredSync): void {
   const temporary = temporaryPathFor(path);
   pending.add(temporary);
   let descriptor: number | null = null;
@@ -176,10 +192,11 @@ export function writeFileAtomicSync(path: string, data: Uint8Array | string): vo
     descriptor = openSync(temporary, 'wx');
     const bytes = typeof data === 'string' ? Buffer.from(data, 'utf8') : data;
     for (let written = 0; written < bytes.length; ) written += writeSync(descriptor, bytes, written, bytes.length - written);
-    fsyncSync(descriptor);
+    if (!deferred) fsyncSync(descriptor);
     closeSync(descriptor);
     descriptor = null;
     renameSync(temporary, path);
+    deferred?.note(path);
   } catch (error) {
     if (descriptor !== null) {
       try {
