@@ -68,6 +68,43 @@ describe('realFft', () => {
     }
   });
 
+  // Reference: fft.js 4.0.4's own inverseTransform (which divides by its size after the transform), after the
+  // packing read at `scale`. realFft.inverse folds that division into the packing (a power of two, exact) and
+  // writes into the caller's frame when it can: the same bits either way, into a frame or a view of a longer array.
+  it("inverts with the bits of fft.js's own inverse, scaled or not, into a frame or a view", () => {
+    const random = createRandom(9);
+    for (const size of [4, 8, 64, 2048]) {
+      const fft = realFft(size);
+      const half = size / 2;
+      const reference = new FFT(half);
+      // Spectra over many orders of magnitude, and scales that round (1/3, 0.02) or not (1, 8).
+      const spectrum = Float64Array.from({ length: size + 2 }, () => (random() - 0.5) * 10 ** (random() * 12 - 6));
+      for (const scale of [1, 0.02, 1 / 3, 8]) {
+        // The packing of real-fft.ts with the spectrum read times `scale`, then fft.js's inverse as it ships.
+        const packed = reference.createComplexArray() as number[];
+        for (let k = 0; k < half; k += 1) {
+          const ar = (spectrum[2 * k] as number) * scale;
+          const ai = (spectrum[2 * k + 1] as number) * scale;
+          const br = (spectrum[2 * (half - k)] as number) * scale;
+          const bi = -((spectrum[2 * (half - k) + 1] as number) * scale);
+          const [er, ei, dr, di] = [(ar + br) / 2, (ai + bi) / 2, (ar - br) / 2, (ai - bi) / 2];
+          const angle = (Math.PI * 2 * k) / size;
+          const [wr, wi] = [Math.cos(angle), Math.sin(angle)];
+          packed[2 * k] = er - (dr * wi + di * wr);
+          packed[2 * k + 1] = ei + (dr * wr - di * wi);
+        }
+        const expected = reference.createComplexArray() as number[];
+        reference.inverseTransform(expected, packed);
+        const frame = fft.inverse(spectrum, new Float64Array(size), scale);
+        const view = fft.inverse(spectrum, new Float64Array(size + 6).subarray(3, size + 3), scale);
+        for (let n = 0; n < size; n += 1) {
+          expect(Object.is(frame[n], expected[n]), `size ${size}, scale ${scale}, sample ${n}`).toBe(true);
+          expect(Object.is(view[n], expected[n]), `view: size ${size}, scale ${scale}, sample ${n}`).toBe(true);
+        }
+      }
+    }
+  });
+
   it('zero pads short input and refuses sizes that are not powers of two', () => {
     const spectrum = realFft(8).forward([1]);
     for (let k = 0; k <= 4; k += 1) expect(spectrum[2 * k]).toBeCloseTo(1, 12);

@@ -143,7 +143,7 @@ function unpackForward(packed: Float64Array, twiddles: Float64Array, half: numbe
  */
 function packInverse(halfSpectrum: Float64Array, twiddles: Float64Array, half: number, scale: number, packed: Float64Array): void {
   for (let k = 0; k < half; k += 1) {
-    // x·1 = x exactly, so an unscaled inverse is unchanged to the last bit
+    // x·(s/M) rounds as x·s does, scaled exactly by the power of two 1/M (inverse's scale, see there)
     const ar = (halfSpectrum[2 * k] as number) * scale;
     const ai = (halfSpectrum[2 * k + 1] as number) * scale;
     const br = (halfSpectrum[2 * (half - k)] as number) * scale; // X[M−k], conjugated below
@@ -160,6 +160,21 @@ function packInverse(halfSpectrum: Float64Array, twiddles: Float64Array, half: n
     packed[2 * k] = er - oi; // E + jO
     packed[2 * k + 1] = ei + or;
   }
+}
+
+/**
+ * fft.js's inverse complex transform without its division by the size (the
+ * caller has scaled the input instead): the steps of its inverseTransform,
+ * fft.js 4.0.4, pinned.
+ */
+function runInverseTransform(engine: FFT, out: Float64Array, data: Float64Array): void {
+  const fields = engine as unknown as { _out: Float64Array | null; _data: Float64Array | null; _inv: number; _transform4(): void };
+  fields._out = out;
+  fields._data = data;
+  fields._inv = 1;
+  fields._transform4();
+  fields._out = null;
+  fields._data = null;
 }
 
 /** The FFT for size N (a power of two ≥ 4), built once and reused; the full-size complex engine only on the first `forward`. */
@@ -198,9 +213,14 @@ export function realFft(size: number): RealFft {
       return out;
     },
     inverse(halfSpectrum, out = new Float64Array(size), scale = 1) {
-      packInverse(halfSpectrum, twiddles, half, scale, packed);
-      halfEngine.inverseTransform(packedTime, packed);
-      out.set(packedTime);
+      // fft.js's inverseTransform divides its M = N/2 outputs by M in a pass of its own; M is a power of two, so
+      // reading the spectrum times scale/M instead gives the same bits (scaling by a power of two is exact and
+      // commutes with every rounding of the transform, away from underflow) and saves that pass over the frame.
+      packInverse(halfSpectrum, twiddles, half, scale / half, packed);
+      // Straight into `out` when it is a frame of its own, otherwise through a buffer and a copy.
+      const direct = out.length === size && out.buffer !== halfSpectrum.buffer;
+      runInverseTransform(halfEngine, direct ? out : packedTime, packed);
+      if (!direct) out.set(packedTime);
       return out;
     },
   };
