@@ -41,7 +41,7 @@ function loadSample(name: string) {
       { id: 'mid_two', position: '80mm', resistance: '6.0k', inductance: '2.4H', winding: 'cw', magnet: 'north' },
       { id: 'bridge_two', position: '60mm', resistance: '6.6k', inductance: '2.7H', winding: 'ccw', magnet: 'south' },
     ];
-    raw.coils.push(...extra.map((coil) => ({ capacitance: '115p', aperture: '20mm', ...coil })));
+    for (const coil of extra) raw.coils.push({ capacitance: '115p', aperture: '20mm', ...coil });
     return parseGuitarText(JSON.stringify(raw), name);
   }
   const path = join(SAMPLES, name);

@@ -296,40 +296,11 @@ function addCoilProducts(
  * One pattern's share of a chunk: X = B − Σ of its flipped 2·P_u (in the
  * order of its flip list), then Σ bin·|X| and Σ |X| added bin by bin into
  * sums[at] and sums[at + 1] (`chunk` numbers between a run of real parts
- * and its imaginary parts). A loop per number of flips, so the loop has no
- * inner loop to mispredict; every one does the same operations in the same
- * order as the general one.
+ * and its imaginary parts). A pattern flipping at most two coils takes the
+ * loop with two flips and no inner loop (nothing to mispredict); a missing
+ * flip reads a run of zeros, and x − 0 = x exactly (−0 included), so the
+ * same bits as subtracting nothing.
  */
-
-function sumMagnitudes(base: Float64Array, chunk: number, length: number, firstBin: number, sums: Float64Array, at: number): void {
-  let weighted = sums[at] as number;
-  let total = sums[at + 1] as number;
-  for (let j = 0; j < length; j += 1) {
-    const re = base[j] as number;
-    const im = base[chunk + j] as number;
-    const magnitude = Math.sqrt(re * re + im * im);
-    weighted += (firstBin + j) * magnitude;
-    total += magnitude;
-  }
-  sums[at] = weighted;
-  sums[at + 1] = total;
-}
-
-function sumMagnitudesOneFlip(base: Float64Array, products: Float64Array, a: number, chunk: number, length: number, firstBin: number, sums: Float64Array, at: number): void {
-  let weighted = sums[at] as number;
-  let total = sums[at + 1] as number;
-  for (let j = 0; j < length; j += 1) {
-    let re = base[j] as number;
-    let im = base[chunk + j] as number;
-    re -= products[a + j] as number;
-    im -= products[a + chunk + j] as number;
-    const magnitude = Math.sqrt(re * re + im * im);
-    weighted += (firstBin + j) * magnitude;
-    total += magnitude;
-  }
-  sums[at] = weighted;
-  sums[at + 1] = total;
-}
 
 function sumMagnitudesTwoFlips(base: Float64Array, products: Float64Array, a: number, b: number, chunk: number, length: number, firstBin: number, sums: Float64Array, at: number): void {
   let weighted = sums[at] as number;
@@ -462,7 +433,9 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
   // The centroid pass's chunk (see fillCentroidChunk), never longer than the band: B, then 2·P_u per used coil.
   const chunk = Math.max(1, Math.min(centroidChunkBins, bandBins));
   const chunkBase = new Float64Array(2 * chunk);
-  const chunkProducts = new Float64Array(2 * chunk * coilCount);
+  // … and after the coils' runs one run of zeros, never written: what a pattern flipping fewer than two coils subtracts.
+  const chunkProducts = new Float64Array(2 * chunk * (coilCount + 1));
+  const zeroRun = 2 * chunk * coilCount;
   const usedCoils = new Int32Array(coilCount);
   let usedCount = 0;
   const pairA = new Int32Array(pairCount);
@@ -567,10 +540,13 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
         const from = flipStart[pattern] as number;
         const flipCount = (flipStart[pattern + 1] as number) - from;
         const bin = firstBin + start;
-        if (flipCount === 0) sumMagnitudes(chunkBase, chunk, length, bin, sums, 2 * pattern);
-        else if (flipCount === 1) sumMagnitudesOneFlip(chunkBase, chunkProducts, flipOffsets[from] as number, chunk, length, bin, sums, 2 * pattern);
-        else if (flipCount === 2) sumMagnitudesTwoFlips(chunkBase, chunkProducts, flipOffsets[from] as number, flipOffsets[from + 1] as number, chunk, length, bin, sums, 2 * pattern);
-        else sumMagnitudesFlips(chunkBase, chunkProducts, flipOffsets.subarray(from, from + flipCount), chunk, length, bin, sums, 2 * pattern);
+        if (flipCount <= 2) {
+          const a = flipCount > 0 ? (flipOffsets[from] as number) : zeroRun;
+          const b = flipCount > 1 ? (flipOffsets[from + 1] as number) : zeroRun;
+          sumMagnitudesTwoFlips(chunkBase, chunkProducts, a, b, chunk, length, bin, sums, 2 * pattern);
+        } else {
+          sumMagnitudesFlips(chunkBase, chunkProducts, flipOffsets.subarray(from, from + flipCount), chunk, length, bin, sums, 2 * pattern);
+        }
       }
     }
     return patterns.map((_, index) => {
