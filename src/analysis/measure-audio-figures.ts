@@ -296,10 +296,11 @@ function addCoilProducts(
  * One pattern's share of a chunk: X = B − Σ of its flipped 2·P_u (in the
  * order of its flip list), then Σ bin·|X| and Σ |X| added bin by bin into
  * sums[at] and sums[at + 1] (`chunk` numbers between a run of real parts
- * and its imaginary parts). A pattern flipping at most two coils takes the
- * loop with two flips and no inner loop (nothing to mispredict); a missing
- * flip reads a run of zeros, and x − 0 = x exactly (−0 included), so the
- * same bits as subtracting nothing.
+ * and its imaginary parts). One loop with two flips and no inner loop
+ * (nothing to mispredict): a missing flip reads a run of zeros, and
+ * x − 0 = x exactly (−0 included), so the same bits as subtracting nothing;
+ * a pattern flipping more than two has its other flips subtracted first, in
+ * order (subtractFlips), so its X too is B minus its flips one by one.
  */
 
 function sumMagnitudesTwoFlips(base: Float64Array, products: Float64Array, a: number, b: number, chunk: number, length: number, firstBin: number, sums: Float64Array, at: number): void {
@@ -320,23 +321,16 @@ function sumMagnitudesTwoFlips(base: Float64Array, products: Float64Array, a: nu
   sums[at + 1] = total;
 }
 
-function sumMagnitudesFlips(base: Float64Array, products: Float64Array, flips: Int32Array, chunk: number, length: number, firstBin: number, sums: Float64Array, at: number): void {
-  let weighted = sums[at] as number;
-  let total = sums[at + 1] as number;
-  for (let j = 0; j < length; j += 1) {
-    let re = base[j] as number;
-    let im = base[chunk + j] as number;
-    for (let flip = 0; flip < flips.length; flip += 1) {
-      const offset = flips[flip] as number;
-      re -= products[offset + j] as number;
-      im -= products[offset + chunk + j] as number;
+/** target = source − the runs at `flips`, in that order, over the chunk's `length` bins (real and imaginary runs). */
+function subtractFlips(source: Float64Array, products: Float64Array, flips: Int32Array, chunk: number, length: number, target: Float64Array): void {
+  target.set(source.subarray(0, length));
+  target.set(source.subarray(chunk, chunk + length), chunk);
+  for (const offset of flips) {
+    for (let j = 0; j < length; j += 1) {
+      target[j] = (target[j] as number) - (products[offset + j] as number);
+      target[chunk + j] = (target[chunk + j] as number) - (products[offset + chunk + j] as number);
     }
-    const magnitude = Math.sqrt(re * re + im * im);
-    weighted += (firstBin + j) * magnitude;
-    total += magnitude;
   }
-  sums[at] = weighted;
-  sums[at + 1] = total;
 }
 
 /**
@@ -433,6 +427,7 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
   // The centroid pass's chunk (see fillCentroidChunk), never longer than the band: B, then 2·P_u per used coil.
   const chunk = Math.max(1, Math.min(centroidChunkBins, bandBins));
   const chunkBase = new Float64Array(2 * chunk);
+  const chunkFlipped = new Float64Array(2 * chunk);
   // … and after the coils' runs one run of zeros, never written: what a pattern flipping fewer than two coils subtracts.
   const chunkProducts = new Float64Array(2 * chunk * (coilCount + 1));
   const zeroRun = 2 * chunk * coilCount;
@@ -545,7 +540,11 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
           const b = flipCount > 1 ? (flipOffsets[from + 1] as number) : zeroRun;
           sumMagnitudesTwoFlips(chunkBase, chunkProducts, a, b, chunk, length, bin, sums, 2 * pattern);
         } else {
-          sumMagnitudesFlips(chunkBase, chunkProducts, flipOffsets.subarray(from, from + flipCount), chunk, length, bin, sums, 2 * pattern);
+          // More than two (six coils and more): all but the last two first, in order, then the loop above.
+          subtractFlips(chunkBase, chunkProducts, flipOffsets.subarray(from, from + flipCount - 2), chunk, length, chunkFlipped);
+          const a = flipOffsets[from + flipCount - 2] as number;
+          const b = flipOffsets[from + flipCount - 1] as number;
+          sumMagnitudesTwoFlips(chunkFlipped, chunkProducts, a, b, chunk, length, bin, sums, 2 * pattern);
         }
       }
     }
