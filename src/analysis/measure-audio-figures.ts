@@ -146,77 +146,81 @@ function locateBins(grid: Float64Array, binHz: number, first: number, last: numb
 /**
  * S̃_ab,m = Σ_k w_k·φ_m(f_k)·A_a(k)·conj(A_b(k)) over every bin of half
  * spectra `spectra` (realFft layout, N = size) for the pairs a ≤ b, added
- * into `out` at 2·(pair·points + m) (interleaved complex).
- *
- * Bins run in order of frequency, so grid point m gathers first the upper
- * hat weights of the bins below it (interval m − 1), then the lower ones of
- * the bins above it (interval m). Each pair's two open sums live in local
- * accumulators while the bins stay in one grid interval and are written out
- * when the interval changes: every table entry receives the same additions
- * in the same order as adding into the table bin by bin, so the same bits.
+ * into `out` at 2·(pair·points + m) (interleaved complex), pair by pair
+ * (foldPair).
  */
 function foldCrossSpectra(spectra: readonly Float64Array[], size: number, located: { node: Int32Array; weight: Float64Array }, points: number, out: Float64Array): void {
   const coils = spectra.length;
-  const pairs = (coils * (coils + 1)) / 2;
-  const bins = size / 2 + 1;
-  // Per pair: the open sums of grid points m (low) and m + 1 (high), real and imaginary.
-  const low = new Float64Array(2 * pairs);
-  const high = new Float64Array(2 * pairs);
-  let open = -1;
-  const close = (): void => {
-    for (let pair = 0; pair < pairs; pair += 1) {
-      const at = 2 * (pair * points + open);
-      out[at] = low[2 * pair] as number;
-      out[at + 1] = low[2 * pair + 1] as number;
-      out[at + 2] = high[2 * pair] as number;
-      out[at + 3] = high[2 * pair + 1] as number;
+  let pair = 0;
+  for (let a = 0; a < coils; a += 1) {
+    for (let b = a; b < coils; b += 1) {
+      foldPair(spectra[a] as Float64Array, spectra[b] as Float64Array, size, located.node, located.weight, out, 2 * pair * points);
+      pair += 1;
     }
-  };
+  }
+}
+
+/**
+ * One pair's S̃ into `out` from `at` (grid point m at at + 2m). Bins run in
+ * order of frequency, so grid point m gathers first the upper hat weights of
+ * the bins below it (interval m − 1), then the lower ones of the bins above
+ * it (interval m). The two open sums (points m and m + 1, real and
+ * imaginary) live in local variables while the bins stay in one grid
+ * interval and are written out when the interval changes: every table entry
+ * receives the same additions in the same order as adding into the table bin
+ * by bin, so the same bits.
+ */
+function foldPair(first: Float64Array, second: Float64Array, size: number, node: Int32Array, weight: Float64Array, out: Float64Array, at: number): void {
+  const bins = size / 2 + 1;
+  let open = -1;
+  let lowRe = 0;
+  let lowIm = 0;
+  let highRe = 0;
+  let highIm = 0;
   for (let k = 0; k < bins; k += 1) {
-    const m = located.node[k] as number;
+    const m = node[k] as number;
     if (m !== open) {
-      if (open >= 0) close();
+      if (open >= 0) {
+        out[at + 2 * open] = lowRe;
+        out[at + 2 * open + 1] = lowIm;
+        out[at + 2 * open + 2] = highRe;
+        out[at + 2 * open + 3] = highIm;
+      }
       // The new interval's lower point is the old one's upper point when they touch; every other
       // point starts from what the table already holds.
-      for (let pair = 0; pair < pairs; pair += 1) {
-        const at = 2 * (pair * points + m);
-        if (m === open + 1 && open >= 0) {
-          low[2 * pair] = high[2 * pair] as number;
-          low[2 * pair + 1] = high[2 * pair + 1] as number;
-        } else {
-          low[2 * pair] = out[at] as number;
-          low[2 * pair + 1] = out[at + 1] as number;
-        }
-        high[2 * pair] = out[at + 2] as number;
-        high[2 * pair + 1] = out[at + 3] as number;
+      if (m === open + 1 && open >= 0) {
+        lowRe = highRe;
+        lowIm = highIm;
+      } else {
+        lowRe = out[at + 2 * m] as number;
+        lowIm = out[at + 2 * m + 1] as number;
       }
+      highRe = out[at + 2 * m + 2] as number;
+      highIm = out[at + 2 * m + 3] as number;
       open = m;
     }
     const parseval = (k === 0 || k === bins - 1 ? 1 : 2) / size;
-    const upper = located.weight[k] as number;
+    const upper = weight[k] as number;
     const lowWeight = parseval * (1 - upper);
     const highWeight = parseval * upper;
-    let pair = 0;
-    for (let a = 0; a < coils; a += 1) {
-      const spectrumA = spectra[a] as Float64Array;
-      const ar = spectrumA[2 * k] as number;
-      const ai = spectrumA[2 * k + 1] as number;
-      for (let b = a; b < coils; b += 1) {
-        const spectrumB = spectra[b] as Float64Array;
-        const br = spectrumB[2 * k] as number;
-        const bi = spectrumB[2 * k + 1] as number;
-        // A_a·conj(A_b) = (ar + j·ai)(br − j·bi)
-        const pr = ar * br + ai * bi;
-        const pi = ai * br - ar * bi;
-        low[2 * pair] = (low[2 * pair] as number) + lowWeight * pr;
-        low[2 * pair + 1] = (low[2 * pair + 1] as number) + lowWeight * pi;
-        high[2 * pair] = (high[2 * pair] as number) + highWeight * pr;
-        high[2 * pair + 1] = (high[2 * pair + 1] as number) + highWeight * pi;
-        pair += 1;
-      }
-    }
+    const ar = first[2 * k] as number;
+    const ai = first[2 * k + 1] as number;
+    const br = second[2 * k] as number;
+    const bi = second[2 * k + 1] as number;
+    // A_a·conj(A_b) = (ar + j·ai)(br − j·bi)
+    const pr = ar * br + ai * bi;
+    const pi = ai * br - ar * bi;
+    lowRe += lowWeight * pr;
+    lowIm += lowWeight * pi;
+    highRe += highWeight * pr;
+    highIm += highWeight * pi;
   }
-  if (open >= 0) close();
+  if (open >= 0) {
+    out[at + 2 * open] = lowRe;
+    out[at + 2 * open + 1] = lowIm;
+    out[at + 2 * open + 2] = highRe;
+    out[at + 2 * open + 3] = highIm;
+  }
 }
 
 export interface AudioFigureOptions {
