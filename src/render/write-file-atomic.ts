@@ -179,8 +179,10 @@ export function atomicWritesStopped(): boolean {
 /**
  * The same, synchronously, for writers that cannot await, and for many small
  * files: no trip through the thread pool per step (measured on this project's
- * ext4 machine, 9,997 files of 2 kB with `deferred`: 0.53–0.61 s one after
- * another, 1.3–7.7 s four at a time with the asynchronous writer). With
+ * ext4 machine, 9,997 files of 2 kB with `deferred`, six interleaved rounds:
+ * one after another was the faster every time, 0.5–4.4 s against 1.3–7.7 s
+ * four at a time with the asynchronous writer; the file system's own speed
+ * swings that much between rounds). With
  * `deferred`, the file is not fsynced before its rename; `deferred.flush()`
  * syncs its folder later.
  */
