@@ -266,6 +266,7 @@ function fillCentroidChunk(
   }
 }
 
+/** One coil's 2·P_u into `products` from `at`, and P_u added into B (see fillCentroidChunk). */
 function addCoilProducts(
   transfer: Float64Array,
   spectrum: Float64Array,
