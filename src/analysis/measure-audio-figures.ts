@@ -239,34 +239,15 @@ export interface AudioFigureOptions {
 export const DEFAULT_AUDIO_FIGURE_OPTIONS: Readonly<AudioFigureOptions> = Object.freeze({ centroidChunkBins: 512 });
 
 /**
- * For the band bins start … start + length − 1: P_u = T_u·H_u of each used
- * coil (T_u interpolated from the grid) and B = Σ_u P_u, added in coil order
- * from 0. Writes B's real and imaginary parts at j and chunk + j of `base`
- * (j the bin's place in the chunk, `chunk` its size), and 2·P_u at
- * 2·u·chunk + j (real) and chunk further (imaginary) of `products`. Coil by
- * coil, each a loop over the chunk: every bin's B still receives its coils
- * in order, so the same numbers as a loop over the coils inside one over
- * the bins.
+ * One used coil's share of a chunk of the band, bins start … start +
+ * length − 1: P_u = T_u·H_u (T_u interpolated from the grid), written as
+ * 2·P_u into `products` from `at` (real parts, then the imaginary parts
+ * `chunk` numbers later) and added into B = Σ_u P_u in `base` (real at j,
+ * imaginary at chunk + j, j the bin's place in the chunk). Called coil by
+ * coil from 0 on a zeroed `base`, each coil one loop over the chunk: every
+ * bin's B receives its coils in order, so the same numbers as a loop over
+ * the coils inside one over the bins.
  */
-function fillCentroidChunk(
-  transfers: readonly Float64Array[],
-  spectra: readonly Float64Array[],
-  node: Int32Array,
-  weight: Float64Array,
-  start: number,
-  length: number,
-  chunk: number,
-  base: Float64Array,
-  products: Float64Array,
-): void {
-  base.fill(0, 0, length);
-  base.fill(0, chunk, chunk + length);
-  for (let u = 0; u < transfers.length; u += 1) {
-    addCoilProducts(transfers[u] as Float64Array, spectra[u] as Float64Array, node, weight, start, length, chunk, base, products, 2 * u * chunk);
-  }
-}
-
-/** One coil's 2·P_u into `products` from `at`, and P_u added into B (see fillCentroidChunk). */
 function addCoilProducts(
   transfer: Float64Array,
   spectrum: Float64Array,
@@ -429,7 +410,7 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
   const used = new Uint8Array(coilCount);
   const energyTerms = new Float64Array(pairCount);
   const blockTerms = new Float64Array(blockCount * pairCount);
-  // The centroid pass's chunk (see fillCentroidChunk), never longer than the band: B, then 2·P_u per used coil.
+  // The centroid pass's chunk (see addCoilProducts), never longer than the band: B, then 2·P_u per used coil.
   const chunk = Math.max(1, Math.min(centroidChunkBins, bandBins));
   const chunkBase = new Float64Array(2 * chunk);
   const chunkFlipped = new Float64Array(2 * chunk);
@@ -535,7 +516,11 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
     const usedSpectra = Array.from({ length: usedCount }, (_, u) => windowed[usedCoils[u] as number] as Float64Array);
     for (let start = 0; start < bandBins; start += chunk) {
       const length = Math.min(chunk, bandBins - start);
-      fillCentroidChunk(usedTransfers, usedSpectra, bandLocation.node, bandLocation.weight, start, length, chunk, chunkBase, chunkProducts);
+      chunkBase.fill(0, 0, length);
+      chunkBase.fill(0, chunk, chunk + length);
+      for (let u = 0; u < usedCount; u += 1) {
+        addCoilProducts(usedTransfers[u] as Float64Array, usedSpectra[u] as Float64Array, bandLocation.node, bandLocation.weight, start, length, chunk, chunkBase, chunkProducts, 2 * u * chunk);
+      }
       for (let pattern = 0; pattern < count; pattern += 1) {
         const from = flipStart[pattern] as number;
         const flipCount = (flipStart[pattern + 1] as number) - from;
