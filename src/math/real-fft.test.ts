@@ -70,7 +70,8 @@ describe('realFft', () => {
 
   // Reference: fft.js 4.0.4's own inverseTransform (which divides by its size after the transform), after the
   // packing read at `scale`. realFft.inverse folds that division into the packing (a power of two, exact) and
-  // writes into the caller's frame when it can: the same bits either way, into a frame or a view of a longer array.
+  // writes into the caller's array: the same bits into a frame, a view of a longer array, a longer array (its tail
+  // untouched) and the spectrum's own array; a shorter one is refused.
   it("inverts with the bits of fft.js's own inverse, scaled or not, into a frame or a view", () => {
     const random = createRandom(9);
     for (const size of [4, 8, 64, 2048]) {
@@ -97,10 +98,19 @@ describe('realFft', () => {
         reference.inverseTransform(expected, packed);
         const frame = fft.inverse(spectrum, new Float64Array(size), scale);
         const view = fft.inverse(spectrum, new Float64Array(size + 6).subarray(3, size + 3), scale);
+        const longer = fft.inverse(spectrum, new Float64Array(size + 6).fill(7), scale);
+        const own = fft.inverse(Float64Array.from(spectrum), undefined, scale);
+        const inPlace = Float64Array.from(spectrum);
+        fft.inverse(inPlace, inPlace, scale);
         for (let n = 0; n < size; n += 1) {
           expect(Object.is(frame[n], expected[n]), `size ${size}, scale ${scale}, sample ${n}`).toBe(true);
           expect(Object.is(view[n], expected[n]), `view: size ${size}, scale ${scale}, sample ${n}`).toBe(true);
+          expect(Object.is(longer[n], expected[n]), `longer: size ${size}, scale ${scale}, sample ${n}`).toBe(true);
+          expect(Object.is(own[n], expected[n]), `default: size ${size}, scale ${scale}, sample ${n}`).toBe(true);
+          expect(Object.is(inPlace[n], expected[n]), `in place: size ${size}, scale ${scale}, sample ${n}`).toBe(true);
         }
+        expect(Array.from(longer.subarray(size))).toEqual([7, 7, 7, 7, 7, 7]);
+        expect(() => fft.inverse(spectrum, new Float64Array(size - 1), scale)).toThrow(RangeError);
       }
     }
   });

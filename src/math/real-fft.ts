@@ -217,10 +217,10 @@ export function realFft(size: number): RealFft {
       // reading the spectrum times scale/M instead gives the same bits (scaling by a power of two is exact and
       // commutes with every rounding of the transform, away from underflow) and saves that pass over the frame.
       packInverse(halfSpectrum, twiddles, half, scale / half, packed);
-      // Straight into `out` when it is a frame of its own, otherwise through a buffer and a copy.
-      const direct = out.length === size && out.buffer !== halfSpectrum.buffer;
-      runInverseTransform(halfEngine, direct ? out : packedTime, packed);
-      if (!direct) out.set(packedTime);
+      // Straight into `out`: the packing has read the whole spectrum before the transform writes, so `out` may even
+      // be the spectrum's own array; the transform writes its first N numbers and nothing after them.
+      if (out.length < size) throw new RangeError(`realFft.inverse: out must hold ${size} numbers, got ${out.length}`);
+      runInverseTransform(halfEngine, out, packed);
       return out;
     },
   };
