@@ -128,6 +128,36 @@ describe('encodeWav layout', () => {
     expect(Array.from(floats ?? [])).toEqual([1, -1, 0.5]);
   });
 
+  it('writes every PCM sample as quantizeSample rounds it, mono and interleaved (read back by wavefile)', () => {
+    // Samples whose sign changes at random (the sample loops round without a branch on it), exact half steps
+    // (k + 0.5)/fullScale for both widths, −0, values that clip, and an odd count (24-bit mono's last sample and pad).
+    let state = 12_345;
+    const random = (): number => {
+      state = (Math.imul(state, 1_103_515_245) + 12_345) >>> 0; // a linear congruential generator (common practice)
+      return state / 2 ** 32;
+    };
+    for (const format of ['pcm16', 'pcm24'] as const) {
+      const fullScale = pcmFullScale(BYTES_PER_SAMPLE[format]);
+      const sample = (n: number): number => {
+        const kind = n % 5;
+        if (kind === 0) return Math.fround(2.4 * (random() - 0.5));
+        if (kind === 1) return (Math.floor(2_000 * (random() - 0.5)) + 0.5) / fullScale;
+        if (kind === 2) return n % 2 === 0 ? -0 : 0;
+        if (kind === 3) return (random() - 0.5) * 4 / fullScale;
+        return random() < 0.5 ? -1.25 : 1;
+      };
+      const mono = Float64Array.from({ length: 1_001 }, (_, n) => sample(n));
+      const other = Float64Array.from({ length: 1_001 }, (_, n) => sample(n + 3));
+      for (const channels of [[mono], [mono, other], [other, mono, other]]) {
+        const decoded = readBack(encodeWav(channels, { format })).channels;
+        channels.forEach((channel, c) => {
+          // + 0: a file holds integers, where −0 is 0.
+          expect(Array.from(decoded[c] ?? [])).toEqual(Array.from(channel, (x) => quantizeSample(x, fullScale) + 0));
+        });
+      }
+    }
+  });
+
   it('gives byte-identical files for the same samples', () => {
     const tone = pluckedTone({ sampleRateHz: 48_000, durationS: 0.2, fundamentalsHz: [220], noteTimesS: [0], harmonics: 10, decayS: 1, amplitude: 0.5, seed: 9 });
     for (const format of ['pcm16', 'pcm24', 'f32'] as const) {

@@ -82,6 +82,8 @@ interface SampleCoding {
 const PCM24_BYTES = 3;
 /** Half a quantisation step, for rounding half away from zero. */
 const HALF = 0.5;
+/** Shift that spreads a 32-bit integer's sign bit over the word (−1 or 0). */
+const SIGN_SHIFT = 31;
 const CODINGS: Readonly<Record<WavFormat, SampleCoding>> = Object.freeze({
   pcm16: { tag: WAVE_FORMAT_PCM, bytesPerSample: 2, fmtBytes: PCM_FMT_BYTES, hasFact: false },
   pcm24: { tag: WAVE_FORMAT_PCM, bytesPerSample: PCM24_BYTES, fmtBytes: PCM_FMT_BYTES, hasFact: false },
@@ -242,32 +244,93 @@ function writeSamples(
   const fullScale = pcmFullScale(bytesPerSample);
   channels.forEach((channel, channelIndex) => {
     const first = start + channelIndex * bytesPerSample;
-    if (format === 'f32') {
-      for (let n = 0, offset = first; n < channel.length; n += 1, offset += stride) {
-        const sample = channel[n] as number;
-        if (!Number.isFinite(sample)) throw InputError.at(`channels[${channelIndex}][${n}]`, 'a finite sample', sample);
-        view.setFloat32(offset, sample > 1 ? 1 : sample < -1 ? -1 : sample, true);
-      }
-      return;
-    }
-    // Little-endian two's complement, low byte first (a typed-array store keeps the low 8 bits). The
-    // arithmetic of quantizeSample inlined: clip, scale, round half away from zero (x ± 0.5 truncated
-    // towards zero by `| 0`; |x| < 2^31). A non-finite sample makes `unfinite` NaN; it is then found
-    // and reported, and the bytes are not used.
-    const wide = bytesPerSample === PCM24_BYTES;
-    let unfinite = 0;
-    for (let n = 0, offset = first; n < channel.length; n += 1, offset += stride) {
-      const sample = channel[n] as number;
-      unfinite += sample - sample;
-      const scaled = (sample > 1 ? 1 : sample < -1 ? -1 : sample) * fullScale;
-      const value = (scaled < 0 ? scaled - HALF : scaled + HALF) | 0;
-      bytes[offset] = value;
-      bytes[offset + 1] = value >> BITS_PER_BYTE;
-      if (wide) bytes[offset + 2] = value >> (2 * BITS_PER_BYTE);
-    }
+    // Each writer sums x − x over its samples: NaN when one is not finite, which is then found and reported (the
+    // bytes are not used). Mono 24-bit, the form renders take, has a writer of its own.
+    const unfinite =
+      format === 'f32'
+        ? writeFloat32(channel, view, first, stride)
+        : format === 'pcm16'
+          ? writePcm16(channel, view, first, stride, fullScale)
+          : stride === PCM24_BYTES
+            ? writeMonoPcm24(channel, bytes, view, first, fullScale)
+            : writePcm24(channel, bytes, first, stride, fullScale);
     if (unfinite !== 0) {
       const n = channel.findIndex((sample) => !Number.isFinite(sample));
       throw InputError.at(`channels[${channelIndex}][${n}]`, 'a finite sample', channel[n]);
     }
   });
+}
+
+/**
+ * The arithmetic of quantizeSample, written for the sample loops: clip, scale,
+ * round half away from zero. The magnitude is |x| + 0.5 truncated by `| 0`
+ * (|x| < 2^31), and the sign is put back without a branch, since audio's sign
+ * is the least predictable of branches: s = ((x − 1) | 0) >> 31 is −1 for
+ * x < 0 (−0 included) and 0 otherwise, and (m ^ s) − s is m or −m. The same
+ * integers as (x < 0 ? x − 0.5 : x + 0.5) | 0, since x − 0.5 = −(|x| + 0.5)
+ * exactly for x < 0 (rounding to nearest is symmetric); twice as fast on
+ * noise. A NaN sample gives 0 (and is reported by the caller).
+ */
+function pcmValue(sample: number, fullScale: number): number {
+  const scaled = (sample > 1 ? 1 : sample < -1 ? -1 : sample) * fullScale;
+  const magnitude = (Math.abs(scaled) + HALF) | 0;
+  const negative = ((scaled - 1) | 0) >> SIGN_SHIFT;
+  return (magnitude ^ negative) - negative;
+}
+
+/** IEEE float samples, clipped to ±1, at `first`, `first + stride` …; returns Σ (x − x). */
+function writeFloat32(channel: Float32Array | Float64Array, view: DataView, first: number, stride: number): number {
+  let unfinite = 0;
+  for (let n = 0, offset = first; n < channel.length; n += 1, offset += stride) {
+    const sample = channel[n] as number;
+    unfinite += sample - sample;
+    view.setFloat32(offset, sample > 1 ? 1 : sample < -1 ? -1 : sample, true);
+  }
+  return unfinite;
+}
+
+/** 16-bit PCM samples, little-endian two's complement, at `first`, `first + stride` …; returns Σ (x − x). */
+function writePcm16(channel: Float32Array | Float64Array, view: DataView, first: number, stride: number, fullScale: number): number {
+  let unfinite = 0;
+  for (let n = 0, offset = first; n < channel.length; n += 1, offset += stride) {
+    const sample = channel[n] as number;
+    unfinite += sample - sample;
+    view.setInt16(offset, pcmValue(sample, fullScale), true);
+  }
+  return unfinite;
+}
+
+/** 24-bit PCM samples, low byte first (a typed-array store keeps the low 8 bits), at `first`, `first + stride` …; returns Σ (x − x). */
+function writePcm24(channel: Float32Array | Float64Array, bytes: Uint8Array, first: number, stride: number, fullScale: number): number {
+  let unfinite = 0;
+  for (let n = 0, offset = first; n < channel.length; n += 1, offset += stride) {
+    const sample = channel[n] as number;
+    unfinite += sample - sample;
+    const value = pcmValue(sample, fullScale);
+    bytes[offset] = value;
+    bytes[offset + 1] = value >> BITS_PER_BYTE;
+    bytes[offset + 2] = value >> (2 * BITS_PER_BYTE);
+  }
+  return unfinite;
+}
+
+/**
+ * Mono 24-bit PCM from `first`: each sample but the last as one little-endian
+ * 32-bit store, whose top byte the next sample's store then overwrites
+ * (samples are stored in address order), the last byte by byte so nothing is
+ * written past the data. The same bytes as writePcm24, in one store a sample
+ * instead of three (half the time of a render's file). Returns Σ (x − x).
+ */
+function writeMonoPcm24(channel: Float32Array | Float64Array, bytes: Uint8Array, view: DataView, first: number, fullScale: number): number {
+  const last = channel.length - 1;
+  if (last < 0) return 0;
+  let unfinite = 0;
+  let offset = first;
+  for (let n = 0; n < last; n += 1) {
+    const sample = channel[n] as number;
+    unfinite += sample - sample;
+    view.setInt32(offset, pcmValue(sample, fullScale), true);
+    offset += PCM24_BYTES;
+  }
+  return unfinite + writePcm24(channel.subarray(last), bytes, offset, PCM24_BYTES, fullScale);
 }
