@@ -324,13 +324,19 @@ function writePcm24(channel: Float32Array | Float64Array, bytes: Uint8Array, fir
 function writeMonoPcm24(channel: Float32Array | Float64Array, bytes: Uint8Array, view: DataView, first: number, fullScale: number): number {
   const last = channel.length - 1;
   if (last < 0) return 0;
+  const unfinite = writePcm24Words(channel, view, first, last, fullScale);
+  return unfinite + writePcm24(channel.subarray(last), bytes, first + last * PCM24_BYTES, PCM24_BYTES, fullScale);
+}
+
+/** The first `count` samples of mono 24-bit PCM as 32-bit stores (writeMonoPcm24); a function of its own, so V8's compiled code for the running loop has nothing after it to bail out on (src/math/real-fft.ts). */
+function writePcm24Words(channel: Float32Array | Float64Array, view: DataView, first: number, count: number, fullScale: number): number {
   let unfinite = 0;
   let offset = first;
-  for (let n = 0; n < last; n += 1) {
+  for (let n = 0; n < count; n += 1) {
     const sample = channel[n] as number;
     unfinite += sample - sample;
     view.setInt32(offset, pcmValue(sample, fullScale), true);
     offset += PCM24_BYTES;
   }
-  return unfinite + writePcm24(channel.subarray(last), bytes, offset, PCM24_BYTES, fullScale);
+  return unfinite;
 }
