@@ -571,10 +571,43 @@ function addBlockRun(matrix: Float64Array, n: number, row: number, col: number, 
 
 /** The two-terminal stamp of the admittance run at `from` (a block array) between nodes a and b. */
 function stampBlockAdmittance(matrix: Float64Array, n: number, a: number, b: number, stride: number, values: Float64Array, from: number, length: number): void {
-  addBlockRun(matrix, n, a, a, stride, values, from, length, 1);
-  addBlockRun(matrix, n, b, b, stride, values, from, length, 1);
-  addBlockRun(matrix, n, a, b, stride, values, from, length, -1);
-  addBlockRun(matrix, n, b, a, stride, values, from, length, -1);
+  stampCross(matrix, n, a, b, a, b, stride, values, from, length);
+}
+
+/**
+ * The run at `from` (a block array) added to entries (r1, c1) and (r2, c2),
+ * subtracted from (r1, c2) and (r2, c1), in that order: the stamp of a branch
+ * between r1 and r2 seen from c1 and c2 (a two-terminal admittance has
+ * r = c). With all four nodes unknown, one loop does the four entries a bin
+ * at a time, each entry's additions in the order of four loops one after the
+ * other (an entry met twice, where nodes coincide, too), so the same numbers
+ * with the run read once; otherwise, a loop per entry not on a fixed node.
+ */
+function stampCross(matrix: Float64Array, n: number, r1: number, r2: number, c1: number, c2: number, stride: number, values: Float64Array, from: number, length: number): void {
+  if (r1 < 0 || r2 < 0 || c1 < 0 || c2 < 0) {
+    addBlockRun(matrix, n, r1, c1, stride, values, from, length, 1);
+    addBlockRun(matrix, n, r2, c2, stride, values, from, length, 1);
+    addBlockRun(matrix, n, r1, c2, stride, values, from, length, -1);
+    addBlockRun(matrix, n, r2, c1, stride, values, from, length, -1);
+    return;
+  }
+  addFourRuns(matrix, realAt(r1 * n + c1, stride), realAt(r2 * n + c2, stride), realAt(r1 * n + c2, stride), realAt(r2 * n + c1, stride), stride, values, from, length);
+}
+
+/** Entries at p and q of the block += the run at `from`, at m and w −= it, bin by bin in that order (stampCross). */
+function addFourRuns(matrix: Float64Array, p: number, q: number, m: number, w: number, stride: number, values: Float64Array, from: number, length: number): void {
+  for (let b = 0; b < length; b += 1) {
+    const vr = values[from + b] as number;
+    const vi = values[from + stride + b] as number;
+    matrix[p + b] = (matrix[p + b] as number) + vr;
+    matrix[p + stride + b] = (matrix[p + stride + b] as number) + vi;
+    matrix[q + b] = (matrix[q + b] as number) + vr;
+    matrix[q + stride + b] = (matrix[q + stride + b] as number) + vi;
+    matrix[m + b] = (matrix[m + b] as number) - vr;
+    matrix[m + stride + b] = (matrix[m + stride + b] as number) - vi;
+    matrix[w + b] = (matrix[w + b] as number) - vr;
+    matrix[w + stride + b] = (matrix[w + stride + b] as number) - vi;
+  }
 }
 
 /**
@@ -707,11 +740,7 @@ function stampGroup(matrix: Float64Array, n: number, coils: readonly ActiveCoil[
     const a = coils[group.members[j] as number] as ActiveCoil;
     for (let k = 0; k < size; k += 1) {
       const b = coils[group.members[k] as number] as ActiveCoil;
-      const from = realAt(j * size + k, stride);
-      addBlockRun(matrix, n, a.finish, b.finish, stride, values, from, length, 1);
-      addBlockRun(matrix, n, a.start, b.start, stride, values, from, length, 1);
-      addBlockRun(matrix, n, a.finish, b.start, stride, values, from, length, -1);
-      addBlockRun(matrix, n, a.start, b.finish, stride, values, from, length, -1);
+      stampCross(matrix, n, a.finish, a.start, b.finish, b.start, stride, values, realAt(j * size + k, stride), length);
     }
   }
 }
@@ -748,12 +777,8 @@ function writeTransfers(plan: NodalPlan, workspace: BlockWorkspace, result: Floa
     const target = result[coil.coil] as Float64Array;
     const sign = coil.stringSign;
     const offset = 2 * first;
-    for (let b = 0; b < length; b += 1) {
-      target[offset + 2 * b] = 0;
-      target[offset + 2 * b + 1] = 0;
-    }
     if (coil.group < 0) {
-      accumulateProduct(target, offset, sign, branch, realAt(j, stride), drop, realAt(j, stride), length, stride);
+      accumulateProduct(target, offset, sign, branch, realAt(j, stride), drop, realAt(j, stride), length, stride, 0);
       continue;
     }
     const group = groups[coil.group] as CouplingGroup;
@@ -761,21 +786,27 @@ function writeTransfers(plan: NodalPlan, workspace: BlockWorkspace, result: Floa
     const size = group.members.length;
     for (let m = 0; m < size; m += 1) {
       const member = group.members[m] as number;
-      accumulateProduct(target, offset, sign, values, realAt(m * size + coil.slot, stride), drop, realAt(member, stride), length, stride);
+      accumulateProduct(target, offset, sign, values, realAt(m * size + coil.slot, stride), drop, realAt(member, stride), length, stride, m === 0 ? 0 : 1);
     }
   }
 }
 
-/** target (interleaved complex from `offset`) += sign·y·d per bin, y and d block runs at `yAt` and `dAt`. */
-function accumulateProduct(target: Float64Array, offset: number, sign: number, y: Float64Array, yAt: number, d: Float64Array, dAt: number, length: number, stride: number): void {
+/**
+ * target (interleaved complex from `offset`) ← kept·target + sign·y·d per bin, y and d block runs at `yAt` and
+ * `dAt`: kept = 0 starts the sum (0·target is not read: the first term is added to 0, as to a cleared target,
+ * 0 + x keeping −0 out), kept = 1 adds to it.
+ */
+function accumulateProduct(target: Float64Array, offset: number, sign: number, y: Float64Array, yAt: number, d: Float64Array, dAt: number, length: number, stride: number, kept: number): void {
   for (let b = 0; b < length; b += 1) {
     const yr = y[yAt + b] as number;
     const yi = y[yAt + stride + b] as number;
     const dr = d[dAt + b] as number;
     const di = d[dAt + stride + b] as number;
     const at = offset + 2 * b;
-    target[at] = (target[at] as number) + sign * (yr * dr - yi * di);
-    target[at + 1] = (target[at + 1] as number) + sign * (yr * di + yi * dr);
+    const re = kept === 0 ? 0 : (target[at] as number);
+    const im = kept === 0 ? 0 : (target[at + 1] as number);
+    target[at] = re + sign * (yr * dr - yi * di);
+    target[at + 1] = im + sign * (yr * di + yi * dr);
   }
 }
 
