@@ -23,16 +23,18 @@ const DECODE = (() => {
   return table;
 })();
 
-/** Characters per `String.fromCharCode.apply` call (stays far under hosts' argument limits). */
-const STRING_CHUNK = 0x2000;
+/**
+ * Bytes → text, one character a byte: the WHATWG Encoding Standard maps the
+ * label "latin1" to windows-1252, which is ASCII on bytes 0x00–0x7F, the
+ * only bytes base64 writes. Both hosts decode natively (five times the
+ * speed of String.fromCharCode over chunks: 2 MB in 4–5 ms against 24–32
+ * on the 2-core machine).
+ */
+const ASCII_DECODER = new TextDecoder('latin1');
 
-/** ASCII codes → string, in bounded chunks. */
+/** ASCII codes → string. */
 function asciiToString(codes: Uint8Array): string {
-  const parts: string[] = [];
-  for (let start = 0; start < codes.length; start += STRING_CHUNK) {
-    parts.push(String.fromCharCode.apply(null, codes.subarray(start, start + STRING_CHUNK) as unknown as number[]));
-  }
-  return parts.join('');
+  return ASCII_DECODER.decode(codes);
 }
 
 /** Bytes → base64 text. */
