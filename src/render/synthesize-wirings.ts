@@ -250,9 +250,20 @@ function sumSources(parts: SharedParts, signs: Float64Array, gain: Float64Array,
   });
   const count = sources.length;
   if (count <= SUMMED_IN_ONE_LOOP) {
-    const [p0 = NO_SOURCE, p1 = NO_SOURCE, p2 = NO_SOURCE, p3 = NO_SOURCE] = sources;
-    const [w0 = 0, w1 = 0, w2 = 0, w3 = 0] = weights;
-    sumFewSources(count, p0, w0, p1, w1, p2, w2, p3, w3, gain, output, complexLength);
+    sumFewSources(
+      count,
+      sources[0] ?? NO_SOURCE,
+      weights[0] ?? 0,
+      sources[1] ?? NO_SOURCE,
+      weights[1] ?? 0,
+      sources[2] ?? NO_SOURCE,
+      weights[2] ?? 0,
+      sources[3] ?? NO_SOURCE,
+      weights[3] ?? 0,
+      gain,
+      output,
+      complexLength,
+    );
     return;
   }
   for (let k = 0; k < complexLength; k += 2) {
