@@ -70,6 +70,23 @@ describe('subnormals, flushed as the library flushes them', () => {
     expect(negativeZeros).toBeGreaterThan(1000); // the flush happened, sign kept
 
   });
+  it('keeps bit for bit when sound follows silence and subnormal input (the flushing loop hands back to the plain one)', async () => {
+    // Zeros first (a drive chain's sections see them), a pluck with subnormal and smallest-normal samples set in,
+    // a second of silence (the ring-out falls below 2⁻¹²⁶, flushed, then to zero), and the pluck again.
+    const sampleRateHz = 48_000;
+    const pluck = makeTake(sampleRateHz).subarray(0, sampleRateHz / 4);
+    const signal = new Float32Array(100 + 2 * pluck.length + sampleRateHz);
+    signal.set(pluck, 100);
+    signal.set(pluck, 100 + pluck.length + sampleRateHz);
+    for (const at of [150, 151, 4_000, 9_001]) signal[at] = at % 2 === 0 ? 3e-39 : -FLOAT32_MIN_NORMAL;
+    for (const stage of chainSections(sampleRateHz)) {
+      const ours = renderBiquad(signal, designNodeBiquad(stage.filter, sampleRateHz));
+      expect(differences(await renderInNode(signal, stage, sampleRateHz), ours), stage.purpose).toEqual([]);
+      // The second pluck is sound again, not zeros (the state came back from flushing).
+      expect(Math.abs(ours[signal.length - pluck.length + 1_000] ?? 0)).toBeGreaterThan(FLOAT32_MIN_NORMAL);
+    }
+  });
+
   it('reads subnormal input as zero in a gain, as the library does', async () => {
     const sampleRateHz = 48_000;
     const input = new Float32Array(256);
