@@ -21,12 +21,12 @@ export const FLOAT64_MIN_NORMAL = 2 ** -1022;
 /** A float32 value as a flushing stage reads or writes it: zero of the same sign when subnormal. */
 export function flushFloat32(value: number): number {
   // value·0 is a zero of value's sign (IEEE 754-2019 §6.3).
-  return value < FLOAT32_MIN_NORMAL && value > -FLOAT32_MIN_NORMAL ? value * 0 : value;
+  return Math.abs(value) < FLOAT32_MIN_NORMAL ? value * 0 : value;
 }
 
 /** A float64 result as a flushing thread keeps it: zero of the same sign when subnormal. */
 export function flushFloat64(value: number): number {
-  return value < FLOAT64_MIN_NORMAL && value > -FLOAT64_MIN_NORMAL ? value * 0 : value;
+  return Math.abs(value) < FLOAT64_MIN_NORMAL ? value * 0 : value;
 }
 
 /**
