@@ -278,7 +278,7 @@ function addCoilProducts(
   }
 }
 
-/*
+/**
  * One pattern's share of a chunk: X = B − Σ of its flipped 2·P_u (in the
  * order of its flip list), then Σ bin·|X| and Σ |X| added bin by bin into
  * sums[at] and sums[at + 1] (`chunk` numbers between a run of real parts
@@ -288,7 +288,6 @@ function addCoilProducts(
  * a pattern flipping more than two has its other flips subtracted first, in
  * order (subtractFlips), so its X too is B minus its flips one by one.
  */
-
 function sumMagnitudesTwoFlips(base: Float64Array, products: Float64Array, a: number, b: number, chunk: number, length: number, firstBin: number, sums: Float64Array, at: number): void {
   let weighted = sums[at] as number;
   let total = sums[at + 1] as number;
@@ -521,10 +520,10 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
       for (let u = 0; u < usedCount; u += 1) {
         addCoilProducts(usedTransfers[u] as Float64Array, usedSpectra[u] as Float64Array, bandLocation.node, bandLocation.weight, start, length, chunk, chunkBase, chunkProducts, 2 * u * chunk);
       }
+      const bin = firstBin + start;
       for (let pattern = 0; pattern < count; pattern += 1) {
         const from = flipStart[pattern] as number;
         const flipCount = (flipStart[pattern + 1] as number) - from;
-        const bin = firstBin + start;
         if (flipCount <= 2) {
           const a = flipCount > 0 ? (flipOffsets[from] as number) : zeroRun;
           const b = flipCount > 1 ? (flipOffsets[from + 1] as number) : zeroRun;

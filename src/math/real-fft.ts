@@ -216,10 +216,10 @@ export function realFft(size: number): RealFft {
       // fft.js's inverseTransform divides its M = N/2 outputs by M in a pass of its own; M is a power of two, so
       // reading the spectrum times scale/M instead gives the same bits (scaling by a power of two is exact and
       // commutes with every rounding of the transform, away from underflow) and saves that pass over the frame.
+      if (out.length < size) throw new RangeError(`realFft.inverse: out must hold ${size} numbers, got ${out.length}`);
       packInverse(halfSpectrum, twiddles, half, scale / half, packed);
       // Straight into `out`: the packing has read the whole spectrum before the transform writes, so `out` may even
       // be the spectrum's own array; the transform writes its first N numbers and nothing after them.
-      if (out.length < size) throw new RangeError(`realFft.inverse: out must hold ${size} numbers, got ${out.length}`);
       runInverseTransform(halfEngine, out, packed);
       return out;
     },
