@@ -241,6 +241,8 @@ describe.skipIf(!RUN_BROWSER_TESTS)('the listening page in chromium: one engine,
     expect(await page.evaluate(() => (window as unknown as { __pwned?: number }).__pwned)).toBeUndefined();
     expect(await page.locator('#guitar-name').textContent()).toBe(HOSTILE);
     expect(outside).toEqual([]);
+    // The page compiles its WebAssembly FFT kernels under its own policy ('wasm-unsafe-eval'), with no refusal logged.
+    expect(await page.evaluate(() => (window as unknown as { coilbenchPage: { fftKernels(): string } }).coilbenchPage.fftKernels())).toBe('webassembly');
     expect(problems).toEqual([]);
   });
 

@@ -1,5 +1,7 @@
 export { realFft, nextPowerOfTwo, binFrequencyHz } from './real-fft.js';
 export type { RealFft } from './real-fft.js';
+export { fftKernelHost } from './fft-kernels.js';
+export type { FftKernelHost } from './fft-kernels.js';
 export { createRandom, seedFromText } from './random.js';
 export type { Random } from './random.js';
 export { maxOf, minOf, appendAll } from './extremes.js';

@@ -1,10 +1,11 @@
 /**
- * Real-signal FFT over fft.js (radix-4, MIT). Spectra are interleaved
+ * Real-signal FFT over fft.js's radix-4 kernels (MIT; run as WebAssembly,
+ * src/math/fft-kernels.ts, to the same bits). Spectra are interleaved
  * complex arrays of the non-negative bins 0 … N/2 (length 2·(N/2 + 1)):
  * X[k] = Σ_n x[n]·e^(−j2πkn/N), no scaling forward; the inverse divides by N,
  * so inverse(forward(x)) = x.
  */
-import FFT from 'fft.js';
+import { type FftKernel, createFftKernel } from './fft-kernels.js';
 
 export interface RealFft {
   readonly size: number;
@@ -62,36 +63,6 @@ function halveTwiddleTable(table: Float64Array): Float64Array {
     half[2 * k + 1] = table[4 * k + 1] as number;
   }
   return half;
-}
-
-/**
- * An fft.js engine for `size` complex points over a prepared twiddle table:
- * what `new FFT(size)` builds (fft.js 4.0.4, pinned: the fields its
- * prototype's transforms read), without computing the table again. The
- * constructor fills a plain Array one cosine and sine at a time, tens of
- * milliseconds at 2^17 points, paid by every command at start-up.
- */
-function fftEngine(size: number, table: Float64Array): FFT {
-  const engine = Object.create(FFT.prototype as object) as Record<string, unknown>;
-  engine.size = size;
-  engine._csize = size << 1;
-  engine.table = table;
-  let power = 0;
-  for (let t = 1; size > t; t <<= 1) power += 1;
-  // As the constructor: full radix-4 starts with len = 8 (width one less), otherwise len = 4.
-  const width = power % 2 === 0 ? power - 1 : power;
-  engine._width = width;
-  const bitrev = new Int32Array(1 << width);
-  for (let j = 0; j < bitrev.length; j += 1) {
-    let reversed = 0;
-    for (let shift = 0; shift < width; shift += 2) reversed |= ((j >>> shift) & 3) << (width - shift - 2);
-    bitrev[j] = reversed;
-  }
-  engine._bitrev = bitrev;
-  engine._out = null;
-  engine._data = null;
-  engine._inv = 0;
-  return engine as unknown as FFT;
 }
 
 /*
@@ -162,54 +133,33 @@ function packInverse(halfSpectrum: Float64Array, twiddles: Float64Array, half: n
   }
 }
 
-/**
- * fft.js's inverse complex transform without its division by the size (the
- * caller has scaled the input instead): the steps of its inverseTransform,
- * fft.js 4.0.4, pinned.
- */
-function runInverseTransform(engine: FFT, out: Float64Array, data: Float64Array): void {
-  const fields = engine as unknown as { _out: Float64Array | null; _data: Float64Array | null; _inv: number; _transform4(): void };
-  fields._out = out;
-  fields._data = data;
-  fields._inv = 1;
-  fields._transform4();
-  fields._out = null;
-  fields._data = null;
-}
-
-/** The FFT for size N (a power of two ≥ 4), built once and reused; the full-size complex engine only on the first `forward`. */
+/** The FFT for size N (a power of two ≥ 4), built once and reused; the full-size complex kernel only on the first `forward`. */
 export function realFft(size: number): RealFft {
   const cached = cache.get(size);
   if (cached) return cached;
   if (!Number.isInteger(Math.log2(size)) || size < 4) throw new RangeError(`FFT size must be a power of two ≥ 4, got ${size}`);
   const half = size / 2;
   // One table of N twiddles W^k = e^{−j2πk/N}, interleaved (cos, −sin): fft.js's table for N points
-  // (the full-size engine, built on the first `forward` only), its first half the packing's twiddles,
-  // every second entry the half-size engine's table.
+  // (the full-size kernel, made on the first `forward` only), its first half the packing's twiddles,
+  // every second entry the half-size kernel's table.
   const twiddles = twiddleTable(size);
-  const halfEngine = fftEngine(half, halveTwiddleTable(twiddles));
-  let fullEngine: FFT | undefined;
+  const halfKernel = createFftKernel(half, halveTwiddleTable(twiddles));
+  let fullKernel: FftKernel | undefined;
   const bins = half + 1;
-  let padded: Float64Array | undefined;
-  let full: Float64Array | undefined;
-  const packed = new Float64Array(2 * half);
-  const packedTime = new Float64Array(2 * half);
   const made: RealFft = {
     size,
     bins,
     forward(input, out = new Float64Array(2 * bins)) {
-      fullEngine ??= fftEngine(size, twiddles);
-      padded ??= new Float64Array(size);
-      full ??= new Float64Array(2 * size);
-      copyPadded(input, padded);
-      fullEngine.realTransform(full, padded);
-      out.set(full.subarray(0, 2 * bins));
+      fullKernel ??= createFftKernel(size, twiddles);
+      copyPadded(input, fullKernel.input().subarray(0, size));
+      fullKernel.realTransform();
+      out.set(fullKernel.output().subarray(0, 2 * bins));
       return out;
     },
     forwardPacked(input, out, window) {
-      copyPadded(input, packedTime, window);
-      halfEngine.transform(packed, packedTime);
-      unpackForward(packed, twiddles, half, out);
+      copyPadded(input, halfKernel.input(), window);
+      halfKernel.transform(false);
+      unpackForward(halfKernel.output(), twiddles, half, out);
       return out;
     },
     inverse(halfSpectrum, out = new Float64Array(size), scale = 1) {
@@ -217,10 +167,10 @@ export function realFft(size: number): RealFft {
       // reading the spectrum times scale/M instead gives the same bits (scaling by a power of two is exact and
       // commutes with every rounding of the transform, away from underflow) and saves that pass over the frame.
       if (out.length < size) throw new RangeError(`realFft.inverse: out must hold ${size} numbers, got ${out.length}`);
-      packInverse(halfSpectrum, twiddles, half, scale / half, packed);
-      // Straight into `out`: the packing has read the whole spectrum before the transform writes, so `out` may even
-      // be the spectrum's own array; the transform writes its first N numbers and nothing after them.
-      runInverseTransform(halfEngine, out, packed);
+      // The packing reads the whole spectrum before the transform runs, so `out` may even be the spectrum's own array.
+      packInverse(halfSpectrum, twiddles, half, scale / half, halfKernel.input());
+      halfKernel.transform(true);
+      out.set(halfKernel.output());
       return out;
     },
   };

@@ -7,6 +7,7 @@
  * guitar file reaches the document through textContent or attributes.
  */
 import { measureCentroid } from '../analysis/index.js';
+import { fftKernelHost } from '../math/index.js';
 import { type ChainName, CHAIN_NAMES, encodeWav } from '../render/portable/index.js';
 import { type Wiring, enumerateWirings, makeWiring, parseWiring, printNetwork, canonicalize, vocabularyOf } from '../wiring/index.js';
 import { createBlindTest } from './blind-test.js';
@@ -481,5 +482,7 @@ function exposeTestView(): void {
     },
     loudnessOf: (expression: string) => cache.played(renderKey(expression, knobs))?.loudnessLufs ?? null,
     matchesSearch,
+    /** Which code runs the page's FFTs: 'webassembly' unless the browser refused to compile the kernels. */
+    fftKernels: fftKernelHost,
   });
 }

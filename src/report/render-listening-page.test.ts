@@ -48,6 +48,9 @@ describe('renderListeningPage', () => {
     const hash = createHash('sha256').update(SCRIPT, 'utf8').digest('base64');
     expect(policy).toContain(`'sha256-${hash}'`);
     expect(policy).toContain("connect-src 'none'");
+    // WebAssembly (the FFT kernels) may compile; JavaScript text may not be evaluated (W3C CSP Level 3).
+    expect(policy).toContain("'wasm-unsafe-eval'");
+    expect(policy).not.toContain("'unsafe-eval'");
     expect(scriptsOf(html)[1]).toBe(SCRIPT);
   });
 

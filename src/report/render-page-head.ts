@@ -3,7 +3,11 @@
  * inline script and style (pinned by their SHA-256 hashes, W3C CSP Level 3
  * hash sources), audio and scripts from the page's own folder, no network
  * connections, nothing else. A name from a guitar file that smuggled in a
- * script tag could not run.
+ * script tag could not run. 'wasm-unsafe-eval' lets the page's script compile
+ * the WebAssembly FFT kernels it carries (src/math/fft-kernels.ts): W3C CSP
+ * Level 3, "wasm-unsafe-eval", allows WebAssembly compilation and nothing
+ * else (no eval of JavaScript text); without it a policy that names
+ * script-src refuses every WebAssembly module.
  */
 import { createHash } from 'node:crypto';
 import { escapeHtml } from './escape-html.js';
@@ -16,7 +20,7 @@ export function sha256Base64(text: string): string {
 export function renderContentSecurityPolicy(script: string, style: string): string {
   return [
     "default-src 'none'",
-    `script-src 'sha256-${sha256Base64(script)}' 'self'`,
+    `script-src 'sha256-${sha256Base64(script)}' 'self' 'wasm-unsafe-eval'`,
     `style-src 'sha256-${sha256Base64(style)}'`,
     'img-src data:',
     "media-src 'self'",

@@ -1,0 +1,15 @@
+// Types of build-wasm.mjs for the test that compiles the kernels again (src/math/fft-kernels.test.ts).
+export interface KernelBuild {
+  /** AssemblyScript source, relative to the repository. */
+  readonly source: string;
+  /** Generated TypeScript module, relative to the repository. */
+  readonly target: string;
+  /** Name of the base64 constant the module exports. */
+  readonly constant: string;
+}
+export const KERNEL_COMPILE_OPTIONS: Readonly<Record<string, unknown>>;
+export const KERNELS: readonly KernelBuild[];
+/** The WebAssembly bytes of one AssemblyScript source file. */
+export function compileKernel(sourcePath: string): Promise<Uint8Array>;
+/** The generated TypeScript module holding `bytes`. */
+export function kernelModuleText(kernel: KernelBuild, bytes: Uint8Array): string;
