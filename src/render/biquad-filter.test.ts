@@ -100,6 +100,12 @@ describe('subnormals, flushed as the library flushes them', () => {
     expect(Object.is(ours[10], 0)).toBe(true);
     expect(Object.is(ours[11], -0)).toBe(true);
     expect(Math.abs(ours[20] ?? 0)).toBeGreaterThan(FLOAT32_MIN_NORMAL);
+    // A normal input times a small gain made subnormal: written as a zero of its sign, as the library does.
+    const small = 1e-9;
+    const underflowing = Float32Array.from([0, 2e-30, -3e-31, 0.5, 1e-29, -0, 1.5e-29]);
+    const quiet = renderGain(underflowing, small);
+    expect(differences(await renderInNode(underflowing, { kind: 'gain', gain: small, purpose: 'test' }, sampleRateHz), quiet)).toEqual([]);
+    expect(Object.is(quiet[1], 0) && Object.is(quiet[2], -0)).toBe(true);
   });
 });
 

@@ -101,6 +101,13 @@ describe('bad input', () => {
     broken[3] = Number.NaN;
     await expect(renderEffectsChain(broken, 48_000, 'drive')).rejects.toThrow('samples[3]: expected a finite sample value, got NaN');
     await expect(renderEffectsChain(broken, 48_000, 'drive')).rejects.toBeInstanceOf(InputError);
+    // An odd length with the infinity last (the sample after the last pair), and a −∞ at an odd index.
+    const endless = new Float32Array(11);
+    endless[10] = Number.POSITIVE_INFINITY;
+    await expect(renderEffectsChain(endless, 48_000, 'clean')).rejects.toThrow('samples[10]: expected a finite sample value, got Infinity');
+    endless[10] = 0;
+    endless[7] = Number.NEGATIVE_INFINITY;
+    await expect(renderEffectsChain(endless, 48_000, 'clean')).rejects.toThrow('samples[7]: expected a finite sample value, got -Infinity');
   });
   it('renders nothing to nothing', async () => {
     for (const chain of CHAIN_NAMES) expect(await renderEffectsChain(new Float32Array(0), 48_000, chain)).toHaveLength(0);
