@@ -244,3 +244,65 @@ export function realTransform4(out: usize, data: usize, table: usize, bitrev: us
     }
   }
 }
+
+/**
+ * The packing of a real signal's inverse transform into one complex transform
+ * of M = half points (src/math/fft-kernels.ts, `packInverseInto`, has the
+ * derivation): the same operations in the same order as that function.
+ */
+export function packInverse(spectrum: usize, twiddles: usize, half: i32, scale: f64, packed: usize): void {
+  for (let k = 0; k < half; k++) {
+    const ar = at(spectrum, 2 * k) * scale;
+    const ai = at(spectrum, 2 * k + 1) * scale;
+    const br = at(spectrum, 2 * (half - k)) * scale;
+    const bi = -(at(spectrum, 2 * (half - k) + 1) * scale);
+    const er = (ar + br) / 2;
+    const ei = (ai + bi) / 2;
+    const dr = (ar - br) / 2;
+    const di = (ai - bi) / 2;
+    const wr = at(twiddles, 2 * k);
+    const wi = -at(twiddles, 2 * k + 1);
+    const or = dr * wr - di * wi;
+    const oi = dr * wi + di * wr;
+    put(packed, 2 * k, er - oi);
+    put(packed, 2 * k + 1, ei + or);
+  }
+}
+
+/** The half spectrum of a real signal from its packed transform (src/math/fft-kernels.ts, `unpackForwardInto`): the same operations in the same order. */
+export function unpackForward(packed: usize, twiddles: usize, half: i32, out: usize): void {
+  for (let k = 0; k <= half; k++) {
+    const a = k % half;
+    const b = (half - k) % half;
+    const zr = at(packed, 2 * a);
+    const zi = at(packed, 2 * a + 1);
+    const cr = at(packed, 2 * b);
+    const ci = -at(packed, 2 * b + 1);
+    const er = (zr + cr) / 2;
+    const ei = (zi + ci) / 2;
+    const or = (zi - ci) / 2;
+    const oi = -(zr - cr) / 2;
+    const wr = k < half ? at(twiddles, 2 * k) : -1.0;
+    const wi = k < half ? at(twiddles, 2 * k + 1) : 0.0;
+    put(out, 2 * k, er + wr * or - wi * oi);
+    put(out, 2 * k + 1, ei + wr * oi + wi * or);
+  }
+}
+
+/** fft.js's digit-reversal offsets for `width` into bitrev (1 << width i32). */
+export function digitReversal(bitrev: usize, width: i32): void {
+  const count = 1 << width;
+  for (let j = 0; j < count; j++) {
+    let reversed = 0;
+    for (let shift = 0; shift < width; shift += 2) reversed |= ((j >>> shift) & 3) << (width - shift - 2);
+    store<i32>(bitrev + ((<usize>j) << 2), reversed);
+  }
+}
+
+/** Every second complex entry of a twiddle table of `points` entries: the table for half the size (`points` numbers). */
+export function halveTable(table: usize, points: i32, out: usize): void {
+  for (let k = 0; 2 * k < points; k++) {
+    put(out, 2 * k, at(table, 4 * k));
+    put(out, 2 * k + 1, at(table, 4 * k + 1));
+  }
+}

@@ -3,7 +3,7 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { KERNELS, compileKernel, kernelModuleText } from '../../scripts/build-wasm.mjs';
-import { type FftKernel, type FftKernelHost, createFftKernel, fftKernelHost } from './fft-kernels.js';
+import { type FftKernel, type FftKernelHost, createFftKernel, createRealFftKernels, fftKernelHost } from './fft-kernels.js';
 import { FFT_KERNELS_WASM_BASE64 } from './fft-kernels-wasm.js';
 import { createRandom } from './random.js';
 
@@ -68,6 +68,33 @@ describe('FFT kernels (fft.js 4.0.4 radix-4, as WebAssembly and as JavaScript)',
         kernel.realTransform();
         // realTransform fills bins 0 … points/2; completeSpectrum would fill the rest by symmetry.
         expect(firstDifference(kernel.output(), want.real, points + 2), `${host} real, ${points} points`).toBeNull();
+      }
+    }
+  });
+
+  it('pack and unpack real signals to the same bits in both hosts, every size from 4 to 2^17', () => {
+    for (let power = 2; power <= 17; power += 1) {
+      const size = 2 ** power;
+      const half = size / 2;
+      const signal = awkwardNumbers(size, 100 + power);
+      const spectrum = awkwardNumbers(size + 2, 200 + power);
+      const results = HOSTS.map((host) => {
+        const kernels = createRealFftKernels(size, host);
+        kernels.forwardInput().set(signal);
+        const forward = new Float64Array(size + 2);
+        kernels.forward(forward);
+        kernels.packedInput().set(signal);
+        const packed = new Float64Array(size + 2);
+        kernels.forwardPacked(packed);
+        // Scales as realFft passes them: 1/M, and a factor that is not a power of two over M.
+        const inverse = Float64Array.from(kernels.inverse(spectrum, 1 / half));
+        const scaled = Float64Array.from(kernels.inverse(spectrum, 0.37 / half));
+        return { forward, packed, inverse, scaled };
+      });
+      const [wasm, javascript] = results;
+      if (!wasm || !javascript) throw new Error('two hosts');
+      for (const key of ['forward', 'packed', 'inverse', 'scaled'] as const) {
+        expect(firstDifference(wasm[key], javascript[key], wasm[key].length), `${key}, ${size} points`).toBeNull();
       }
     }
   });
