@@ -338,6 +338,18 @@ export function createRealFftKernels(size: number, host: FftKernelHost = fftKern
   return wasm ? wasmRealKernels(wasm, size) : javascriptRealKernels(size);
 }
 
+/** `forward` of size N by the full-size kernel that `full` makes on first need: its input, and bins 0 … N/2 of its real transform. */
+function fullSizeForward(full: () => FftKernel, size: number): Pick<RealFftKernels, 'forwardInput' | 'forward'> {
+  return {
+    forwardInput: () => full().input().subarray(0, size),
+    forward(out) {
+      const kernel = full();
+      kernel.realTransform();
+      out.set(kernel.output().subarray(0, size + 2));
+    },
+  };
+}
+
 function wasmRealKernels(wasm: Instance, size: number): RealFftKernels {
   const { memory, packInverse, unpackForward, halveTable } = wasm.exports;
   const half = size / 2;
@@ -358,12 +370,7 @@ function wasmRealKernels(wasm: Instance, size: number): RealFftKernels {
   const full = (): FftKernel => (fullKernel ??= wasmKernel(wasm, size, twiddlesAt));
   return {
     size,
-    forwardInput: () => full().input().subarray(0, size),
-    forward(out) {
-      const kernel = full();
-      kernel.realTransform();
-      out.set(kernel.output().subarray(0, 2 * bins));
-    },
+    ...fullSizeForward(full, size),
     packedInput,
     forwardPacked(out) {
       halfKernel.transform(false);
@@ -381,19 +388,13 @@ function wasmRealKernels(wasm: Instance, size: number): RealFftKernels {
 
 function javascriptRealKernels(size: number): RealFftKernels {
   const half = size / 2;
-  const bins = half + 1;
   const twiddles = fillTwiddleTable(size, new Float64Array(2 * size));
   const halfKernel = createFftKernel(half, halveTwiddleTable(twiddles), 'javascript');
   let fullKernel: FftKernel | undefined;
   const full = (): FftKernel => (fullKernel ??= createFftKernel(size, twiddles, 'javascript'));
   return {
     size,
-    forwardInput: () => full().input().subarray(0, size),
-    forward(out) {
-      const kernel = full();
-      kernel.realTransform();
-      out.set(kernel.output().subarray(0, 2 * bins));
-    },
+    ...fullSizeForward(full, size),
     packedInput: halfKernel.input,
     forwardPacked(out) {
       halfKernel.transform(false);
