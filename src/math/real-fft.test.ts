@@ -119,6 +119,8 @@ describe('realFft', () => {
     const spectrum = realFft(8).forward([1]);
     for (let k = 0; k <= 4; k += 1) expect(spectrum[2 * k]).toBeCloseTo(1, 12);
     expect(() => realFft(12)).toThrow(RangeError);
+    // An inverse needs bins 0 … N/2: a spectrum one number short is refused, not read past its end.
+    expect(() => realFft(8).inverse(new Float64Array(9))).toThrow(/10 numbers/);
   });
 
   it('gives the same stream for the same seed', () => {

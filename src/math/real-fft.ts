@@ -82,6 +82,7 @@ export function realFft(size: number): RealFft {
       // reading the spectrum times scale/M instead gives the same bits (scaling by a power of two is exact and
       // commutes with every rounding of the transform, away from underflow) and saves that pass over the frame.
       if (out.length < size) throw new RangeError(`realFft.inverse: out must hold ${size} numbers, got ${out.length}`);
+      if (halfSpectrum.length < 2 * bins) throw new RangeError(`realFft.inverse: the spectrum must hold ${2 * bins} numbers (bins 0 … ${half}), got ${halfSpectrum.length}`);
       // The packing reads the whole spectrum before the transform writes, so `out` may even be the spectrum's own array.
       out.set(kernels.inverse(halfSpectrum, scale / half));
       return out;
