@@ -26,6 +26,12 @@ import { maxOf, minOf } from '../../src/math/index.js';
 const ROOT = join(import.meta.dirname, '..', '..');
 /** The built command to time (BENCH_CLI: another build, e.g. of an older commit, for before/after figures). */
 const CLI = process.env.BENCH_CLI ?? join(ROOT, 'dist', 'cli.js');
+/**
+ * BENCH_BASE: a second build's cli.js (an executable) to compare with, run by turns with CLI (base, this, base,
+ * this …), so that both see the same hours of the machine: its speed drifts by 2× within an hour, more than most
+ * changes move a command.
+ */
+const BASE = process.env.BENCH_BASE;
 const GNU_TIME = '/usr/bin/time';
 /** Runs per case (the issue's minimum for a median and range). */
 const RUNS = Number(process.env.BENCH_RUNS ?? 3);
@@ -78,8 +84,8 @@ export function referenceMs(): number {
 }
 
 /** One fresh process: `dist/cli.js …args` run as the executable users run (its first line starts Node, src/cli.ts), under GNU time. */
-function runOnce(args: readonly string[]): Run {
-  const child = spawnSync(GNU_TIME, ['-f', '%e %M', CLI, ...args], { encoding: 'utf8', maxBuffer: 1 << 28 });
+function runOnce(args: readonly string[], cli = CLI): Run {
+  const child = spawnSync(GNU_TIME, ['-f', '%e %M', cli, ...args], { encoding: 'utf8', maxBuffer: 1 << 28 });
   if (child.status !== 0) throw new Error(`bench: coilbench ${args.join(' ')} failed (${child.status}): ${child.stderr.slice(-2000)}`);
   const [seconds, kilobytes] = (child.stderr.trim().split('\n').at(-1) ?? '').split(' ').map(Number);
   return { seconds: seconds ?? Number.NaN, peakMb: (kilobytes ?? Number.NaN) / KILOBYTES_PER_MEGABYTE };
@@ -119,6 +125,38 @@ function runCase(item: Case): void {
   );
 }
 
+/**
+ * One case with BENCH_BASE: RUNS pairs in fresh folders, the base build first in every other pair (a run that
+ * follows a render pays for the disk still writing that render's files out: with the base always first, this build
+ * of the same code read 9 % slower on 572 wirings); prints each build's median and the median (and range) of the
+ * pairs' ratios, this build's time over the base's (below 1: this build is faster).
+ */
+function runPairedCase(item: Case, base: string): void {
+  const pairs: { base: Run; build: Run }[] = [];
+  for (let i = 0; i < RUNS; i += 1) {
+    const runIn = (cli: string): Run => {
+      const folder = mkdtempSync(join(tmpdir(), 'coilbench-bench-'));
+      try {
+        return runOnce(item.args(join(folder, 'out')), cli);
+      } finally {
+        rmSync(folder, { recursive: true, force: true });
+      }
+    };
+    if (i % 2 === 0) {
+      const baseRun = runIn(base);
+      pairs.push({ base: baseRun, build: runIn(CLI) });
+    } else {
+      const buildRun = runIn(CLI);
+      pairs.push({ base: runIn(base), build: buildRun });
+    }
+  }
+  const ratios = pairs.map((pair) => pair.build.seconds / pair.base.seconds);
+  line(
+    item.label,
+    `base ${median(pairs.map((pair) => pair.base.seconds)).toFixed(2)} s, this ${median(pairs.map((pair) => pair.build.seconds)).toFixed(2)} s; ratio ${median(ratios).toFixed(2)} (${minOf(ratios).toFixed(2)}–${maxOf(ratios).toFixed(2)}); peak ${median(pairs.map((pair) => pair.base.peakMb)).toFixed(0)} → ${median(pairs.map((pair) => pair.build.peakMb)).toFixed(0)} MB`,
+  );
+}
+
 /** Seconds of audio in a render folder: its report's duration × its wirings. */
 function renderedSeconds(folder: string): number {
   const report = JSON.parse(readFileSync(join(folder, 'report.json'), 'utf8')) as { render: { durationS: number }; wirings: unknown[] };
@@ -131,7 +169,11 @@ export function benchCommands(): void {
     return;
   }
   const reference = referenceMs();
-  heading(`Commands as users run them: fresh process \`dist/cli.js …\` (the executable, as \`coilbench\` runs), start to exit, ${RUNS} runs: median (range)`);
+  heading(
+    BASE === undefined
+      ? `Commands as users run them: fresh process \`dist/cli.js …\` (the executable, as \`coilbench\` runs), start to exit, ${RUNS} runs: median (range)`
+      : `Commands as users run them, this build against ${BASE}: ${RUNS} pairs run by turns, each build's median and the pairs' ratio (this ÷ base)`,
+  );
   console.log(`  reference computation in this process: ${REFERENCE_FFTS} inverse FFTs of ${REFERENCE_SIZE} points = ${reference.toFixed(1)} ms ("ref")`);
   const scratch = mkdtempSync(join(tmpdir(), 'coilbench-bench-guitar-'));
   const five = join(scratch, 'five-coil.json');
@@ -158,7 +200,7 @@ export function benchCommands(): void {
   // BENCH_CASES: a regular expression choosing cases by label (e.g. "47 wirings").
   const only = process.env.BENCH_CASES ? new RegExp(process.env.BENCH_CASES, 'u') : null;
   try {
-    for (const item of cases) if (!only || only.test(item.label)) runCase(item);
+    for (const item of cases) if (!only || only.test(item.label)) (BASE === undefined ? runCase(item) : runPairedCase(item, BASE));
   } finally {
     rmSync(scratch, { recursive: true, force: true });
   }
