@@ -127,8 +127,8 @@ function runCase(item: Case): void {
 
 /**
  * One case with BENCH_BASE: RUNS pairs in fresh folders, the base build first in every other pair (a run that
- * follows a render pays for the disk still writing that render's files out: with the base always first, this build
- * of the same code read 9 % slower on 572 wirings); prints each build's median and the median (and range) of the
+ * follows a render may pay for the disk still writing that render's files out: with the base always first, a
+ * 572-wiring render read 1.03–1.10 in three benches, by turns 1.01); prints each build's median and the median (and range) of the
  * pairs' ratios, this build's time over the base's (below 1: this build is faster).
  */
 function runPairedCase(item: Case, base: string): void {
