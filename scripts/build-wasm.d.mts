@@ -4,7 +4,7 @@ export interface KernelBuild {
   readonly source: string;
   /** Generated TypeScript module, relative to the repository. */
   readonly target: string;
-  /** Name of the base64 constant the module exports. */
+  /** Name of the Uint8Array constant the module exports. */
   readonly constant: string;
 }
 export const KERNEL_COMPILE_OPTIONS: Readonly<Record<string, unknown>>;

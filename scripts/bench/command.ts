@@ -100,18 +100,25 @@ interface Case {
   readonly audioSeconds: (folder: string) => number | null;
 }
 
+/** One run of `item` by `cli` in a fresh folder (removed after), with the seconds of audio it wrote. */
+function runInFreshFolder(item: Case, cli = CLI): Run & { readonly audio: number | null } {
+  const folder = mkdtempSync(join(tmpdir(), 'coilbench-bench-'));
+  try {
+    const run = runOnce(item.args(join(folder, 'out')), cli);
+    return { ...run, audio: item.audioSeconds(join(folder, 'out')) };
+  } finally {
+    rmSync(folder, { recursive: true, force: true });
+  }
+}
+
 function runCase(item: Case): void {
   const reference = referenceMs();
   const runs: Run[] = [];
   let audio: number | null = null;
   for (let i = 0; i < RUNS; i += 1) {
-    const folder = mkdtempSync(join(tmpdir(), 'coilbench-bench-'));
-    try {
-      runs.push(runOnce(item.args(join(folder, 'out'))));
-      audio = item.audioSeconds(join(folder, 'out'));
-    } finally {
-      rmSync(folder, { recursive: true, force: true });
-    }
+    const run = runInFreshFolder(item);
+    runs.push(run);
+    audio = run.audio;
   }
   const seconds = runs.map((run) => run.seconds);
   const low = minOf(seconds);
@@ -128,26 +135,18 @@ function runCase(item: Case): void {
 /**
  * One case with BENCH_BASE: RUNS pairs in fresh folders, the base build first in every other pair (a run that
  * follows a render may pay for the disk still writing that render's files out: with the base always first, a
- * 572-wiring render read 1.03–1.10 in three benches, by turns 1.01); prints each build's median and the median (and range) of the
- * pairs' ratios, this build's time over the base's (below 1: this build is faster).
+ * 572-wiring render read 1.03–1.10 in three benches, by turns 1.01); prints each build's median and the median
+ * (and range) of the pairs' ratios, this build's time over the base's (below 1: this build is faster).
  */
 function runPairedCase(item: Case, base: string): void {
   const pairs: { base: Run; build: Run }[] = [];
   for (let i = 0; i < RUNS; i += 1) {
-    const runIn = (cli: string): Run => {
-      const folder = mkdtempSync(join(tmpdir(), 'coilbench-bench-'));
-      try {
-        return runOnce(item.args(join(folder, 'out')), cli);
-      } finally {
-        rmSync(folder, { recursive: true, force: true });
-      }
-    };
     if (i % 2 === 0) {
-      const baseRun = runIn(base);
-      pairs.push({ base: baseRun, build: runIn(CLI) });
+      const baseRun = runInFreshFolder(item, base);
+      pairs.push({ base: baseRun, build: runInFreshFolder(item) });
     } else {
-      const buildRun = runIn(CLI);
-      pairs.push({ base: runIn(base), build: buildRun });
+      const buildRun = runInFreshFolder(item);
+      pairs.push({ base: runInFreshFolder(item, base), build: buildRun });
     }
   }
   const ratios = pairs.map((pair) => pair.build.seconds / pair.base.seconds);

@@ -25,7 +25,7 @@
  * for each transform.
  */
 import FFT from 'fft.js';
-import { FFT_KERNELS_WASM_BASE64 } from './fft-kernels-wasm.js';
+import { FFT_KERNELS_WASM } from './fft-kernels-wasm.js';
 
 /** Which code runs the kernels: WebAssembly when the host compiles it, otherwise JavaScript. */
 export type FftKernelHost = 'webassembly' | 'javascript';
@@ -89,18 +89,11 @@ interface Instance {
 /** This thread's instance; null when the host cannot compile WebAssembly. */
 let instance: Instance | null | undefined;
 
-function decodeBase64(text: string): Uint8Array<ArrayBuffer> {
-  const binary = atob(text);
-  const bytes = new Uint8Array(binary.length);
-  for (let i = 0; i < binary.length; i += 1) bytes[i] = binary.charCodeAt(i);
-  return bytes;
-}
-
 /** The WebAssembly kernels of this thread, compiled on first use; null where the host cannot (no WebAssembly, or a policy without 'wasm-unsafe-eval'). */
 function kernelInstance(): Instance | null {
   if (instance !== undefined) return instance;
   try {
-    const module = new WebAssembly.Module(decodeBase64(FFT_KERNELS_WASM_BASE64));
+    const module = new WebAssembly.Module(FFT_KERNELS_WASM);
     instance = { exports: new WebAssembly.Instance(module, {}).exports as unknown as KernelExports, next: FIRST_FREE_BYTE };
   } catch {
     instance = null;

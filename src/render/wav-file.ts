@@ -328,7 +328,7 @@ function writeMonoPcm24(channel: Float32Array | Float64Array, bytes: Uint8Array,
   return unfinite + writePcm24(channel.subarray(last), bytes, first + last * PCM24_BYTES, PCM24_BYTES, fullScale);
 }
 
-/** The first `count` samples of mono 24-bit PCM as 32-bit stores (writeMonoPcm24); a function of its own, so V8's compiled code for the running loop has nothing after it to bail out on (src/math/real-fft.ts). */
+/** The first `count` samples of mono 24-bit PCM as 32-bit stores (writeMonoPcm24); a function of its own, so V8's compiled code for the running loop has nothing after it to bail out on (DEVELOPERS.md, "Code the compiler keeps compiled"). */
 function writePcm24Words(channel: Float32Array | Float64Array, view: DataView, first: number, count: number, fullScale: number): number {
   let unfinite = 0;
   let offset = first;
