@@ -54,9 +54,11 @@ const SECTIONS_PER_PASS = 4;
  * (run-string-loop.test.ts holds them to that form). Section by section,
  * each section's recurrence runs with its state in local variables instead
  * of loading and storing every section's state at every sample: one note of
- * 125,000 samples with a line of 480 took 11.4 → 6.7 ms with 16 sections,
- * 13.0 → 5.2 ms with 10, 8.0 → 2.5 ms with 4 and 6.3 → 2.1 ms with 1
- * (medians of four warm runs in one process, the 2-core machine).
+ * 125,000 samples with a line of 480 took 11.6 → 6.6–7.4 ms with 16
+ * sections, 12.4–12.8 → 4.8–5.0 ms with 10, 8.6–8.8 → 2.4–2.6 ms with 4 and
+ * 7.2–7.4 → 2.2 ms with 1 (medians of four warm runs in one process with the
+ * command line's V8 setting, src/cli/eager-feedback.ts; two processes, the
+ * 2-core machine).
  */
 export function runStringLoop(loop: StringLoop, excitation: Float64Array, out: Float64Array, voice: StringVoice): void {
   const { delaySamples, stretch, allpassEta: eta, loopGain } = loop;
