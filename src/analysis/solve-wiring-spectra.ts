@@ -242,9 +242,15 @@ function foldShapeTable(
   { coilCount, pairCount, bandCount, excitationRow, outerRow, momentRow }: TableRows,
 ): void {
   const segmentCount = segments.length;
+  // Every array in a local: the first calls run in V8's interpreter (until the optimising compiler has caught up,
+  // several calls in), where each property read in the loop costs as much as the arithmetic.
+  const { energy, moment } = cross;
+  const { first, last, weights } = spread;
   for (let s = 0; s < segmentCount; s += 1) {
     const band = (segments[s] as { band: number }).band;
     const row = band >= 0 ? band : outerRow;
+    const firstBand = first[s] as number;
+    const lastBand = last[s] as number;
     let pair = 0;
     for (let i = 0; i < coilCount; i += 1) {
       const ti = transfers[i] as Float64Array;
@@ -260,16 +266,14 @@ function foldShapeTable(
         const at = 2 * (s * pairCount + pair);
         const fold = i === j ? 1 : 2;
         // Re(a·C) = a_r·C_r − a_i·C_i
-        table[row * pairCount + pair] =
-          (table[row * pairCount + pair] as number) + fold * (ar * (cross.energy[at] as number) - ai * (cross.energy[at + 1] as number));
+        table[row * pairCount + pair] = (table[row * pairCount + pair] as number) + fold * (ar * (energy[at] as number) - ai * (energy[at + 1] as number));
         if (band >= 0) {
-          const energy = fold * (ar * (cross.energy[at] as number) - ai * (cross.energy[at + 1] as number));
-          table[momentRow * pairCount + pair] =
-            (table[momentRow * pairCount + pair] as number) + fold * (ar * (cross.moment[at] as number) - ai * (cross.moment[at + 1] as number));
+          const segmentEnergy = fold * (ar * (energy[at] as number) - ai * (energy[at + 1] as number));
+          table[momentRow * pairCount + pair] = (table[momentRow * pairCount + pair] as number) + fold * (ar * (moment[at] as number) - ai * (moment[at + 1] as number));
           // Excitation of each auditory filter b: Σ_s W_b(f_s)·P_s (design-excitation-spread.ts).
-          for (let b = spread.first[s] as number; b <= (spread.last[s] as number); b += 1) {
+          for (let b = firstBand; b <= lastBand; b += 1) {
             const index = (excitationRow + b) * pairCount + pair;
-            table[index] = (table[index] as number) + (spread.weights[s * bandCount + b] as number) * energy;
+            table[index] = (table[index] as number) + (weights[s * bandCount + b] as number) * segmentEnergy;
           }
         }
         pair += 1;
