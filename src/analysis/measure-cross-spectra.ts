@@ -56,10 +56,17 @@ export function measureCrossSpectra(coilSpectra: readonly Float64Array[], fftSiz
   const binHz = layout.sampleRateHz / fftSize;
   const re = new Float64Array(coilCount);
   const im = new Float64Array(coilCount);
+  // The segment's upper edge in a local: the loop's first call runs in V8's interpreter, where a property read
+  // costs as much as the arithmetic (DEVELOPERS.md, "Code the interpreter runs").
+  const lastSegment = segments.length - 1;
   let segment = 0;
+  let segmentHighHz = (segments[0] as { highHz: number } | undefined)?.highHz ?? Number.POSITIVE_INFINITY;
   for (let k = 0; k < bins; k += 1) {
     const frequencyHz = k * binHz;
-    while (segment < segments.length - 1 && frequencyHz >= (segments[segment] as { highHz: number }).highHz) segment += 1;
+    while (segment < lastSegment && frequencyHz >= segmentHighHz) {
+      segment += 1;
+      segmentHighHz = (segments[segment] as { highHz: number }).highHz;
+    }
     const weight = (k === 0 || k === bins - 1 ? 1 : 2) / fftSize;
     const weightedFrequency = weight * frequencyHz;
     for (let c = 0; c < coilCount; c += 1) {

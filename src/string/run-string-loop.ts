@@ -132,19 +132,22 @@ function addLoopOutput(
   index: number,
   out: Float64Array,
 ): number {
+  // Every value the loop reads in a local: a loop's first calls run in V8's interpreter, where a property read
+  // costs as much as the arithmetic (DEVELOPERS.md, "Code the interpreter runs").
   const delaySamples = line.length;
   const excitationLength = excitation.length;
+  const { start, dampStart, dampLength } = voice;
   let at = index;
   for (let j = 0; j < count; j += 1) {
     const n = first + j;
-    const i = n - voice.start;
+    const i = n - start;
     const y = (i < excitationLength ? (excitation[i] as number) : 0) + loopGain * (block[j] as number);
     line[at] = y;
     at = at + 1 === delaySamples ? 0 : at + 1;
-    if (n < voice.dampStart) {
+    if (n < dampStart) {
       out[n] = (out[n] as number) + y;
     } else {
-      const gain = Math.cos((Math.PI / 2) * ((n - voice.dampStart) / voice.dampLength));
+      const gain = Math.cos((Math.PI / 2) * ((n - dampStart) / dampLength));
       out[n] = (out[n] as number) + y * gain * gain;
     }
   }
