@@ -1,4 +1,4 @@
-// Types of build-wasm.mjs for the test that compiles the kernels again (src/math/fft-kernels.test.ts).
+// Types of build-wasm.mjs for the test that compiles the kernels again (src/math/wasm-arena.test.ts).
 export interface KernelBuild {
   /** AssemblyScript source, relative to the repository. */
   readonly source: string;

@@ -25,10 +25,10 @@ import { type CircuitOverrides, phaseClassKey, phaseClassNetwork, phaseClassSign
 import type { Guitar } from '../guitar/index.js';
 import { type Steps, runSteps } from '../math/index.js';
 import { type Network, leaf } from '../wiring/index.js';
-import { type ExcitationSpread, designExcitationSpread } from './design-excitation-spread.js';
-import type { CrossSpectra } from './measure-cross-spectra.js';
+import { designExcitationSpread } from './design-excitation-spread.js';
 import { LEVEL_FLOOR_DB } from './measure-energy.js';
 import type { SpectralBasis } from './measure-spectral-basis.js';
+import { prepareShapeTableFold } from './shape-table-kernel.js';
 
 export interface WiringSpectra {
   readonly basis: SpectralBasis;
@@ -107,6 +107,7 @@ export function prepareWiringSpectra(guitar: Guitar, basis: SpectralBasis, overr
   const momentRow = 2 * bandCount + 1;
   const rows = 2 * bandCount + 2;
   const spread = designExcitationSpread(layout);
+  const foldTable = prepareShapeTableFold(segments, cross, spread, { coilCount, pairCount, bandCount, excitationRow, outerRow, momentRow });
   const transfers = guitar.coils.map(() => new Float64Array(2 * segmentCount));
   const shapes = new Map<string, Float64Array>();
 
@@ -116,7 +117,7 @@ export function prepareWiringSpectra(guitar: Guitar, basis: SpectralBasis, overr
     if (known !== undefined) return known;
     solveTransfers(prepared, phaseClassNetwork(guitar, network), transfers);
     const table = new Float64Array(rows * pairCount);
-    foldShapeTable(table, transfers, segments, cross, spread, { coilCount, pairCount, bandCount, excitationRow, outerRow, momentRow });
+    foldTable(transfers, table);
     shapes.set(key, table);
     return table;
   };
@@ -213,71 +214,4 @@ export function* solveWiringSpectraSteps(
     levelsDb[w] = figures.levelDb;
   }
   return { basis, count, bandCount, silent: solver.silent, energies, bandEnergies, excitation, brightnessHz, referenceEnergy, levelsDb };
-}
-
-/** Where a shape table's rows lie (prepareWiringSpectra). */
-interface TableRows {
-  readonly coilCount: number;
-  readonly pairCount: number;
-  readonly bandCount: number;
-  readonly excitationRow: number;
-  readonly outerRow: number;
-  readonly momentRow: number;
-}
-
-/**
- * A phase class's table from its transfers at the segments: per segment and
- * coil pair, Re(T_i·conj(T_j)·C) added into the segment's band row (or the
- * outer row), its moment and its auditory filters' excitation rows. A
- * function of its own, so that V8's code compiled for the running loop has
- * nothing after it to bail out on (seen with node --trace-deopt, once per
- * shape; src/math/real-fft.ts).
- */
-function foldShapeTable(
-  table: Float64Array,
-  transfers: readonly Float64Array[],
-  segments: readonly { readonly band: number }[],
-  cross: Pick<CrossSpectra, 'energy' | 'moment'>,
-  spread: ExcitationSpread,
-  { coilCount, pairCount, bandCount, excitationRow, outerRow, momentRow }: TableRows,
-): void {
-  const segmentCount = segments.length;
-  // Every array in a local: the first calls run in V8's interpreter (until the optimising compiler has caught up,
-  // several calls in), where each property read in the loop costs as much as the arithmetic.
-  const { energy, moment } = cross;
-  const { first, last, weights } = spread;
-  for (let s = 0; s < segmentCount; s += 1) {
-    const band = (segments[s] as { band: number }).band;
-    const row = band >= 0 ? band : outerRow;
-    const firstBand = first[s] as number;
-    const lastBand = last[s] as number;
-    let pair = 0;
-    for (let i = 0; i < coilCount; i += 1) {
-      const ti = transfers[i] as Float64Array;
-      const ir = ti[2 * s] as number;
-      const ii = ti[2 * s + 1] as number;
-      for (let j = i; j < coilCount; j += 1) {
-        const tj = transfers[j] as Float64Array;
-        const jr = tj[2 * s] as number;
-        const ji = tj[2 * s + 1] as number;
-        // a = T_i·conj(T_j)
-        const ar = ir * jr + ii * ji;
-        const ai = ii * jr - ir * ji;
-        const at = 2 * (s * pairCount + pair);
-        const fold = i === j ? 1 : 2;
-        // Re(a·C) = a_r·C_r − a_i·C_i
-        table[row * pairCount + pair] = (table[row * pairCount + pair] as number) + fold * (ar * (energy[at] as number) - ai * (energy[at + 1] as number));
-        if (band >= 0) {
-          const segmentEnergy = fold * (ar * (energy[at] as number) - ai * (energy[at + 1] as number));
-          table[momentRow * pairCount + pair] = (table[momentRow * pairCount + pair] as number) + fold * (ar * (moment[at] as number) - ai * (moment[at + 1] as number));
-          // Excitation of each auditory filter b: Σ_s W_b(f_s)·P_s (design-excitation-spread.ts).
-          for (let b = firstBand; b <= lastBand; b += 1) {
-            const index = (excitationRow + b) * pairCount + pair;
-            table[index] = (table[index] as number) + (weights[s * bandCount + b] as number) * segmentEnergy;
-          }
-        }
-        pair += 1;
-      }
-    }
-  }
 }

@@ -26,9 +26,10 @@
  */
 import FFT from 'fft.js';
 import { FFT_KERNELS_WASM } from './fft-kernels-wasm.js';
+import { F64_BYTES, I32_BYTES, type KernelHost, type WasmArena, allocate, instantiateArena, memoryView } from './wasm-arena.js';
 
 /** Which code runs the kernels: WebAssembly when the host compiles it, otherwise JavaScript. */
-export type FftKernelHost = 'webassembly' | 'javascript';
+export type FftKernelHost = KernelHost;
 
 /** One complex FFT size's butterflies (fft.js's engine). */
 export interface FftKernel {
@@ -63,7 +64,6 @@ export interface RealFftKernels {
 }
 
 interface KernelExports {
-  readonly memory: WebAssembly.Memory;
   transform4(out: number, data: number, table: number, bitrev: number, size: number, width: number, inverse: number): void;
   realTransform4(out: number, data: number, table: number, bitrev: number, size: number, width: number, inverse: number): void;
   packInverse(spectrum: number, twiddles: number, half: number, scale: number, packed: number): void;
@@ -72,60 +72,20 @@ interface KernelExports {
   halveTable(table: number, points: number, out: number): void;
 }
 
-/** Bytes per f64 and per i32 in WebAssembly memory. */
-const F64_BYTES = 8;
-const I32_BYTES = 4;
-/** WebAssembly's page of memory, bytes (the unit `memory.grow` counts in). */
-const WASM_PAGE_BYTES = 65536;
-/** First byte the kernels' arrays use: past the module's own static data (it has none; one page kept clear). */
-const FIRST_FREE_BYTE = WASM_PAGE_BYTES;
-
-interface Instance {
-  readonly exports: KernelExports;
-  /** Next free byte of the memory. */
-  next: number;
-}
+type Instance = WasmArena<KernelExports>;
 
 /** This thread's instance; null when the host cannot compile WebAssembly. */
 let instance: Instance | null | undefined;
 
 /** The WebAssembly kernels of this thread, compiled on first use; null where the host cannot (no WebAssembly, or a policy without 'wasm-unsafe-eval'). */
 function kernelInstance(): Instance | null {
-  if (instance !== undefined) return instance;
-  try {
-    const module = new WebAssembly.Module(FFT_KERNELS_WASM);
-    instance = { exports: new WebAssembly.Instance(module, {}).exports as unknown as KernelExports, next: FIRST_FREE_BYTE };
-  } catch {
-    instance = null;
-  }
+  if (instance === undefined) instance = instantiateArena<KernelExports>(FFT_KERNELS_WASM);
   return instance;
 }
 
 /** The host the kernels run on in this thread. */
 export function fftKernelHost(): FftKernelHost {
   return kernelInstance() ? 'webassembly' : 'javascript';
-}
-
-/** `count` f64s (or i32s) of the instance's memory, grown if need be: the byte address. */
-function allocate(wasm: Instance, count: number, bytesEach: number): number {
-  const at = wasm.next;
-  wasm.next += count * bytesEach;
-  const shortBytes = wasm.next - wasm.exports.memory.buffer.byteLength;
-  if (shortBytes > 0) wasm.exports.memory.grow(Math.ceil(shortBytes / WASM_PAGE_BYTES));
-  return at;
-}
-
-/** A Float64Array over `length` numbers at byte `at`, made again after the memory has grown. */
-function memoryView(memory: WebAssembly.Memory, at: number, length: number): () => Float64Array {
-  let buffer = memory.buffer;
-  let view = new Float64Array(buffer, at, length);
-  return () => {
-    if (memory.buffer !== buffer) {
-      buffer = memory.buffer;
-      view = new Float64Array(buffer, at, length);
-    }
-    return view;
-  };
 }
 
 /**

@@ -2,6 +2,8 @@ export { realFft, nextPowerOfTwo, binFrequencyHz } from './real-fft.js';
 export type { RealFft } from './real-fft.js';
 export { fftKernelHost } from './fft-kernels.js';
 export type { FftKernelHost } from './fft-kernels.js';
+export { F64_BYTES, I32_BYTES, allocate, copyIn, instantiateArena, kernelHost, memoryView } from './wasm-arena.js';
+export type { KernelHost, WasmArena } from './wasm-arena.js';
 export { createRandom, seedFromText } from './random.js';
 export type { Random } from './random.js';
 export { maxOf, minOf, appendAll } from './extremes.js';
