@@ -64,6 +64,7 @@ import type { Guitar } from '../guitar/index.js';
 import { anyNonZero, nextPowerOfTwo, realFft } from '../math/index.js';
 import type { Network } from '../wiring/index.js';
 import { applyBiquad } from './biquad.js';
+import { prepareCentroidPass } from './centroid-kernel.js';
 import { designKWeighting } from './k-weighting.js';
 import { DEFAULT_CENTROID_OPTIONS, SILENCE_CENTROID_HZ } from './measure-centroid.js';
 import { HOPS_PER_GATING_BLOCK, LOUDNESS_FLOOR_LUFS, integrateGatedLoudness, layoutGatingBlocks } from './measure-loudness.js';
@@ -239,86 +240,6 @@ export interface AudioFigureOptions {
 export const DEFAULT_AUDIO_FIGURE_OPTIONS: Readonly<AudioFigureOptions> = Object.freeze({ centroidChunkBins: 512 });
 
 /**
- * One used coil's share of a chunk of the band, bins start … start +
- * length − 1: P_u = T_u·H_u (T_u interpolated from the grid), written as
- * 2·P_u into `products` from `at` (real parts, then the imaginary parts
- * `chunk` numbers later) and added into B = Σ_u P_u in `base` (real at j,
- * imaginary at chunk + j, j the bin's place in the chunk). Called coil by
- * coil from 0 on a zeroed `base`, each coil one loop over the chunk: every
- * bin's B receives its coils in order, so the same numbers as a loop over
- * the coils inside one over the bins.
- */
-function addCoilProducts(
-  transfer: Float64Array,
-  spectrum: Float64Array,
-  node: Int32Array,
-  weight: Float64Array,
-  start: number,
-  length: number,
-  chunk: number,
-  base: Float64Array,
-  products: Float64Array,
-  at: number,
-): void {
-  for (let j = 0; j < length; j += 1) {
-    const k = start + j;
-    const m = node[k] as number;
-    const t = weight[k] as number;
-    const s = 1 - t;
-    const tr = (transfer[2 * m] as number) * s + (transfer[2 * m + 2] as number) * t;
-    const ti = (transfer[2 * m + 1] as number) * s + (transfer[2 * m + 3] as number) * t;
-    const hr = spectrum[2 * k] as number;
-    const hi = spectrum[2 * k + 1] as number;
-    const pr = tr * hr - ti * hi;
-    const pi = tr * hi + ti * hr;
-    base[j] = (base[j] as number) + pr;
-    base[chunk + j] = (base[chunk + j] as number) + pi;
-    products[at + j] = 2 * pr;
-    products[at + chunk + j] = 2 * pi;
-  }
-}
-
-/**
- * One pattern's share of a chunk: X = B − Σ of its flipped 2·P_u (in the
- * order of its flip list), then Σ bin·|X| and Σ |X| added bin by bin into
- * sums[at] and sums[at + 1] (`chunk` numbers between a run of real parts
- * and its imaginary parts). One loop with two flips and no inner loop
- * (nothing to mispredict): a missing flip reads a run of zeros, and
- * x − 0 = x exactly (−0 included), so the same bits as subtracting nothing;
- * a pattern flipping more than two has its other flips subtracted first, in
- * order (subtractFlips), so its X too is B minus its flips one by one.
- */
-function sumMagnitudesTwoFlips(base: Float64Array, products: Float64Array, a: number, b: number, chunk: number, length: number, firstBin: number, sums: Float64Array, at: number): void {
-  let weighted = sums[at] as number;
-  let total = sums[at + 1] as number;
-  for (let j = 0; j < length; j += 1) {
-    let re = base[j] as number;
-    let im = base[chunk + j] as number;
-    re -= products[a + j] as number;
-    im -= products[a + chunk + j] as number;
-    re -= products[b + j] as number;
-    im -= products[b + chunk + j] as number;
-    const magnitude = Math.sqrt(re * re + im * im);
-    weighted += (firstBin + j) * magnitude;
-    total += magnitude;
-  }
-  sums[at] = weighted;
-  sums[at + 1] = total;
-}
-
-/** target = source − the runs at `flips`, in that order, over the chunk's `length` bins (real and imaginary runs). */
-function subtractFlips(source: Float64Array, products: Float64Array, flips: Int32Array, chunk: number, length: number, target: Float64Array): void {
-  target.set(source.subarray(0, length));
-  target.set(source.subarray(chunk, chunk + length), chunk);
-  for (const offset of flips) {
-    for (let j = 0; j < length; j += 1) {
-      target[j] = (target[j] as number) - (products[offset + j] as number);
-      target[chunk + j] = (target[chunk + j] as number) - (products[offset + chunk + j] as number);
-    }
-  }
-}
-
-/**
  * Re Σ_m Q_m·S̃_m over `points` grid points, S̃ read from `table` at `offset`.
  * A loop of its own (as math/any-non-zero.ts), so that V8's code compiled
  * for a running loop has nothing after it to bail out on (seen with node
@@ -409,13 +330,9 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
   const used = new Uint8Array(coilCount);
   const energyTerms = new Float64Array(pairCount);
   const blockTerms = new Float64Array(blockCount * pairCount);
-  // The centroid pass's chunk (see addCoilProducts), never longer than the band: B, then 2·P_u per used coil.
+  // The centroid pass (centroid-kernel.ts), its chunk never longer than the band.
   const chunk = Math.max(1, Math.min(centroidChunkBins, bandBins));
-  const chunkBase = new Float64Array(2 * chunk);
-  const chunkFlipped = new Float64Array(2 * chunk);
-  // … and after the coils' runs one run of zeros, never written: what a pattern flipping fewer than two coils subtracts.
-  const chunkProducts = new Float64Array(2 * chunk * (coilCount + 1));
-  const zeroRun = 2 * chunk * coilCount;
+  const centroidPass = prepareCentroidPass({ spectra: windowed, node: bandLocation.node, weight: bandLocation.weight, firstBin, bandBins, chunk, points });
   const usedCoils = new Int32Array(coilCount);
   let usedCount = 0;
   const pairA = new Int32Array(pairCount);
@@ -508,35 +425,8 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
       for (const offset of negative.length <= positive.length ? negative : positive) flips.push(offset);
       flipStart[index + 1] = flips.length;
     });
-    const flipOffsets = Int32Array.from(flips);
     // Per pattern: Σ bin·|X| at 2·pattern, Σ |X| at 2·pattern + 1.
-    const sums = new Float64Array(2 * count);
-    const usedTransfers = Array.from({ length: usedCount }, (_, u) => transfers[usedCoils[u] as number] as Float64Array);
-    const usedSpectra = Array.from({ length: usedCount }, (_, u) => windowed[usedCoils[u] as number] as Float64Array);
-    for (let start = 0; start < bandBins; start += chunk) {
-      const length = Math.min(chunk, bandBins - start);
-      chunkBase.fill(0, 0, length);
-      chunkBase.fill(0, chunk, chunk + length);
-      for (let u = 0; u < usedCount; u += 1) {
-        addCoilProducts(usedTransfers[u] as Float64Array, usedSpectra[u] as Float64Array, bandLocation.node, bandLocation.weight, start, length, chunk, chunkBase, chunkProducts, 2 * u * chunk);
-      }
-      const bin = firstBin + start;
-      for (let pattern = 0; pattern < count; pattern += 1) {
-        const from = flipStart[pattern] as number;
-        const flipCount = (flipStart[pattern + 1] as number) - from;
-        if (flipCount <= 2) {
-          const a = flipCount > 0 ? (flipOffsets[from] as number) : zeroRun;
-          const b = flipCount > 1 ? (flipOffsets[from + 1] as number) : zeroRun;
-          sumMagnitudesTwoFlips(chunkBase, chunkProducts, a, b, chunk, length, bin, sums, 2 * pattern);
-        } else {
-          // More than two (six coils and more): all but the last two first, in order, then the loop above.
-          subtractFlips(chunkBase, chunkProducts, flipOffsets.subarray(from, from + flipCount - 2), chunk, length, chunkFlipped);
-          const a = flipOffsets[from + flipCount - 2] as number;
-          const b = flipOffsets[from + flipCount - 1] as number;
-          sumMagnitudesTwoFlips(chunkFlipped, chunkProducts, a, b, chunk, length, bin, sums, 2 * pattern);
-        }
-      }
-    }
+    const sums = centroidPass(transfers, { usedCoils, usedCount, flipStart, flipOffsets: Int32Array.from(flips), count });
     return patterns.map((_, index) => {
       const magnitudeSum = sums[2 * index + 1] as number;
       return magnitudeSum > 0 ? ((sums[2 * index] as number) / magnitudeSum) * binHz : SILENCE_CENTROID_HZ;

@@ -66,9 +66,13 @@ export function instantiateArena<Exports>(bytes: Uint8Array<ArrayBuffer>): WasmA
   return { exports: new WebAssembly.Instance(module, {}).exports as WasmArena<Exports>['exports'], next: FIRST_FREE_BYTE };
 }
 
-/** `count` f64s (or i32s) of the arena's memory, grown if need be: the byte address. */
+/** Every array starts at a multiple of this many bytes, so a Float64Array can view any of them. */
+const ALIGNMENT_BYTES = F64_BYTES;
+
+/** `count` f64s (or i32s) of the arena's memory, grown if need be: the byte address (a multiple of 8). */
 export function allocate(arena: WasmArena<unknown>, count: number, bytesEach: number): number {
-  const at = arena.next;
+  const at = Math.ceil(arena.next / ALIGNMENT_BYTES) * ALIGNMENT_BYTES;
+  arena.next = at;
   arena.next += count * bytesEach;
   const shortBytes = arena.next - arena.exports.memory.buffer.byteLength;
   if (shortBytes > 0) arena.exports.memory.grow(Math.ceil(shortBytes / WASM_PAGE_BYTES));
