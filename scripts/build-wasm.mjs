@@ -1,5 +1,6 @@
 #!/usr/bin/env node
-// Compiles the WebAssembly kernels (wasm/*.ts, AssemblyScript) and writes
+// Compiles the WebAssembly kernels (wasm/*.ts, AssemblyScript; wasm/memory.ts holds the
+// helpers they import) and writes
 // each module's bytes, as a Uint8Array literal (nothing to decode), into a
 // TypeScript module beside the code that loads it (KERNELS: wasm/fft-kernels.ts → src/math/fft-kernels-wasm.ts,
 // wasm/shape-table.ts → src/analysis/shape-table-wasm.ts, wasm/centroid-pass.ts → src/analysis/centroid-pass-wasm.ts). The
@@ -8,7 +9,7 @@
 // the same options and fails if the committed bytes differ. Run it
 // (`npm run build:wasm`) after changing a file in wasm/.
 import asc from 'assemblyscript/asc';
-import { readFileSync, renameSync, writeFileSync } from 'node:fs';
+import { existsSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
@@ -30,11 +31,33 @@ export const KERNELS = Object.freeze([
   { source: join('wasm', 'centroid-pass.ts'), target: join('src', 'analysis', 'centroid-pass-wasm.ts'), constant: 'CENTROID_PASS_WASM' },
 ]);
 
-/** The WebAssembly bytes of one AssemblyScript source file. */
+/** The compiler's command-line arguments for KERNEL_COMPILE_OPTIONS. */
+function optionArguments(options) {
+  return Object.entries(options).flatMap(([name, value]) => (value === true ? [`--${name}`] : [`--${name}`, String(value)]));
+}
+
+/**
+ * The WebAssembly bytes of one AssemblyScript source file. The compiler reads
+ * the file and what it imports (wasm/memory.ts, the helpers every kernel
+ * shares) from the file's folder; only the file itself is an entry, so only
+ * its own functions are exported.
+ */
 export async function compileKernel(sourcePath) {
-  const name = basename(sourcePath);
-  const { binary, error, stderr } = await asc.compileString({ [name]: readFileSync(sourcePath, 'utf8') }, KERNEL_COMPILE_OPTIONS);
-  if (error || !binary) throw new Error(`build-wasm: ${sourcePath} did not compile: ${error?.message ?? ''}\n${stderr.toString()}`);
+  const folder = dirname(sourcePath);
+  const output = 'kernel.wasm';
+  let binary = null;
+  let log = '';
+  const stream = { write: (text) => ((log += String(text)), true), toString: () => log };
+  const { error } = await asc.main([basename(sourcePath), '--outFile', output, ...optionArguments(KERNEL_COMPILE_OPTIONS)], {
+    readFile: (file) => (existsSync(join(folder, file)) ? readFileSync(join(folder, file), 'utf8') : null),
+    writeFile: (file, contents) => {
+      if (file === output) binary = contents;
+    },
+    listFiles: () => [],
+    stdout: stream,
+    stderr: stream,
+  });
+  if (error || !binary) throw new Error(`build-wasm: ${sourcePath} did not compile: ${error?.message ?? ''}\n${log}`);
   return binary;
 }
 

@@ -25,17 +25,7 @@
  * `products`), `sums` 2·count f64.
  */
 
-@inline function at(base: usize, index: i32): f64 {
-  return load<f64>(base + ((<usize>index) << 3));
-}
-
-@inline function put(base: usize, index: i32, value: f64): void {
-  store<f64>(base + ((<usize>index) << 3), value);
-}
-
-@inline function whole(base: usize, index: i32): i32 {
-  return load<i32>(base + ((<usize>index) << 2));
-}
+import { at, put, whole } from './memory';
 
 /** One used coil's share of the chunk: 2·P_u into `products` from `offset` (real run, then imaginary run) and P_u added into B. */
 function addCoilProducts(transfer: usize, spectrum: usize, node: usize, weight: usize, start: i32, length: i32, chunk: i32, base: usize, products: usize, offset: i32): void {

@@ -17,17 +17,7 @@
  * `inverse` is 1 for fft.js's inverse transform (no division by the size).
  */
 
-@inline function at(base: usize, index: i32): f64 {
-  return load<f64>(base + ((<usize>index) << 3));
-}
-
-@inline function put(base: usize, index: i32, value: f64): void {
-  store<f64>(base + ((<usize>index) << 3), value);
-}
-
-@inline function offsetAt(bitrev: usize, index: i32): i32 {
-  return load<i32>(bitrev + ((<usize>index) << 2));
-}
+import { at, put, whole as offsetAt } from './memory';
 
 /** fft.js `_transform4`: complex data → out (out ≠ data). */
 export function transform4(out: usize, data: usize, table: usize, bitrev: usize, size: i32, width: i32, inverse: i32): void {

@@ -20,17 +20,7 @@
  * segmentCount i32, `weights` segmentCount·bandCount f64.
  */
 
-@inline function at(base: usize, index: i32): f64 {
-  return load<f64>(base + ((<usize>index) << 3));
-}
-
-@inline function put(base: usize, index: i32, value: f64): void {
-  store<f64>(base + ((<usize>index) << 3), value);
-}
-
-@inline function whole(base: usize, index: i32): i32 {
-  return load<i32>(base + ((<usize>index) << 2));
-}
+import { at, put, whole } from './memory';
 
 export function foldShapeTable(
   table: usize,
