@@ -7,9 +7,9 @@
  * the two number for number). The JavaScript runs where a host cannot
  * compile WebAssembly.
  *
- * Why: the pass is most of the audio figures' cost per wiring, and its
- * loops ran about twice as fast as WebAssembly, warm, and far faster in a
- * process's first classes, which V8 runs in its interpreter
+ * Why: the pass is most of the audio figures' cost per wiring. As
+ * WebAssembly its loops run about twice as fast, warm, and far faster in a
+ * process's first classes, which V8 runs in its interpreter as JavaScript
  * (DEVELOPERS.md, "Code the interpreter runs", has the figures).
  *
  * Each prepared pass has an instance and memory of its own

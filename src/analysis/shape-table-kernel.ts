@@ -7,9 +7,10 @@
  *
  * Why: the fold's first calls in a process ran in V8's interpreter until its
  * optimising compiler caught up, several calls in (its compile took 11–21 ms
- * on the 2-core machine): 19–80 ms over the 17 classes of a three-coil
- * guitar, where WebAssembly, compiled before its first call, takes 4–5 ms in
- * all (DEVELOPERS.md, "Code the interpreter runs").
+ * on the 2-core machine). The 17 classes of a cold three-coil `analyze`,
+ * timed inside the process: 19–80 ms as JavaScript (eight runs), 1.7–9.2 ms
+ * as WebAssembly, compiled before its first call (six runs; DEVELOPERS.md,
+ * "Code the interpreter runs").
  *
  * Each prepared fold has an instance of its own (src/math/wasm-arena.ts),
  * holding the guitar's segments, cross-spectra and excitation weights, copied
