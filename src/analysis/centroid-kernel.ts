@@ -93,7 +93,8 @@ export function prepareCentroidPass(band: CentroidBand, host: KernelHost = kerne
     };
   }
   const spectraAt = allocate(arena, 2 * bandBins * coilCount, F64_BYTES);
-  spectra.forEach((spectrum, coil) => memoryView(arena.exports.memory, spectraAt + 2 * bandBins * coil * F64_BYTES, 2 * bandBins)().set(spectrum.subarray(0, 2 * bandBins)));
+  const spectraInMemory = memoryView(arena.exports.memory, spectraAt, 2 * bandBins * coilCount)();
+  spectra.forEach((spectrum, coil) => spectraInMemory.set(spectrum.subarray(0, 2 * bandBins), 2 * bandBins * coil));
   const nodeAt = copyIn(arena, node.subarray(0, bandBins));
   const weightAt = copyIn(arena, weight.subarray(0, bandBins));
   const baseAt = allocate(arena, 2 * chunk, F64_BYTES);

@@ -26,7 +26,7 @@
  */
 import FFT from 'fft.js';
 import { FFT_KERNELS_WASM } from './fft-kernels-wasm.js';
-import { F64_BYTES, I32_BYTES, type KernelHost, type WasmArena, allocate, instantiateArena, memoryView } from './wasm-arena.js';
+import { F64_BYTES, I32_BYTES, type KernelHost, type WasmArena, allocate, copyIn, instantiateArena, memoryView } from './wasm-arena.js';
 
 /** Which code runs the kernels: WebAssembly when the host compiles it, otherwise JavaScript. */
 export type FftKernelHost = KernelHost;
@@ -215,8 +215,7 @@ export function createFftKernel(points: number, table: Float64Array, host: FftKe
   if (table.length !== 2 * points) throw new RangeError(`FFT kernel table must hold ${2 * points} numbers, got ${table.length}`);
   const wasm = wasmOrThrow(host);
   if (!wasm) return javascriptKernel(points, table, initialWidth(points), digitReversal(initialWidth(points)));
-  const tableAt = allocate(wasm, 2 * points, F64_BYTES);
-  memoryView(wasm.exports.memory, tableAt, 2 * points)().set(table);
+  const tableAt = copyIn(wasm, table);
   return wasmKernel(wasm, points, tableAt);
 }
 
