@@ -16,6 +16,8 @@ export { coilImpedanceAt, coilModelOf, coilSeriesImpedance, createCoilPhasors, e
 export type { PreparedCircuit } from './prepare-circuit.js';
 export { prepareCircuit, retuneCircuit } from './prepare-circuit.js';
 export { solveLoadGain, solveSourceFactors, solveTransfers } from './solve-transfers.js';
+export { JAVASCRIPT_PASSES, reduceSeriesParallel } from './solve-series-parallel.js';
+export type { SeriesParallelArrays, SolvePasses, SolveWorkspace } from './solve-series-parallel.js';
 export type { CoilDrive } from './coil-drive.js';
 export { coilDriveAt, drivePairIndex, drivenPowerAt, incoherentCoilDrive, sampleCoilDrive } from './coil-drive.js';
 export type { DrivenResponse, DrivenResponseInputs } from './driven-response.js';

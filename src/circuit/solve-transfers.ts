@@ -25,6 +25,7 @@ import { usesCoupledCoils } from './coil-coupling.js';
 import type { PreparedCircuit, Workspace } from './prepare-circuit.js';
 import { solveNodalSourceFactors, solveNodalTransfers } from './solve-nodal.js';
 import { multiplyComplexInPlace } from '../math/index.js';
+import { JAVASCRIPT_PASSES, type SeriesParallelArrays, reduceSeriesParallel } from './solve-series-parallel.js';
 
 /** Graphs of networks already laid out, so repeated solves (probes between grid points) reuse them. */
 const graphs = new WeakMap<Network, { readonly guitar: Guitar; readonly graph: CircuitGraph }>();
@@ -42,73 +43,6 @@ function acquire(workspace: Workspace, length: number): Float64Array {
   workspace.buffers[workspace.top] = buffer;
   workspace.top += 1;
   return buffer;
-}
-
-interface SolveState {
-  readonly prepared: PreparedCircuit;
-  readonly out: Float64Array[];
-  readonly length: number;
-  coilCount: number;
-  boundaryCount: number;
-}
-
-/** Writes the network's impedance into `impedance` and each of its coils' source factors into `out`. */
-function evaluate(state: SolveState, node: Network, impedance: Float64Array): void {
-  const { prepared, out, length } = state;
-  const workspace = prepared.workspace;
-  if (node.kind === 'element') {
-    const element = prepared.guitar.elements[node.element];
-    if (element === undefined) throw new RangeError(`solveTransfers: no element ${node.element} in this guitar`);
-    const sign = node.inverted ? -1 : 1;
-    impedance.fill(0);
-    // A two-lead pickup: its coils in series, string signals in phase; the element's phase applies to each.
-    for (const c of element.coilIndices) {
-      if (workspace.used[c] === 1) throw new RangeError(`solveTransfers: coil ${c} used twice`);
-      workspace.used[c] = 1;
-      workspace.coilStack[state.coilCount] = c;
-      state.coilCount += 1;
-      addCoil(prepared.coilSource[c] as Float64Array, prepared.coilImpedance[c] as Float64Array, sign, out[c] as Float64Array, impedance, length);
-    }
-    return;
-  }
-  const mark = workspace.top;
-  if (node.kind === 'series') {
-    const part = acquire(workspace, length);
-    impedance.fill(0);
-    for (const child of node.parts) {
-      evaluate(state, child, part);
-      addInto(impedance, part, length);
-    }
-    workspace.top = mark;
-    return;
-  }
-  // Parallel (Millman): keep each part's admittance until the sum is known.
-  const total = acquire(workspace, length);
-  total.fill(0);
-  const firstBoundary = state.boundaryCount;
-  // Part k's admittance lives in buffers[partBase + k]: each child releases what it acquires.
-  const partBase = workspace.top;
-  const partCount = node.parts.length;
-  for (let k = 0; k < partCount; k += 1) {
-    workspace.boundaryStack[state.boundaryCount] = state.coilCount;
-    state.boundaryCount += 1;
-    const y = acquire(workspace, length);
-    evaluate(state, node.parts[k] as Network, y);
-    invertAndAdd(y, total, length);
-  }
-  const end = state.coilCount;
-  for (let k = 0; k < partCount; k += 1) {
-    const y = workspace.buffers[partBase + k] as Float64Array;
-    const from = workspace.boundaryStack[firstBoundary + k] as number;
-    const to = k + 1 < partCount ? (workspace.boundaryStack[firstBoundary + k + 1] as number) : end;
-    // factor Y_k / ΣY, written over y
-    divideInPlace(y, total, length);
-    for (let s = from; s < to; s += 1) multiplyComplexInPlace(out[workspace.coilStack[s] as number] as Float64Array, y, length);
-  }
-  // Z = 1/ΣY
-  invertInto(total, impedance, length);
-  state.boundaryCount = firstBoundary;
-  workspace.top = mark;
 }
 
 /**
@@ -181,12 +115,25 @@ function solveSourceFactorsInto(prepared: PreparedCircuit, network: Network, out
   let fits = out.length === coils && impedance.length === length;
   for (let c = 0; fits && c < coils; c += 1) fits = (out[c] as Float64Array).length === length;
   if (!fits) throw new RangeError(`solveTransfers: out must hold ${coils} arrays of length ${length}`);
-  const workspace = prepared.workspace;
-  workspace.used.fill(0);
-  const state: SolveState = { prepared, out, length, coilCount: 0, boundaryCount: 0 };
-  evaluate(state, network, impedance);
-  for (let c = 0; c < coils; c += 1) if (workspace.used[c] === 0) (out[c] as Float64Array).fill(0);
-  return workspace.used;
+  return reduceSeriesParallel(prepared.guitar, network, seriesParallelArrays(prepared), out, impedance);
+}
+
+/** A prepared circuit's arrays for the reduction (solve-series-parallel.ts), made once per circuit. */
+const reductionArrays = new WeakMap<PreparedCircuit, SeriesParallelArrays<Float64Array>>();
+
+function seriesParallelArrays(prepared: PreparedCircuit): SeriesParallelArrays<Float64Array> {
+  let arrays = reductionArrays.get(prepared);
+  if (arrays === undefined) {
+    arrays = {
+      passes: JAVASCRIPT_PASSES,
+      workspace: prepared.workspace,
+      coilSource: prepared.coilSource,
+      coilImpedance: prepared.coilImpedance,
+      length: 2 * prepared.frequenciesHz.length,
+    };
+    reductionArrays.set(prepared, arrays);
+  }
+  return arrays;
 }
 
 /**
@@ -203,64 +150,11 @@ export function solveLoadGain(prepared: PreparedCircuit, impedance: Float64Array
 }
 
 /*
- * The solver's loops over frequencies, each a function of its own: V8 compiles
- * a long loop while it runs (on-stack replacement), and a loop inside a larger
+ * The load's loop over frequencies is a function of its own: V8 compiles a
+ * long loop while it runs (on-stack replacement), and a loop inside a larger
  * function left that compiled code bailing out on the code after it, call
- * after call (src/math/real-fft.ts). A function that is only its loop is
- * compiled once and stays compiled.
+ * after call (src/math/real-fft.ts).
  */
-
-/** A coil's terms: target = sign·source (its source factor with its phase), impedance += z. */
-function addCoil(source: Float64Array, z: Float64Array, sign: number, target: Float64Array, impedance: Float64Array, length: number): void {
-  for (let i = 0; i < length; i += 1) {
-    target[i] = sign * (source[i] as number);
-    impedance[i] = (impedance[i] as number) + (z[i] as number);
-  }
-}
-
-/** target += part (series impedances add). */
-function addInto(target: Float64Array, part: Float64Array, length: number): void {
-  for (let i = 0; i < length; i += 1) target[i] = (target[i] as number) + (part[i] as number);
-}
-
-/** y ← 1/y (a part's impedance to its admittance), complex, and total += the admittance. */
-function invertAndAdd(y: Float64Array, total: Float64Array, length: number): void {
-  for (let i = 0; i < length; i += 2) {
-    const zr = y[i] as number;
-    const zi = y[i + 1] as number;
-    const norm = zr * zr + zi * zi;
-    const yr = zr / norm;
-    const yi = -zi / norm;
-    y[i] = yr;
-    y[i + 1] = yi;
-    total[i] = (total[i] as number) + yr;
-    total[i + 1] = (total[i + 1] as number) + yi;
-  }
-}
-
-/** y ← y/total, complex: (a + jb)/(c + jd) = ((ac + bd) + j(bc − ad))/(c² + d²). */
-function divideInPlace(y: Float64Array, total: Float64Array, length: number): void {
-  for (let i = 0; i < length; i += 2) {
-    const ar = y[i] as number;
-    const ai = y[i + 1] as number;
-    const br = total[i] as number;
-    const bi = total[i + 1] as number;
-    const norm = br * br + bi * bi;
-    y[i] = (ar * br + ai * bi) / norm;
-    y[i + 1] = (ai * br - ar * bi) / norm;
-  }
-}
-
-/** out = 1/total, complex. */
-function invertInto(total: Float64Array, out: Float64Array, length: number): void {
-  for (let i = 0; i < length; i += 2) {
-    const br = total[i] as number;
-    const bi = total[i + 1] as number;
-    const norm = br * br + bi * bi;
-    out[i] = br / norm;
-    out[i + 1] = -bi / norm;
-  }
-}
 
 /** The load's gain per frequency (solveLoadGain's formula) from the wiring's impedance and the load's admittances. */
 function loadGainInto(impedance: Float64Array, hot: Float64Array, outY: Float64Array, bridge: Float64Array | null, gain: Float64Array, length: number): void {

@@ -16,16 +16,16 @@ import {
   phaseClassSigns,
   prepareCircuit,
   retuneCircuit,
-  solveLoadGain,
-  solveSourceFactors,
   solveTransfers,
 } from '../circuit/index.js';
 import { InputError } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
-import { type RealFft, anyNonZero, multiplyComplexInPlace, nextPowerOfTwo, realFft } from '../math/index.js';
+import { type KernelHost, type RealFft, kernelHost, nextPowerOfTwo, realFft } from '../math/index.js';
 import { computeCoilSpectra, pickupDelaySamples } from '../pickup/index.js';
 import { type Phrase, type StringOptions, renderPhrase } from '../string/index.js';
 import type { Network } from '../wiring/index.js';
+import { createSpectrumKernel } from './synthesis-kernel.js';
+import { type WiringSpectrum, javascriptSpectrum } from './wiring-spectrum.js';
 
 /**
  * EMF a coil of relative sensitivity 1 gives per m/s of string velocity
@@ -166,202 +166,63 @@ export interface CoilSpectra {
 /**
  * A synthesis from coil spectra already computed: the part the command line
  * and the listening page share (the page computes the spectra from the coil
- * signals it carries, `coilSpectraOfSignals`).
+ * signals it carries, `coilSpectraOfSignals`). `host` picks the form of the
+ * per-bin passes (wiring-spectrum.ts; tests): WebAssembly where the host
+ * compiles it, the same bits either way.
  */
-export function createWiringSynthesis(guitar: Guitar, coils: CoilSpectra, overrides: CircuitOverrides): WiringSynthesis {
+export function createWiringSynthesis(guitar: Guitar, coils: CoilSpectra, overrides: CircuitOverrides, host: KernelHost = kernelHost()): WiringSynthesis {
   const fft = realFft(coils.fftSize);
   const binsHz = new Float64Array(fft.bins);
   for (let k = 0; k < fft.bins; k += 1) binsHz[k] = (k * coils.sampleRateHz) / coils.fftSize;
-  const parts = createSharedParts(guitar, coils, fft);
+  const parts = createSharedParts(guitar, coils, fft, host);
   return synthesisOn(parts, guitar, prepareCircuit(guitar, binsHz, overrides), overrides);
 }
 
 /**
  * What every knob setting of one guitar's synthesis shares: the coil spectra,
- * the FFT and its buffers, and the open-circuit products of the last wiring
- * shape. A wiring's transfers are T_i = S_i·G (solve-transfers.ts): the
- * source factors S_i and the wiring's impedance depend on the coils alone,
- * the load's gain G on the knobs, cable and amplifier. So the products
- * P_i = S_i·E_i are kept across knob settings, and a knob move costs G (one
- * complex solve per frequency), Y = G·Σ p_i·P_i and one inverse FFT.
+ * the FFT and its buffers, and the wirings' output spectra with the
+ * open-circuit products of the last wiring shape (wiring-spectrum.ts), so a
+ * knob move costs the load's gain G, the signed sum and one inverse FFT.
  */
 interface SharedParts {
   readonly coils: CoilSpectra;
   readonly fft: RealFft;
-  readonly output: Float64Array;
   readonly time: Float64Array;
   readonly signs: Float64Array;
-  /**
-   * P_i = S_i·E_i of the shape `shape` (the source factors S_i are solved into these arrays and multiplied by E_i in
-   * place: one array per coil rather than two, a megabyte each at 2^17 points), its coils in use, and the wiring's
-   * impedance Z.
-   */
-  readonly products: Float64Array[];
-  readonly used: Uint8Array;
-  readonly impedance: Float64Array;
-  shape: string;
+  readonly spectrum: WiringSpectrum;
 }
 
-function createSharedParts(guitar: Guitar, coils: CoilSpectra, fft: RealFft): SharedParts {
-  const complexLength = 2 * fft.bins;
+function createSharedParts(guitar: Guitar, coils: CoilSpectra, fft: RealFft, host: KernelHost): SharedParts {
   return {
     coils,
     fft,
-    output: new Float64Array(complexLength),
     time: new Float64Array(coils.fftSize),
     signs: new Float64Array(guitar.coils.length),
-    products: guitar.coils.map(() => new Float64Array(complexLength)),
-    used: new Uint8Array(guitar.coils.length),
-    impedance: new Float64Array(complexLength),
-    shape: '',
+    spectrum: createWiringSpectrum(guitar, coils, fft.bins, host),
   };
 }
 
-/**
- * A_i(f) ← A_i(f)·E_i(f) in place, complex product per bin, for every coil whose A_i is not all zero; marks those
- * coils in `used`. A coil the wiring leaves out is not read from `spectra` at all (the page computes a coil's
- * spectrum on first need). Each bin's factor is read before its product is written (multiplyComplexInPlace), so the
- * numbers are those of a product into a separate array.
- */
-function multiplySpectra(factors: readonly Float64Array[], spectra: readonly Float64Array[], used: Uint8Array): void {
-  factors.forEach((factor, coil) => {
-    const any = anyNonZero(factor) ? 1 : 0;
-    used[coil] = any;
-    if (any === 1) multiplyComplexInPlace(factor, spectra[coil] as Float64Array);
-  });
-}
-
-/**
- * output = G·Σ_i p_i·P_i per bin, in one pass over the bins: the used coils'
- * products added in coil order from 0, then the complex product by G,
- * (a + jb)(c + jd) = (ac − bd) + j(ad + bc) — the same operations in the same
- * order as adding coil by coil over the whole spectrum and multiplying after
- * (math/multiply-complex.ts), so the same numbers, with one pass over memory
- * instead of one per coil and two more. Up to SUMMED_IN_ONE_LOOP sources go
- * to a loop that holds each as a variable of its own (sumFewSources).
- */
-function sumSources(parts: SharedParts, signs: Float64Array, gain: Float64Array, output: Float64Array, complexLength: number): void {
-  const sources: Float64Array[] = [];
-  const weights: number[] = [];
-  parts.products.forEach((product, coil) => {
-    if (!parts.used[coil]) return;
-    sources.push(product);
-    weights.push(signs[coil] as number);
-  });
-  const count = sources.length;
-  if (count <= SUMMED_IN_ONE_LOOP) {
-    sumFewSources(
-      count,
-      sources[0] ?? NO_SOURCE,
-      weights[0] ?? 0,
-      sources[1] ?? NO_SOURCE,
-      weights[1] ?? 0,
-      sources[2] ?? NO_SOURCE,
-      weights[2] ?? 0,
-      sources[3] ?? NO_SOURCE,
-      weights[3] ?? 0,
-      gain,
-      output,
-      complexLength,
-    );
-    return;
-  }
-  for (let k = 0; k < complexLength; k += 2) {
-    let re = 0;
-    let im = 0;
-    for (let u = 0; u < count; u += 1) {
-      const product = sources[u] as Float64Array;
-      const sign = weights[u] as number;
-      re += sign * (product[k] as number);
-      im += sign * (product[k + 1] as number);
-    }
-    const gr = gain[k] as number;
-    const gi = gain[k + 1] as number;
-    output[k] = re * gr - im * gi;
-    output[k + 1] = re * gi + im * gr;
-  }
-}
-
-/** Most sources sumFewSources takes: four, the coils of two humbuckers or of a humbucker and two single coils. */
-const SUMMED_IN_ONE_LOOP = 4;
-/** The array standing for a source sumFewSources does not read. */
-const NO_SOURCE = new Float64Array(0);
-
-/**
- * sumSources for `count` ≤ 4 sources p0 … p3 with weights w0 … w3 (the first
- * `count` are read): the same additions in the same order, with each source
- * a variable of the loop rather than an entry of an array of arrays, so the
- * compiled loop keeps their storage at hand (a third less time in one
- * process, counts 1–4 alike).
- */
-function sumFewSources(
-  count: number,
-  p0: Float64Array,
-  w0: number,
-  p1: Float64Array,
-  w1: number,
-  p2: Float64Array,
-  w2: number,
-  p3: Float64Array,
-  w3: number,
-  gain: Float64Array,
-  output: Float64Array,
-  complexLength: number,
-): void {
-  for (let k = 0; k < complexLength; k += 2) {
-    let re = 0;
-    let im = 0;
-    if (count > 0) {
-      re += w0 * (p0[k] as number);
-      im += w0 * (p0[k + 1] as number);
-    }
-    if (count > 1) {
-      re += w1 * (p1[k] as number);
-      im += w1 * (p1[k + 1] as number);
-    }
-    if (count > 2) {
-      re += w2 * (p2[k] as number);
-      im += w2 * (p2[k + 1] as number);
-    }
-    if (count > 3) {
-      re += w3 * (p3[k] as number);
-      im += w3 * (p3[k + 1] as number);
-    }
-    const gr = gain[k] as number;
-    const gi = gain[k + 1] as number;
-    output[k] = re * gr - im * gi;
-    output[k + 1] = re * gi + im * gr;
-  }
+/** The output spectra of `guitar`'s wirings, in the form `host` runs. */
+function createWiringSpectrum(guitar: Guitar, coils: CoilSpectra, bins: number, host: KernelHost): WiringSpectrum {
+  if (host === 'javascript') return javascriptSpectrum(guitar, coils.spectra, bins);
+  const kernel = createSpectrumKernel(guitar, coils.spectra, bins);
+  if (kernel === null) throw new Error('this host cannot compile WebAssembly');
+  return kernel;
 }
 
 /** The synthesis of `guitar` on `circuit` (prepared for `overrides`), sharing `parts` with the guitar's other knob settings. */
 function synthesisOn(parts: SharedParts, guitar: Guitar, circuit: PreparedCircuit, overrides: CircuitOverrides): WiringSynthesis {
-  const { coils, fft, output, time, signs } = parts;
-  const { spectra, length, fftSize, sampleRateHz } = coils;
-  const complexLength = 2 * fft.bins;
+  const { coils, fft, time, signs, spectrum } = parts;
+  const { length, fftSize, sampleRateHz } = coils;
 
-  // The load's gain G for the shape whose impedance was last solved (this knob setting's own).
-  const gain = new Float64Array(complexLength);
-  let gainShape = '';
   const synthesize = (network: Network, out = new Float32Array(length)): Float32Array => {
     // A wiring's phases only flip the signs of its coils' transfers (T_i carries p_i; coupled coils keep their
     // relative phase, circuit/phase-class.ts): each phase pattern of a class costs a signed sum and one inverse FFT.
     const shape = phaseClassKey(guitar, network);
     phaseClassSigns(guitar, network, signs);
-    if (parts.shape !== shape) {
-      parts.shape = '';
-      // Wirings holding both coils of a coupled pair get their S_i and Z by nodal analysis (solveSourceFactors).
-      solveSourceFactors(circuit, phaseClassNetwork(guitar, network), parts.products, parts.impedance);
-      multiplySpectra(parts.products, spectra, parts.used);
-      parts.shape = shape;
-    }
-    if (gainShape !== shape) {
-      solveLoadGain(circuit, parts.impedance, gain);
-      gainShape = shape;
-    }
+    spectrum.prepare(circuit, phaseClassNetwork(guitar, network), shape);
     // Y(f) = G(f)·Σ_i p_i·S_i(f)·E_i(f): the sources summed, then the load (T_i = S_i·G).
-    sumSources(parts, signs, gain, output, complexLength);
-    fft.inverse(output, time);
+    fft.inverse(spectrum.sum(signs), time);
     // The pickup spectra are delayed by `delay` samples so that every coil stays causal; sample n is time (n − delay)/fs of the phrase.
     // Rounded to float32 by the copy (TypedArray set converts each element as an assignment would).
     out.set(time.subarray(0, length));
