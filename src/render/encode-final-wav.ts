@@ -6,6 +6,7 @@
  * depend on which thread made them.
  */
 import { type FileRecord, recordOf } from './file-record.js';
+import { samplePasses } from './sample-passes.js';
 import { type WavOptions, encodeWav } from './wav-file.js';
 
 export interface EncodedWav {
@@ -14,12 +15,8 @@ export interface EncodedWav {
 }
 
 export function encodeFinalWav(audio: Float32Array, gain: number, options: Partial<WavOptions>): EncodedWav {
-  scaleInPlace(audio, gain);
+  samplePasses().scale(audio, gain);
   const bytes = encodeWav(audio, options);
   return { bytes, record: recordOf(bytes) };
 }
 
-/** audio[n] ← audio[n]·gain: a function of its own, so V8's compiled code for the running loop has nothing after it to bail out on (src/math/real-fft.ts). */
-function scaleInPlace(audio: Float32Array, gain: number): void {
-  for (let n = 0; n < audio.length; n += 1) audio[n] = (audio[n] as number) * gain;
-}

@@ -27,6 +27,7 @@ import {
   renderReferenceCoils,
 } from './measure-wiring-audio.js';
 import { PEAK_CEILING_DB } from './plan-gains.js';
+import { samplePasses } from './sample-passes.js';
 import { type CoilSignals, type WiringSynthesis, assertAudible, prepareWiringSynthesis } from './synthesize-wirings.js';
 
 export interface HumMix {
@@ -189,14 +190,9 @@ async function renderChainRetried(audio: Float32Array, sampleRateHz: number, cha
   throw new WorkError(`${name}: the ${chain} chain failed ${CHAIN_RENDER_TRIES} times (${reason})`, { cause: last });
 }
 
-/** Largest sample magnitude. */
+/** Largest sample magnitude (sample-passes.ts). */
 export function peakOf(samples: Float32Array): number {
-  let peak = 0;
-  for (let n = 0; n < samples.length; n += 1) {
-    const magnitude = Math.abs(samples[n] as number);
-    if (magnitude > peak) peak = magnitude;
-  }
-  return peak;
+  return samplePasses().peak(samples);
 }
 
 /**

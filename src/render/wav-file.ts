@@ -28,6 +28,8 @@
  * options always give the same bytes (no dates or random fields).
  */
 import { InputError } from '../errors/index.js';
+import { pcmValue } from './pcm-value.js';
+import { JAVASCRIPT_SAMPLE_PASSES, samplePasses } from './sample-passes.js';
 
 export type WavFormat = 'pcm16' | 'pcm24' | 'f32';
 
@@ -80,10 +82,6 @@ interface SampleCoding {
 
 /** Bytes per sample of 24-bit PCM. */
 const PCM24_BYTES = 3;
-/** Half a quantisation step, for rounding half away from zero. */
-const HALF = 0.5;
-/** Shift that spreads a 32-bit integer's sign bit over the word (−1 or 0). */
-const SIGN_SHIFT = 31;
 const CODINGS: Readonly<Record<WavFormat, SampleCoding>> = Object.freeze({
   pcm16: { tag: WAVE_FORMAT_PCM, bytesPerSample: 2, fmtBytes: PCM_FMT_BYTES, hasFact: false },
   pcm24: { tag: WAVE_FORMAT_PCM, bytesPerSample: PCM24_BYTES, fmtBytes: PCM_FMT_BYTES, hasFact: false },
@@ -252,30 +250,13 @@ function writeSamples(
         : format === 'pcm16'
           ? writePcm16(channel, view, first, stride, fullScale)
           : stride === PCM24_BYTES
-            ? writeMonoPcm24(channel, bytes, view, first, fullScale)
+            ? writeMonoPcm24(channel, bytes, first, fullScale)
             : writePcm24(channel, bytes, first, stride, fullScale);
     if (unfinite !== 0) {
       const n = channel.findIndex((sample) => !Number.isFinite(sample));
       throw InputError.at(`channels[${channelIndex}][${n}]`, 'a finite sample', channel[n]);
     }
   });
-}
-
-/**
- * The arithmetic of quantizeSample, written for the sample loops: clip, scale,
- * round half away from zero. The magnitude is |x| + 0.5 truncated by `| 0`
- * (|x| < 2^31), and the sign is put back without a branch, since audio's sign
- * is the least predictable of branches: s = ((x − 1) | 0) >> 31 is −1 for
- * x < 0 (−0 included) and 0 otherwise, and (m ^ s) − s is m or −m. The same
- * integers as (x < 0 ? x − 0.5 : x + 0.5) | 0, since x − 0.5 = −(|x| + 0.5)
- * exactly for x < 0 (rounding to nearest is symmetric); twice as fast on
- * noise. A NaN sample gives 0 (and is reported by the caller).
- */
-function pcmValue(sample: number, fullScale: number): number {
-  const scaled = (sample > 1 ? 1 : sample < -1 ? -1 : sample) * fullScale;
-  const magnitude = (Math.abs(scaled) + HALF) | 0;
-  const negative = ((scaled - 1) | 0) >> SIGN_SHIFT;
-  return (magnitude ^ negative) - negative;
 }
 
 /** IEEE float samples, clipped to ±1, at `first`, `first + stride` …; returns Σ (x − x). */
@@ -314,29 +295,7 @@ function writePcm24(channel: Float32Array | Float64Array, bytes: Uint8Array, fir
   return unfinite;
 }
 
-/**
- * Mono 24-bit PCM from `first`: each sample but the last as one little-endian
- * 32-bit store, whose top byte the next sample's store then overwrites
- * (samples are stored in address order), the last byte by byte so nothing is
- * written past the data. The same bytes as writePcm24, in one store a sample
- * instead of three (half the time of a render's file). Returns Σ (x − x).
- */
-function writeMonoPcm24(channel: Float32Array | Float64Array, bytes: Uint8Array, view: DataView, first: number, fullScale: number): number {
-  const last = channel.length - 1;
-  if (last < 0) return 0;
-  const unfinite = writePcm24Words(channel, view, first, last, fullScale);
-  return unfinite + writePcm24(channel.subarray(last), bytes, first + last * PCM24_BYTES, PCM24_BYTES, fullScale);
-}
-
-/** The first `count` samples of mono 24-bit PCM as 32-bit stores (writeMonoPcm24); a function of its own, so V8's compiled code for the running loop has nothing after it to bail out on (DEVELOPERS.md, "Code the compiler keeps compiled"). */
-function writePcm24Words(channel: Float32Array | Float64Array, view: DataView, first: number, count: number, fullScale: number): number {
-  let unfinite = 0;
-  let offset = first;
-  for (let n = 0; n < count; n += 1) {
-    const sample = channel[n] as number;
-    unfinite += sample - sample;
-    view.setInt32(offset, pcmValue(sample, fullScale), true);
-    offset += PCM24_BYTES;
-  }
-  return unfinite;
+/** Mono 24-bit PCM from `first` (sample-passes.ts: as WebAssembly for float32 samples where the host runs it). Returns Σ (x − x). */
+function writeMonoPcm24(channel: Float32Array | Float64Array, bytes: Uint8Array, first: number, fullScale: number): number {
+  return (channel instanceof Float32Array ? samplePasses() : JAVASCRIPT_SAMPLE_PASSES).writeMonoPcm24(channel, bytes, first, fullScale);
 }
