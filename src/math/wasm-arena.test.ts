@@ -6,12 +6,17 @@ import { FFT_KERNELS_WASM } from './fft-kernels-wasm.js';
 import { F64_BYTES, I32_BYTES, allocate, copyIn, instantiateArena, memoryView } from './wasm-arena.js';
 
 const ROOT = join(import.meta.dirname, '..', '..');
+/** Largest module a page's main thread may compile synchronously in Chromium (fft-kernels.test.ts names the sources). */
+const SYNCHRONOUS_COMPILE_LIMIT_BYTES = 4096;
 
 describe('the WebAssembly kernel modules', () => {
   it.each(KERNELS.map((kernel) => [kernel.source, kernel] as const))('%s: the committed bytes are what the source compiles to now', async (_, kernel) => {
     const bytes = await compileKernel(join(ROOT, kernel.source));
     // The committed module is what `npm run build:wasm` writes from the source now: edit wasm/, then run it.
     expect(readFileSync(join(ROOT, kernel.target), 'utf8')).toBe(kernelModuleText(kernel, bytes));
+    // Small enough for a page to compile on its main thread (the FFT's, the synthesis's and the sample passes run
+    // there): Chromium refuses a synchronous compile over 4 KB on that thread (fft-kernels.test.ts has the sources).
+    expect(bytes.length).toBeLessThanOrEqual(SYNCHRONOUS_COMPILE_LIMIT_BYTES);
   }, 30_000);
 });
 
