@@ -5,7 +5,7 @@
 // TypeScript module beside the code that loads it (KERNELS: wasm/fft-kernels.ts → src/math/fft-kernels-wasm.ts,
 // wasm/shape-table.ts → src/analysis/shape-table-wasm.ts, wasm/centroid-pass.ts → src/analysis/centroid-pass-wasm.ts,
 // wasm/synthesis-passes.ts → src/render/synthesis-passes-wasm.ts, wasm/sample-passes.ts →
-// src/render/sample-passes-wasm.ts). The
+// src/render/sample-passes-wasm.ts, wasm/linear-stages.ts → src/render/linear-stages-wasm.ts). The
 // generated file is committed, so neither the tests nor `npm run build` need
 // the compiler; src/math/wasm-arena.test.ts compiles every source again with
 // the same options and fails if the committed bytes differ. Run it
@@ -33,6 +33,7 @@ export const KERNELS = Object.freeze([
   { source: join('wasm', 'centroid-pass.ts'), target: join('src', 'analysis', 'centroid-pass-wasm.ts'), constant: 'CENTROID_PASS_WASM' },
   { source: join('wasm', 'synthesis-passes.ts'), target: join('src', 'render', 'synthesis-passes-wasm.ts'), constant: 'SYNTHESIS_PASSES_WASM' },
   { source: join('wasm', 'sample-passes.ts'), target: join('src', 'render', 'sample-passes-wasm.ts'), constant: 'SAMPLE_PASSES_WASM' },
+  { source: join('wasm', 'linear-stages.ts'), target: join('src', 'render', 'linear-stages-wasm.ts'), constant: 'LINEAR_STAGES_WASM' },
 ]);
 
 /** The compiler's command-line arguments for KERNEL_COMPILE_OPTIONS. */

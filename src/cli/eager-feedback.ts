@@ -20,6 +20,11 @@
  * `analyze` 1.83 → 1.42 s (five); the drive chain and peak memory moved
  * within the noise (DEVELOPERS.md, bench section).
  *
+ * The biquads now run as WebAssembly where the host compiles it
+ * (src/render/linear-stages.ts); the flag still serves every JavaScript loop,
+ * and the biquads of a host without WebAssembly (the test beside this file
+ * renders so).
+ *
  * The flag is V8's own, set before any work starts, and holds for every
  * thread the process starts later (V8's flags are per process). It changes
  * when V8 keeps its notes on the code, never what the code computes: the

@@ -1,7 +1,9 @@
 /**
  * Our biquads and gains against node-web-audio-api 1.0.9's BiquadFilterNode
  * and GainNode (the library the command line rendered them with before),
- * bit for bit, and our coefficients against the cookbook's.
+ * bit for bit, in both forms (linear-stages.ts: the JavaScript here and in
+ * float32-audio.ts, and WebAssembly), and our coefficients against the
+ * cookbook's.
  */
 import { describe, expect, it } from 'vitest';
 import { createRandom } from '../math/index.js';
@@ -11,6 +13,7 @@ import { designNodeBiquad, renderBiquad } from './biquad-filter.js';
 import { type ChainDesign, type ChainStage, designEffectsChain } from './chain-design.js';
 import { resolveChainOptions } from './chain-options.js';
 import { FLOAT32_MIN_NORMAL, renderGain } from './float32-audio.js';
+import { linearStages } from './linear-stages.js';
 import { renderGraphDesign } from './render-chain-design.js';
 
 /** The rates the command line offers (src/cli/commands/render.ts). */
@@ -34,6 +37,24 @@ function differences(a: Float32Array, b: Float32Array): number[] {
   return found;
 }
 
+/** Our biquad's samples (the JavaScript's), after checking that the WebAssembly form gives the same bits. */
+function ourBiquad(samples: Float32Array, stage: Extract<ChainStage, { kind: 'biquad' }>, sampleRateHz: number): Float32Array {
+  const javascript = renderBiquad(samples, designNodeBiquad(stage.filter, sampleRateHz));
+  const webassembly = Float32Array.from(samples);
+  linearStages('webassembly')(webassembly, [stage], sampleRateHz);
+  expect(differences(javascript, webassembly), `${stage.purpose}: WebAssembly against JavaScript`).toEqual([]);
+  return javascript;
+}
+
+/** Our gain's samples (the JavaScript's), after checking that the WebAssembly form gives the same bits. */
+function ourGain(samples: Float32Array, gain: number): Float32Array {
+  const javascript = renderGain(samples, gain);
+  const webassembly = Float32Array.from(samples);
+  linearStages('webassembly')(webassembly, [{ kind: 'gain', gain }], 48_000);
+  expect(differences(javascript, webassembly), 'gain: WebAssembly against JavaScript').toEqual([]);
+  return javascript;
+}
+
 const takes = new Map<number, Float32Array>();
 /** A pluck with seeded noise: broadband, with samples near every rounding boundary (made once per rate). */
 function makeTake(sampleRateHz: number): Float32Array {
@@ -49,7 +70,7 @@ function makeTake(sampleRateHz: number): Float32Array {
 describe.each(RATES)('at %s Hz, the same float32 samples as node-web-audio-api 1.0.9', (sampleRateHz) => {
   it.each(chainSections(sampleRateHz).map((stage) => [stage.purpose, stage] as const))('%s', async (_, stage) => {
     const take = makeTake(sampleRateHz);
-    const ours = renderBiquad(take, designNodeBiquad(stage.filter, sampleRateHz));
+    const ours = ourBiquad(take, stage, sampleRateHz);
     expect(differences(await renderInNode(take, stage, sampleRateHz), ours)).toEqual([]);
   });
 });
@@ -63,7 +84,7 @@ describe('subnormals, flushed as the library flushes them', () => {
     click[11] = -0.2;
     let negativeZeros = 0;
     for (const stage of chainSections(sampleRateHz)) {
-      const ours = renderBiquad(click, designNodeBiquad(stage.filter, sampleRateHz));
+      const ours = ourBiquad(click, stage, sampleRateHz);
       expect(differences(await renderInNode(click, stage, sampleRateHz), ours), stage.purpose).toEqual([]);
       negativeZeros += ours.filter((value) => Object.is(value, -0)).length;
     }
@@ -80,7 +101,7 @@ describe('subnormals, flushed as the library flushes them', () => {
     signal.set(pluck, 100 + pluck.length + sampleRateHz);
     for (const at of [150, 151, 4_000, 9_001]) signal[at] = at % 2 === 0 ? 3e-39 : -FLOAT32_MIN_NORMAL;
     for (const stage of chainSections(sampleRateHz)) {
-      const ours = renderBiquad(signal, designNodeBiquad(stage.filter, sampleRateHz));
+      const ours = ourBiquad(signal, stage, sampleRateHz);
       expect(differences(await renderInNode(signal, stage, sampleRateHz), ours), stage.purpose).toEqual([]);
       // The second pluck is sound again, not zeros (the state came back from flushing).
       expect(Math.abs(ours[signal.length - pluck.length + 1_000] ?? 0)).toBeGreaterThan(FLOAT32_MIN_NORMAL);
@@ -95,7 +116,7 @@ describe('subnormals, flushed as the library flushes them', () => {
     input[20] = 1e-37;
     input[21] = 0.25;
     const gain = 3.3; // 3.3·10⁻³⁸ would be a normal float32
-    const ours = renderGain(input, gain);
+    const ours = ourGain(input, gain);
     expect(differences(await renderInNode(input, { kind: 'gain', gain, purpose: 'test' }, sampleRateHz), ours)).toEqual([]);
     expect(Object.is(ours[10], 0)).toBe(true);
     expect(Object.is(ours[11], -0)).toBe(true);
@@ -103,7 +124,7 @@ describe('subnormals, flushed as the library flushes them', () => {
     // A normal input times a small gain made subnormal: written as a zero of its sign, as the library does.
     const small = 1e-9;
     const underflowing = Float32Array.from([0, 2e-30, -3e-31, 0.5, 1e-29, -0, 1.5e-29]);
-    const quiet = renderGain(underflowing, small);
+    const quiet = ourGain(underflowing, small);
     expect(differences(await renderInNode(underflowing, { kind: 'gain', gain: small, purpose: 'test' }, sampleRateHz), quiet)).toEqual([]);
     expect(Object.is(quiet[1], 0) && Object.is(quiet[2], -0)).toBe(true);
   });

@@ -26,8 +26,7 @@
  * (src/page/wiring-engine.ts).
  */
 import { type ChainDesign, type ChainStage, RENDER_QUANTUM_FRAMES, measureDesignLatencyFrames } from './chain-design.js';
-import { designNodeBiquad, renderBiquad } from './biquad-filter.js';
-import { renderGain } from './float32-audio.js';
+import { type LinearStage, linearStages } from './linear-stages.js';
 import { designCompressor, renderCompressor } from './render-compressor.js';
 
 /**
@@ -47,21 +46,11 @@ export function isGraphStage(stage: ChainStage): boolean {
   return stage.kind === 'shaper';
 }
 
-/** Run one stage our code computes over `signal`, in place. */
-function applyStage(signal: Float32Array, stage: ChainStage, sampleRateHz: number): void {
-  switch (stage.kind) {
-    case 'gain':
-      renderGain(signal, stage.gain, signal);
-      return;
-    case 'biquad':
-      renderBiquad(signal, designNodeBiquad(stage.filter, sampleRateHz), signal);
-      return;
-    case 'compressor':
-      renderCompressor(signal, designCompressor(stage.settings, sampleRateHz), signal);
-      return;
-    case 'shaper':
-      throw new Error('runChainDesign: a shaper stage runs in the audio graph');
-  }
+/** A stage our code computes as a linear stage (linear-stages.ts): a gain or a biquad. */
+function linearStageOf(stage: ChainStage): LinearStage | null {
+  if (stage.kind === 'gain') return stage;
+  if (stage.kind === 'biquad') return stage;
+  return null;
 }
 
 /** Render mono `samples` through `design`; a new array of the same length (the input is not modified). */
@@ -73,18 +62,30 @@ export async function runChainDesign(samples: Float32Array, design: ChainDesign,
   let signal: Float32Array = new Float32Array(frames); // the input, then zeros (see above)
   signal.set(samples);
   let pending: ChainStage[] = [];
+  let linear: LinearStage[] = [];
   const flush = async (): Promise<void> => {
+    // Each run of gains and biquads in one pass of linear-stages.ts; the graph's stages in one render of the host.
+    if (linear.length > 0) linearStages()(signal, linear, design.sampleRateHz);
+    linear = [];
     if (pending.length === 0) return;
     signal = await renderGraph(signal, { ...design, stages: pending, latencyFrames: measureDesignLatencyFrames(pending) });
     pending = [];
   };
   for (const stage of design.stages) {
     if (isGraphStage(stage)) {
+      if (linear.length > 0) await flush();
       pending.push(stage);
       continue;
     }
+    const asLinear = linearStageOf(stage);
+    if (asLinear !== null) {
+      if (pending.length > 0) await flush();
+      linear.push(asLinear);
+      continue;
+    }
     await flush();
-    applyStage(signal, stage, design.sampleRateHz);
+    if (stage.kind !== 'compressor') throw new Error(`runChainDesign: no renderer for a ${stage.kind} stage`);
+    renderCompressor(signal, designCompressor(stage.settings, design.sampleRateHz), signal);
   }
   await flush();
   return signal.length === samples.length ? signal : signal.slice(latency, latency + samples.length);
