@@ -1,17 +1,28 @@
 /**
  * The passes over a render's float32 samples that every wiring's file takes
- * (src/render/sample-kernel.ts): the peak, the file's gain and the mono 24-bit
- * PCM of a WAV file. Written in AssemblyScript and compiled to WebAssembly
+ * (src/render/sample-passes.ts): the check that every sample is finite, the
+ * peak, the file's gain and the mono 24-bit PCM of a WAV file. Written in AssemblyScript and compiled to WebAssembly
  * (scripts/build-wasm.mjs): each does the operations of its JavaScript
- * namesake (src/render/render-pass.ts `peakOf`, src/render/encode-final-wav.ts
- * `scaleInPlace`, src/render/wav-file.ts `writePcm24Words` and `pcmValue`) in
- * the same order, so the same numbers and bytes: a float32 sample is read as
+ * namesake in src/render/sample-passes.ts in the same order, so the same numbers and bytes: a float32 sample is read as
  * the binary64 number it is, and a product stored into a float32 array is
  * rounded to nearest as JavaScript's store rounds it.
  *
  * Every array is a byte address in this module's memory, laid out by
- * src/render/sample-kernel.ts: `samples` count f32, `bytes` 3·count + 1 bytes.
+ * src/render/sample-passes.ts: `samples` count f32, `bytes` 3·count + 1 bytes.
  */
+
+/** Σ x·0 in two running sums (even and odd samples), added: a zero when every sample is finite, NaN otherwise. */
+export function finiteSum(samples: usize, count: i32): f64 {
+  let even: f64 = 0;
+  let odd: f64 = 0;
+  const pairs = count - (count % 2);
+  for (let n = 0; n < pairs; n += 2) {
+    even += <f64>load<f32>(samples + ((<usize>n) << 2)) * 0;
+    odd += <f64>load<f32>(samples + ((<usize>(n + 1)) << 2)) * 0;
+  }
+  if (pairs < count) even += <f64>load<f32>(samples + ((<usize>pairs) << 2)) * 0;
+  return even + odd;
+}
 
 /** Largest |x| over the samples (a NaN sample is passed over, as `>` is false for it). */
 export function peak(samples: usize, count: i32): f64 {

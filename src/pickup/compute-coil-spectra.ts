@@ -95,14 +95,12 @@ export function computeCoilSpectra(guitar: Pick<Guitar, 'coils'>, strings: Strin
   });
 }
 
-/** shifted[(n + delay) mod N] = wave[n], zeros elsewhere (N = shifted.length; a function of its own, so V8's compiled code for the running loop has nothing after it to bail out on, src/math/real-fft.ts). */
+/** shifted[(n + delay) mod N] = wave[n], zeros elsewhere (N = shifted.length ≥ wave.length): two copies, the part that wraps to the start second. */
 function shiftCircular(wave: Float64Array, delay: number, shifted: Float64Array): void {
-  const size = shifted.length;
+  const head = Math.min(wave.length, shifted.length - delay);
   shifted.fill(0);
-  for (let n = 0; n < wave.length; n += 1) {
-    const at = n + delay;
-    shifted[at < size ? at : at - size] = wave[n] as number;
-  }
+  shifted.set(wave.subarray(0, head), delay);
+  shifted.set(wave.subarray(head), 0);
 }
 
 /** Steps between exact resets of the rotating phasors (their rounding error grows about linearly with the run). */

@@ -1,5 +1,6 @@
 /**
- * The passes over a render's samples that every wiring's file takes: its peak
+ * The passes over a render's samples that every wiring's file takes: the
+ * check that every sample is finite (effects-chain.ts), its peak
  * (render-pass.ts), its file's gain (encode-final-wav.ts) and its mono 24-bit
  * PCM (wav-file.ts). Two forms give the same numbers and bytes: the
  * JavaScript here, and WebAssembly compiled from wasm/sample-passes.ts, which
@@ -23,6 +24,8 @@ import { SAMPLE_PASSES_WASM } from './sample-passes-wasm.js';
 
 /** The passes over one channel of samples. */
 export interface SamplePasses<Samples extends Float32Array | Float64Array = Float32Array> {
+  /** Σ x·0 over the samples: a zero exactly when every sample is finite (x·0 is NaN for an infinity or NaN). */
+  finiteSum(samples: Samples): number;
   /** Largest |x| of the samples (a NaN sample is passed over). */
   peak(samples: Samples): number;
   /** samples[n] ← samples[n]·gain, in place. */
@@ -44,6 +47,19 @@ const BITS_PER_BYTE = 8;
  * the running loop has nothing after it to bail out on (DEVELOPERS.md, "Code
  * the compiler keeps compiled").
  */
+
+/** Two running sums, so the additions overlap: 0.5 → 0.25 ms for 124,800 samples on the 2-core machine. */
+function finiteSum(samples: Float32Array | Float64Array): number {
+  let even = 0;
+  let odd = 0;
+  const pairs = samples.length - (samples.length % 2);
+  for (let i = 0; i < pairs; i += 2) {
+    even += (samples[i] as number) * 0;
+    odd += (samples[i + 1] as number) * 0;
+  }
+  if (pairs < samples.length) even += (samples[pairs] as number) * 0;
+  return even + odd;
+}
 
 function peakOf(samples: Float32Array | Float64Array): number {
   let peak = 0;
@@ -89,9 +105,10 @@ function writeMonoPcm24(samples: Float32Array | Float64Array, bytes: Uint8Array,
 }
 
 /** The passes in JavaScript, for float32 or float64 samples. */
-export const JAVASCRIPT_SAMPLE_PASSES: SamplePasses<Float32Array | Float64Array> = Object.freeze({ peak: peakOf, scale: scaleInPlace, writeMonoPcm24 });
+export const JAVASCRIPT_SAMPLE_PASSES: SamplePasses<Float32Array | Float64Array> = Object.freeze({ finiteSum, peak: peakOf, scale: scaleInPlace, writeMonoPcm24 });
 
 interface SampleExports {
+  finiteSum(samples: number, count: number): number;
   peak(samples: number, count: number): number;
   scale(samples: number, count: number, gain: number): void;
   writeMonoPcm24(samples: number, count: number, bytes: number, fullScale: number): number;
@@ -112,7 +129,7 @@ export function samplePasses(host: KernelHost = kernelHost()): SamplePasses {
 }
 
 function webassemblyPasses(arena: WasmArena<SampleExports>): SamplePasses {
-  const { memory, peak, scale, writeMonoPcm24: writeWords } = arena.exports;
+  const { memory, finiteSum: sumFinite, peak, scale, writeMonoPcm24: writeWords } = arena.exports;
   // Room for `capacity` samples and their PCM bytes, grown when a longer render comes (memory is never given back).
   let capacity = 0;
   let samplesAt = 0;
@@ -128,6 +145,7 @@ function webassemblyPasses(arena: WasmArena<SampleExports>): SamplePasses {
     return samplesAt;
   };
   return {
+    finiteSum: (samples) => sumFinite(copyIn(samples), samples.length),
     peak: (samples) => peak(copyIn(samples), samples.length),
     scale(samples, gain) {
       scale(copyIn(samples), samples.length, gain);

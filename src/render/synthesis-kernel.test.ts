@@ -11,6 +11,7 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { firstBitDifference } from '../../test/support/bit-difference.js';
 import { phaseClassKey, phaseClassNetwork, phaseClassSigns, prepareCircuit, retuneCircuit, usesCoupledCoils } from '../circuit/index.js';
 import { type Guitar, parseGuitarText } from '../guitar/index.js';
 import type { Phrase } from '../string/index.js';
@@ -45,24 +46,6 @@ function bothForms(guitar: Guitar): { javascript: WiringSynthesis; webassembly: 
   return { javascript: createWiringSynthesis(guitar, coils, {}, 'javascript'), webassembly: createWiringSynthesis(guitar, coils, {}, 'webassembly') };
 }
 
-/** Index of the first number where two spectra differ in any bit, or −1. */
-function firstSpectrumDifference(expected: Float64Array, got: Float64Array): number {
-  if (expected.length !== got.length) return 0;
-  const a = new BigUint64Array(expected.buffer, expected.byteOffset, expected.length);
-  const b = new BigUint64Array(got.buffer, got.byteOffset, got.length);
-  for (let n = 0; n < a.length; n += 1) if (a[n] !== b[n]) return n;
-  return -1;
-}
-
-/** Index of the first sample where the two renders differ in any bit (NaN never equals itself), or −1. */
-function firstDifference(expected: Float32Array, got: Float32Array): number {
-  if (expected.length !== got.length) return 0;
-  const a = new Uint32Array(expected.buffer, expected.byteOffset, expected.length);
-  const b = new Uint32Array(got.buffer, got.byteOffset, got.length);
-  for (let n = 0; n < a.length; n += 1) if (a[n] !== b[n]) return n;
-  return -1;
-}
-
 describe('the output spectra as WebAssembly are the JavaScript form’s to the last bit (binary64, before any rounding to float32)', () => {
   it.each([
     ['three-single-coil.json', {}],
@@ -88,7 +71,7 @@ describe('the output spectra as WebAssembly are the JavaScript form’s to the l
           form.prepare(prepared, representative, shape);
           return Float64Array.from(form.sum(signs));
         }) as [Float64Array, Float64Array];
-        expect(firstSpectrumDifference(expected, got), wiring.expression).toBe(-1);
+        expect(firstBitDifference(expected, got), wiring.expression).toBe(-1);
       }
     }
   });
@@ -108,7 +91,7 @@ describe('the synthesis passes as WebAssembly give the JavaScript form’s rende
       if (usesCoupledCoils(guitar, wiring.network)) nodal += 1;
       const expected = javascript.synthesize(wiring.network);
       const got = webassembly.synthesize(wiring.network);
-      expect(firstDifference(expected, got), wiring.expression).toBe(-1);
+      expect(firstBitDifference(expected, got), wiring.expression).toBe(-1);
       if (expected.some((sample) => sample !== 0)) audible += 1;
     }
     expect(audible).toBe(wirings.length);
@@ -129,7 +112,7 @@ describe('the synthesis passes as WebAssembly give the JavaScript form’s rende
       for (const setting of ['turned', 'first', 'silent', 'turned'] as const) {
         const expected = js[setting].synthesize(wiring.network);
         const got = wasm[setting].synthesize(wiring.network);
-        expect(firstDifference(expected, got), `${wiring.expression} (${setting})`).toBe(-1);
+        expect(firstBitDifference(expected, got), `${wiring.expression} (${setting})`).toBe(-1);
         if (setting === 'silent') expect(got.every((sample) => sample === 0)).toBe(true);
       }
     }
@@ -137,6 +120,6 @@ describe('the synthesis passes as WebAssembly give the JavaScript form’s rende
     const wiring = wirings[1];
     if (wiring === undefined) throw new Error('no wiring');
     const first = Float32Array.from(wasm.first.synthesize(wiring.network));
-    expect(firstDifference(first, wasm.turned.synthesize(wiring.network))).toBeGreaterThanOrEqual(0);
+    expect(firstBitDifference(first, wasm.turned.synthesize(wiring.network))).toBeGreaterThanOrEqual(0);
   });
 });
