@@ -9,8 +9,9 @@ import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { measureLoudness } from '../analysis/index.js';
 import { InputError, WorkError } from '../errors/index.js';
-import type { CircuitOverrides } from '../circuit/index.js';
+import { type CircuitOverrides, phaseClassKey } from '../circuit/index.js';
 import type { Guitar } from '../guitar/index.js';
+import { appendAll } from '../math/index.js';
 import type { Phrase } from '../string/index.js';
 import type { Network } from '../wiring/index.js';
 import type { ChainName } from './chain-name.js';
@@ -229,7 +230,6 @@ export async function runRenderPassWith(
   onStep?: (result: PassResult) => void,
   depth = AUDIO_IN_FLIGHT[settings.chain],
 ): Promise<PassResult[]> {
-  const results: PassResult[] = [];
   // Figures first, phase class by phase class (cheap: no render); then each wiring's file audio.
   const measured = items.filter((item) => item.metrics);
   const figures = renderer.figures(measured.map((item) => item.network));
@@ -241,11 +241,15 @@ export async function runRenderPassWith(
   // 0.2–0.4 ms to fill where fresh memory took 1–2 ms (zeroed pages), about a millisecond a wiring.
   let spare: Float32Array | undefined;
   // Wirings whose audio is on its way, started in order, `depth` at most: a chain that waits for an audio graph's
-  // render (drive) lets this thread synthesise the next wiring meanwhile. Each is taken in order.
+  // render (drive) lets this thread synthesise the next wiring meanwhile. Each is taken in the order started.
   const started: Array<Promise<MadeAudio> | null> = [];
-  const start = (index: number): void => {
-    const item = items[index];
-    if (item === undefined) return;
+  // Items are made phase class by phase class (classOrder), so each class's circuit is solved once: a synthesis keeps
+  // the products of the last class it solved (wiring-spectrum.ts). The results keep the order of `items`.
+  const order = classOrder(settings.guitar, items);
+  const start = (position: number): void => {
+    const index = order[position];
+    const item = index === undefined ? undefined : items[index];
+    if (item === undefined || index === undefined) return;
     if (!item.audio) {
       started[index] = null;
       return;
@@ -257,8 +261,10 @@ export async function runRenderPassWith(
       (error: unknown) => ({ error, into }),
     );
   };
-  for (let index = 0; index < Math.min(depth, items.length); index += 1) start(index);
-  for (const [index, item] of items.entries()) {
+  const byItem: PassResult[] = [];
+  for (let position = 0; position < Math.min(depth, items.length); position += 1) start(position);
+  for (const [position, index] of order.entries()) {
+    const item = items[index] as PassItem;
     const metrics = figuresOf.get(item.id);
     let audio: PassResult['audio'];
     let scratch: string | undefined;
@@ -302,10 +308,29 @@ export async function runRenderPassWith(
       ...(samples ? { samples } : {}),
       ...(failure ? { failure } : {}),
     };
-    results.push(result);
+    byItem[index] = result;
     onStep?.(result);
     // The next wiring starts once this one is parked: its synthesis may reuse this one's buffer.
-    start(index + depth);
+    start(position + depth);
   }
-  return results;
+  return byItem;
+}
+
+/**
+ * The positions of `items` with the items of each phase class together (src/circuit/phase-class.ts: wirings whose
+ * transfers differ only in their coils' signs), classes in the order their first item comes, items in their own
+ * order within a class. In the order wirings are listed a class's items are often apart (the three single coils'
+ * 47 wirings: 29 changes of class for 17 classes; two four-conductor humbuckers' 572: 444 for 292).
+ */
+export function classOrder(guitar: Guitar, items: readonly PassItem[]): number[] {
+  const classes = new Map<string, number[]>();
+  items.forEach((item, index) => {
+    const key = phaseClassKey(guitar, item.network);
+    const members = classes.get(key);
+    if (members === undefined) classes.set(key, [index]);
+    else members.push(index);
+  });
+  const order: number[] = [];
+  for (const members of classes.values()) appendAll(order, members);
+  return order;
 }

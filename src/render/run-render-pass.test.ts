@@ -3,10 +3,11 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { parseGuitarText } from '../guitar/index.js';
+import { phaseClassKey } from '../circuit/index.js';
 import { builtInPhrase } from '../string/index.js';
 import { enumerateWirings } from '../wiring/index.js';
 import { WorkError } from '../errors/index.js';
-import { type AudioSettings, type PassItem, type WiringRenderer, runRenderPassWith } from './render-pass.js';
+import { type AudioSettings, type PassItem, type WiringRenderer, classOrder, runRenderPassWith } from './render-pass.js';
 import { runRenderPassOnThreads, splitByShape } from './run-render-pass.js';
 import { shapeKey } from '../wiring/index.js';
 
@@ -94,9 +95,10 @@ describe('runRenderPassWith: wirings in flight', () => {
       sampleRateHz: settings.sampleRateHz,
       figures: (networks) => networks.map(() => ({ energy: 1, loudnessLufs: -20, centroidHz: 1000 })),
       processed: async (_network, name, into) => {
-        const index = call;
+        // Wirings are made phase class by phase class, not in the list's order: each is known by its name.
+        const index = items.findIndex((item) => item.id === name);
+        offered[call] = into;
         call += 1;
-        offered[index] = into;
         const audio = into ?? new Float32Array(frames);
         audio.fill(index + 1);
         await new Promise((resolve) => setTimeout(resolve, (index * 7) % 5));
@@ -137,5 +139,36 @@ describe('runRenderPassWith: wirings in flight', () => {
       runs.push(results.map((result) => [result.id, result.audio?.peak ?? null, result.failure ?? null]));
     }
     for (const run of runs) expect(run).toEqual(runs[0]);
+  });
+});
+
+describe('runRenderPassWith: phase class by phase class', () => {
+  it('makes each class’s wirings one after another, classes in the order they first come, and gives results in the list’s order', async () => {
+    const all = enumerateWirings(guitar.elements).map((wiring) => ({ id: wiring.id, network: wiring.network, metrics: false, audio: true }));
+    const order = classOrder(guitar, all);
+    expect([...order].sort((a, b) => a - b)).toEqual(all.map((_, index) => index));
+    const keys = order.map((index) => phaseClassKey(guitar, (all[index] as PassItem).network));
+    const runs = keys.filter((key, position) => position === 0 || key !== keys[position - 1]);
+    // Each class is one run, and the list itself was not already in that order (a class's wirings apart).
+    expect(new Set(runs).size).toBe(runs.length);
+    const listed = all.map((item) => phaseClassKey(guitar, item.network));
+    expect(listed.filter((key, index) => index === 0 || key !== listed[index - 1]).length).toBeGreaterThan(runs.length);
+    expect(runs).toEqual([...new Set(listed)]);
+
+    const made: string[] = [];
+    const renderer: WiringRenderer = {
+      sampleRateHz: settings.sampleRateHz,
+      figures: () => [],
+      processed: async (_network, name) => {
+        made.push(name ?? '');
+        return Float32Array.of(all.findIndex((item) => item.id === name));
+      },
+    };
+    const folder = mkdtempSync(join(tmpdir(), 'coilbench-pass-'));
+    folders.push(folder);
+    const results = await runRenderPassWith(renderer, { ...settings, parkInMemoryBytes: 1 << 20 }, all, folder, undefined, 2);
+    expect(made).toEqual(order.map((index) => (all[index] as PassItem).id));
+    expect(results.map((result) => result.id)).toEqual(all.map((item) => item.id));
+    results.forEach((result, index) => expect(result.samples?.[0]).toBe(index));
   });
 });
