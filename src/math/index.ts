@@ -2,7 +2,7 @@ export { realFft, nextPowerOfTwo, binFrequencyHz } from './real-fft.js';
 export type { RealFft } from './real-fft.js';
 export { fftKernelHost } from './fft-kernels.js';
 export type { FftKernelHost } from './fft-kernels.js';
-export { F64_BYTES, I32_BYTES, allocate, copyIn, instantiateArena, kernelHost, memoryView } from './wasm-arena.js';
+export { F64_BYTES, I32_BYTES, allocate, copyIn, formPerThread, instantiateArena, kernelHost, memoryView } from './wasm-arena.js';
 export type { KernelHost, WasmArena } from './wasm-arena.js';
 export { createRandom, seedFromText } from './random.js';
 export type { Random } from './random.js';

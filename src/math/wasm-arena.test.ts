@@ -3,7 +3,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { KERNELS, compileKernel, kernelModuleText } from '../../scripts/build-wasm.mjs';
 import { FFT_KERNELS_WASM } from './fft-kernels-wasm.js';
-import { F64_BYTES, I32_BYTES, allocate, copyIn, instantiateArena, memoryView } from './wasm-arena.js';
+import { F64_BYTES, I32_BYTES, allocate, copyIn, formPerThread, instantiateArena, memoryView } from './wasm-arena.js';
 
 const ROOT = join(import.meta.dirname, '..', '..');
 /** Largest module a page's main thread may compile synchronously in Chromium (fft-kernels.test.ts names the sources). */
@@ -45,5 +45,23 @@ describe('a kernel arena', () => {
     const one = instantiateArena<Record<string, never>>(FFT_KERNELS_WASM);
     const two = instantiateArena<Record<string, never>>(FFT_KERNELS_WASM);
     expect(one && two && one.exports.memory !== two.exports.memory).toBe(true);
+  });
+});
+
+describe('a form per thread', () => {
+  it('gives the JavaScript form as it is, and builds the WebAssembly form once, on its first request', () => {
+    const javascript = { form: 'javascript' };
+    let builds = 0;
+    const formOf = formPerThread<Record<string, never>, object>(FFT_KERNELS_WASM, javascript, (arena) => {
+      builds += 1;
+      return { form: 'webassembly', memory: arena.exports.memory };
+    });
+    expect(formOf('javascript')).toBe(javascript);
+    expect(builds).toBe(0);
+    const first = formOf('webassembly');
+    expect(first).not.toBe(javascript);
+    expect(formOf('webassembly')).toBe(first);
+    expect(formOf()).toBe(first); // Node compiles WebAssembly, so that is the default
+    expect(builds).toBe(1);
   });
 });

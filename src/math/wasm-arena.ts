@@ -1,7 +1,8 @@
 /**
  * An instance of one of our WebAssembly kernel modules (wasm/, compiled by
  * scripts/build-wasm.mjs) and the arrays laid out in its memory: the loader
- * side every kernel shares (src/math/fft-kernels.ts, src/analysis/shape-table-kernel.ts).
+ * side every kernel shares (src/math/fft-kernels.ts, src/analysis/shape-table-kernel.ts,
+ * src/analysis/centroid-kernel.ts, src/render/synthesis-kernel.ts, sample-passes.ts, linear-stages.ts).
  *
  * The kernels allocate nothing themselves (compiled with the stub run-time):
  * the caller hands them byte addresses, laid out here one after another from
@@ -98,4 +99,25 @@ export function copyIn(arena: WasmArena<unknown>, values: Float64Array | Int32Ar
   const target = values instanceof Float64Array ? new Float64Array(arena.exports.memory.buffer, at, values.length) : new Int32Array(arena.exports.memory.buffer, at, values.length);
   target.set(values);
   return at;
+}
+
+/**
+ * The form a kernel takes in this thread, chosen by `host`: `javascript` as
+ * it is, or the WebAssembly form `make` builds over one instance of `bytes`,
+ * made on the first call that asks for it and kept for the thread (the
+ * kernels whose memory holds one signal at a time: src/render/sample-passes.ts,
+ * src/render/linear-stages.ts). Asking for WebAssembly where the host cannot
+ * compile it throws.
+ */
+export function formPerThread<Exports, Form>(bytes: Uint8Array<ArrayBuffer>, javascript: Form, make: (arena: WasmArena<Exports>) => Form): (host?: KernelHost) => Form {
+  let made: Form | null | undefined;
+  return (host = kernelHost()) => {
+    if (host === 'javascript') return javascript;
+    if (made === undefined) {
+      const arena = instantiateArena<Exports>(bytes);
+      made = arena === null ? null : make(arena);
+    }
+    if (made === null) throw new Error('this host cannot compile WebAssembly');
+    return made;
+  };
 }

@@ -17,7 +17,7 @@
  * the whole run of stages and out again after it. Where the host cannot
  * compile WebAssembly the JavaScript runs.
  */
-import { type KernelHost, type WasmArena, allocate, instantiateArena, kernelHost } from '../math/index.js';
+import { type KernelHost, type WasmArena, allocate, formPerThread } from '../math/index.js';
 import { designNodeBiquad, renderBiquad } from './biquad-filter.js';
 import type { BiquadSpec } from './biquad-design.js';
 import { renderGain } from './float32-audio.js';
@@ -44,19 +44,8 @@ interface LinearExports {
   biquad(samples: number, count: number, b0: number, b1: number, b2: number, a1: number, a2: number): void;
 }
 
-/** This thread's WebAssembly form, made on first use (null: the host cannot compile WebAssembly). */
-let webassembly: RunLinearStages | null | undefined;
-
-/** The run of linear stages in the form `host` runs (by default WebAssembly where the host compiles it). */
-export function linearStages(host: KernelHost = kernelHost()): RunLinearStages {
-  if (host === 'javascript') return runInJavaScript;
-  if (webassembly === undefined) {
-    const arena = instantiateArena<LinearExports>(LINEAR_STAGES_WASM);
-    webassembly = arena === null ? null : webassemblyForm(arena);
-  }
-  if (webassembly === null) throw new Error('this host cannot compile WebAssembly');
-  return webassembly;
-}
+/** The run of linear stages in the form `host` runs (by default WebAssembly where the host compiles it; one instance per thread). */
+export const linearStages: (host?: KernelHost) => RunLinearStages = formPerThread(LINEAR_STAGES_WASM, runInJavaScript, webassemblyForm);
 
 function webassemblyForm(arena: WasmArena<LinearExports>): RunLinearStages {
   const { memory, gain, biquad } = arena.exports;

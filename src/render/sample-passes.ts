@@ -18,7 +18,7 @@
  * out (memory copies, tens of microseconds a wiring). Where the host cannot
  * compile WebAssembly the JavaScript runs.
  */
-import { type KernelHost, type WasmArena, allocate, instantiateArena, kernelHost } from '../math/index.js';
+import { type KernelHost, type WasmArena, allocate, formPerThread } from '../math/index.js';
 import { pcmValue } from './pcm-value.js';
 import { SAMPLE_PASSES_WASM } from './sample-passes-wasm.js';
 
@@ -114,19 +114,8 @@ interface SampleExports {
   writeMonoPcm24(samples: number, count: number, bytes: number, fullScale: number): number;
 }
 
-/** This thread's WebAssembly passes, made on first use (null: the host cannot compile WebAssembly). */
-let webassembly: SamplePasses | null | undefined;
-
-/** The passes for float32 samples in the form `host` runs (by default WebAssembly where the host compiles it). */
-export function samplePasses(host: KernelHost = kernelHost()): SamplePasses {
-  if (host === 'javascript') return JAVASCRIPT_SAMPLE_PASSES;
-  if (webassembly === undefined) {
-    const arena = instantiateArena<SampleExports>(SAMPLE_PASSES_WASM);
-    webassembly = arena === null ? null : webassemblyPasses(arena);
-  }
-  if (webassembly === null) throw new Error('this host cannot compile WebAssembly');
-  return webassembly;
-}
+/** The passes for float32 samples in the form `host` runs (by default WebAssembly where the host compiles it; one instance per thread). */
+export const samplePasses: (host?: KernelHost) => SamplePasses = formPerThread(SAMPLE_PASSES_WASM, JAVASCRIPT_SAMPLE_PASSES, webassemblyPasses);
 
 function webassemblyPasses(arena: WasmArena<SampleExports>): SamplePasses {
   const { memory, finiteSum: sumFinite, peak, scale, writeMonoPcm24: writeWords } = arena.exports;
