@@ -105,7 +105,7 @@ export function createSpectrumKernel(guitar: Guitar, spectra: readonly Float64Ar
   };
   // Scratch for the nodal solve of coupled pairs, made on first need.
   let nodal: { readonly products: Float64Array[]; readonly impedance: Float64Array } | undefined;
-  const solved: SolvedFor = { shape: '', gainShape: '', gainCircuit: null };
+  const solved: SolvedFor = { shape: '', circuit: null };
 
   /** Makes sure `entry` holds `values` (compared by identity: a circuit's arrays do not change once prepared). */
   const hold = (entry: Resident, values: Float64Array): void => {

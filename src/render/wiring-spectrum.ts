@@ -31,17 +31,18 @@ export interface WiringSpectrum {
 /** The shape and circuit a form last solved, so phase patterns and repeated knob settings reuse them. */
 export interface SolvedFor {
   shape: string;
-  gainShape: string;
-  gainCircuit: PreparedCircuit | null;
+  circuit: PreparedCircuit | null;
 }
 
-/** Which of a shape's solves `prepare` must run: its products, its gain. Updates `solved` as though both ran. */
+/**
+ * Which of a shape's solves `prepare` must run: its products when the shape changed, its gain when the shape or the
+ * circuit did. Updates `solved` as though both ran (a form that fails sets `solved.shape` to '' again).
+ */
 export function solvesNeeded(solved: SolvedFor, circuit: PreparedCircuit, shape: string): { products: boolean; gain: boolean } {
   const products = solved.shape !== shape;
-  const gain = products || solved.gainShape !== shape || solved.gainCircuit !== circuit;
+  const gain = products || solved.circuit !== circuit;
   solved.shape = shape;
-  solved.gainShape = shape;
-  solved.gainCircuit = circuit;
+  solved.circuit = circuit;
   return { products, gain };
 }
 
@@ -53,7 +54,7 @@ export function javascriptSpectrum(guitar: Guitar, spectra: readonly Float64Arra
   const impedance = new Float64Array(complexLength);
   const gain = new Float64Array(complexLength);
   const output = new Float64Array(complexLength);
-  const solved: SolvedFor = { shape: '', gainShape: '', gainCircuit: null };
+  const solved: SolvedFor = { shape: '', circuit: null };
   return {
     prepare(circuit, representative, shape) {
       const needed = solvesNeeded(solved, circuit, shape);
