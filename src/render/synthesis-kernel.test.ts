@@ -17,7 +17,7 @@ import { type Guitar, parseGuitarText } from '../guitar/index.js';
 import type { Phrase } from '../string/index.js';
 import { enumerateWirings } from '../wiring/index.js';
 import { type WiringSynthesis, createWiringSynthesis, renderCoilSpectra } from './synthesize-wirings.js';
-import { createSpectrumKernel } from './synthesis-kernel.js';
+import { createSpectrumKernel, spectrumKernelBytes } from './synthesis-kernel.js';
 import { type WiringSpectrum, javascriptSpectrum } from './wiring-spectrum.js';
 
 const SAMPLE_RATE_HZ = 22_050;
@@ -74,6 +74,9 @@ describe('the output spectra as WebAssembly are the JavaScript form’s to the l
         expect(firstBitDifference(expected, got), wiring.expression).toBe(-1);
       }
     }
+    // The memory the kernel took for every wiring stays within the estimate that decides whether a render uses it
+    // (one page of 64 KiB kept clear at the start, src/math/wasm-arena.ts).
+    expect(kernel.memoryBytes()).toBeLessThanOrEqual(spectrumKernelBytes(guitar.coils.length, bins) + 65_536);
   });
 });
 

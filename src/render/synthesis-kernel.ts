@@ -70,11 +70,32 @@ interface Resident {
   from: Float64Array | null;
 }
 
+/** The output spectra as WebAssembly, and the bytes its memory holds now. */
+export interface SpectrumKernel extends WiringSpectrum {
+  memoryBytes(): number;
+}
+
+/**
+ * Most bytes a synthesis's kernel memory may take: half of the 4 GiB a WebAssembly memory can address (WebAssembly
+ * Core Specification 2.0, memory32: 65,536 pages of 64 KiB), so its work arrays always find room (our choice).
+ */
+export const SPECTRUM_KERNEL_MAX_BYTES = 2 ** 31;
+
+/**
+ * Bytes the kernel's memory takes for `coilCount` coils and `bins` FFT bins, at most: per coil k_i, Z_i, E_i and P_i;
+ * the impedance, gain, output and the load's three admittances; and the reduction's work arrays, two per coil at
+ * most (a parallel group keeps one per part and one for the sum).
+ */
+export function spectrumKernelBytes(coilCount: number, bins: number): number {
+  const arrays = 4 * coilCount + 6 + 2 * coilCount;
+  return arrays * 2 * bins * F64_BYTES;
+}
+
 /**
  * The output spectra of `guitar`'s wirings over `spectra` (E_i of `bins` FFT bins each; read on first need), as
  * WebAssembly; null where the host cannot compile it.
  */
-export function createSpectrumKernel(guitar: Guitar, spectra: readonly Float64Array[], bins: number): WiringSpectrum | null {
+export function createSpectrumKernel(guitar: Guitar, spectra: readonly Float64Array[], bins: number): SpectrumKernel | null {
   const arena = instantiateArena<SynthesisExports>(SYNTHESIS_PASSES_WASM);
   if (arena === null) return null;
   const { memory, anyNonZero, multiplyComplexInto, loadGain, sumSources, clear } = arena.exports;
@@ -153,6 +174,7 @@ export function createSpectrumKernel(guitar: Guitar, spectra: readonly Float64Ar
   };
 
   return {
+    memoryBytes: () => memory.buffer.byteLength,
     prepare(circuit, representative, shape) {
       const needed = solvesNeeded(solved, circuit, shape);
       try {

@@ -24,7 +24,7 @@ import { type KernelHost, type RealFft, kernelHost, nextPowerOfTwo, realFft } fr
 import { computeCoilSpectra, pickupDelaySamples } from '../pickup/index.js';
 import { type Phrase, type StringOptions, renderPhrase } from '../string/index.js';
 import type { Network } from '../wiring/index.js';
-import { createSpectrumKernel } from './synthesis-kernel.js';
+import { SPECTRUM_KERNEL_MAX_BYTES, createSpectrumKernel, spectrumKernelBytes } from './synthesis-kernel.js';
 import { type WiringSpectrum, javascriptSpectrum } from './wiring-spectrum.js';
 
 /**
@@ -202,9 +202,12 @@ function createSharedParts(guitar: Guitar, coils: CoilSpectra, fft: RealFft, hos
   };
 }
 
-/** The output spectra of `guitar`'s wirings, in the form `host` runs. */
+/**
+ * The output spectra of `guitar`'s wirings, in the form `host` runs; in JavaScript, the same bits, when a render so
+ * long would need more kernel memory than SPECTRUM_KERNEL_MAX_BYTES (a phrase of minutes at a high rate).
+ */
 function createWiringSpectrum(guitar: Guitar, coils: CoilSpectra, bins: number, host: KernelHost): WiringSpectrum {
-  if (host === 'javascript') return javascriptSpectrum(guitar, coils.spectra, bins);
+  if (host === 'javascript' || spectrumKernelBytes(guitar.coils.length, bins) > SPECTRUM_KERNEL_MAX_BYTES) return javascriptSpectrum(guitar, coils.spectra, bins);
   const kernel = createSpectrumKernel(guitar, coils.spectra, bins);
   if (kernel === null) throw new Error('this host cannot compile WebAssembly');
   return kernel;
