@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { firstBitDifference } from '../../test/support/bit-difference.js';
 import { type KernelHost, createRandom, maxOf } from '../math/index.js';
 import { type CentroidBand, type CentroidPatterns, prepareCentroidPass } from './centroid-kernel.js';
 
@@ -67,7 +68,7 @@ describe('the centroid pass', () => {
       return pass(transfers, patterns);
     }) as [Float64Array, Float64Array];
     expect(wasm).toHaveLength(2 * patterns.count);
-    expect(wasm.findIndex((value, index) => !Object.is(value, javascript[index]))).toBe(-1);
+    expect(firstBitDifference(javascript, wasm)).toBe(-1);
     expect(javascript.every((value) => Number.isFinite(value) && value > 0)).toBe(true);
   });
 
@@ -79,7 +80,7 @@ describe('the centroid pass', () => {
     for (const used of [[0], [0, 1, 2, 3], [1, 2]]) {
       const patterns = everyPattern(Int32Array.from(used), 128);
       const [wasm, javascript] = passes.map((pass) => pass(transfers, patterns)) as [Float64Array, Float64Array];
-      expect(wasm.findIndex((value, index) => !Object.is(value, javascript[index])), `used ${used.join(' ')}`).toBe(-1);
+      expect(firstBitDifference(javascript, wasm), `used ${used.join(' ')}`).toBe(-1);
     }
   });
 });

@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { firstBitDifference } from '../../test/support/bit-difference.js';
 import { phaseClassKey, phaseClassNetwork, prepareCircuit, solveTransfers } from '../circuit/index.js';
 import { parseGuitar } from '../guitar/index.js';
 import { type KernelHost, createRandom, kernelHost } from '../math/index.js';
@@ -10,11 +11,6 @@ import { measureSpectralBasis } from './measure-spectral-basis.js';
 import { type TableRows, foldShapeTable, prepareShapeTableFold } from './shape-table-kernel.js';
 
 const SAMPLES = join(import.meta.dirname, '..', '..', 'samples');
-
-/** Index of the first number where two tables differ as doubles (Object.is: −0 apart from 0), or −1. */
-function firstDifference(a: Float64Array, b: Float64Array): number {
-  return a.findIndex((value, index) => !Object.is(value, b[index]));
-}
 
 describe('the shape table fold', () => {
   it('runs as WebAssembly in Node', () => {
@@ -47,7 +43,7 @@ describe('the shape table fold', () => {
         foldShapeTable(want, transfers, layout.segments, cross, spread, rows);
         const got = start.slice();
         fold(transfers, got);
-        expect(firstDifference(got, want), `class ${key}`).toBe(-1);
+        expect(firstBitDifference(want, got), `class ${key}`).toBe(-1);
       }
       expect(seen.size).toBeGreaterThan(10);
     },
@@ -67,7 +63,7 @@ describe('the shape table fold', () => {
       prepareShapeTableFold(layout.segments, cross, spread, rows, host)(transfers, table);
       return table;
     });
-    expect(firstDifference(tables[0] as Float64Array, tables[1] as Float64Array)).toBe(-1);
+    expect(firstBitDifference(tables[0] as Float64Array, tables[1] as Float64Array)).toBe(-1);
     expect(() => prepareShapeTableFold(layout.segments, cross, spread, rows, 'webassembly')(transfers, new Float64Array(3))).toThrow(/must hold/);
   });
 });

@@ -41,16 +41,12 @@ function wholeQuanta(frames: number): number {
   return Math.ceil(frames / RENDER_QUANTUM_FRAMES) * RENDER_QUANTUM_FRAMES;
 }
 
-/** True for the stages run by the host's audio graph rather than by our code. */
-export function isGraphStage(stage: ChainStage): boolean {
-  return stage.kind === 'shaper';
-}
+/** A stage the host's audio graph runs rather than our code. */
+type GraphStage = Extract<ChainStage, { kind: 'shaper' }>;
 
-/** A stage our code computes as a linear stage (linear-stages.ts): a gain or a biquad. */
-function linearStageOf(stage: ChainStage): LinearStage | null {
-  if (stage.kind === 'gain') return stage;
-  if (stage.kind === 'biquad') return stage;
-  return null;
+/** True for the stages run by the host's audio graph rather than by our code. */
+export function isGraphStage(stage: ChainStage): stage is GraphStage {
+  return stage.kind === 'shaper';
 }
 
 /** Render mono `samples` through `design`; a new array of the same length (the input is not modified). */
@@ -61,32 +57,33 @@ export async function runChainDesign(samples: Float32Array, design: ChainDesign,
   const frames = graphed ? wholeQuanta(samples.length + latency) : samples.length + latency;
   let signal: Float32Array = new Float32Array(frames); // the input, then zeros (see above)
   signal.set(samples);
-  let pending: ChainStage[] = [];
+  // Each run of gains and biquads goes to linear-stages.ts in one pass, each run of graph stages to one render of the
+  // host; a run is handed over when a stage of another kind comes.
   let linear: LinearStage[] = [];
-  const flush = async (): Promise<void> => {
-    // Each run of gains and biquads in one pass of linear-stages.ts; the graph's stages in one render of the host.
+  let graph: GraphStage[] = [];
+  const runLinear = (): void => {
     if (linear.length > 0) linearStages()(signal, linear, design.sampleRateHz);
     linear = [];
-    if (pending.length === 0) return;
-    signal = await renderGraph(signal, { ...design, stages: pending, latencyFrames: measureDesignLatencyFrames(pending) });
-    pending = [];
+  };
+  const runGraph = async (): Promise<void> => {
+    if (graph.length > 0) signal = await renderGraph(signal, { ...design, stages: graph, latencyFrames: measureDesignLatencyFrames(graph) });
+    graph = [];
   };
   for (const stage of design.stages) {
     if (isGraphStage(stage)) {
-      if (linear.length > 0) await flush();
-      pending.push(stage);
+      runLinear();
+      graph.push(stage);
       continue;
     }
-    const asLinear = linearStageOf(stage);
-    if (asLinear !== null) {
-      if (pending.length > 0) await flush();
-      linear.push(asLinear);
-      continue;
+    await runGraph();
+    if (stage.kind === 'compressor') {
+      runLinear();
+      renderCompressor(signal, designCompressor(stage.settings, design.sampleRateHz), signal);
+    } else {
+      linear.push(stage);
     }
-    await flush();
-    if (stage.kind !== 'compressor') throw new Error(`runChainDesign: no renderer for a ${stage.kind} stage`);
-    renderCompressor(signal, designCompressor(stage.settings, design.sampleRateHz), signal);
   }
-  await flush();
+  runLinear();
+  await runGraph();
   return signal.length === samples.length ? signal : signal.slice(latency, latency + samples.length);
 }

@@ -32,7 +32,7 @@ import type { Guitar } from '../guitar/index.js';
 import { F64_BYTES, I32_BYTES, type WasmArena, allocate, instantiateArena, memoryView } from '../math/index.js';
 import type { Network } from '../wiring/index.js';
 import { SYNTHESIS_PASSES_WASM } from './synthesis-passes-wasm.js';
-import { type SolvedFor, type WiringSpectrum, solvesNeeded } from './wiring-spectrum.js';
+import { type WiringSpectrum, preparing } from './wiring-spectrum.js';
 
 interface SynthesisExports {
   clear(target: number, length: number): void;
@@ -126,7 +126,6 @@ export function createSpectrumKernel(guitar: Guitar, spectra: readonly Float64Ar
   };
   // Scratch for the nodal solve of coupled pairs, made on first need.
   let nodal: { readonly products: Float64Array[]; readonly impedance: Float64Array } | undefined;
-  const solved: SolvedFor = { shape: '', circuit: null };
 
   /** Makes sure `entry` holds `values` (compared by identity: a circuit's arrays do not change once prepared). */
   const hold = (entry: Resident, values: Float64Array): void => {
@@ -175,16 +174,7 @@ export function createSpectrumKernel(guitar: Guitar, spectra: readonly Float64Ar
 
   return {
     memoryBytes: () => memory.buffer.byteLength,
-    prepare(circuit, representative, shape) {
-      const needed = solvesNeeded(solved, circuit, shape);
-      try {
-        if (needed.products) solveProducts(circuit, representative);
-        if (needed.gain) solveGain(circuit);
-      } catch (error) {
-        solved.shape = '';
-        throw error;
-      }
-    },
+    prepare: preparing(solveProducts, solveGain),
     sum(signs) {
       let count = 0;
       const places = new Int32Array(memory.buffer, sources, coilCount);

@@ -28,22 +28,27 @@ export interface WiringSpectrum {
   sum(signs: Float64Array): Float64Array;
 }
 
-/** The shape and circuit a form last solved, so phase patterns and repeated knob settings reuse them. */
-export interface SolvedFor {
-  shape: string;
-  circuit: PreparedCircuit | null;
-}
-
 /**
- * Which of a shape's solves `prepare` must run: its products when the shape changed, its gain when the shape or the
- * circuit did. Updates `solved` as though both ran (a form that fails sets `solved.shape` to '' again).
+ * A form's `prepare` from its two solves: the products when the shape changed, the gain when the shape or the circuit
+ * did, so phase patterns and repeated knob settings reuse them. A solve that fails leaves the shape unsolved, so the
+ * next call solves it again.
  */
-export function solvesNeeded(solved: SolvedFor, circuit: PreparedCircuit, shape: string): { products: boolean; gain: boolean } {
-  const products = solved.shape !== shape;
-  const gain = products || solved.circuit !== circuit;
-  solved.shape = shape;
-  solved.circuit = circuit;
-  return { products, gain };
+export function preparing(solveProducts: (circuit: PreparedCircuit, representative: Network) => void, solveGain: (circuit: PreparedCircuit) => void): WiringSpectrum['prepare'] {
+  let solvedShape = '';
+  let solvedCircuit: PreparedCircuit | null = null;
+  return (circuit, representative, shape) => {
+    const products = solvedShape !== shape;
+    const gain = products || solvedCircuit !== circuit;
+    solvedShape = shape;
+    solvedCircuit = circuit;
+    try {
+      if (products) solveProducts(circuit, representative);
+      if (gain) solveGain(circuit);
+    } catch (error) {
+      solvedShape = '';
+      throw error;
+    }
+  };
 }
 
 /** The form in JavaScript: hosts without WebAssembly, and the tests' reference. */
@@ -54,22 +59,15 @@ export function javascriptSpectrum(guitar: Guitar, spectra: readonly Float64Arra
   const impedance = new Float64Array(complexLength);
   const gain = new Float64Array(complexLength);
   const output = new Float64Array(complexLength);
-  const solved: SolvedFor = { shape: '', circuit: null };
   return {
-    prepare(circuit, representative, shape) {
-      const needed = solvesNeeded(solved, circuit, shape);
-      try {
-        if (needed.products) {
-          // Wirings holding both coils of a coupled pair get their S_i and Z by nodal analysis (solveSourceFactors).
-          solveSourceFactors(circuit, representative, products, impedance);
-          multiplySpectra(products, spectra, used);
-        }
-        if (needed.gain) solveLoadGain(circuit, impedance, gain);
-      } catch (error) {
-        solved.shape = '';
-        throw error;
-      }
-    },
+    prepare: preparing(
+      (circuit, representative) => {
+        // Wirings holding both coils of a coupled pair get their S_i and Z by nodal analysis (solveSourceFactors).
+        solveSourceFactors(circuit, representative, products, impedance);
+        multiplySpectra(products, spectra, used);
+      },
+      (circuit) => solveLoadGain(circuit, impedance, gain),
+    ),
     sum(signs) {
       sumSources(products, used, signs, gain, output, complexLength);
       return output;

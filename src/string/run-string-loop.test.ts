@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { createRandom, maxOf } from '../math/index.js';
 import { centsBetween } from '../units/index.js';
 import { toneAmplitude } from '../../test/support/harmonics.js';
+import { firstBitDifference } from '../../test/support/bit-difference.js';
 import type { StringLoop } from './design-string-loop.js';
 import { NO_DISPERSION } from './dispersion-allpass.js';
 import { type StringVoice, runStringLoop } from './run-string-loop.js';
@@ -143,7 +144,7 @@ describe('runStringLoop in blocks', () => {
       const reference = before.slice();
       runStringLoop(loop, excitation, blocked, voice);
       sampleBySample(loop, excitation, reference, voice);
-      const first = blocked.findIndex((value, n) => !Object.is(value, reference[n]));
+      const first = firstBitDifference(reference, blocked);
       expect(first, `trial ${trial}: N = ${delaySamples}, ${loop.dispersion.sections} sections`).toBe(-1);
     }
   });
