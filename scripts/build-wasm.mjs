@@ -5,7 +5,8 @@
 // TypeScript module beside the code that loads it (KERNELS: wasm/fft-kernels.ts → src/math/fft-kernels-wasm.ts,
 // wasm/shape-table.ts → src/analysis/shape-table-wasm.ts, wasm/centroid-pass.ts → src/analysis/centroid-pass-wasm.ts,
 // wasm/synthesis-passes.ts → src/render/synthesis-passes-wasm.ts, wasm/sample-passes.ts →
-// src/render/sample-passes-wasm.ts, wasm/linear-stages.ts → src/render/linear-stages-wasm.ts). The
+// src/render/sample-passes-wasm.ts, wasm/linear-stages.ts → src/render/linear-stages-wasm.ts,
+// wasm/nodal-block.ts → src/circuit/nodal-block-wasm.ts). The
 // generated file is committed, so neither the tests nor `npm run build` need
 // the compiler; src/math/wasm-arena.test.ts compiles every source again with
 // the same options and fails if the committed bytes differ. Run it
@@ -34,6 +35,8 @@ export const KERNELS = Object.freeze([
   { source: join('wasm', 'synthesis-passes.ts'), target: join('src', 'render', 'synthesis-passes-wasm.ts'), constant: 'SYNTHESIS_PASSES_WASM' },
   { source: join('wasm', 'sample-passes.ts'), target: join('src', 'render', 'sample-passes-wasm.ts'), constant: 'SAMPLE_PASSES_WASM' },
   { source: join('wasm', 'linear-stages.ts'), target: join('src', 'render', 'linear-stages-wasm.ts'), constant: 'LINEAR_STAGES_WASM' },
+  // 128-bit SIMD: a host without it cannot compile this module, and the solver then runs as JavaScript (src/circuit/nodal-kernel.ts).
+  { source: join('wasm', 'nodal-block.ts'), target: join('src', 'circuit', 'nodal-block-wasm.ts'), constant: 'NODAL_BLOCK_WASM', enable: ['simd'] },
 ]);
 
 /** The compiler's command-line arguments for KERNEL_COMPILE_OPTIONS. */
@@ -45,15 +48,16 @@ function optionArguments(options) {
  * The WebAssembly bytes of one AssemblyScript source file. The compiler reads
  * the file and what it imports (wasm/memory.ts, the helpers every kernel
  * shares) from the file's folder; only the file itself is an entry, so only
- * its own functions are exported.
+ * its own functions are exported. `enable` lists the WebAssembly features
+ * beyond the compiler's defaults that the kernel uses (the entry's `enable`).
  */
-export async function compileKernel(sourcePath) {
+export async function compileKernel(sourcePath, enable = []) {
   const folder = dirname(sourcePath);
   const output = 'kernel.wasm';
   let binary = null;
   let log = '';
   const stream = { write: (text) => ((log += String(text)), true), toString: () => log };
-  const { error } = await asc.main([basename(sourcePath), '--outFile', output, ...optionArguments(KERNEL_COMPILE_OPTIONS)], {
+  const { error } = await asc.main([basename(sourcePath), '--outFile', output, ...optionArguments(KERNEL_COMPILE_OPTIONS), ...enable.flatMap((feature) => ['--enable', feature])], {
     readFile: (file) => (existsSync(join(folder, file)) ? readFileSync(join(folder, file), 'utf8') : null),
     writeFile: (file, contents) => {
       if (file === output) binary = contents;
@@ -83,7 +87,7 @@ ${lines.join('\n')}
 
 if (process.argv[1] === fileURLToPath(import.meta.url)) {
   for (const kernel of KERNELS) {
-    const bytes = await compileKernel(join(root, kernel.source));
+    const bytes = await compileKernel(join(root, kernel.source), kernel.enable);
     const target = join(root, kernel.target);
     writeFileSync(`${target}.tmp`, kernelModuleText(kernel, bytes));
     renameSync(`${target}.tmp`, target);

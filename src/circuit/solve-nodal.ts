@@ -49,7 +49,7 @@ import { type BlockScratch, type EliminationSteps, createBlockScratch, eliminati
 const TWO_PI = 2 * Math.PI;
 
 /** One coil as the solver stamps it. */
-interface ActiveCoil {
+export interface ActiveCoil {
   readonly coil: number;
   /** Unknown index of the start and finish nodes, −1 when fixed at 0 V. */
   readonly start: number;
@@ -62,9 +62,11 @@ interface ActiveCoil {
   readonly slot: number;
 }
 
-interface CouplingGroup {
+export interface CouplingGroup {
   /** Positions in the active-coil list. */
   readonly members: readonly number[];
+  /** The members' guitar coil indices in slot order, joined: the same group, whatever graph it came from. */
+  readonly coilKey: string;
   /** Mutual inductance M_jk in henries, g×g row-major, zero diagonal. */
   readonly mutualH: Float64Array;
   /** Branch admittance Y_g per frequency, g×g complex (interleaved), refilled per frequency. */
@@ -80,7 +82,7 @@ interface CouplingGroup {
  * measured on the four-coil sample's humbucker wirings: 64 to 1024 bins
  * are within 10 % of each other.
  */
-const BLOCK_BINS = 256;
+export const BLOCK_BINS = 256;
 
 /** Buffers reused from solve to solve (one solve runs at a time on a thread), grown when a bigger system comes along. */
 interface BlockWorkspace {
@@ -155,7 +157,7 @@ function checkNode(graph: CircuitGraph, value: number | null, what: string): voi
 }
 
 /** The structure of one graph on one guitar: which unknown each node is, the coils and coupling groups. */
-interface NodalPlan {
+export interface NodalPlan {
   readonly unknowns: number;
   readonly hot: number;
   /** Unknown index of the output node (equal to `hot` with the volume fully up). */
@@ -328,7 +330,8 @@ function makeGroup(
     mutualH[a * size + b] = mutual;
     mutualH[b * size + a] = mutual;
   }
-  return { members, mutualH, admittance: new Float64Array(2 * size * size), scratch: new Float64Array(6 * size * size + 2 * size) };
+  const coilKey = members.map((member) => coilAt[member] as number).join(',');
+  return { members, coilKey, mutualH, admittance: new Float64Array(2 * size * size), scratch: new Float64Array(6 * size * size + 2 * size) };
 }
 
 /**
@@ -474,19 +477,36 @@ export function solveNodalTransfers(prepared: PreparedCircuit, graph: CircuitGra
  * S_i is 0 and Z is Infinity (real part).
  */
 export function solveNodalSourceFactors(prepared: PreparedCircuit, graph: CircuitGraph, out: Float64Array[], impedance: Float64Array): void {
-  const result = checkedOutput(prepared, out);
+  const plan = sourceFactorPlan(prepared, graph, out, impedance);
+  if (plan !== null) solveSourceFactorPlan(prepared, plan, out, impedance);
+}
+
+/**
+ * The first half of `solveNodalSourceFactors`: checks `out` and `impedance`
+ * and clears them; where no solve is needed (hot is ground, or the coils
+ * leave hot open) writes the answer and returns null; otherwise returns the
+ * plan to solve (`solveSourceFactorPlan`, or the WebAssembly form in
+ * nodal-kernel.ts).
+ */
+export function sourceFactorPlan(prepared: PreparedCircuit, graph: CircuitGraph, out: Float64Array[], impedance: Float64Array): NodalPlan | null {
+  checkedOutput(prepared, out);
   if (impedance.length !== 2 * prepared.frequenciesHz.length) throw new RangeError(`solveNodalSourceFactors: impedance must have length ${2 * prepared.frequenciesHz.length}`);
   impedance.fill(0);
   if (graph.hot === graph.ground) {
     planGraph(prepared, graph, 'coils'); // validates the graph
-    return;
+    return null;
   }
   const plan = planFor(prepared, graph, false);
   if (plan === null) {
     for (let i = 0; i < impedance.length; i += 2) impedance[i] = Infinity;
-    return;
+    return null;
   }
-  solvePlan(prepared, plan, false, result, impedance);
+  return plan;
+}
+
+/** The second half of `solveNodalSourceFactors`, in JavaScript: the plan's S_i into `out` and Z into `impedance`. */
+export function solveSourceFactorPlan(prepared: PreparedCircuit, plan: NodalPlan, out: Float64Array[], impedance: Float64Array): void {
+  solvePlan(prepared, plan, false, out, impedance);
 }
 
 function checkedOutput(prepared: PreparedCircuit, out: Float64Array[] | undefined): Float64Array[] {
@@ -620,29 +640,8 @@ function stampCoils(matrix: Float64Array, n: number, prepared: PreparedCircuit, 
   const { admittance, branch } = workspace;
   for (let j = 0; j < coils.length; j += 1) {
     const coil = coils[j] as ActiveCoil;
-    const impedance = prepared.coilImpedance[coil.coil] as Float64Array;
-    const source = prepared.coilSource[coil.coil] as Float64Array;
     const yAt = realAt(j, stride);
-    // 1 for a coupled coil (its shunt 1/Z − Y_b is stamped), 0 otherwise (1/Z): a factor, not a branch in the loop,
-    // so the loop's compiled code serves both (y − 0·Y_b = y exactly).
-    const coupled = coil.group >= 0 ? 1 : 0;
-    for (let b = 0; b < length; b += 1) {
-      const re = 2 * (first + b);
-      const zr = impedance[re] as number;
-      const zi = impedance[re + 1] as number;
-      const kr = source[re] as number;
-      const ki = source[re + 1] as number;
-      const zn = zr * zr + zi * zi;
-      const yr = zr / zn; // 1/Z
-      const yi = -zi / zn;
-      const br = kr * yr - ki * yi; // Y_b = k/Z
-      const bi = kr * yi + ki * yr;
-      branch[yAt + b] = br;
-      branch[yAt + stride + b] = bi;
-      // What is stamped between the leads: 1/Z, or the shunt (1 − k)/Z = 1/Z − Y_b of a coupled coil.
-      admittance[yAt + b] = yr - coupled * br;
-      admittance[yAt + stride + b] = yi - coupled * bi;
-    }
+    fillCoilRuns(prepared, coil.coil, coil.group >= 0 ? 1 : 0, admittance, branch, yAt, first, length, stride);
     stampBlockAdmittance(matrix, n, coil.start, coil.finish, stride, admittance, yAt, length);
   }
   groups.forEach((group, index) => {
@@ -652,8 +651,38 @@ function stampCoils(matrix: Float64Array, n: number, prepared: PreparedCircuit, 
   });
 }
 
+/**
+ * Guitar coil `coil`'s runs for bins first … first + length − 1, at `at` of
+ * `admittance` and `branch` (block arrays): its branch admittance Y_b = k/Z,
+ * and what is stamped between its leads, 1/Z − coupled·Y_b: 1/Z for an
+ * uncoupled coil (coupled 0), the shunt (1 − k)/Z for a coupled one
+ * (coupled 1). A factor, not a branch in the loop, so the loop's compiled
+ * code serves both (y − 0·Y_b = y exactly).
+ */
+export function fillCoilRuns(prepared: PreparedCircuit, coil: number, coupled: number, admittance: Float64Array, branch: Float64Array, yAt: number, first: number, length: number, stride: number): void {
+  const impedance = prepared.coilImpedance[coil] as Float64Array;
+  const source = prepared.coilSource[coil] as Float64Array;
+  for (let b = 0; b < length; b += 1) {
+    const re = 2 * (first + b);
+    const zr = impedance[re] as number;
+    const zi = impedance[re + 1] as number;
+    const kr = source[re] as number;
+    const ki = source[re + 1] as number;
+    const zn = zr * zr + zi * zi;
+    const yr = zr / zn; // 1/Z
+    const yi = -zi / zn;
+    const br = kr * yr - ki * yi; // Y_b = k/Z
+    const bi = kr * yi + ki * yr;
+    branch[yAt + b] = br;
+    branch[yAt + stride + b] = bi;
+    // What is stamped between the leads: 1/Z, or the shunt (1 − k)/Z = 1/Z − Y_b of a coupled coil.
+    admittance[yAt + b] = yr - coupled * br;
+    admittance[yAt + stride + b] = yi - coupled * bi;
+  }
+}
+
 /** Y_g = (diag(Z_b) + jω·M)⁻¹ with Z_b = 1/Y_b, per bin of the block, into `values` (g×g complex runs). */
-function fillGroupAdmittance(prepared: PreparedCircuit, group: CouplingGroup, branch: Float64Array, values: Float64Array, first: number, length: number, stride: number): void {
+export function fillGroupAdmittance(prepared: PreparedCircuit, group: CouplingGroup, branch: Float64Array, values: Float64Array, first: number, length: number, stride: number): void {
   const size = group.members.length;
   const frequencies = prepared.frequenciesHz;
   if (size === 2) {

@@ -23,7 +23,8 @@ import type { Network } from '../wiring/index.js';
 import { type CircuitGraph, graphOfNetwork } from './circuit-graph.js';
 import { usesCoupledCoils } from './coil-coupling.js';
 import type { PreparedCircuit, Workspace } from './prepare-circuit.js';
-import { solveNodalSourceFactors, solveNodalTransfers } from './solve-nodal.js';
+import { solveCoupledSourceFactors } from './nodal-kernel.js';
+import { solveNodalTransfers } from './solve-nodal.js';
 import { multiplyComplexInPlace } from '../math/index.js';
 import { JAVASCRIPT_PASSES, type SeriesParallelArrays, reduceSeriesParallel } from './solve-series-parallel.js';
 
@@ -98,7 +99,7 @@ export function solveSourceFactors(prepared: PreparedCircuit, network: Network, 
   const workspace = prepared.workspace;
   if (usesCoupledCoils(prepared.guitar, network)) {
     const graph = graphFor(prepared.guitar, network);
-    solveNodalSourceFactors(prepared, graph, out, impedance);
+    solveCoupledSourceFactors(prepared, graph, out, impedance);
     workspace.used.fill(0);
     for (const placed of graph.coils) if (placed.start !== null && placed.finish !== null) workspace.used[placed.coil] = 1;
     return workspace.used;

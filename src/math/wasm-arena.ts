@@ -2,7 +2,8 @@
  * An instance of one of our WebAssembly kernel modules (wasm/, compiled by
  * scripts/build-wasm.mjs) and the arrays laid out in its memory: the loader
  * side every kernel shares (src/math/fft-kernels.ts, src/analysis/shape-table-kernel.ts,
- * src/analysis/centroid-kernel.ts, src/render/synthesis-kernel.ts, sample-passes.ts, linear-stages.ts).
+ * src/analysis/centroid-kernel.ts, src/render/synthesis-kernel.ts, sample-passes.ts, linear-stages.ts,
+ * src/circuit/nodal-kernel.ts).
  *
  * The kernels allocate nothing themselves (compiled with the stub run-time):
  * the caller hands them byte addresses, laid out here one after another from
