@@ -208,7 +208,14 @@ function solveInKernel(kernel: NodalKernel, prepared: PreparedCircuit, plan: Nod
   );
   if (failed !== 0) throw new RangeError('solveNodalTransfers: singular nodal matrix');
   const length = 2 * grid.bins;
-  for (const coil of coils) (out[coil.coil] as Float64Array).set(new Float64Array(buffer, grid.results[coil.coil] as number, length));
+  const used = new Uint8Array(out.length);
+  for (const coil of coils) {
+    used[coil.coil] = 1;
+    (out[coil.coil] as Float64Array).set(new Float64Array(buffer, grid.results[coil.coil] as number, length));
+  }
+  out.forEach((array, coil) => {
+    if (used[coil] === 0) array.fill(0);
+  });
   impedance.set(new Float64Array(buffer, grid.impedance, length));
 }
 

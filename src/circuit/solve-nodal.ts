@@ -482,41 +482,41 @@ export function solveNodalSourceFactors(prepared: PreparedCircuit, graph: Circui
 }
 
 /**
- * The first half of `solveNodalSourceFactors`: checks `out` and `impedance`
- * and clears them; where no solve is needed (hot is ground, or the coils
- * leave hot open) writes the answer and returns null; otherwise returns the
- * plan to solve (`solveSourceFactorPlan`, or the WebAssembly form in
- * nodal-kernel.ts).
+ * The first half of `solveNodalSourceFactors`: checks `out` and `impedance`;
+ * where no solve is needed (hot is ground, or the coils leave hot open)
+ * writes the answer (zeros; Z = 0 or Infinity) and returns null; otherwise
+ * returns the plan to solve, `out` and `impedance` as they came
+ * (`solveSourceFactorPlan`, or the WebAssembly form in nodal-kernel.ts,
+ * which writes every number).
  */
 export function sourceFactorPlan(prepared: PreparedCircuit, graph: CircuitGraph, out: Float64Array[], impedance: Float64Array): NodalPlan | null {
-  checkedOutput(prepared, out);
+  checkedOutput(prepared, out, false);
   if (impedance.length !== 2 * prepared.frequenciesHz.length) throw new RangeError(`solveNodalSourceFactors: impedance must have length ${2 * prepared.frequenciesHz.length}`);
+  const plan = graph.hot === graph.ground ? null : planFor(prepared, graph, false);
+  if (plan !== null) return plan;
+  for (const array of out) array.fill(0);
   impedance.fill(0);
-  if (graph.hot === graph.ground) {
-    planGraph(prepared, graph, 'coils'); // validates the graph
-    return null;
-  }
-  const plan = planFor(prepared, graph, false);
-  if (plan === null) {
-    for (let i = 0; i < impedance.length; i += 2) impedance[i] = Infinity;
-    return null;
-  }
-  return plan;
+  if (graph.hot === graph.ground) planGraph(prepared, graph, 'coils'); // validates the graph
+  else for (let i = 0; i < impedance.length; i += 2) impedance[i] = Infinity;
+  return null;
 }
 
-/** The second half of `solveNodalSourceFactors`, in JavaScript: the plan's S_i into `out` and Z into `impedance`. */
+/** The second half of `solveNodalSourceFactors`, in JavaScript: the plan's S_i into `out` (zeros for coils it leaves out) and Z into `impedance`. */
 export function solveSourceFactorPlan(prepared: PreparedCircuit, plan: NodalPlan, out: Float64Array[], impedance: Float64Array): void {
+  for (const array of out) array.fill(0);
+  impedance.fill(0);
   solvePlan(prepared, plan, false, out, impedance);
 }
 
-function checkedOutput(prepared: PreparedCircuit, out: Float64Array[] | undefined): Float64Array[] {
+/** `out`, or new arrays, of the grid's length, cleared (`clear`) or as they are. */
+function checkedOutput(prepared: PreparedCircuit, out: Float64Array[] | undefined, clear = true): Float64Array[] {
   const length = 2 * prepared.frequenciesHz.length;
   const coilCount = prepared.guitar.coils.length;
   const result = out ?? Array.from({ length: coilCount }, () => new Float64Array(length));
   let fits = result.length === coilCount;
   for (let c = 0; fits && c < coilCount; c += 1) fits = (result[c] as Float64Array).length === length;
   if (!fits) throw new RangeError(`solveNodalTransfers: out must hold ${coilCount} arrays of length ${length}`);
-  for (const array of result) array.fill(0);
+  if (clear) for (const array of result) array.fill(0);
   return result;
 }
 
