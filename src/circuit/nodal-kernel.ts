@@ -45,14 +45,17 @@ interface NodalExports {
 }
 
 /**
- * Most bins of a grid the kernel takes: what it keeps is 16 bytes a bin for
- * a coil of a coupled pair, 32 for any other coil, 16·g² for a coupling
- * group of g coils, and 16 per coil for its S_i (at this size 4 MB, 8 MB and
- * 16 MB a pair: phrases up to about 5.4 s at 48 kHz); longer grids solve as
- * JavaScript, which keeps nothing (our choice, to keep a render's memory
- * near its own arrays).
+ * Most bins of a grid the kernel takes: the synthesis grid of the demo's
+ * 2^17-point frame (phrases up to about 2.7 s at 48 kHz, 2.9 s at 44.1 kHz).
+ * What it keeps is 16 bytes a bin for a coil of a coupled pair, 32 for any
+ * other coil, 64 for a coupled pair's Y_g, and 16 a coil for the results:
+ * 17 MB a thread for two humbuckers at this size. Longer grids solve as
+ * JavaScript, which keeps nothing, so a render's peak stays where it was
+ * (our choice; measured, 572 wirings of two humbuckers on two threads: a
+ * 4.5 s phrase with the kernel at twice this size 16.7 → 12.4–13.3 s but
+ * peaks 347 → 425 MB, a 6.5 s phrase at four times 531 → 722 MB).
  */
-export const NODAL_KERNEL_MAX_BINS = 2 ** 18 + 1;
+export const NODAL_KERNEL_MAX_BINS = 2 ** 16 + 1;
 
 /** Numbers in one run of a block (solve-blocked.ts: a complex quantity is two runs). */
 const RUN = BLOCK_BINS;
