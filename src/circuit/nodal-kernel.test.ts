@@ -14,7 +14,7 @@ import { describe, expect, it } from 'vitest';
 import { firstBitDifference } from '../../test/support/bit-difference.js';
 import { type Guitar, parseGuitarText } from '../guitar/index.js';
 import { enumerateWirings } from '../wiring/index.js';
-import { graphOfNetwork, phaseClassKey, phaseClassNetwork, prepareCircuit, type PreparedCircuit, usesCoupledCoils } from './index.js';
+import { graphOfNetwork, phaseClassKey, phaseClassNetwork, prepareCircuit, type PreparedCircuit, retuneCircuit, usesCoupledCoils } from './index.js';
 import type { CircuitGraph } from './circuit-graph.js';
 import { NODAL_KERNEL_MAX_BINS, nodalKernelCompiles, solveCoupledSourceFactors } from './nodal-kernel.js';
 import { BLOCK_BINS } from './solve-nodal.js';
@@ -94,6 +94,17 @@ describe('the nodal solve as WebAssembly', () => {
     expect(difference(long, graphs[0] as CircuitGraph)).toBeNull();
     expect(difference(short, graphs[1] as CircuitGraph)).toBeNull();
     expect(difference(long, graphs[2] as CircuitGraph)).toBeNull();
+  });
+
+  it('the same bits for a circuit retuned with another coupling (it keeps the coils\' arrays, so what is kept per group must not be reused)', () => {
+    const guitar = sample('two-humbucker.json');
+    const graphs = coupledGraphs(guitar).slice(0, 2);
+    const prepared = prepareCircuit(guitar, grid(2 * BLOCK_BINS + 1));
+    expect(difference(prepared, graphs[0] as CircuitGraph)).toBeNull();
+    const looser: Guitar = { ...guitar, pickups: guitar.pickups.map((pickup) => ({ ...pickup, coupling: pickup.coupling / 2 })) };
+    const retuned = retuneCircuit(prepared, looser);
+    expect(retuned.coilImpedance).toBe(prepared.coilImpedance);
+    for (const graph of graphs) expect(difference(retuned, graph)).toBeNull();
   });
 
   it('leaves one-block grids and grids past its limit to JavaScript, with the same numbers', () => {

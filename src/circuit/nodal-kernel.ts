@@ -91,7 +91,7 @@ interface GridLayout {
   readonly results: readonly number[];
   /** Per guitar coil and CoilRun (key "coil run"): `blocks` complex runs, made on first need. */
   readonly coilRuns: Map<string, number>;
-  /** Per coupling group (CouplingGroup.coilKey): Y_g, g² complex runs a block, made on first need. */
+  /** Per coupling group (its coils and mutual inductances): Y_g, g² complex runs a block, made on first need. */
   readonly groupRuns: Map<string, number>;
 }
 
@@ -158,7 +158,8 @@ function solveInKernel(kernel: NodalKernel, prepared: PreparedCircuit, plan: Nod
     const stamped = coilRuns(kernel, grid, prepared, coil.coil, coil.group >= 0 ? 'coupled' : 'uncoupled');
     cross(coil.start, coil.finish, coil.start, coil.finish, stamped, blockBytes);
   });
-  const groupBase = groups.map((group, index) => groupRuns(kernel, grid, prepared, plan, group.coilKey, index));
+  // A group's Y_g depends on its coils and their mutual inductances: a circuit retuned with another coupling keeps the coils' arrays.
+  const groupBase = groups.map((group, index) => groupRuns(kernel, grid, prepared, plan, `${group.coilKey} ${group.mutualH.join(' ')}`, index));
   groups.forEach((group, index) => {
     const size = group.members.length;
     for (let j = 0; j < size; j += 1) {
