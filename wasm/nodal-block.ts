@@ -49,6 +49,19 @@ const RUN: usize = <usize>STRIDE << 3;
   }
 }
 
+/** out = a·b over the block, complex: (ar·br − ai·bi) + j(ar·bi + ai·br); `out` may be `a`. */
+@inline function multiplyRuns(out: usize, a: usize, b: usize, pairs: i32): void {
+  for (let k = 0; k < pairs; k += 2) {
+    const o = (<usize>k) << 3;
+    const ar = v128.load(a + o);
+    const ai = v128.load(a + RUN + o);
+    const br = v128.load(b + o);
+    const bi = v128.load(b + RUN + o);
+    v128.store(out + o, f64x2.sub(f64x2.mul(ar, br), f64x2.mul(ai, bi)));
+    v128.store(out + RUN + o, f64x2.add(f64x2.mul(ar, bi), f64x2.mul(ai, br)));
+  }
+}
+
 /**
  * solveBlock (solve-blocked.ts): A·x = b in place, A (n×n) at `matrix`, b
  * then x at `rhs`, the elimination's steps at `rowStart`, `rows`,
@@ -76,16 +89,7 @@ function solveBlock(matrix: usize, rhs: usize, n: i32, rowStart: usize, rows: us
     for (let at = whole(rowStart, col); at < whole(rowStart, col + 1); at++) {
       const r = whole(rows, at);
       // factor = A[r][col] / A[col][col]
-      const entry = realRun(matrix, r * n + col);
-      for (let b = 0; b < pairs; b += 2) {
-        const o = (<usize>b) << 3;
-        const ar = v128.load(entry + o);
-        const ai = v128.load(entry + RUN + o);
-        const ir = v128.load(inverse + o);
-        const ii = v128.load(inverse + RUN + o);
-        v128.store(factor + o, f64x2.sub(f64x2.mul(ar, ir), f64x2.mul(ai, ii)));
-        v128.store(factor + RUN + o, f64x2.add(f64x2.mul(ar, ii), f64x2.mul(ai, ir)));
-      }
+      multiplyRuns(factor, realRun(matrix, r * n + col), inverse, pairs);
       for (let to = whole(columnStart, col); to < whole(columnStart, col + 1); to++) {
         const c = whole(columns, to);
         subtractProduct(realRun(matrix, r * n + c), factor, realRun(matrix, col * n + c), pairs);
@@ -100,16 +104,7 @@ function solveBlock(matrix: usize, rhs: usize, n: i32, rowStart: usize, rows: us
       const c = whole(columns, to);
       subtractProduct(x, realRun(matrix, r * n + c), realRun(rhs, c), pairs);
     }
-    const inverse = realRun(inverses, r);
-    for (let b = 0; b < pairs; b += 2) {
-      const o = (<usize>b) << 3;
-      const sr = v128.load(x + o);
-      const si = v128.load(x + RUN + o);
-      const ir = v128.load(inverse + o);
-      const ii = v128.load(inverse + RUN + o);
-      v128.store(x + o, f64x2.sub(f64x2.mul(sr, ir), f64x2.mul(si, ii)));
-      v128.store(x + RUN + o, f64x2.add(f64x2.mul(sr, ii), f64x2.mul(si, ir)));
-    }
+    multiplyRuns(x, x, realRun(inverses, r), pairs);
   }
   return 0;
 }
