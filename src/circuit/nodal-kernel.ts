@@ -158,8 +158,7 @@ function solveInKernel(kernel: NodalKernel, prepared: PreparedCircuit, plan: Nod
     const stamped = coilRuns(kernel, grid, prepared, coil.coil, coil.group >= 0 ? 'coupled' : 'uncoupled');
     cross(coil.start, coil.finish, coil.start, coil.finish, stamped, blockBytes);
   });
-  // A group's Y_g depends on its coils and their mutual inductances: a circuit retuned with another coupling keeps the coils' arrays.
-  const groupBase = groups.map((group, index) => groupRuns(kernel, grid, prepared, plan, `${group.coilKey} ${group.mutualH.join(' ')}`, index));
+  const groupBase = groups.map((group, index) => groupRuns(kernel, grid, prepared, plan, groupKey(plan, group), index));
   groups.forEach((group, index) => {
     const size = group.members.length;
     for (let j = 0; j < size; j += 1) {
@@ -221,6 +220,15 @@ function solveInKernel(kernel: NodalKernel, prepared: PreparedCircuit, plan: Nod
     if (used[coil] === 0) array.fill(0);
   });
   impedance.set(new Float64Array(buffer, grid.impedance, length));
+}
+
+/**
+ * Which group's Y_g a plan's group needs, whatever graph it came from: its guitar coils in slot order and their
+ * mutual inductances (a circuit retuned with another coupling keeps the coils' arrays, and so this grid).
+ */
+function groupKey(plan: NodalPlan, group: CouplingGroup): string {
+  const coils = group.members.map((member) => (plan.coils[member] as ActiveCoil).coil);
+  return `${coils.join(',')} ${group.mutualH.join(' ')}`;
 }
 
 /** The layout for `prepared`'s grid, kept from the last solve when it is the same grid and its work arrays hold n = `unknowns`. */

@@ -65,8 +65,6 @@ export interface ActiveCoil {
 export interface CouplingGroup {
   /** Positions in the active-coil list. */
   readonly members: readonly number[];
-  /** The members' guitar coil indices in slot order, joined: the same group, whatever graph it came from. */
-  readonly coilKey: string;
   /** Mutual inductance M_jk in henries, g×g row-major, zero diagonal. */
   readonly mutualH: Float64Array;
   /** Branch admittance Y_g per frequency, g×g complex (interleaved), refilled per frequency. */
@@ -330,8 +328,7 @@ function makeGroup(
     mutualH[a * size + b] = mutual;
     mutualH[b * size + a] = mutual;
   }
-  const coilKey = members.map((member) => coilAt[member] as number).join(',');
-  return { members, coilKey, mutualH, admittance: new Float64Array(2 * size * size), scratch: new Float64Array(6 * size * size + 2 * size) };
+  return { members, mutualH, admittance: new Float64Array(2 * size * size), scratch: new Float64Array(6 * size * size + 2 * size) };
 }
 
 /**
