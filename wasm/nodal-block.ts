@@ -19,7 +19,7 @@
 
 import { whole } from './memory';
 
-/** Bins in a block (solve-nodal.ts, BLOCK_BINS); even, so a block is whole lane pairs. */
+/** Bins in a block: solve-nodal.ts's BLOCK_BINS, which the loader lays runs out by (nodal-kernel.test.ts fails if they part); even, so a block is whole lane pairs. */
 const STRIDE: i32 = 256;
 /** Bytes of one run. */
 const RUN: usize = <usize>STRIDE << 3;

@@ -16,7 +16,7 @@ import { type Guitar, parseGuitarText } from '../guitar/index.js';
 import { enumerateWirings } from '../wiring/index.js';
 import { graphOfNetwork, phaseClassKey, phaseClassNetwork, prepareCircuit, type PreparedCircuit, retuneCircuit, usesCoupledCoils } from './index.js';
 import type { CircuitGraph } from './circuit-graph.js';
-import { NODAL_KERNEL_MAX_BINS, nodalKernelCompiles, solveCoupledSourceFactors } from './nodal-kernel.js';
+import { NODAL_KERNEL_MAX_BINS, nodalKernelCompiles, nodalKernelGridBins, solveCoupledSourceFactors } from './nodal-kernel.js';
 import { BLOCK_BINS } from './solve-nodal.js';
 
 const SAMPLES = join(import.meta.dirname, '..', '..', 'samples');
@@ -110,8 +110,14 @@ describe('the nodal solve as WebAssembly', () => {
   it('leaves one-block grids and grids past its limit to JavaScript, with the same numbers', () => {
     const guitar = sample('humbucker-two-single-coil.json');
     const graph = coupledGraphs(guitar)[0] as CircuitGraph;
-    expect(difference(prepareCircuit(guitar, grid(BLOCK_BINS)), graph)).toBeNull();
-    expect(difference(prepareCircuit(guitar, grid(NODAL_KERNEL_MAX_BINS + 1)), graph)).toBeNull();
+    const taken = 2 * BLOCK_BINS + 1;
+    expect(difference(prepareCircuit(guitar, grid(taken)), graph)).toBeNull();
+    expect(nodalKernelGridBins()).toBe(taken);
+    for (const bins of [BLOCK_BINS, NODAL_KERNEL_MAX_BINS + 1]) {
+      expect(difference(prepareCircuit(guitar, grid(bins)), graph)).toBeNull();
+      // The kernel's memory is still laid out for the grid before: it did not take this one.
+      expect(nodalKernelGridBins()).toBe(taken);
+    }
   });
 
   it('refuses a singular nodal matrix as the JavaScript does', () => {

@@ -118,6 +118,11 @@ export function nodalKernelCompiles(): boolean {
   return nodalKernel() !== null;
 }
 
+/** Bins of the grid the kernel last solved on this thread (its memory's layout), null before any: which grids it takes. */
+export function nodalKernelGridBins(): number | null {
+  return kernel?.grid?.bins ?? null;
+}
+
 /**
  * `solveNodalSourceFactors` (solve-nodal.ts) in the form `host` runs: the
  * WebAssembly kernel where it compiles and the grid suits it (see the file
