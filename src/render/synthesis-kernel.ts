@@ -17,8 +17,8 @@
  * on first need (a coil no wiring uses is never read, as the page wants);
  * the load's admittances, copied in when the knobs change; the solve's work
  * arrays. A wiring holding both coils of a coupled pair is solved by nodal
- * analysis in JavaScript (src/circuit/solve-nodal.ts) and its S_i and Z
- * copied in.
+ * analysis (src/circuit/nodal-kernel.ts, a WebAssembly module of its own)
+ * straight into this memory's S_i and Z.
  */
 import {
   type PreparedCircuit,
@@ -124,9 +124,6 @@ export function createSpectrumKernel(guitar: Guitar, spectra: readonly Float64Ar
     coilImpedance: impedanceOf.map((entry) => entry.at),
     length,
   };
-  // Scratch for the nodal solve of coupled pairs, made on first need.
-  let nodal: { readonly products: Float64Array[]; readonly impedance: Float64Array } | undefined;
-
   /** Makes sure `entry` holds `values` (compared by identity: a circuit's arrays do not change once prepared). */
   const hold = (entry: Resident, values: Float64Array): void => {
     if (entry.from === values) return;
@@ -136,10 +133,9 @@ export function createSpectrumKernel(guitar: Guitar, spectra: readonly Float64Ar
 
   const solveProducts = (circuit: PreparedCircuit, representative: Network): void => {
     if (usesCoupledCoils(guitar, representative)) {
-      nodal ??= { products: guitar.coils.map(() => new Float64Array(length)), impedance: new Float64Array(length) };
-      solveSourceFactors(circuit, representative, nodal.products, nodal.impedance);
-      nodal.products.forEach((values, coil) => new Float64Array(memory.buffer, products[coil] as number, length).set(values));
-      new Float64Array(memory.buffer, impedance, length).set(nodal.impedance);
+      // Solved straight into this memory (the nodal solve allocates nothing here, so the views stay valid).
+      const view = (at: number): Float64Array => new Float64Array(memory.buffer, at, length);
+      solveSourceFactors(circuit, representative, products.map(view), view(impedance));
     } else {
       for (let coil = 0; coil < coilCount; coil += 1) {
         hold(source[coil] as Resident, circuit.coilSource[coil] as Float64Array);
