@@ -272,10 +272,20 @@ async function renderWith(request: RenderRequest, events: RenderEvents, analysis
   // keeps the second core busy: a worker would only compete with it (measured, five coils, 9,997 wirings, render
   // --no-wav: 12.0 and 14.7 s, peak 377 and 379 MB, on this thread; 13.4 and 15.2 s, 417 and 431 MB, with a worker).
   const passThreads = analysis.onThread && passItems.every((item) => !item.audio) ? 1 : (request.threads ?? defaultThreadCount());
-  const results = await runRenderPassOnThreads(settings, passItems, scratch, passThreads, () => {
-    step += 1;
-    events.onStep?.(step, passItems.length);
-  });
+  // With the analysis on a thread of its own, the pass's worker starts once that thread is done (run-render-pass.ts).
+  const analysisDone = analysis.onThread ? analysis.result() : undefined;
+  const results = await runRenderPassOnThreads(
+    settings,
+    passItems,
+    scratch,
+    passThreads,
+    () => {
+      step += 1;
+      events.onStep?.(step, passItems.length);
+    },
+    undefined,
+    analysisDone,
+  );
   for (const result of results) {
     const entry = entries[expressionOf.get(result.id) ?? ''] as Entry;
     const hash = hashes.get(result.id);

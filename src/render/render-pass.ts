@@ -221,6 +221,22 @@ export function runRenderPass(
   return runRenderPassWith(createWiringRenderer(settings), settings, items, scratchFolder, onStep);
 }
 
+/**
+ * A share of a pass given away while it runs (run-render-pass.ts: to a worker
+ * thread started once a core is free). After each wiring the pass awaits
+ * `between` (where the news that a core is free can come in) and asks
+ * `ready`; once it says yes, the pass calls `take` once with the wirings it
+ * has not started, in the order it would make them, and whether it holds its
+ * audio in memory (undefined: no audio made yet). `take` answers how many
+ * from the front the pass keeps; the rest are no longer its own, and their
+ * places in its results stay empty.
+ */
+export interface PassHandOff {
+  between(): Promise<void>;
+  ready(): boolean;
+  take(rest: readonly PassItem[], holdingAll: boolean | undefined): number;
+}
+
 /** The first pass with a given renderer (tests give one of their own), `depth` wirings' audio in flight at most. */
 export async function runRenderPassWith(
   renderer: WiringRenderer,
@@ -229,6 +245,7 @@ export async function runRenderPassWith(
   scratchFolder: string,
   onStep?: (result: PassResult) => void,
   depth = AUDIO_IN_FLIGHT[settings.chain],
+  handOff?: PassHandOff,
 ): Promise<PassResult[]> {
   // Figures first, phase class by phase class (cheap: no render); then each wiring's file audio.
   const measured = items.filter((item) => item.metrics);
@@ -246,7 +263,11 @@ export async function runRenderPassWith(
   // Items are made phase class by phase class (classOrder), so each class's circuit is solved once: a synthesis keeps
   // the products of the last class it solved (wiring-spectrum.ts). The results keep the order of `items`.
   const order = classOrder(settings.guitar, items);
+  // Positions from `end` on were handed off (handOff), or there are none.
+  let end = order.length;
+  let offered = handOff === undefined;
   const start = (position: number): void => {
+    if (position >= end) return;
     const index = order[position];
     const item = index === undefined ? undefined : items[index];
     if (item === undefined || index === undefined) return;
@@ -263,7 +284,8 @@ export async function runRenderPassWith(
   };
   const byItem: PassResult[] = [];
   for (let position = 0; position < Math.min(depth, items.length); position += 1) start(position);
-  for (const [position, index] of order.entries()) {
+  for (let position = 0; position < end; position += 1) {
+    const index = order[position] as number;
     const item = items[index] as PassItem;
     const metrics = figuresOf.get(item.id);
     let audio: PassResult['audio'];
@@ -312,6 +334,12 @@ export async function runRenderPassWith(
     onStep?.(result);
     // The next wiring starts once this one is parked: its synthesis may reuse this one's buffer.
     start(position + depth);
+    if (!offered && handOff !== undefined) await handOff.between();
+    if (!offered && handOff?.ready() === true) {
+      offered = true;
+      const first = Math.min(end, position + depth + 1);
+      end = first + handOff.take(order.slice(first, end).map((at) => items[at] as PassItem), holdAll);
+    }
   }
   return byItem;
 }

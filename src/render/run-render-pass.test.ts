@@ -7,8 +7,8 @@ import { phaseClassKey } from '../circuit/index.js';
 import { builtInPhrase } from '../string/index.js';
 import { enumerateWirings } from '../wiring/index.js';
 import { WorkError } from '../errors/index.js';
-import { type AudioSettings, type PassItem, type WiringRenderer, classOrder, runRenderPassWith } from './render-pass.js';
-import { runRenderPassOnThreads, splitByShape } from './run-render-pass.js';
+import { type AudioSettings, type PassHandOff, type PassItem, type WiringRenderer, classOrder, runRenderPassWith } from './render-pass.js';
+import { OWN_SHARE_WEIGHT, keptOnHandOff, runRenderPassOnThreads, splitByShape } from './run-render-pass.js';
 import { shapeKey } from '../wiring/index.js';
 
 const guitar = parseGuitarText(readFileSync(join(import.meta.dirname, '..', '..', 'samples', 'humbucker-two-single-coil.json'), 'utf8'));
@@ -170,5 +170,85 @@ describe('runRenderPassWith: phase class by phase class', () => {
     expect(made).toEqual(order.map((index) => (all[index] as PassItem).id));
     expect(results.map((result) => result.id)).toEqual(all.map((item) => item.id));
     results.forEach((result, index) => expect(result.samples?.[0]).toBe(index));
+  });
+});
+
+describe('runRenderPassWith: a share handed off while it runs', () => {
+  const all = enumerateWirings(guitar.elements).map((wiring) => ({ id: wiring.id, network: wiring.network, metrics: false, audio: true }));
+  const renderer = (made: string[]): WiringRenderer => ({
+    sampleRateHz: settings.sampleRateHz,
+    figures: () => [],
+    processed: async (_network, name) => {
+      made.push(name ?? '');
+      return Float32Array.of(all.findIndex((item) => item.id === name));
+    },
+  });
+
+  it('offers the wirings not yet started, once, after the first wiring that finds the core free, and makes only those it keeps', async () => {
+    const made: string[] = [];
+    const offers: string[][] = [];
+    let waits = 0;
+    const handOff: PassHandOff = {
+      between: async () => {
+        waits += 1;
+      },
+      // Free once five wirings are started; the pass keeps ten of what is left.
+      ready: () => made.length >= 5,
+      take: (rest, holdingAll) => {
+        offers.push(rest.map((item) => item.id));
+        expect(holdingAll).toBe(true);
+        return 10;
+      },
+    };
+    const folder = mkdtempSync(join(tmpdir(), 'coilbench-pass-'));
+    folders.push(folder);
+    const depth = 2;
+    const results = await runRenderPassWith(renderer(made), { ...settings, parkInMemoryBytes: 1 << 20 }, all, folder, undefined, depth, handOff);
+    const order = classOrder(guitar, all).map((index) => (all[index] as PassItem).id);
+    // With two in flight, five are started when the third ends: it waits after the first three, offers the rest
+    // once, and makes the ten it keeps after the five started.
+    expect(waits).toBe(3);
+    expect(offers).toEqual([order.slice(5)]);
+    expect(made).toEqual(order.slice(0, 15));
+    const kept = new Set(made);
+    results.forEach((result, index) => {
+      if (kept.has(all[index]?.id ?? '')) expect(result.samples?.[0]).toBe(index);
+      else expect(result).toBeUndefined();
+    });
+  });
+
+  it('keeps all when the rest is too little for a worker, else about OWN_SHARE_WEIGHT parts in whole phase classes', () => {
+    const order = classOrder(guitar, all).map((index) => all[index] as PassItem);
+    expect(keptOnHandOff(guitar, order, order.length + 1)).toBe(order.length);
+    const kept = keptOnHandOff(guitar, order, 50);
+    const keys = order.map((item) => phaseClassKey(guitar, item.network));
+    // No class on both sides of the cut, and the cut is the first class end past the share.
+    expect(keys[kept]).not.toBe(keys[kept - 1]);
+    // Every wiring weighs the same here: the share is OWN_SHARE_WEIGHT / (OWN_SHARE_WEIGHT + 1) of the count.
+    const share = Math.ceil((order.length * OWN_SHARE_WEIGHT) / (OWN_SHARE_WEIGHT + 1));
+    const classEnd = keys.findIndex((key, index) => index >= share && key !== keys[index - 1]);
+    expect(kept).toBe(classEnd);
+    expect(kept).toBeLessThan(order.length);
+  });
+
+  it('gives the same results and audio bytes when a worker takes part of the pass once the core is free', async () => {
+    const direct: AudioSettings = { ...settings, chain: 'direct', hum: null };
+    const audioItems = items.slice(0, 16).map((item) => ({ ...item, audio: true }));
+    const [one, two] = [mkdtempSync(join(tmpdir(), 'coilbench-pass-')), mkdtempSync(join(tmpdir(), 'coilbench-pass-'))];
+    folders.push(one, two);
+    const single = await runRenderPassOnThreads(direct, audioItems, one, 1);
+    let steps = 0;
+    // The core is free from the start: the worker takes its share after the first wiring (at least 4 wirings a
+    // thread), a share there is (the cut is not at the end).
+    const minItems = 4;
+    const rest = classOrder(guitar, audioItems).slice(1).map((index) => audioItems[index] as PassItem);
+    expect(keptOnHandOff(guitar, rest, minItems)).toBeLessThan(rest.length);
+    const split = await runRenderPassOnThreads(direct, audioItems, two, 2, () => (steps += 1), minItems, Promise.resolve());
+    expect(steps).toBe(audioItems.length);
+    expect(split.map((result) => result.id)).toEqual(audioItems.map((item) => item.id));
+    split.forEach((result, index) => {
+      expect(result.audio).toEqual(single[index]?.audio);
+      expect(readFileSync(result.scratch ?? '').equals(readFileSync(single[index]?.scratch ?? ''))).toBe(true);
+    });
   });
 });

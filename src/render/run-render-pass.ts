@@ -6,7 +6,9 @@
  * output is the same, byte for byte, however it is split.
  */
 import type { Worker } from 'node:worker_threads';
-import { type AudioSettings, type PassItem, type PassResult, runRenderPass } from './render-pass.js';
+import { phaseClassKey } from '../circuit/index.js';
+import type { Guitar } from '../guitar/index.js';
+import { type AudioSettings, type PassHandOff, type PassItem, type PassResult, createWiringRenderer, runRenderPass, runRenderPassWith } from './render-pass.js';
 import type { WorkerJob, WorkerMessage } from './render-worker.js';
 import { shapeKey } from '../wiring/index.js';
 import { minOf, appendAll } from '../math/index.js';
@@ -91,7 +93,43 @@ function runInWorker(job: WorkerJob, onStep: () => void, workers: Worker[]): Pro
   });
 }
 
-/** Run the first pass on up to `threads` threads; results in the order of `items`. */
+/** Most time between two looks for a freed core during a pass, ms (judgement: a worker started 50 ms late costs little; a turn of the event loop costs microseconds). */
+export const HAND_OFF_CHECK_MS = 50;
+
+/**
+ * How many of `rest` (a pass's wirings not yet started, phase class by phase
+ * class) the pass keeps when it gives the others to a worker starting now:
+ * none given when they weigh under `minItemsPerThread`; else the pass keeps
+ * OWN_SHARE_WEIGHT parts to the worker's one (the worker starts cold), cut
+ * where a phase class ends so that no class is solved on both threads.
+ */
+export function keptOnHandOff(guitar: Guitar, rest: readonly PassItem[], minItemsPerThread: number): number {
+  const weights = rest.map(itemWeight);
+  const total = weights.reduce((sum, weight) => sum + weight, 0);
+  if (total < minItemsPerThread) return rest.length;
+  const keep = (total * OWN_SHARE_WEIGHT) / (OWN_SHARE_WEIGHT + 1);
+  let kept = 0;
+  let cut = 0;
+  while (cut < rest.length && kept < keep) {
+    kept += weights[cut] as number;
+    cut += 1;
+  }
+  const classOf = (item: PassItem | undefined): string | undefined => (item === undefined ? undefined : phaseClassKey(guitar, item.network));
+  while (cut < rest.length && classOf(rest[cut]) === classOf(rest[cut - 1])) cut += 1;
+  return cut;
+}
+
+/**
+ * Run the first pass on up to `threads` threads; results in the order of `items`.
+ *
+ * `coreFreed`, when given, settles once another thread of the render (its
+ * analysis) has finished with a core: the pass then starts on this thread
+ * alone, and a worker takes part of what is left at that moment
+ * (keptOnHandOff). Three threads on two cores gained nothing over two, and
+ * each render thread holds its own synthesis (measured, five coils, 9,997
+ * wirings direct: about 70 MB of WebAssembly memory a render thread).
+ * Without it the wirings are split at the start (splitByShape).
+ */
 export async function runRenderPassOnThreads(
   settings: AudioSettings,
   items: readonly PassItem[],
@@ -99,10 +137,12 @@ export async function runRenderPassOnThreads(
   threads: number,
   onStep?: () => void,
   minItemsPerThread = MIN_ITEMS_PER_THREAD,
+  coreFreed?: Promise<unknown>,
 ): Promise<PassResult[]> {
   const work = items.reduce((sum, item) => sum + itemWeight(item), 0);
   const parts = Math.max(1, Math.min(threads, Math.floor(work / minItemsPerThread)));
   if (parts <= 1) return runRenderPass(settings, items, scratchFolder, () => onStep?.());
+  if (coreFreed !== undefined && parts === 2) return runRenderPassHandingOff(settings, items, scratchFolder, coreFreed, onStep, minItemsPerThread);
   const [own = [], ...others] = splitByShape(items, parts, OWN_SHARE_WEIGHT);
   // The in-memory allowance is the render's, shared by its threads.
   const shared: AudioSettings = { ...settings, parkInMemoryBytes: Math.floor((settings.parkInMemoryBytes ?? 0) / parts) };
@@ -119,5 +159,56 @@ export async function runRenderPassOnThreads(
     throw error;
   }
   const byId = new Map(batches.flat().map((result) => [result.id, result]));
+  return items.map((item) => byId.get(item.id) as PassResult);
+}
+
+/** The pass on this thread, part of what is left handed to one worker once `coreFreed` settles (runRenderPassOnThreads). */
+async function runRenderPassHandingOff(
+  settings: AudioSettings,
+  items: readonly PassItem[],
+  scratchFolder: string,
+  coreFreed: Promise<unknown>,
+  onStep: (() => void) | undefined,
+  minItemsPerThread: number,
+): Promise<PassResult[]> {
+  let free = false;
+  coreFreed.then(
+    () => (free = true),
+    () => (free = true),
+  );
+  const step = (): void => onStep?.();
+  const workers: Worker[] = [];
+  const handed: { results?: Promise<PassResult[]> } = {};
+  let lastTurn = performance.now();
+  const handOff: PassHandOff = {
+    // A worker's message arrives only on a turn of the event loop, which a pass of direct wirings (no real waits) never takes.
+    between: async () => {
+      if (performance.now() - lastTurn < HAND_OFF_CHECK_MS) return;
+      await new Promise<void>((resolve) => setImmediate(resolve));
+      lastTurn = performance.now();
+    },
+    ready: () => free,
+    take: (rest, holdingAll) => {
+      const kept = keptOnHandOff(settings.guitar, rest, minItemsPerThread);
+      if (kept < rest.length) {
+        // The worker holds its audio in memory as this thread does (the render's allowance covers all of it), or parks it all.
+        const shared: AudioSettings = { ...settings, parkInMemoryBytes: holdingAll === false ? 0 : (settings.parkInMemoryBytes ?? 0) };
+        handed.results = runInWorker({ settings: shared, items: rest.slice(kept), scratchFolder }, step, workers);
+        // Awaited below, after this thread's share: a failure meanwhile must not be an unhandled rejection.
+        handed.results.catch(() => undefined);
+      }
+      return kept;
+    },
+  };
+  let own: PassResult[];
+  let others: PassResult[] = [];
+  try {
+    own = await runRenderPassWith(createWiringRenderer(settings), settings, items, scratchFolder, step, undefined, handOff);
+    if (handed.results !== undefined) others = await handed.results;
+  } catch (error) {
+    await Promise.all(workers.map((worker) => worker.terminate()));
+    throw error;
+  }
+  const byId = new Map([...own, ...others].filter((result) => result !== undefined).map((result) => [result.id, result]));
   return items.map((item) => byId.get(item.id) as PassResult);
 }
