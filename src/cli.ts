@@ -1,18 +1,24 @@
-#!/usr/bin/env -S MALLOC_MMAP_THRESHOLD_=131072 node
+#!/usr/bin/env -S MALLOC_MMAP_THRESHOLD_=1048576 MALLOC_TRIM_THRESHOLD_=2097152 node
 /**
  * Entry point for the `coilbench` command.
  *
- * The first line starts Node with glibc's mmap threshold fixed at its default,
- * 128 KiB (mallopt(3), M_MMAP_THRESHOLD; `env -S` splits the line, GNU
- * coreutils 8.30 or later, or BSD/macOS env). Left to itself, glibc raises
- * the threshold to the size of each large block freed, so the render's audio
- * buffers and spectra (0.4–3 MB) come from per-thread arenas that keep their
- * pages once the thread that used them is done; fixed, each such buffer is
- * its own mapping, given back when freed. Measured on the 2-core machine,
- * five coils, 9,997 wirings rendered direct: 431–475 MB peak without it,
- * DEVELOPERS.md has the figures with it. Elsewhere (another C library, or
- * `node dist/cli.js` started by hand) the variable is ignored or absent, and
- * only the memory figures change.
+ * The first line starts Node with glibc's mmap threshold fixed at 1 MiB and
+ * its trim threshold at twice that, the ratio glibc keeps when it moves the
+ * threshold itself (mallopt(3), M_MMAP_THRESHOLD and M_TRIM_THRESHOLD; `env
+ * -S` splits the line, GNU coreutils 8.30 or later, or BSD/macOS env).
+ *
+ * Why fixed: left to itself, glibc raises the threshold to the size of each
+ * large block freed (up to 32 MiB), so the spectra and tables of a render
+ * (1–3 MB) come from per-thread arenas that keep their pages once the thread
+ * that used them is done. Why not lower: below the threshold a freed block
+ * is reused by the next one of its size, where a block of its own costs the
+ * kernel's zeroing of every page on first touch (0.4–0.5 MB of audio or WAV
+ * bytes a wiring, 1.3 ms each on the 2-core machine). Measured there, five
+ * coils, 9,997 wirings rendered direct: at 128 KiB 58–82 s and 367–381 MB
+ * peak, at this setting 49–54 s and 365–371 MB, at 4 MiB 51–56 s and
+ * 397–411 MB (DEVELOPERS.md has the rest). Elsewhere (another C library, or
+ * `node dist/cli.js` started by hand) the variables are ignored or absent,
+ * and only the speed and memory figures change.
  */
 import { main, processIo } from './cli/index.js';
 import { installInterruptHandlers } from './cli/interrupt.js';
