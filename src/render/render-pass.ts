@@ -29,6 +29,7 @@ import {
 } from './measure-wiring-audio.js';
 import { PEAK_CEILING_DB } from './plan-gains.js';
 import { samplePasses } from './sample-passes.js';
+import { audioWithHeaderRoom } from './wav-file.js';
 import { type CoilSignals, type WiringSynthesis, assertAudible, prepareWiringSynthesis } from './synthesize-wirings.js';
 
 export interface HumMix {
@@ -142,7 +143,8 @@ export function createWiringRenderer(settings: AudioSettings): WiringRenderer {
     figures: (networks) => (networks.length === 0 ? [] : measureFiguresByClass(settings.guitar, referenceFigures(), networks)),
     async processed(network, name, into) {
       const synthesis = fileSynthesis();
-      const audio = synthesis.synthesize(network, into !== undefined && into.length === synthesis.length ? into : undefined);
+      // A fresh buffer has room before it for the WAV header, so that the second pass can make the file over it (wav-file.ts).
+      const audio = synthesis.synthesize(network, into !== undefined && into.length === synthesis.length ? into : audioWithHeaderRoom(synthesis.length));
       if (settings.hum) {
         const hum = synthesis.synthesizeHum(network, settings.hum.mainsHz, settings.hum.emfVolts);
         for (let n = 0; n < audio.length; n += 1) audio[n] = (audio[n] as number) + (hum[n] as number);

@@ -8,7 +8,7 @@ import { WaveFile } from 'wavefile';
 import { describe, expect, it } from 'vitest';
 import { pluckedTone } from '../../test/support/signals.js';
 import { InputError } from '../errors/index.js';
-import { type WavFormat, encodeWav, pcmFullScale, quantizeSample } from './wav-file.js';
+import { WAV_HEADER_ROOM_BYTES, type WavFormat, audioWithHeaderRoom, encodeWav, encodeWavOver, pcmFullScale, quantizeSample } from './wav-file.js';
 
 /** The fields wavefile exposes after parsing (its types declare them as plain objects). */
 interface ParsedWav {
@@ -187,5 +187,54 @@ describe('encodeWav layout', () => {
     expect(() => encodeWav([samples, new Float32Array(3)])).toThrow(/channels\[1\]: expected 4 samples/u);
     expect(() => encodeWav([])).toThrow(InputError);
     expect(() => encodeWav(Float32Array.from([0, Number.NaN]))).toThrow(/channels\[0\]\[1\]: expected a finite sample/u);
+  });
+});
+
+describe('encodeWavOver: the file made over the samples', () => {
+  const tone = pluckedTone({ sampleRateHz: 48_000, durationS: 0.05, fundamentalsHz: [196], noteTimesS: [0], harmonics: 12, decayS: 0.5, amplitude: 0.9, seed: 9 });
+  const info = { name: 'neck + ~bridge', comment: 'an odd-length comment.', software: 'coilbench test' };
+
+  /** The samples in a buffer with header room, its bytes outside the samples set to 0xa5 (a reused buffer's leftovers). */
+  function held(samples: Float32Array): Float32Array {
+    const audio = audioWithHeaderRoom(samples.length);
+    new Uint8Array(audio.buffer).fill(0xa5);
+    audio.set(samples);
+    return audio;
+  }
+
+  for (const format of ['pcm16', 'pcm24', 'f32'] as const) {
+    for (const length of [tone.length, tone.length - 1]) {
+      it(`gives encodeWav's bytes, in the samples' own memory (${format}, ${length % 2 === 0 ? 'even' : 'odd'} sample count)`, () => {
+        const samples = tone.subarray(0, length);
+        const expected = encodeWav(Float32Array.from(samples), { format, info });
+        const audio = held(samples);
+        const bytes = encodeWavOver(audio, { format, info });
+        expect(bytes.buffer).toBe(audio.buffer);
+        // The data starts where the samples started; the header sits in the room before them.
+        expect(bytes.byteOffset).toBe(WAV_HEADER_ROOM_BYTES - (expected.length - BYTES_PER_SAMPLE[format] * length - (format === 'pcm24' ? length % 2 : 0)));
+        expect(Buffer.from(bytes).equals(Buffer.from(expected))).toBe(true);
+      });
+    }
+  }
+
+  it('makes the file in fresh memory, the samples untouched, without room or with a header past the room', () => {
+    const plain = Float32Array.from(tone);
+    const bytes = encodeWavOver(plain, { info });
+    expect(bytes.buffer).not.toBe(plain.buffer);
+    expect(plain).toEqual(tone);
+    const audio = held(tone);
+    const long = { ...info, comment: 'x'.repeat(WAV_HEADER_ROOM_BYTES) };
+    const fresh = encodeWavOver(audio, { info: long });
+    expect(fresh.buffer).not.toBe(audio.buffer);
+    expect(audio).toEqual(tone);
+    expect(Buffer.from(fresh).equals(Buffer.from(encodeWav(tone, { info: long })))).toBe(true);
+  });
+
+  it('refuses a sample that is not finite, wherever it is', () => {
+    for (const at of [0, tone.length - 1]) {
+      const audio = held(tone);
+      audio[at] = Number.NaN;
+      expect(() => encodeWavOver(audio, { info })).toThrow(InputError);
+    }
   });
 });

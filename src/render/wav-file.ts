@@ -160,11 +160,44 @@ function writeFourCc(bytes: Uint8Array, offset: number, id: string): void {
 }
 
 /**
+ * Bytes left free before a held audio buffer's samples (audioWithHeaderRoom),
+ * so that its WAV file can be made over it (encodeWavOver): a file's header
+ * is 44 bytes and its INFO text (about 100–300 bytes for a wiring's name and
+ * description); a page is room for any of ours, and a file whose header would
+ * not fit is made in fresh memory instead.
+ */
+export const WAV_HEADER_ROOM_BYTES = 4096;
+
+/** A float32 buffer of `length` samples with WAV_HEADER_ROOM_BYTES free before them in its memory. */
+export function audioWithHeaderRoom(length: number): Float32Array {
+  return new Float32Array(new ArrayBuffer(WAV_HEADER_ROOM_BYTES + length * Float32Array.BYTES_PER_ELEMENT), WAV_HEADER_ROOM_BYTES, length);
+}
+
+/**
  * Encode `audio` as a WAV file: see the file comment for the layout, clipping
  * and rounding. Throws InputError for a bad option, channels of different
  * lengths, a non-finite sample, or a file that would not fit in 4 GiB.
  */
 export function encodeWav(audio: AudioChannels, options: Partial<WavOptions> = {}): Uint8Array {
+  return encodeInto(audio, options, false);
+}
+
+/**
+ * The same bytes as encodeWav, made over the samples themselves when `audio`
+ * has room before it for the header (audioWithHeaderRoom): the file is a
+ * view of the samples' own memory, its data starting where the samples
+ * start, and the samples are lost. Each sample is read before any byte at
+ * or past it is written (a sample takes 2, 3 or 4 bytes in the file against
+ * 4 in the buffer), so the bytes are the same as encodeWav's. A render
+ * makes each wiring's file this way once its audio is no longer needed: no
+ * fresh memory for the file (0.4 MB a wiring at the demo's length, which the
+ * kernel zeroes page by page). Without the room it is encodeWav.
+ */
+export function encodeWavOver(audio: Float32Array, options: Partial<WavOptions> = {}): Uint8Array {
+  return encodeInto(audio, options, true);
+}
+
+function encodeInto(audio: AudioChannels, options: Partial<WavOptions>, over: boolean): Uint8Array {
   const { sampleRateHz, format, info } = resolveOptions(options);
   const channels = channelsOf(audio);
   if (channels.length === 0) throw InputError.at('channels', 'at least one channel of samples', []);
@@ -190,8 +223,11 @@ export function encodeWav(audio: AudioChannels, options: Partial<WavOptions> = {
     throw InputError.at('channels', 'audio that fits a WAV file (under 4 GiB)', `${frames} frames × ${channels.length} channels`);
   }
 
-  const bytes = new Uint8Array(fileBytes);
-  const view = new DataView(bytes.buffer);
+  const headerBytes = fileBytes - even(dataBytes);
+  // Over the samples: only a mono float32 buffer with room for the header before it (a sample's bytes never pass its own four).
+  const inPlace = over && ArrayBuffer.isView(audio) && audio instanceof Float32Array && coding.bytesPerSample <= Float32Array.BYTES_PER_ELEMENT && audio.byteOffset >= headerBytes;
+  const bytes = inPlace ? new Uint8Array(audio.buffer, audio.byteOffset - headerBytes, fileBytes) : new Uint8Array(fileBytes);
+  const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   let offset = 0;
   const chunkHeader = (id: string, size: number): void => {
     writeFourCc(bytes, offset, id);
@@ -227,7 +263,9 @@ export function encodeWav(audio: AudioChannels, options: Partial<WavOptions> = {
 
   chunkHeader('data', dataBytes);
   writeSamples(channels, format, bytes, view, offset);
-  return bytes; // a pad byte after odd data is already zero
+  // A pad byte after odd data: already zero in fresh memory, a sample's byte when made over the samples.
+  if (dataBytes % 2 === 1) bytes[fileBytes - 1] = 0;
+  return bytes;
 }
 
 function writeSamples(
@@ -254,6 +292,8 @@ function writeSamples(
             : writePcm24(channel, bytes, first, stride, fullScale);
     if (unfinite !== 0) {
       const n = channel.findIndex((sample) => !Number.isFinite(sample));
+      // Made over the samples (encodeWavOver), the bad one may already be written over: the channel is named alone.
+      if (n < 0) throw InputError.at(`channels[${channelIndex}]`, 'finite samples', 'a sample that is not finite');
       throw InputError.at(`channels[${channelIndex}][${n}]`, 'a finite sample', channel[n]);
     }
   });
