@@ -26,6 +26,7 @@ import type { ChainDesign } from './chain-design.js';
 import { type ChainContext, connectChainDesign } from './connect-chain-design.js';
 import { type BufferSource, type RenderingContext, awaitRenderedBuffer } from './await-rendered-buffer.js';
 import { runChainDesign } from './run-chain-design.js';
+import { audioWithHeaderRoom } from './wav-file.js';
 
 type Context = InstanceType<typeof OfflineAudioContext>;
 type ContextClass = typeof OfflineAudioContext;
@@ -89,7 +90,8 @@ export async function renderGraphDesign(
   design: ChainDesign,
   onBufferSource?: (source: BufferSource) => void,
 ): Promise<Float32Array> {
-  const output = new Float32Array(samples.length);
+  // With room for a WAV header before it, as runChainDesign's own signal has (wav-file.ts, encodeWavOver).
+  const output = audioWithHeaderRoom(samples.length);
   if (samples.length === 0) return output;
   const context = await prepareGraphContext(samples, design);
   const { buffer: rendered, source: from } = await awaitRenderedBuffer(context as unknown as RenderingContext);

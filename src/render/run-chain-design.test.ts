@@ -13,6 +13,7 @@ import { resolveChainOptions } from './chain-options.js';
 import { designCompressor, renderCompressor } from './render-compressor.js';
 import { prepareChainContext, renderChainDesign, renderGraphDesign } from './render-chain-design.js';
 import { isGraphStage, runChainDesign } from './run-chain-design.js';
+import { WAV_HEADER_ROOM_BYTES, encodeWav, encodeWavOver } from './wav-file.js';
 
 /** `design` with every stage a Web Audio node, as one graph: the input and latency zeros played, the delay cut. */
 async function renderAsOneGraph(samples: Float32Array, design: ChainDesign): Promise<Float32Array> {
@@ -79,5 +80,22 @@ describe('what goes to the audio graph', () => {
     for (const chain of ['clean', 'compressed', 'drive'] as const) await runChainDesign(take, designEffectsChain(chain, resolveChainOptions(), 48_000), spy);
     expect(calls).toEqual([['shaper']]);
     expect(designEffectsChain('drive', resolveChainOptions(), 48_000).stages.filter(isGraphStage)).toHaveLength(1);
+  });
+});
+
+describe('runChainDesign: output a WAV can be made over', () => {
+  it('gives each chain its own memory with room for a WAV header before it, and encodeWavOver the same bytes as encodeWav', async () => {
+    const sampleRateHz = 48_000;
+    const take = makeTake(sampleRateHz, 37);
+    for (const name of ['clean', 'compressed', 'drive'] as const) {
+      const design = designEffectsChain(name, resolveChainOptions({}), sampleRateHz);
+      const output = await renderChainDesign(take, design);
+      expect(output.buffer).not.toBe(take.buffer);
+      expect(output.byteOffset).toBeGreaterThanOrEqual(WAV_HEADER_ROOM_BYTES);
+      const expected = encodeWav(Float32Array.from(output), { info: { name: 'neck + bridge', comment: `${name} chain` } });
+      const bytes = encodeWavOver(output, { info: { name: 'neck + bridge', comment: `${name} chain` } });
+      expect(bytes.buffer).toBe(output.buffer);
+      expect(Buffer.from(bytes).equals(Buffer.from(expected))).toBe(true);
+    }
   });
 });

@@ -28,6 +28,7 @@
 import { type ChainDesign, type ChainStage, RENDER_QUANTUM_FRAMES, measureDesignLatencyFrames } from './chain-design.js';
 import { type LinearStage, linearStages } from './linear-stages.js';
 import { designCompressor, renderCompressor } from './render-compressor.js';
+import { audioWithHeaderRoom } from './wav-file.js';
 
 /**
  * How a host renders a design whose stages are all Web Audio nodes: it plays
@@ -49,13 +50,15 @@ export function isGraphStage(stage: ChainStage): stage is GraphStage {
   return stage.kind === 'shaper';
 }
 
-/** Render mono `samples` through `design`; a new array of the same length (the input is not modified). */
+/** Render mono `samples` through `design`; a new array of the same length, in memory of its own (the input is not modified). */
 export async function runChainDesign(samples: Float32Array, design: ChainDesign, renderGraph: RenderGraph): Promise<Float32Array> {
   if (samples.length === 0) return new Float32Array(0);
   const latency = design.latencyFrames;
   const graphed = design.stages.some(isGraphStage);
   const frames = graphed ? wholeQuanta(samples.length + latency) : samples.length + latency;
-  let signal: Float32Array = new Float32Array(frames); // the input, then zeros (see above)
+  // The input, then zeros (see above), with room before it for a WAV header: the render makes the file over the output
+  // (wav-file.ts, encodeWavOver), which is a view of this memory past the delay, not a copy.
+  let signal: Float32Array = audioWithHeaderRoom(frames);
   signal.set(samples);
   // Each run of gains and biquads goes to linear-stages.ts in one pass, each run of graph stages to one render of the
   // host; a run is handed over when a stage of another kind comes.
@@ -85,5 +88,5 @@ export async function runChainDesign(samples: Float32Array, design: ChainDesign,
   }
   runLinear();
   await runGraph();
-  return signal.length === samples.length ? signal : signal.slice(latency, latency + samples.length);
+  return signal.length === samples.length ? signal : signal.subarray(latency, latency + samples.length);
 }
