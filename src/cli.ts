@@ -15,8 +15,8 @@
  * kernel's zeroing of every page on first touch (0.4–0.5 MB of audio or WAV
  * bytes a wiring, 1.3 ms each on the 2-core machine). Measured there, five
  * coils, 9,997 wirings rendered direct: at 128 KiB 58 s (72–82 s with other
- * work beside it) and 367–381 MB peak, at this setting 49–54 s and 365–371 MB, at 4 MiB 51–56 s and
- * 397–411 MB (DEVELOPERS.md has the rest). Elsewhere (another C library, or
+ * work beside it) and 367–381 MB peak, at this setting 49–54 s and
+ * 365–371 MB, at 4 MiB 51–56 s and 397–411 MB (DEVELOPERS.md has the rest). Elsewhere (another C library, or
  * `node dist/cli.js` started by hand) the variables are ignored or absent,
  * and only the speed and memory figures change.
  */
