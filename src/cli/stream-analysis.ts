@@ -19,13 +19,12 @@ import type { CircuitMetricsSolver, CircuitOverrides } from '../circuit/index.js
 import { type InputProblem, problemAt } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
 import { formatCount } from '../units/index.js';
-import { type AtomicFileStream, openFileAtomicSync, removeStaleTempFiles } from '../render/measuring/index.js';
+import { type AtomicFileStream, createPause, openFileAtomicSync, removeStaleTempFiles } from '../render/measuring/index.js';
 import { invertAll, planWiringSubsets, printNetwork, type Network } from '../wiring/index.js';
 import { wiringRecord } from './commands/wirings.js';
 import { renderTableLine } from './format-table.js';
 import type { Io } from './io.js';
 import { type AnalyzedWiring, METRIC_COLUMNS, renderCsvHeader, renderCsvRow, renderMarkdownHeader, renderMarkdownRow } from './metric-columns.js';
-import { createPause } from './pause-for-signals.js';
 import { createProgress } from './progress.js';
 
 /** Most wirings analysed in memory (five elements); above this `analyze` streams. */

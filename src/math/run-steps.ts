@@ -3,7 +3,7 @@
  * pieces (a shape, a wiring, a row of comparisons) and returns its result.
  * The core stays pure and synchronous: runSteps runs such work to its end at
  * once; the command line runs the same generator with pauses in between, so
- * a Ctrl-C is answered during the work (src/cli/pause-for-signals.ts).
+ * a Ctrl-C is answered during the work (src/render/pause-for-signals.ts).
  */
 
 /** Work that yields between pieces and returns a T. */

@@ -29,6 +29,7 @@ export {
 } from './write-file-atomic.js';
 export type { AtomicFileStream } from './write-file-atomic.js';
 export type { DeferredSync } from './write-file-atomic.js';
+export { type Pause, PAUSE_INTERVAL_MS, createPause, runStepsPausing } from './pause-for-signals.js';
 export { defaultOutputRoot, outputFolder, wavFileName, netlistFileName } from './output-folder.js';
 export { claimOutputFolder, ownNamesOf, releaseFolderLocksSync, FOLDER_MARKER, FOLDER_LOCK } from './folder-claim.js';
 export type { ClaimRequest, FolderClaim, FolderPurpose } from './folder-claim.js';

@@ -62,7 +62,7 @@ const MAX_PENDING_WRITES = 4;
 /**
  * Netlists written between two turns of the event loop: each costs about
  * 0.1 ms (its text and its file), so a Ctrl-C waits a few milliseconds at
- * most (judgement, as PAUSE_INTERVAL_MS in src/cli/pause-for-signals.ts).
+ * most (judgement, as PAUSE_INTERVAL_MS in pause-for-signals.ts).
  */
 const NETLISTS_PER_TURN = 64;
 /** Least time between manifest saves while writing files, ms: an interrupted run loses at most this much record (the files themselves are always whole). */

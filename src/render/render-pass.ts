@@ -226,16 +226,15 @@ export function runRenderPass(
 /**
  * A share of a pass given away while it runs (run-render-pass.ts: to a worker
  * thread started once a core is free). After each wiring the pass awaits
- * `between` (where the news that a core is free can come in) and asks
- * `ready`; once it says yes, the pass calls `take` once with the wirings it
+ * `freed` (which may turn the event loop, where the news that a core is free
+ * comes in); once it says yes, the pass calls `take` once with the wirings it
  * has not started, in the order it would make them, and whether it holds its
  * audio in memory (undefined: no audio made yet). `take` answers how many
  * from the front the pass keeps; the rest are no longer its own, and their
  * places in its results stay empty.
  */
 export interface PassHandOff {
-  between(): Promise<void>;
-  ready(): boolean;
+  freed(): Promise<boolean>;
   take(rest: readonly PassItem[], holdingAll: boolean | undefined): number;
 }
 
@@ -267,7 +266,7 @@ export async function runRenderPassWith(
   const order = classOrder(settings.guitar, items);
   // Positions from `end` on were handed off (handOff), or there are none.
   let end = order.length;
-  let offered = handOff === undefined;
+  let offered = false;
   const start = (position: number): void => {
     if (position >= end) return;
     const index = order[position];
@@ -336,8 +335,7 @@ export async function runRenderPassWith(
     onStep?.(result);
     // The next wiring starts once this one is parked: its synthesis may reuse this one's buffer.
     start(position + depth);
-    if (!offered && handOff !== undefined) await handOff.between();
-    if (!offered && handOff?.ready() === true) {
+    if (handOff !== undefined && !offered && (await handOff.freed())) {
       offered = true;
       const first = Math.min(end, position + depth + 1);
       end = first + handOff.take(order.slice(first, end).map((at) => items[at] as PassItem), holdAll);

@@ -189,11 +189,11 @@ describe('runRenderPassWith: a share handed off while it runs', () => {
     const offers: string[][] = [];
     let waits = 0;
     const handOff: PassHandOff = {
-      between: async () => {
-        waits += 1;
-      },
       // Free once five wirings are started; the pass keeps ten of what is left.
-      ready: () => made.length >= 5,
+      freed: async () => {
+        waits += 1;
+        return made.length >= 5;
+      },
       take: (rest, holdingAll) => {
         offers.push(rest.map((item) => item.id));
         expect(holdingAll).toBe(true);

@@ -13,6 +13,7 @@ import type { WorkerJob, WorkerMessage } from './render-worker.js';
 import { shapeKey } from '../wiring/index.js';
 import { minOf, appendAll } from '../math/index.js';
 import { jobResult, startRenderWorker } from './worker-threads.js';
+import { createPause } from './pause-for-signals.js';
 
 /**
  * Fewest wirings worth a worker thread, whatever the effects chain: a worker starts cold
@@ -93,9 +94,6 @@ function runInWorker(job: WorkerJob, onStep: () => void, workers: Worker[]): Pro
   });
 }
 
-/** Most time between two looks for a freed core during a pass, ms (judgement: a worker started 50 ms late costs little; a turn of the event loop costs microseconds). */
-export const HAND_OFF_CHECK_MS = 50;
-
 /**
  * How many of `rest` (a pass's wirings not yet started, phase class by phase
  * class) the pass keeps when it gives the others to a worker starting now:
@@ -158,8 +156,7 @@ export async function runRenderPassOnThreads(
     await Promise.all(workers.map((worker) => worker.terminate()));
     throw error;
   }
-  const byId = new Map(batches.flat().map((result) => [result.id, result]));
-  return items.map((item) => byId.get(item.id) as PassResult);
+  return inItemOrder(items, batches);
 }
 
 /** The pass on this thread, part of what is left handed to one worker once `coreFreed` settles (runRenderPassOnThreads). */
@@ -179,15 +176,14 @@ async function runRenderPassHandingOff(
   const step = (): void => onStep?.();
   const workers: Worker[] = [];
   const handed: { results?: Promise<PassResult[]> } = {};
-  let lastTurn = performance.now();
+  // The analysis thread's answer arrives only on a turn of the event loop, which a pass of direct wirings (no real
+  // waits) would never take: a turn every PAUSE_INTERVAL_MS.
+  const pause = createPause();
   const handOff: PassHandOff = {
-    // A worker's message arrives only on a turn of the event loop, which a pass of direct wirings (no real waits) never takes.
-    between: async () => {
-      if (performance.now() - lastTurn < HAND_OFF_CHECK_MS) return;
-      await new Promise<void>((resolve) => setImmediate(resolve));
-      lastTurn = performance.now();
+    freed: async () => {
+      await pause();
+      return free;
     },
-    ready: () => free,
     take: (rest, holdingAll) => {
       const kept = keptOnHandOff(settings.guitar, rest, minItemsPerThread);
       if (kept < rest.length) {
@@ -200,15 +196,19 @@ async function runRenderPassHandingOff(
       return kept;
     },
   };
-  let own: PassResult[];
-  let others: PassResult[] = [];
+  let batches: PassResult[][];
   try {
-    own = await runRenderPassWith(createWiringRenderer(settings), settings, items, scratchFolder, step, undefined, handOff);
-    if (handed.results !== undefined) others = await handed.results;
+    const own = await runRenderPassWith(createWiringRenderer(settings), settings, items, scratchFolder, step, undefined, handOff);
+    batches = [own, handed.results === undefined ? [] : await handed.results];
   } catch (error) {
     await Promise.all(workers.map((worker) => worker.terminate()));
     throw error;
   }
-  const byId = new Map([...own, ...others].filter((result) => result !== undefined).map((result) => [result.id, result]));
+  return inItemOrder(items, batches);
+}
+
+/** The threads' results in the order of `items` (flat() passes over the places a pass handed off). */
+function inItemOrder(items: readonly PassItem[], batches: readonly PassResult[][]): PassResult[] {
+  const byId = new Map(batches.flat().map((result) => [result.id, result]));
   return items.map((item) => byId.get(item.id) as PassResult);
 }

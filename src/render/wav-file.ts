@@ -225,7 +225,7 @@ function encodeInto(audio: AudioChannels, options: Partial<WavOptions>, over: bo
 
   const headerBytes = fileBytes - even(dataBytes);
   // Over the samples: only a mono float32 buffer with room for the header before it (a sample's bytes never pass its own four).
-  const inPlace = over && ArrayBuffer.isView(audio) && audio instanceof Float32Array && coding.bytesPerSample <= Float32Array.BYTES_PER_ELEMENT && audio.byteOffset >= headerBytes;
+  const inPlace = over && audio instanceof Float32Array && coding.bytesPerSample <= Float32Array.BYTES_PER_ELEMENT && audio.byteOffset >= headerBytes;
   const bytes = inPlace ? new Uint8Array(audio.buffer, audio.byteOffset - headerBytes, fileBytes) : new Uint8Array(fileBytes);
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   let offset = 0;

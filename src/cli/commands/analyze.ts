@@ -27,14 +27,13 @@ import {
   sortNames,
   sortRows,
 } from '../metric-columns.js';
-import { createPause, runStepsPausing } from '../pause-for-signals.js';
 import { createProgress } from '../progress.js';
 import { readGuitarFile } from '../read-guitar.js';
 import { findOutputProblems } from '../guard-outputs.js';
 import { checkWorkSize, estimateAnalyze } from '../estimate-work.js';
 import { wiringCountFor } from '../../guitar/index.js';
 import { type AudioMetrics, REFERENCE_PHRASE, figuresThreadPays, measureFiguresOnThread, measureGraphAudio, measureWiringAudio, referLevels } from '../../render/measuring/index.js';
-import { removeStaleTempFiles, writeFileAtomicSync } from '../../render/measuring/index.js';
+import { createPause, removeStaleTempFiles, runStepsPausing, writeFileAtomicSync } from '../../render/measuring/index.js';
 import { wiringRecord } from './wirings.js';
 import { collectOption } from '../collect-option.js';
 import { networkRow, parseNetworkOptions } from '../network-option.js';

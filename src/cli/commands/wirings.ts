@@ -4,7 +4,7 @@ import { iterateWirings, type Wiring } from '../../wiring/index.js';
 import { writeTablePausing } from '../format-table.js';
 import type { Io } from '../io.js';
 import { readGuitarFile } from '../read-guitar.js';
-import { createPause } from '../pause-for-signals.js';
+import { createPause } from '../../render/measuring/index.js';
 import { mapIterable, writeJsonPausing } from '../../report/text/index.js';
 import type { RowWiring } from '../metric-columns.js';
 

@@ -5,7 +5,9 @@
  * Work that can take long calls `pause()` between small pieces: once
  * PAUSE_INTERVAL_MS has passed since the last pause it waits for the next
  * turn of the event loop (setImmediate runs after the poll phase, where the
- * signal is read), so interrupt.ts's handler runs within about that time.
+ * signal is read), so src/cli/interrupt.ts's handler runs within about that
+ * time. The same turn lets a worker's answer in during a render pass that
+ * never waits on anything (run-render-pass.ts, the hand-off).
  */
 
 import type { Steps } from '../math/index.js';
