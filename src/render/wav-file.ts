@@ -337,5 +337,9 @@ function writePcm24(channel: Float32Array | Float64Array, bytes: Uint8Array, fir
 
 /** Mono 24-bit PCM from `first` (sample-passes.ts: as WebAssembly for float32 samples where the host runs it). Returns Σ (x − x). */
 function writeMonoPcm24(channel: Float32Array | Float64Array, bytes: Uint8Array, first: number, fullScale: number): number {
-  return (channel instanceof Float32Array ? samplePasses() : JAVASCRIPT_SAMPLE_PASSES).writeMonoPcm24(channel, bytes, first, fullScale);
+  // One call per branch, so each sees the narrowed type (a call on the union of the two passes needs a Float32Array,
+  // which TypeScript's incremental build, rechecking this file alone, reported as an error).
+  return channel instanceof Float32Array
+    ? samplePasses().writeMonoPcm24(channel, bytes, first, fullScale)
+    : JAVASCRIPT_SAMPLE_PASSES.writeMonoPcm24(channel, bytes, first, fullScale);
 }
