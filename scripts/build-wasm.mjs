@@ -29,7 +29,8 @@ export const KERNEL_COMPILE_OPTIONS = Object.freeze({ optimizeLevel: 3, shrinkLe
 
 /** The kernels built from wasm/: source file → generated module and the name of its exported constant. */
 export const KERNELS = Object.freeze([
-  { source: join('wasm', 'fft-kernels.ts'), target: join('src', 'math', 'fft-kernels-wasm.ts'), constant: 'FFT_KERNELS_WASM' },
+  // 128-bit SIMD: a host without it cannot compile this module, and the FFT then runs as JavaScript (src/math/fft-kernels.ts).
+  { source: join('wasm', 'fft-kernels.ts'), target: join('src', 'math', 'fft-kernels-wasm.ts'), constant: 'FFT_KERNELS_WASM', enable: ['simd'] },
   { source: join('wasm', 'shape-table.ts'), target: join('src', 'analysis', 'shape-table-wasm.ts'), constant: 'SHAPE_TABLE_WASM' },
   { source: join('wasm', 'centroid-pass.ts'), target: join('src', 'analysis', 'centroid-pass-wasm.ts'), constant: 'CENTROID_PASS_WASM' },
   { source: join('wasm', 'synthesis-passes.ts'), target: join('src', 'render', 'synthesis-passes-wasm.ts'), constant: 'SYNTHESIS_PASSES_WASM' },

@@ -15,28 +15,64 @@
  * real numbers), `table` fft.js's 2 × points twiddles (cos, −sin of π·2k/points
  * interleaved), `bitrev` its 1 << width i32 digit-reversal offsets.
  * `inverse` is 1 for fft.js's inverse transform (no division by the size).
+ *
+ * The butterflies and the packing hold a complex number in one 128-bit vector
+ * (f64x2: real part in lane 0, imaginary part in lane 1); every lane does the
+ * operation fft.js does on that part (rotate, minusJ and plusJ say why each is
+ * the same bits; docs/design.md, "The FFT kernels"). A host without
+ * WebAssembly's SIMD cannot compile this module and runs fft.js's JavaScript.
  */
 
 import { at, put, whole as offsetAt } from './memory';
 
-/** fft.js `_transform4`: complex data → out (out ≠ data). */
+/** Lane 1's sign bit: XOR with it negates the imaginary part alone, exactly (IEEE 754 negation). */
+const IMAGINARY_SIGN: v128 = i64x2(0, 0x8000000000000000);
+/** Lane 0's sign bit: XOR with it negates the real part alone. */
+const REAL_SIGN: v128 = i64x2(0x8000000000000000, 0);
+
+/** (re, im) → (im, re). */
+@inline function swapParts(value: v128): v128 {
+  return i64x2.shuffle(value, value, 1, 0);
+}
+
+/** (x.re + y.im, x.im − y.re): x − j·y, as fft.js's (T1r + T3i, T1i − T3r), lane by lane. */
+@inline function minusJ(x: v128, y: v128): v128 {
+  return f64x2.add(x, v128.xor(swapParts(y), IMAGINARY_SIGN));
+}
+
+/** (x.re − y.im, x.im + y.re): x + j·y, as fft.js's (T1r − T3i, T1i + T3r). */
+@inline function plusJ(x: v128, y: v128): v128 {
+  return f64x2.sub(x, v128.xor(swapParts(y), IMAGINARY_SIGN));
+}
+
+/**
+ * value × (re + j·im) for the twiddle's parts each in both lanes: (vr·re − vi·im, vi·re + vr·im). fft.js writes the
+ * imaginary part vr·im + vi·re; the two products are the same roundings, added in the other order, and IEEE 754
+ * addition is commutative, so the same bits.
+ */
+@inline function rotate(value: v128, re: v128, im: v128): v128 {
+  return f64x2.add(f64x2.mul(value, re), v128.xor(f64x2.mul(swapParts(value), im), REAL_SIGN));
+}
+
+/**
+ * fft.js `_transform4`: complex data → out (out ≠ data). Each complex number is one 128-bit vector (re, im), and
+ * every lane does the operation fft.js does on that part, in its order (the comments of minusJ, plusJ and rotate
+ * say why each is the same bits).
+ */
 export function transform4(out: usize, data: usize, table: usize, bitrev: usize, size: i32, width: i32, inverse: i32): void {
   let step = 1 << width;
   let len = (size / step) << 1;
   const inv: f64 = inverse ? -1.0 : 1.0;
+  const invBoth = f64x2.splat(inv);
   let t = 0;
   if (len == 4) {
     // _singleTransform2
     for (let outOff = 0; outOff < size; outOff += len) {
       const off = offsetAt(bitrev, t++);
-      const evenR = at(data, off);
-      const evenI = at(data, off + 1);
-      const oddR = at(data, off + step);
-      const oddI = at(data, off + step + 1);
-      put(out, outOff, evenR + oddR);
-      put(out, outOff + 1, evenI + oddI);
-      put(out, outOff + 2, evenR - oddR);
-      put(out, outOff + 3, evenI - oddI);
+      const even = v128.load(data + ((<usize>off) << 3));
+      const odd = v128.load(data + ((<usize>(off + step)) << 3));
+      v128.store(out + ((<usize>outOff) << 3), f64x2.add(even, odd));
+      v128.store(out + ((<usize>(outOff + 2)) << 3), f64x2.sub(even, odd));
     }
   } else {
     // _singleTransform4
@@ -44,78 +80,47 @@ export function transform4(out: usize, data: usize, table: usize, bitrev: usize,
     const step3 = step * 3;
     for (let outOff = 0; outOff < size; outOff += len) {
       const off = offsetAt(bitrev, t++);
-      const Ar = at(data, off);
-      const Ai = at(data, off + 1);
-      const Br = at(data, off + step);
-      const Bi = at(data, off + step + 1);
-      const Cr = at(data, off + step2);
-      const Ci = at(data, off + step2 + 1);
-      const Dr = at(data, off + step3);
-      const Di = at(data, off + step3 + 1);
-      const T0r = Ar + Cr;
-      const T0i = Ai + Ci;
-      const T1r = Ar - Cr;
-      const T1i = Ai - Ci;
-      const T2r = Br + Dr;
-      const T2i = Bi + Di;
-      const T3r = inv * (Br - Dr);
-      const T3i = inv * (Bi - Di);
-      put(out, outOff, T0r + T2r);
-      put(out, outOff + 1, T0i + T2i);
-      put(out, outOff + 2, T1r + T3i);
-      put(out, outOff + 3, T1i - T3r);
-      put(out, outOff + 4, T0r - T2r);
-      put(out, outOff + 5, T0i - T2i);
-      put(out, outOff + 6, T1r - T3i);
-      put(out, outOff + 7, T1i + T3r);
+      const a = v128.load(data + ((<usize>off) << 3));
+      const b = v128.load(data + ((<usize>(off + step)) << 3));
+      const c = v128.load(data + ((<usize>(off + step2)) << 3));
+      const d = v128.load(data + ((<usize>(off + step3)) << 3));
+      const t0 = f64x2.add(a, c);
+      const t1 = f64x2.sub(a, c);
+      const t2 = f64x2.add(b, d);
+      const t3 = f64x2.mul(invBoth, f64x2.sub(b, d));
+      const at0 = out + ((<usize>outOff) << 3);
+      v128.store(at0, f64x2.add(t0, t2));
+      v128.store(at0, minusJ(t1, t3), 16);
+      v128.store(at0, f64x2.sub(t0, t2), 32);
+      v128.store(at0, plusJ(t1, t3), 48);
     }
   }
   for (step >>= 2; step >= 2; step >>= 2) {
     len = (size / step) << 1;
     const quarterLen = len >>> 2;
+    const quarterBytes = (<usize>quarterLen) << 3;
     for (let outOff = 0; outOff < size; outOff += len) {
       const limit = outOff + quarterLen;
       for (let i = outOff, k = 0; i < limit; i += 2, k += step) {
-        const A = i;
-        const B = A + quarterLen;
-        const C = B + quarterLen;
-        const D = C + quarterLen;
-        const Ar = at(out, A);
-        const Ai = at(out, A + 1);
-        const Br = at(out, B);
-        const Bi = at(out, B + 1);
-        const Cr = at(out, C);
-        const Ci = at(out, C + 1);
-        const Dr = at(out, D);
-        const Di = at(out, D + 1);
-        const tableBr = at(table, k);
-        const tableBi = inv * at(table, k + 1);
-        const MBr = Br * tableBr - Bi * tableBi;
-        const MBi = Br * tableBi + Bi * tableBr;
-        const tableCr = at(table, 2 * k);
-        const tableCi = inv * at(table, 2 * k + 1);
-        const MCr = Cr * tableCr - Ci * tableCi;
-        const MCi = Cr * tableCi + Ci * tableCr;
-        const tableDr = at(table, 3 * k);
-        const tableDi = inv * at(table, 3 * k + 1);
-        const MDr = Dr * tableDr - Di * tableDi;
-        const MDi = Dr * tableDi + Di * tableDr;
-        const T0r = Ar + MCr;
-        const T0i = Ai + MCi;
-        const T1r = Ar - MCr;
-        const T1i = Ai - MCi;
-        const T2r = MBr + MDr;
-        const T2i = MBi + MDi;
-        const T3r = inv * (MBr - MDr);
-        const T3i = inv * (MBi - MDi);
-        put(out, A, T0r + T2r);
-        put(out, A + 1, T0i + T2i);
-        put(out, B, T1r + T3i);
-        put(out, B + 1, T1i - T3r);
-        put(out, C, T0r - T2r);
-        put(out, C + 1, T0i - T2i);
-        put(out, D, T1r - T3i);
-        put(out, D + 1, T1i + T3r);
+        const pa = out + ((<usize>i) << 3);
+        const pb = pa + quarterBytes;
+        const pc = pb + quarterBytes;
+        const pd = pc + quarterBytes;
+        const a = v128.load(pa);
+        const tb = table + ((<usize>k) << 3);
+        const tc = table + ((<usize>(2 * k)) << 3);
+        const td = table + ((<usize>(3 * k)) << 3);
+        const mb = rotate(v128.load(pb), v128.load64_splat(tb), f64x2.mul(invBoth, v128.load64_splat(tb, 8)));
+        const mc = rotate(v128.load(pc), v128.load64_splat(tc), f64x2.mul(invBoth, v128.load64_splat(tc, 8)));
+        const md = rotate(v128.load(pd), v128.load64_splat(td), f64x2.mul(invBoth, v128.load64_splat(td, 8)));
+        const t0 = f64x2.add(a, mc);
+        const t1 = f64x2.sub(a, mc);
+        const t2 = f64x2.add(mb, md);
+        const t3 = f64x2.mul(invBoth, f64x2.sub(mb, md));
+        v128.store(pa, f64x2.add(t0, t2));
+        v128.store(pb, minusJ(t1, t3));
+        v128.store(pc, f64x2.sub(t0, t2));
+        v128.store(pd, plusJ(t1, t3));
       }
     }
   }
@@ -164,72 +169,47 @@ export function realTransform4(out: usize, data: usize, table: usize, bitrev: us
       put(out, outOff + 7, T3r);
     }
   }
+  const invBoth = f64x2.splat(inv);
+  const negInvBoth = f64x2.splat(-inv);
   for (step >>= 2; step >= 2; step >>= 2) {
     len = (size / step) << 1;
     const halfLen = len >>> 1;
     const quarterLen = halfLen >>> 1;
     const hquarterLen = quarterLen >>> 1;
+    const quarterBytes = (<usize>quarterLen) << 3;
     for (let outOff = 0; outOff < size; outOff += len) {
       for (let i = 0, k = 0; i <= hquarterLen; i += 2, k += step) {
-        const A = outOff + i;
-        const B = A + quarterLen;
-        const C = B + quarterLen;
-        const D = C + quarterLen;
-        const Ar = at(out, A);
-        const Ai = at(out, A + 1);
-        const Br = at(out, B);
-        const Bi = at(out, B + 1);
-        const Cr = at(out, C);
-        const Ci = at(out, C + 1);
-        const Dr = at(out, D);
-        const Di = at(out, D + 1);
-        const tableBr = at(table, k);
-        const tableBi = inv * at(table, k + 1);
-        const MBr = Br * tableBr - Bi * tableBi;
-        const MBi = Br * tableBi + Bi * tableBr;
-        const tableCr = at(table, 2 * k);
-        const tableCi = inv * at(table, 2 * k + 1);
-        const MCr = Cr * tableCr - Ci * tableCi;
-        const MCi = Cr * tableCi + Ci * tableCr;
-        const tableDr = at(table, 3 * k);
-        const tableDi = inv * at(table, 3 * k + 1);
-        const MDr = Dr * tableDr - Di * tableDi;
-        const MDi = Dr * tableDi + Di * tableDr;
-        const T0r = Ar + MCr;
-        const T0i = Ai + MCi;
-        const T1r = Ar - MCr;
-        const T1i = Ai - MCi;
-        const T2r = MBr + MDr;
-        const T2i = MBi + MDi;
-        const T3r = inv * (MBr - MDr);
-        const T3i = inv * (MBi - MDi);
-        put(out, A, T0r + T2r);
-        put(out, A + 1, T0i + T2i);
-        put(out, B, T1r + T3i);
-        put(out, B + 1, T1i - T3r);
+        const pa = out + ((<usize>(outOff + i)) << 3);
+        const pb = pa + quarterBytes;
+        const pc = pb + quarterBytes;
+        const pd = pc + quarterBytes;
+        const a = v128.load(pa);
+        const tb = table + ((<usize>k) << 3);
+        const tc = table + ((<usize>(2 * k)) << 3);
+        const td = table + ((<usize>(3 * k)) << 3);
+        const mb = rotate(v128.load(pb), v128.load64_splat(tb), f64x2.mul(invBoth, v128.load64_splat(tb, 8)));
+        const mc = rotate(v128.load(pc), v128.load64_splat(tc), f64x2.mul(invBoth, v128.load64_splat(tc, 8)));
+        const md = rotate(v128.load(pd), v128.load64_splat(td), f64x2.mul(invBoth, v128.load64_splat(td, 8)));
+        const t0 = f64x2.add(a, mc);
+        const t1 = f64x2.sub(a, mc);
+        const t2 = f64x2.add(mb, md);
+        const t3 = f64x2.mul(invBoth, f64x2.sub(mb, md));
+        v128.store(pa, f64x2.add(t0, t2));
+        v128.store(pb, minusJ(t1, t3));
         // the middle point: C only for i = 0
         if (i == 0) {
-          put(out, C, T0r - T2r);
-          put(out, C + 1, T0i - T2i);
+          v128.store(pc, f64x2.sub(t0, t2));
           continue;
         }
         // do not overwrite ourselves
         if (i == hquarterLen) continue;
-        // the flipped case
-        const ST0r = T1r;
-        const ST0i = -T1i;
-        const ST1r = T0r;
-        const ST1i = -T0i;
-        const ST2r = -inv * T3i;
-        const ST2i = -inv * T3r;
-        const ST3r = -inv * T2i;
-        const ST3i = -inv * T2r;
-        const SA = outOff + quarterLen - i;
-        const SB = outOff + halfLen - i;
-        put(out, SA, ST0r + ST2r);
-        put(out, SA + 1, ST0i + ST2i);
-        put(out, SB, ST1r + ST3i);
-        put(out, SB + 1, ST1i - ST3r);
+        // the flipped case: ST0 = conj(T1), ST1 = conj(T0), ST2 = −inv·(T3i, T3r), ST3 = −inv·(T2i, T2r)
+        const st0 = v128.xor(t1, IMAGINARY_SIGN);
+        const st1 = v128.xor(t0, IMAGINARY_SIGN);
+        const st2 = f64x2.mul(negInvBoth, swapParts(t3));
+        const st3 = f64x2.mul(negInvBoth, swapParts(t2));
+        v128.store(out + ((<usize>(outOff + quarterLen - i)) << 3), f64x2.add(st0, st2));
+        v128.store(out + ((<usize>(outOff + halfLen - i)) << 3), minusJ(st1, st3));
       }
     }
   }
@@ -241,41 +221,39 @@ export function realTransform4(out: usize, data: usize, table: usize, bitrev: us
  * derivation): the same operations in the same order as that function.
  */
 export function packInverse(spectrum: usize, twiddles: usize, half: i32, scale: f64, packed: usize): void {
+  const scaleBoth = f64x2.splat(scale);
+  const two = f64x2.splat(2.0);
   for (let k = 0; k < half; k++) {
-    const ar = at(spectrum, 2 * k) * scale;
-    const ai = at(spectrum, 2 * k + 1) * scale;
-    const br = at(spectrum, 2 * (half - k)) * scale;
-    const bi = -(at(spectrum, 2 * (half - k) + 1) * scale);
-    const er = (ar + br) / 2;
-    const ei = (ai + bi) / 2;
-    const dr = (ar - br) / 2;
-    const di = (ai - bi) / 2;
-    const wr = at(twiddles, 2 * k);
-    const wi = -at(twiddles, 2 * k + 1);
-    const or = dr * wr - di * wi;
-    const oi = dr * wi + di * wr;
-    put(packed, 2 * k, er - oi);
-    put(packed, 2 * k + 1, ei + or);
+    // (ar, ai) and (br, bi) = (x·scale, −(y·scale)) of the mirrored bin
+    const a = f64x2.mul(v128.load(spectrum + ((<usize>(2 * k)) << 3)), scaleBoth);
+    const b = v128.xor(f64x2.mul(v128.load(spectrum + ((<usize>(2 * (half - k))) << 3)), scaleBoth), IMAGINARY_SIGN);
+    const e = f64x2.div(f64x2.add(a, b), two);
+    const d = f64x2.div(f64x2.sub(a, b), two);
+    const w = twiddles + ((<usize>(2 * k)) << 3);
+    // (or, oi) = d × (wr + j·wi), wi = −table
+    const o = rotate(d, v128.load64_splat(w), f64x2.neg(v128.load64_splat(w, 8)));
+    // (er − oi, ei + or)
+    v128.store(packed + ((<usize>(2 * k)) << 3), plusJ(e, o));
   }
 }
 
 /** The half spectrum of a real signal from its packed transform (src/math/fft-kernels.ts, `unpackForwardInto`): the same operations in the same order. */
 export function unpackForward(packed: usize, twiddles: usize, half: i32, out: usize): void {
+  const two = f64x2.splat(2.0);
   for (let k = 0; k <= half; k++) {
     const a = k % half;
     const b = (half - k) % half;
-    const zr = at(packed, 2 * a);
-    const zi = at(packed, 2 * a + 1);
-    const cr = at(packed, 2 * b);
-    const ci = -at(packed, 2 * b + 1);
-    const er = (zr + cr) / 2;
-    const ei = (zi + ci) / 2;
-    const or = (zi - ci) / 2;
-    const oi = -(zr - cr) / 2;
+    const z = v128.load(packed + ((<usize>(2 * a)) << 3));
+    // (cr, ci) = conj of the mirrored entry
+    const c = v128.xor(v128.load(packed + ((<usize>(2 * b)) << 3)), IMAGINARY_SIGN);
+    const e = f64x2.div(f64x2.add(z, c), two);
+    // (or, oi) = ((zi − ci)/2, −(zr − cr)/2): negating before or after halving is the same bits
+    const o = v128.xor(swapParts(f64x2.div(f64x2.sub(z, c), two)), IMAGINARY_SIGN);
     const wr = k < half ? at(twiddles, 2 * k) : -1.0;
     const wi = k < half ? at(twiddles, 2 * k + 1) : 0.0;
-    put(out, 2 * k, er + wr * or - wi * oi);
-    put(out, 2 * k + 1, ei + wr * oi + wi * or);
+    // (er + wr·or − wi·oi, ei + wr·oi + wi·or), each sum taken left to right as written
+    const sum = f64x2.add(e, f64x2.mul(o, f64x2.splat(wr)));
+    v128.store(out + ((<usize>(2 * k)) << 3), f64x2.add(sum, v128.xor(f64x2.mul(swapParts(o), f64x2.splat(wi)), REAL_SIGN)));
   }
 }
 
