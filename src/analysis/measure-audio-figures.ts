@@ -320,9 +320,10 @@ export function prepareAudioFigures(guitar: Guitar, coils: CoilRecording, overri
   const window = new Float64Array(length);
   // Symmetric Hann, w[n] = 0.5 − 0.5·cos(2πn/(L − 1)) (measure-centroid.ts).
   for (let n = 0; n < length; n += 1) window[n] = length > 1 ? (1 - Math.cos((2 * Math.PI * n) / (length - 1))) / 2 : 1;
-  const windowed = coils.signals.map((signal) => {
-    const spectrum = fft.forwardPacked(signal.subarray(0, length), new Float64Array(2 * fft.bins), window);
-    return spectrum.slice(2 * firstBin, 2 * (lastBin + 1));
+  // Into the energy spectra's arrays (folded above, not read again): no fresh megabytes to fault in per coil.
+  const windowed = coils.signals.map((signal, coil) => {
+    const spectrum = fft.forwardPacked(signal.subarray(0, length), spectra[coil] as Float64Array, window);
+    return spectrum.subarray(2 * firstBin, 2 * (lastBin + 1));
   });
 
   // Per phase class: transfers at the grid and the quadratic forms' terms per pair.

@@ -73,26 +73,27 @@ export function computeCoilSpectra(guitar: Pick<Guitar, 'coils'>, strings: Strin
   const delay = pickupDelaySamples(guitar, strings) % fftSize;
   const binHz = strings.sampleRateHz / fftSize;
 
-  // W_s(f)·e^{−jωD}: each wave delayed by D samples (circularly), then transformed once.
+  // W_s(f)·e^{−jωD}: each wave delayed by D samples (circularly), transformed once into one reused array and added
+  // into every coil's spectrum before the next string's: each coil still takes the strings in order (the same sums),
+  // and the strings' spectra are not all held at once (1 MB each at the demo's length, every fresh page of which the
+  // kernel must zero on first touch).
   const shifted = new Float64Array(fftSize);
-  const waveSpectra = strings.waves.map((wave) => {
-    shiftCircular(wave, delay, shifted);
-    return fft.forward(shifted);
-  });
-
+  const wave = new Float64Array(2 * bins);
   const count = strings.waves.length;
-  return guitar.coils.map((coil) => {
-    const spectrum = new Float64Array(2 * bins);
-    waveSpectra.forEach((wave, index) => {
-      const c = strings.waveSpeedsMps[index] as number;
+  const spectra = guitar.coils.map(() => new Float64Array(2 * bins));
+  strings.waves.forEach((samples, index) => {
+    shiftCircular(samples, delay, shifted);
+    fft.forward(shifted, wave);
+    const c = strings.waveSpeedsMps[index] as number;
+    guitar.coils.forEach((coil, coilIndex) => {
       const distanceM = coilPositionAt(coil, index, count);
       // Position phase ω_k·d/c with ω_k = 2π·k·binHz; aperture phase π·f_k·w/c.
       const positionStep = (2 * Math.PI * binHz * distanceM) / c;
       const apertureStep = (Math.PI * binHz * coil.apertureM) / c;
-      accumulateSensedWave(spectrum, wave, bins, positionStep, apertureStep, 2 * coil.sensitivity);
+      accumulateSensedWave(spectra[coilIndex] as Float64Array, wave, bins, positionStep, apertureStep, 2 * coil.sensitivity);
     });
-    return spectrum;
   });
+  return spectra;
 }
 
 /** shifted[(n + delay) mod N] = wave[n], zeros elsewhere (N = shifted.length ≥ wave.length): two copies, the part that wraps to the start second. */
