@@ -7,6 +7,9 @@ import { parseGuitarText } from '../guitar/index.js';
 import { enumerateWirings } from '../wiring/index.js';
 import { prepareRenderAnalysis } from './render-analysis-thread.js';
 import type { RenderAnalysisJob } from './render-analysis.js';
+import { builtInPhrase } from '../string/index.js';
+import { makeExampleReport } from '../../test/support/example-report.js';
+import { type PageSettings, renderPageBytes } from './write-listening-page.js';
 
 const guitar = parseGuitarText(readFileSync(join(import.meta.dirname, '..', '..', 'samples', 'humbucker-two-single-coil.json'), 'utf8'));
 const wirings = enumerateWirings(guitar.elements).slice(0, 60);
@@ -43,6 +46,20 @@ describe('prepareRenderAnalysis', () => {
     expect(own.responsesDb).toHaveLength(20);
     expect(own.circuit.wirings).toHaveLength(20);
     expect(own.distinct.groups.groupOf).toHaveLength(60);
+  });
+
+  it("makes the listening page's bytes on the thread after its analysis, the same bytes as this thread makes", async () => {
+    const basis = measureSpectralBasis(guitar);
+    const there = prepareRenderAnalysis(job, true);
+    there.start(basis);
+    const { drive } = await there.result();
+    const report = makeExampleReport(guitar.elements.map((element) => element.id), guitar.name);
+    const settings: PageSettings = { guitar, phrase: builtInPhrase('strum', guitar.strings.length), sampleRateHz: 22050, seed: 1, overrides: job.overrides, hum: null, tailS: 0.3, drive };
+    const threaded = await there.renderPage(report, settings);
+    expect(threaded).toBeInstanceOf(Uint8Array);
+    expect(Buffer.from(threaded).equals(Buffer.from(renderPageBytes(report, settings)))).toBe(true);
+    expect(new TextDecoder().decode(threaded)).toMatch(/^<!DOCTYPE html>/iu);
+    await there.cancel();
   });
 
   it('passes a bad threshold back as the input error it is', async () => {

@@ -2,9 +2,12 @@
  * Worker-thread entry for a render's analysis (render-analysis.ts): takes
  * the job from its parent as workerData, waits for the spectral basis the
  * parent measures meanwhile (and the wirings whose audio figures it wants),
- * then posts the analysis. Errors are posted back
- * as data so the parent can rethrow them with their class. Load it only as a
- * thread's entry: at import it takes the thread's workerData as its job.
+ * then posts the analysis. It then waits for one more job, the listening
+ * page's bytes for the report the parent builds from that analysis
+ * (render-analysis-thread.ts, `renderPage`): it is idle by then, while the
+ * parent writes the WAV files. Errors are posted back as data so the parent
+ * can rethrow them with their class. Load it only as a thread's entry: at
+ * import it takes the thread's workerData as its job.
  */
 import { parentPort, workerData } from 'node:worker_threads';
 import type { SpectralBasis } from '../analysis/index.js';
@@ -13,7 +16,8 @@ import type { CoilSignals } from './synthesize-wirings.js';
 import { failureOf } from './worker-failure.js';
 import { transferablesOf } from './transferables.js';
 import { type RenderAnalysisJob, measureRenderAnalysis } from './render-analysis.js';
-import type { RenderAnalysisMessage } from './render-analysis-thread.js';
+import type { PageJob, RenderAnalysisMessage } from './render-analysis-thread.js';
+import { renderPageBytes } from './write-listening-page.js';
 
 const port = parentPort;
 if (port) {
@@ -30,7 +34,18 @@ if (port) {
       port.postMessage(answer, transferablesOf(answer));
     } catch (error) {
       port.postMessage(failureOf(error) satisfies RenderAnalysisMessage);
+      port.close();
+      return;
     }
-    port.close();
+    // The parent stops this thread when it asks for no page.
+    port.once('message', ({ report, settings }: PageJob) => {
+      try {
+        const answer = { kind: 'page', bytes: renderPageBytes(report, settings) } satisfies RenderAnalysisMessage;
+        port.postMessage(answer, transferablesOf(answer));
+      } catch (error) {
+        port.postMessage(failureOf(error) satisfies RenderAnalysisMessage);
+      }
+      port.close();
+    });
   });
 }

@@ -63,19 +63,23 @@ export const MEASURING_THREAD_LIMITS: ResourceLimits = Object.freeze({ maxYoungG
  * to `read`, which returns the result once the job is done (undefined for a
  * step on the way). A posted failure is rethrown with its class
  * (worker-failure.ts); a worker error, or an exit before the result, is a
- * WorkError naming `what`. The worker is stopped once the job is settled.
+ * WorkError naming `what`. The worker is stopped once the job is settled,
+ * unless `then` is 'keep' (a thread with a second job to come: the caller
+ * stops it).
  */
 export function jobResult<Message extends { readonly kind: string }, Result>(
   worker: Worker,
   what: string,
   read: (message: Exclude<Message, WorkerFailure>) => Result | undefined,
+  then: 'stop' | 'keep' = 'stop',
 ): Promise<Result> {
   return new Promise((resolve, reject) => {
     let settled = false;
     const settle = (action: () => void): void => {
+      if (settled) return;
       settled = true;
       action();
-      void worker.terminate();
+      if (then === 'stop') void worker.terminate();
     };
     worker.on('message', (message: Message | WorkerFailure) => {
       if (message.kind === 'failed') {

@@ -1,7 +1,9 @@
 /**
- * Writes a render folder's listening page: the report, the guitar, the knob
+ * A render folder's listening page: the report, the guitar, the knob
  * settings and each coil's signal for the rendered phrase (the page
- * synthesises every wiring from them), with the bundled page script.
+ * synthesises every wiring from them), with the bundled page script. The
+ * render writes the bytes (render-guitar.ts); they may be made on the
+ * analysis thread (render-analysis-thread.ts).
  */
 import { measureCoilDrive, measureSpectralBasis } from '../analysis/index.js';
 import type { CircuitOverrides, CoilDrive } from '../circuit/index.js';
@@ -13,7 +15,6 @@ import { RENDER_TAIL_S } from './measure-wiring-audio.js';
 import { readPageScript } from './page-script.js';
 import type { HumMix } from './render-pass.js';
 import { type CoilSignals, renderCoilSignals } from './synthesize-wirings.js';
-import { writeFileAtomic } from './write-file-atomic.js';
 
 export interface PageSettings {
   readonly guitar: Guitar;
@@ -59,6 +60,10 @@ export function renderPageFor(report: ListeningReport, settings: PageSettings): 
   return renderListeningPage(report, renderPageSound(settings, report.render.chain), readPageScript());
 }
 
-export async function writeListeningPage(path: string, report: ListeningReport, settings: PageSettings): Promise<void> {
-  await writeFileAtomic(path, renderPageFor(report, settings));
+/**
+ * The page's file as UTF-8 bytes, in an ArrayBuffer of their own (TextEncoder, not a slice of Buffer's shared
+ * pool), so a thread that made them can hand them over without a copy (render-analysis-thread.ts).
+ */
+export function renderPageBytes(report: ListeningReport, settings: PageSettings): Uint8Array {
+  return new TextEncoder().encode(renderPageFor(report, settings));
 }
