@@ -16,6 +16,7 @@ import type { SpectralBasis } from '../analysis/index.js';
 import { type RenderAnalysis, type RenderAnalysisJob, measureRenderAnalysis } from './render-analysis.js';
 import type { Network } from '../wiring/index.js';
 import { MEASURING_THREAD_LIMITS, jobResult, startRenderWorker } from './worker-threads.js';
+import { ENCODE_THREAD_MIN_FILES } from './encode-thread.js';
 import type { WorkerFailure } from './worker-failure.js';
 import type { CoilSignals } from './synthesize-wirings.js';
 import type { ListeningReport } from '../report/index.js';
@@ -39,12 +40,16 @@ export interface PageJob {
 }
 
 /**
- * Largest report (rendered wirings) whose page is made on the analysis thread: the thread gets its own copy of the
- * report (structured clone), a few megabytes for hundreds of wirings, but tens for thousands (report.json of 9,997
- * wirings is 38 MB), which would count against a large render's memory; above it the page is made on the render's
- * thread, as when there is no analysis thread.
+ * Renders whose page is made on the analysis thread: those of fewer files than
+ * take an encoding thread (ENCODE_THREAD_MIN_FILES, encode-thread.ts), whose
+ * second core is otherwise idle while the files are written. With more, the
+ * encoding thread has that core, and a kept analysis thread would only hold
+ * its memory beside the render's worker (572 wirings: 232 → 283 MB peak when
+ * it was kept).
  */
-export const PAGE_ON_THREAD_MAX_WIRINGS = 1000;
+export function pageOnThread(renderedWirings: number): boolean {
+  return renderedWirings < ENCODE_THREAD_MIN_FILES;
+}
 
 export interface PendingAnalysis {
   /** Does the analysis run on a thread of its own (beside the caller's work)? */
@@ -58,8 +63,8 @@ export interface PendingAnalysis {
   result(): Promise<RenderAnalysis>;
   /**
    * The listening page's bytes (write-listening-page.ts) for `report`, made on the analysis thread after its analysis
-   * (once `result` is settled) when it has one and the report holds at most PAGE_ON_THREAD_MAX_WIRINGS wirings, else
-   * on this thread: the same bytes either way.
+   * (once `result` is settled) when it has one and `pageOnThread` of the rendered wirings, else on this thread: the
+   * same bytes either way.
    */
   renderPage(report: ListeningReport, settings: PageSettings): Promise<Uint8Array>;
   /** Stop the thread, if any (after a failure elsewhere, or when no page was asked for). */
@@ -91,7 +96,7 @@ export function prepareRenderAnalysis(job: RenderAnalysisJob, thread: boolean): 
   let given: SpectralBasis | undefined;
   // The thread is kept after its analysis for the page (the caller stops it with cancel), unless the page will be made
   // here: then it stops with its answer, and its memory is free for the rest of the render.
-  const pageThere = job.selected.length <= PAGE_ON_THREAD_MAX_WIRINGS;
+  const pageThere = pageOnThread(job.selected.length);
   const answer = jobResult<RenderAnalysisMessage, RenderAnalysis>(
     worker,
     'analysis worker',
