@@ -333,94 +333,99 @@ async function renderWith(request: RenderRequest, events: RenderEvents, analysis
     matchedLoudnessLufs = Number.isFinite(planned.targetLufs) ? planned.targetLufs : null;
   }
 
-  // Circuit metrics (read from the response as the strings drive it) for the rendered wirings; groups for
-  // every wiring, or (when only some of more than MAX_WIRINGS_GROUPED_FOR_SOME are asked for) among the
-  // chosen ones and the single elements, so that one wiring of a six-element guitar costs one wiring, not 228,386.
-  const { figures, drive, circuit, distinct, responseFrequenciesHz: responseGrid, responsesDb } = await analysis.result();
-  figuresInAnalysis.forEach((item, index) => {
-    const metrics = figures[index] as RawAudioMetrics;
-    const hash = hashes.get(item.id);
-    raw.set(item.id, metrics);
-    if (hash) Object.assign(entries[expressionOf.get(item.id) ?? ''] as Entry, { metricsHash: hash.metricsHash, metrics });
-  });
-  if (figuresInAnalysis.length > 0) await saveManifest();
-  const audioMetrics = referLevels(request.all, raw);
-  const circuitById = new Map(selected.map((wiring, index) => [wiring.id, circuit.wirings[index] as WiringCircuitMetrics]));
-  const groupById = new Map(scope.map((wiring, index) => [wiring.id, distinct.groups.groupOf[index] ?? null]));
+  // The report needs the analysis and the gains, not the files: it is built as soon as the analysis answers (at once
+  // when it already has), between two files if need be, and the page's bytes are then made on the analysis thread
+  // while this one goes on writing files. Circuit metrics (read from the response as the strings drive it) for the
+  // rendered wirings; groups for every wiring, or (when only some of more than MAX_WIRINGS_GROUPED_FOR_SOME are asked
+  // for) among the chosen ones and the single elements, so that one wiring of a six-element guitar costs one wiring,
+  // not 228,386. The figures measured there join the manifest in memory here, and on disk with its next save.
+  const reported = analysis.result().then(({ figures, drive, circuit, distinct, responseFrequenciesHz: responseGrid, responsesDb }) => {
+    figuresInAnalysis.forEach((item, index) => {
+      const metrics = figures[index] as RawAudioMetrics;
+      const hash = hashes.get(item.id);
+      raw.set(item.id, metrics);
+      if (hash) Object.assign(entries[expressionOf.get(item.id) ?? ''] as Entry, { metricsHash: hash.metricsHash, metrics });
+    });
+    const audioMetrics = referLevels(request.all, raw);
+    const circuitById = new Map(selected.map((wiring, index) => [wiring.id, circuit.wirings[index] as WiringCircuitMetrics]));
+    const groupById = new Map(scope.map((wiring, index) => [wiring.id, distinct.groups.groupOf[index] ?? null]));
 
-  const rows: RenderedWiring[] = selected.map((wiring) => {
-    const audio = audioMetrics.get(wiring.id);
-    return {
-      wiring,
-      circuit: circuitById.get(wiring.id) as WiringCircuitMetrics,
-      levelDb: audio?.levelDb ?? Number.NaN,
-      loudnessLufs: audio?.loudnessLufs ?? Number.NaN,
-      centroidHz: audio?.centroidHz ?? Number.NaN,
-      wav: request.writeWav === false ? null : relative(folder.root, join(folder.wavFolder, wavFileName(wiring))).split('\\').join('/'),
-    };
-  });
-  const reportWirings: ReportWiring[] = rows.map((row, index) => {
-    const response = responsesDb[index] ?? null;
-    return {
-      id: row.wiring.id,
-      number: row.wiring.number,
-      expression: row.wiring.expression,
-      description: row.wiring.description,
-      coils: row.wiring.elementIds,
-      topology: row.wiring.topology,
-      outOfPhase: row.wiring.outOfPhase,
-      wav: row.wav,
-      levelDb: row.levelDb,
-      loudnessLufs: row.loudnessLufs,
-      centroidHz: row.centroidHz,
-      resonanceHz: row.circuit.resonanceHz,
-      peakDb: row.circuit.peakDb ?? 0,
-      resonanceQ: row.circuit.resonanceQ,
-      humDb: row.circuit.humDb ?? 0,
-      humCancelling: row.circuit.humCancelling,
-      humCategory: row.circuit.humCategory,
-      responseDb: response ? Array.from(response) : [],
-      group: groupById.get(row.wiring.id) ?? null,
-    };
-  });
+    const rows: RenderedWiring[] = selected.map((wiring) => {
+      const audio = audioMetrics.get(wiring.id);
+      return {
+        wiring,
+        circuit: circuitById.get(wiring.id) as WiringCircuitMetrics,
+        levelDb: audio?.levelDb ?? Number.NaN,
+        loudnessLufs: audio?.loudnessLufs ?? Number.NaN,
+        centroidHz: audio?.centroidHz ?? Number.NaN,
+        wav: request.writeWav === false ? null : relative(folder.root, join(folder.wavFolder, wavFileName(wiring))).split('\\').join('/'),
+      };
+    });
+    const reportWirings: ReportWiring[] = rows.map((row, index) => {
+      const response = responsesDb[index] ?? null;
+      return {
+        id: row.wiring.id,
+        number: row.wiring.number,
+        expression: row.wiring.expression,
+        description: row.wiring.description,
+        coils: row.wiring.elementIds,
+        topology: row.wiring.topology,
+        outOfPhase: row.wiring.outOfPhase,
+        wav: row.wav,
+        levelDb: row.levelDb,
+        loudnessLufs: row.loudnessLufs,
+        centroidHz: row.centroidHz,
+        resonanceHz: row.circuit.resonanceHz,
+        peakDb: row.circuit.peakDb ?? 0,
+        resonanceQ: row.circuit.resonanceQ,
+        humDb: row.circuit.humDb ?? 0,
+        humCancelling: row.circuit.humCancelling,
+        humCategory: row.circuit.humCategory,
+        responseDb: response ? Array.from(response) : [],
+        group: groupById.get(row.wiring.id) ?? null,
+      };
+    });
 
-  const frames = selected.map((wiring) => entries[wiring.expression]?.audio?.frames ?? 0);
-  const durationS = Math.max(0, maxOf(frames)) / request.sampleRateHz;
-  // Audio made in this run (cached files cost nothing).
-  const audioSeconds = (results.filter((result) => result.audio).length * durationS);
-  const report: ListeningReport = {
-    generator: request.generator,
-    guitar: reportGuitar(guitar, basename(folder.root), circuit.load),
-    render: {
-      phrase: request.phrase.name,
-      chain: request.chain,
+    const frames = selected.map((wiring) => entries[wiring.expression]?.audio?.frames ?? 0);
+    const durationS = Math.max(0, maxOf(frames)) / request.sampleRateHz;
+    // Audio made in this run (cached files cost nothing).
+    const audioSeconds = (results.filter((result) => result.audio).length * durationS);
+    const report: ListeningReport = {
+      generator: request.generator,
+      guitar: reportGuitar(guitar, basename(folder.root), circuit.load),
+      render: {
+        phrase: request.phrase.name,
+        chain: request.chain,
+        sampleRateHz: request.sampleRateHz,
+        durationS,
+        level: request.level,
+        commonGainDb: commonGainDb ?? 0,
+        mainsHz: circuit.load.mainsHz,
+        humMixHz: request.hum?.mainsHz ?? null,
+        format: request.format,
+      },
+      responseFrequenciesHz: Array.from(responseGrid),
+      wirings: reportWirings,
+      groups: reportGroups(scope, distinct),
+      ...(request.positions === undefined ? {} : { positions: request.positions }),
+    };
+    // The page's bytes, made on the analysis thread (idle now) while this one writes the WAV files, when there is one.
+    const referencePerformance = isReferencePerformance(request.phrase, request.sampleRateHz, request.seed);
+    const pageSettings: PageSettings = {
+      guitar,
+      phrase: request.phrase,
       sampleRateHz: request.sampleRateHz,
-      durationS,
-      level: request.level,
-      commonGainDb: commonGainDb ?? 0,
-      mainsHz: circuit.load.mainsHz,
-      humMixHz: request.hum?.mainsHz ?? null,
-      format: request.format,
-    },
-    responseFrequenciesHz: Array.from(responseGrid),
-    wirings: reportWirings,
-    groups: reportGroups(scope, distinct),
-    ...(request.positions === undefined ? {} : { positions: request.positions }),
-  };
-  // The page's bytes, made on the analysis thread (idle now) while this one writes the WAV files, when there is one.
-  const referencePerformance = isReferencePerformance(request.phrase, request.sampleRateHz, request.seed);
-  const pageSettings: PageSettings = {
-    guitar,
-    phrase: request.phrase,
-    sampleRateHz: request.sampleRateHz,
-    seed: request.seed,
-    overrides: request.overrides,
-    hum: request.hum,
-    drive,
-    ...(referencePerformance ? { coils: referenceCoils } : {}),
-  };
-  const page = analysis.renderPage(report, pageSettings);
-  page.catch(() => undefined); // awaited below (so not reported as unhandled if the WAV files fail first)
+      seed: request.seed,
+      overrides: request.overrides,
+      hum: request.hum,
+      drive,
+      ...(referencePerformance ? { coils: referenceCoils } : {}),
+    };
+    const page = analysis.renderPage(report, pageSettings);
+    page.catch(() => undefined); // awaited below (so not reported as unhandled if the WAV files fail first)
+    return { report, rows, audioSeconds, distinct, page };
+  });
+  reported.catch(() => undefined); // awaited below, after the files
 
   // Pass 2: final files. With many files a second thread encodes some of them (encode-thread.ts) while this one
   // encodes and writes the others: the bytes are the same from either thread, and only this thread writes files.
@@ -508,6 +513,8 @@ async function renderWith(request: RenderRequest, events: RenderEvents, analysis
     }
   }
 
+  const { report, rows, audioSeconds, distinct, page } = await reported;
+  if (figuresInAnalysis.length > 0) await saveManifest();
   writeJsonFileAtomicSync(folder.reportJson, report); // in chunks: 38 MB for 9,997 wirings (write-json-file.ts)
   // Rewritten by every run, so its folder's one fsync at the end serves it as it does the WAV files (write-file-atomic.ts).
   await writeFileAtomic(folder.page, await page, deferred);
