@@ -32,7 +32,7 @@ export type { ExcitationSpread } from './design-excitation-spread.js';
 export { measureCrossSpectra, pairIndex } from './measure-cross-spectra.js';
 export type { CrossSpectra } from './measure-cross-spectra.js';
 export { measureCoilDrive, SMOOTHING_ERB } from './measure-coil-drive.js';
-export { measureSpectralBasis, DEFAULT_SPECTRAL_BASIS_OPTIONS, REFERENCE_TAIL_S } from './measure-spectral-basis.js';
+export { measureSpectralBasis, spectralBasisFftSize, DEFAULT_SPECTRAL_BASIS_OPTIONS, REFERENCE_TAIL_S } from './measure-spectral-basis.js';
 export type { SpectralBasis, SpectralBasisOptions } from './measure-spectral-basis.js';
 export { solveWiringSpectra, solveWiringSpectraSteps, prepareWiringSpectra, energyLevelDb } from './solve-wiring-spectra.js';
 export type { WiringSpectra, WiringSpectraSolver, WiringSpectrumFigures } from './solve-wiring-spectra.js';

@@ -8,7 +8,7 @@
 import type { Guitar } from '../guitar/index.js';
 import { nextPowerOfTwo } from '../math/index.js';
 import { computeCoilSpectra, pickupDelaySamples } from '../pickup/index.js';
-import { type Phrase, type StringOptions, builtInPhrase, renderPhrase } from '../string/index.js';
+import { type Phrase, type StringOptions, builtInPhrase, planPhrase, renderPhrase } from '../string/index.js';
 import { type BandLayout, type BandOptions, designBands } from './design-bands.js';
 import { type CrossSpectra, measureCrossSpectra } from './measure-cross-spectra.js';
 
@@ -53,6 +53,16 @@ export interface SpectralBasis {
   readonly pickupDelay: number;
   /** Made with every default (the `strum` reference phrase, its ring-out, 48 kHz, seed 1): the reference performance of docs/design.md's metrics. */
   readonly reference: boolean;
+}
+
+/**
+ * The FFT size measureSpectralBasis will use, from the phrase's plan alone (planPhrase: no strings rendered), so a
+ * thread can set up its transforms of that size before the basis arrives (render-analysis-worker.ts).
+ */
+export function spectralBasisFftSize(guitar: Guitar, options: Partial<Pick<SpectralBasisOptions, 'phrase' | 'strings'>> = {}): number {
+  const phrase = options.phrase ?? builtInPhrase('strum', guitar.strings.length);
+  const plan = planPhrase(guitar, phrase, { ...DEFAULT_SPECTRAL_BASIS_OPTIONS.strings, ...options.strings });
+  return nextPowerOfTwo(plan.length + pickupDelaySamples(guitar, plan));
 }
 
 /** Strings, coil spectra and band cross-spectra of `guitar` playing the phrase. Throws InputError for notes or options the guitar cannot take. */

@@ -46,8 +46,8 @@ import type { StringRender } from '../string/index.js';
  * max over coils and strings of (d + w/2)/c, rounded up. Each E_i is the
  * pickup signal delayed by D samples.
  */
-export function pickupDelaySamples(guitar: Pick<Guitar, 'coils'>, strings: StringRender): number {
-  const count = strings.waves.length;
+export function pickupDelaySamples(guitar: Pick<Guitar, 'coils'>, strings: Pick<StringRender, 'waveSpeedsMps' | 'sampleRateHz'>): number {
+  const count = strings.waveSpeedsMps.length;
   let longestS = 0;
   for (const coil of guitar.coils) {
     strings.waveSpeedsMps.forEach((c, index) => {

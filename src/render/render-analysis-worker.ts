@@ -10,7 +10,8 @@
  * import it takes the thread's workerData as its job.
  */
 import { parentPort, workerData } from 'node:worker_threads';
-import type { SpectralBasis } from '../analysis/index.js';
+import { type SpectralBasis, spectralBasisFftSize } from '../analysis/index.js';
+import { realFft } from '../math/index.js';
 import type { Network } from '../wiring/index.js';
 import type { CoilSignals } from './synthesize-wirings.js';
 import { failureOf } from './worker-failure.js';
@@ -22,6 +23,13 @@ import { renderPageBytes } from './write-listening-page.js';
 const port = parentPort;
 if (port) {
   const job = workerData as RenderAnalysisJob;
+  // While the parent renders the strings: this thread's transforms of the basis's size (twiddle tables, kernels), which
+  // the audio figures take first. A guitar whose phrase cannot be planned fails later, where its error is reported.
+  try {
+    realFft(spectralBasisFftSize(job.guitar));
+  } catch {
+    // reported by the parent's own basis
+  }
   port.once('message', ({ basis, figures, coils }: { basis: SpectralBasis; figures: readonly Network[]; coils?: CoilSignals }) => {
     try {
       const analysis = measureRenderAnalysis(job, basis, figures, coils);

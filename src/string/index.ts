@@ -1,4 +1,4 @@
-export { renderPhrase, checkPhraseFits, checkPhraseFitsGuitar, FULL_PLUCK_DISPLACEMENT_M } from './render-phrase.js';
+export { renderPhrase, planPhrase, checkPhraseFits, checkPhraseFitsGuitar, FULL_PLUCK_DISPLACEMENT_M } from './render-phrase.js';
 export type { StringRender } from './render-phrase.js';
 export type { Phrase, PhraseNote } from './phrase.js';
 export { MAX_FRET, MAX_PHRASE_TIME_S } from './phrase.js';

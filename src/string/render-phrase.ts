@@ -36,16 +36,28 @@ export interface StringRender {
   readonly waveSpeedsMps: number[];
 }
 
+/** What a render of `phrase` will be without rendering it: its rate, its length (the last note plus the ring-out) and its strings' wave speeds. */
+export function planPhrase(guitar: Pick<Guitar, 'scaleM' | 'strings'>, phrase: Phrase, options: Partial<StringOptions> = {}): Omit<StringRender, 'waves'> {
+  return phraseFrame(guitar, phrase, resolveStringOptions(options, guitar.strings, guitar.scaleM));
+}
+
+function phraseFrame(guitar: Pick<Guitar, 'scaleM' | 'strings'>, phrase: Phrase, settings: StringOptions): Omit<StringRender, 'waves'> {
+  const lastTimeS = phrase.notes.reduce((latest, note) => Math.max(latest, note.timeS), 0);
+  return {
+    sampleRateHz: settings.sampleRateHz,
+    length: Math.max(1, Math.ceil((lastTimeS + settings.tailS) * settings.sampleRateHz)),
+    waveSpeedsMps: guitar.strings.map((string) => 2 * guitar.scaleM * string.openHz),
+  };
+}
+
 /** Render `phrase` on the guitar's strings. Throws InputError for options or notes the guitar cannot play. */
 export function renderPhrase(guitar: Pick<Guitar, 'scaleM' | 'strings'>, phrase: Phrase, options: Partial<StringOptions> = {}): StringRender {
   const settings = resolveStringOptions(options, guitar.strings, guitar.scaleM);
   checkPhraseFitsGuitar(phrase, guitar, settings.pluckM);
   const fs = settings.sampleRateHz;
   const stringCount = guitar.strings.length;
-  const lastTimeS = phrase.notes.reduce((latest, note) => Math.max(latest, note.timeS), 0);
-  const length = Math.max(1, Math.ceil((lastTimeS + settings.tailS) * fs));
+  const { length, waveSpeedsMps } = phraseFrame(guitar, phrase, settings);
   const waves = guitar.strings.map(() => new Float64Array(length));
-  const waveSpeedsMps = guitar.strings.map((string) => 2 * guitar.scaleM * string.openHz);
   const dampLength = Math.max(1, Math.round(settings.repluckDampS * fs));
 
   // Notes in time order (stable), each with its string index (0 = lowest).
