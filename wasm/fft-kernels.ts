@@ -54,6 +54,11 @@ const REAL_SIGN: v128 = i64x2(0x8000000000000000, 0);
   return f64x2.add(f64x2.mul(value, re), v128.xor(f64x2.mul(swapParts(value), im), REAL_SIGN));
 }
 
+/** value × the table's entry at `entry` (cos, −sin), its imaginary part times fft.js's `inv` (±1: exact). */
+@inline function twiddle(value: v128, entry: usize, inv: v128): v128 {
+  return rotate(value, v128.load64_splat(entry), f64x2.mul(inv, v128.load64_splat(entry, 8)));
+}
+
 /**
  * fft.js `_transform4`: complex data → out (out ≠ data). Each complex number is one 128-bit vector (re, im), and
  * every lane does the operation fft.js does on that part, in its order (the comments of minusJ, plusJ and rotate
@@ -107,12 +112,9 @@ export function transform4(out: usize, data: usize, table: usize, bitrev: usize,
         const pc = pb + quarterBytes;
         const pd = pc + quarterBytes;
         const a = v128.load(pa);
-        const tb = table + ((<usize>k) << 3);
-        const tc = table + ((<usize>(2 * k)) << 3);
-        const td = table + ((<usize>(3 * k)) << 3);
-        const mb = rotate(v128.load(pb), v128.load64_splat(tb), f64x2.mul(invBoth, v128.load64_splat(tb, 8)));
-        const mc = rotate(v128.load(pc), v128.load64_splat(tc), f64x2.mul(invBoth, v128.load64_splat(tc, 8)));
-        const md = rotate(v128.load(pd), v128.load64_splat(td), f64x2.mul(invBoth, v128.load64_splat(td, 8)));
+        const mb = twiddle(v128.load(pb), table + ((<usize>k) << 3), invBoth);
+        const mc = twiddle(v128.load(pc), table + ((<usize>(2 * k)) << 3), invBoth);
+        const md = twiddle(v128.load(pd), table + ((<usize>(3 * k)) << 3), invBoth);
         const t0 = f64x2.add(a, mc);
         const t1 = f64x2.sub(a, mc);
         const t2 = f64x2.add(mb, md);
@@ -184,12 +186,9 @@ export function realTransform4(out: usize, data: usize, table: usize, bitrev: us
         const pc = pb + quarterBytes;
         const pd = pc + quarterBytes;
         const a = v128.load(pa);
-        const tb = table + ((<usize>k) << 3);
-        const tc = table + ((<usize>(2 * k)) << 3);
-        const td = table + ((<usize>(3 * k)) << 3);
-        const mb = rotate(v128.load(pb), v128.load64_splat(tb), f64x2.mul(invBoth, v128.load64_splat(tb, 8)));
-        const mc = rotate(v128.load(pc), v128.load64_splat(tc), f64x2.mul(invBoth, v128.load64_splat(tc, 8)));
-        const md = rotate(v128.load(pd), v128.load64_splat(td), f64x2.mul(invBoth, v128.load64_splat(td, 8)));
+        const mb = twiddle(v128.load(pb), table + ((<usize>k) << 3), invBoth);
+        const mc = twiddle(v128.load(pc), table + ((<usize>(2 * k)) << 3), invBoth);
+        const md = twiddle(v128.load(pd), table + ((<usize>(3 * k)) << 3), invBoth);
         const t0 = f64x2.add(a, mc);
         const t1 = f64x2.sub(a, mc);
         const t2 = f64x2.add(mb, md);
