@@ -23,7 +23,7 @@ describe('spectralBasisFftSize', () => {
     expect(spectralBasisFftSize(guitar, short)).toBeLessThan(spectralBasisFftSize(guitar));
     // A render that ends a sample short of 2^17: the pickups' delay (tens of samples) takes the frame to 2^18.
     const phrase = builtInPhrase('strum', guitar.strings.length);
-    const lastS = Math.max(...phrase.notes.map((note) => note.timeS));
+    const lastS = phrase.notes.reduce((latest, note) => Math.max(latest, note.timeS), 0);
     const sampleRateHz = 48000;
     const edge = { phrase, strings: { tailS: (2 ** 17 - 1) / sampleRateHz - lastS, sampleRateHz } };
     expect(measureSpectralBasis(guitar, edge).phraseSamples).toBe(2 ** 17 - 1);
