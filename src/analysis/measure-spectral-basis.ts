@@ -6,8 +6,7 @@
  * (solve-wiring-spectra.ts), with no FFT per wiring.
  */
 import type { Guitar } from '../guitar/index.js';
-import { nextPowerOfTwo } from '../math/index.js';
-import { computeCoilSpectra, pickupDelaySamples } from '../pickup/index.js';
+import { coilFrame, computeCoilSpectra } from '../pickup/index.js';
 import { type Phrase, type StringOptions, builtInPhrase, planPhrase, renderPhrase } from '../string/index.js';
 import { type BandLayout, type BandOptions, designBands } from './design-bands.js';
 import { type CrossSpectra, measureCrossSpectra } from './measure-cross-spectra.js';
@@ -43,7 +42,7 @@ export interface SpectralBasis {
   readonly sampleRateHz: number;
   /** Samples of the string render. */
   readonly phraseSamples: number;
-  /** FFT size of the coil spectra: nextPowerOfTwo(phrase samples + pickup delay), so no render wraps around. */
+  /** FFT size of the coil spectra: nextPowerOfTwo(phrase samples + pickup delay), so no render wraps around (coilFrame). */
   readonly fftSize: number;
   readonly layout: BandLayout;
   readonly cross: CrossSpectra;
@@ -62,7 +61,7 @@ export interface SpectralBasis {
 export function spectralBasisFftSize(guitar: Guitar, options: Partial<Pick<SpectralBasisOptions, 'phrase' | 'strings'>> = {}): number {
   const phrase = options.phrase ?? builtInPhrase('strum', guitar.strings.length);
   const plan = planPhrase(guitar, phrase, { ...DEFAULT_SPECTRAL_BASIS_OPTIONS.strings, ...options.strings });
-  return nextPowerOfTwo(plan.length + pickupDelaySamples(guitar, plan));
+  return coilFrame(guitar, plan).fftSize;
 }
 
 /** Strings, coil spectra and band cross-spectra of `guitar` playing the phrase. Throws InputError for notes or options the guitar cannot take. */
@@ -70,8 +69,7 @@ export function measureSpectralBasis(guitar: Guitar, options: Partial<SpectralBa
   const phrase = options.phrase ?? builtInPhrase('strum', guitar.strings.length);
   const phraseName = options.phraseName ?? DEFAULT_SPECTRAL_BASIS_OPTIONS.phraseName;
   const strings = renderPhrase(guitar, phrase, { ...DEFAULT_SPECTRAL_BASIS_OPTIONS.strings, ...options.strings });
-  const pickupDelay = pickupDelaySamples(guitar, strings);
-  const fftSize = nextPowerOfTwo(strings.length + pickupDelay);
+  const { delay: pickupDelay, fftSize } = coilFrame(guitar, strings);
   const coilSpectra = computeCoilSpectra(guitar, strings, fftSize);
   const layout = designBands(strings.sampleRateHz, options.bands ?? {});
   const cross = measureCrossSpectra(coilSpectra, fftSize, layout);

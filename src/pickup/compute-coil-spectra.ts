@@ -37,7 +37,7 @@
  * at the top frets).
  */
 import { type Guitar, coilPositionAt } from '../guitar/index.js';
-import { realFft } from '../math/index.js';
+import { nextPowerOfTwo, realFft } from '../math/index.js';
 import type { StringRender } from '../string/index.js';
 
 /**
@@ -56,6 +56,17 @@ export function pickupDelaySamples(guitar: Pick<Guitar, 'coils'>, strings: Pick<
     });
   }
   return Math.ceil(longestS * strings.sampleRateHz);
+}
+
+/**
+ * The frame the coil spectra of a render (or of its plan, `planPhrase`) take: the common delay D
+ * (pickupDelaySamples) and the FFT size N = nextPowerOfTwo(L + D), so that no render wraps around
+ * (computeCoilSpectra below). One place, so a thread that plans the frame before the strings are rendered
+ * gets the size the render takes.
+ */
+export function coilFrame(guitar: Pick<Guitar, 'coils'>, strings: Pick<StringRender, 'length' | 'waveSpeedsMps' | 'sampleRateHz'>): { delay: number; fftSize: number } {
+  const delay = pickupDelaySamples(guitar, strings);
+  return { delay, fftSize: nextPowerOfTwo(strings.length + delay) };
 }
 
 /**

@@ -1,1 +1,1 @@
-export { computeCoilSpectra, pickupDelaySamples } from './compute-coil-spectra.js';
+export { coilFrame, computeCoilSpectra, pickupDelaySamples } from './compute-coil-spectra.js';

@@ -16,7 +16,7 @@ import type { SpectralBasis } from '../analysis/index.js';
 import { type RenderAnalysis, type RenderAnalysisJob, measureRenderAnalysis } from './render-analysis.js';
 import type { Network } from '../wiring/index.js';
 import { MEASURING_THREAD_LIMITS, jobResult, startRenderWorker } from './worker-threads.js';
-import { ENCODE_THREAD_MIN_FILES } from './encode-thread.js';
+import { encodeThreadPays } from './encode-thread.js';
 import type { WorkerFailure } from './worker-failure.js';
 import type { CoilSignals } from './synthesize-wirings.js';
 import type { ListeningReport } from '../report/index.js';
@@ -40,15 +40,14 @@ export interface PageJob {
 }
 
 /**
- * Renders whose page is made on the analysis thread: those of fewer files than
- * take an encoding thread (ENCODE_THREAD_MIN_FILES, encode-thread.ts), whose
- * second core is otherwise idle while the files are written. With more, the
- * encoding thread has that core, and a kept analysis thread would only hold
- * its memory beside the render's worker (572 wirings: 232 → 283 MB peak when
- * it was kept).
+ * Renders whose page is made on the analysis thread: those whose files take no
+ * encoding thread (encodeThreadPays, encode-thread.ts), so the second core is
+ * otherwise idle while the files are written. With an encoding thread, it has
+ * that core, and a kept analysis thread would only hold its memory beside the
+ * render's worker (572 wirings: 232 → 283 MB peak when it was kept).
  */
 export function pageOnThread(renderedWirings: number): boolean {
-  return renderedWirings < ENCODE_THREAD_MIN_FILES;
+  return !encodeThreadPays(renderedWirings);
 }
 
 export interface PendingAnalysis {

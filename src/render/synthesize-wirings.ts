@@ -20,8 +20,8 @@ import {
 } from '../circuit/index.js';
 import { InputError } from '../errors/index.js';
 import type { Guitar } from '../guitar/index.js';
-import { type KernelHost, type RealFft, kernelHost, nextPowerOfTwo, realFft } from '../math/index.js';
-import { computeCoilSpectra, pickupDelaySamples } from '../pickup/index.js';
+import { type KernelHost, type RealFft, kernelHost, realFft } from '../math/index.js';
+import { coilFrame, computeCoilSpectra } from '../pickup/index.js';
 import { type Phrase, type StringOptions, renderPhrase } from '../string/index.js';
 import type { Network } from '../wiring/index.js';
 import { SPECTRUM_KERNEL_MAX_BYTES, createSpectrumKernel, spectrumKernelBytes } from './synthesis-kernel.js';
@@ -96,8 +96,7 @@ export function renderCoilSpectra(
   options: Pick<SynthesisOptions, 'sampleRateHz' | 'seed' | 'strings'>,
 ): { spectra: Float64Array[]; length: number; delay: number; fftSize: number } {
   const strings = renderPhrase(guitar, phrase, { ...options.strings, sampleRateHz: options.sampleRateHz, seed: options.seed });
-  const delay = pickupDelaySamples(guitar, strings);
-  const fftSize = nextPowerOfTwo(strings.length + delay);
+  const { delay, fftSize } = coilFrame(guitar, strings);
   const spectra = computeCoilSpectra(guitar, strings, fftSize);
   for (const spectrum of spectra) for (let k = 0; k < spectrum.length; k += 1) spectrum[k] = (spectrum[k] as number) * COIL_VOLTS_PER_METRE_PER_SECOND;
   // The centred pickup response (src/pickup/compute-coil-spectra.ts) of a note at t = 0 starts up to
